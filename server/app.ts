@@ -1,0 +1,73 @@
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+import express, { type Express } from "express";
+import helmet from "helmet";
+import cookieParser from "cookie-parser";
+import { pinoHttp } from "pino-http";
+import type { Logger } from "pino";
+import path from "node:path";
+import { randomUUID } from "node:crypto";
+import type { Config } from "./config.ts";
+import { RouteRegistry } from "./http/route-registry.ts";
+import { errorHandler, notFoundHandler } from "./http/error-handler.ts";
+import { sessionMiddleware, type CookieSettings } from "./http/session.ts";
+import { mailLimiter, signInLimiters } from "./http/rate-limits.ts";
+import { registerAuthRoutes } from "./routes/auth-routes.ts";
+import { registerOrganisationRoutes } from "./routes/organisation-routes.ts";
+import { registerSystemRoutes } from "./routes/system-routes.ts";
+import { useServiceSettings } from "./services/settings.ts";
+
+export const APP_VERSION = "0.1.0";
+export const BODY_LIMIT = "100kb";
+
+export function createApp(config: Config, logger: Logger): { app: Express; registry: RouteRegistry } {
+  useServiceSettings({ appUrl: config.APP_URL, bcryptCost: config.BCRYPT_COST });
+  const production = config.NODE_ENV === "production";
+  const cookies: CookieSettings = { secret: config.JWT_SECRET, hours: config.SESSION_HOURS, secure: config.COOKIE_SECURE };
+  const limits = { perIp: config.LOGIN_LIMIT_PER_IP, perAccount: config.LOGIN_LIMIT_PER_ACCOUNT, windowMinutes: config.LOGIN_WINDOW_MINUTES };
+
+  const app = express();
+  app.disable("x-powered-by");
+  app.set("trust proxy", "loopback");
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const incoming = req.headers["x-request-id"];
+        const id = typeof incoming === "string" && /^[\w-]{8,64}$/.test(incoming) ? incoming : randomUUID();
+        res.setHeader("X-Request-Id", id);
+        return id;
+      },
+      autoLogging: { ignore: (req) => req.url === "/api/health" },
+    }),
+  );
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { "frame-ancestors": ["'none'"], "object-src": ["'none'"], "img-src": ["'self'", "data:", "blob:"] },
+      },
+      strictTransportSecurity: production && config.COOKIE_SECURE,
+    }),
+  );
+  app.use(cookieParser());
+  app.use("/api", express.json({ limit: BODY_LIMIT }));
+  app.use("/api", sessionMiddleware(cookies));
+  app.use("/api/auth/sign-in", ...signInLimiters(limits));
+  app.use("/api/auth/password-reset/request", mailLimiter(limits));
+
+  const router = express.Router();
+  const registry = new RouteRegistry(router);
+  registerSystemRoutes(registry, { version: APP_VERSION, devInboxUrl: config.DEV_INBOX_URL });
+  registerAuthRoutes(registry, cookies);
+  registerOrganisationRoutes(registry);
+  app.use(router);
+  app.use("/api", notFoundHandler);
+
+  if (config.CLIENT_DIR) {
+    const dir = path.resolve(config.CLIENT_DIR);
+    app.use(express.static(dir, { index: false, maxAge: production ? "1h" : 0 }));
+    // Any other GET is a client-side route: serve the single page.
+    app.get(/.*/, (_req, res) => res.sendFile(path.join(dir, "index.html")));
+  }
+  app.use(errorHandler(production));
+  return { app, registry };
+}

@@ -1,0 +1,58 @@
+/** Configuration read once at boot from the environment; a bad value stops the process with every bad key listed. */
+import { z } from "zod";
+
+const bool = z.enum(["true", "false", "1", "0"]).transform((v) => v === "true" || v === "1");
+const DEV_SECRET = "cellarpact-development-secret-not-for-production-use";
+
+const schema = z
+  .object({
+    NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+    HOST: z.string().default("127.0.0.1"),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    APP_URL: z.url().optional(),
+    DB_HOST: z.string().default("127.0.0.1"),
+    DB_PORT: z.coerce.number().int().min(1).max(65535).default(3407),
+    DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/).default("cellarpact"),
+    DB_USER: z.string().default("cellarpact"),
+    DB_PASSWORD: z.string().default("cellarpact-local"),
+    DB_POOL_MAX: z.coerce.number().int().min(1).max(50).default(5),
+    JWT_SECRET: z.string().min(32).default(DEV_SECRET),
+    SESSION_HOURS: z.coerce.number().positive().max(24 * 7).default(8),
+    COOKIE_SECURE: bool.default(false),
+    BCRYPT_COST: z.coerce.number().int().min(4).max(15).optional(),
+    SMTP_HOST: z.string().default("127.0.0.1"),
+    SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+    MAIL_FROM: z.string().default("Cellarpact <no-reply@cellarpact.test>"),
+    DEV_INBOX_URL: z.url().optional(),
+    OUTBOX_POLL_MS: z.coerce.number().int().min(10).default(1000),
+    OUTBOX_RETRY_BASE_MS: z.coerce.number().int().min(10).default(2000),
+    OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(12),
+    LOGIN_LIMIT_PER_IP: z.coerce.number().int().min(1).default(30),
+    LOGIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(8),
+    LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+    CLIENT_DIR: z.string().optional(),
+    LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+  })
+  .superRefine((c, ctx) => {
+    if (c.NODE_ENV === "production" && c.JWT_SECRET === DEV_SECRET) {
+      ctx.addIssue({ code: "custom", path: ["JWT_SECRET"], message: "set a secret of your own in production" });
+    }
+  });
+
+export type Config = z.infer<typeof schema> & { APP_URL: string; BCRYPT_COST: number };
+
+export class ConfigError extends Error {}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = schema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new ConfigError(`Invalid configuration:\n${lines.join("\n")}`);
+  }
+  const c = parsed.data;
+  return {
+    ...c,
+    APP_URL: c.APP_URL ?? `http://${c.HOST}:${c.PORT}`,
+    BCRYPT_COST: c.BCRYPT_COST ?? (c.NODE_ENV === "production" ? 12 : 10),
+  };
+}

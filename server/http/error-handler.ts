@@ -1,0 +1,58 @@
+/** Turns anything thrown into a problem+json response; hides internals in production. */
+import type { ErrorRequestHandler, RequestHandler } from "express";
+import { ZodError } from "zod";
+import { HttpError, validationFailed } from "./problem.ts";
+import { zodFieldErrors } from "./validate.ts";
+
+interface BodyParserError {
+  type?: string;
+  status?: number;
+  limit?: number;
+}
+
+function toHttpError(err: unknown): HttpError | null {
+  if (err instanceof HttpError) return err;
+  if (err instanceof ZodError) return validationFailed(zodFieldErrors(err));
+  const e = err as BodyParserError;
+  if (e?.type === "entity.parse.failed") return new HttpError(400, "Malformed JSON", "The request body is not valid JSON.");
+  if (e?.type === "entity.too.large")
+    return new HttpError(413, "Payload too large", `The request body exceeds the limit of ${e.limit} bytes.`);
+  if (e?.type === "encoding.unsupported" || e?.type === "charset.unsupported")
+    return new HttpError(415, "Unsupported media type", "Send the body as UTF-8 JSON.");
+  return null;
+}
+
+export function errorHandler(production: boolean): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    const known = toHttpError(err);
+    const status = known?.status ?? 500;
+    if (!known) req.log?.error({ err }, "unhandled error");
+    const body: Record<string, unknown> = {
+      type: "about:blank",
+      title: known?.title ?? "Internal server error",
+      status,
+      detail: known?.detail ?? "Something went wrong on our side. The request id identifies it in the server log.",
+      instance: req.originalUrl,
+      requestId: req.id,
+    };
+    if (known?.errors) body.errors = known.errors;
+    if (!known && !production && err instanceof Error) body.stack = err.stack;
+    res.status(status).type("application/problem+json").send(JSON.stringify(body));
+  };
+}
+
+export const notFoundHandler: RequestHandler = (req, res) => {
+  res
+    .status(404)
+    .type("application/problem+json")
+    .send(
+      JSON.stringify({
+        type: "about:blank",
+        title: "Not found",
+        status: 404,
+        detail: `No API route matches ${req.method} ${req.path}.`,
+        instance: req.originalUrl,
+        requestId: req.id,
+      }),
+    );
+};

@@ -1,0 +1,77 @@
+/**
+ * Every API route is declared here with its access rule and zod schemas. The same declaration
+ * registers the Express handler, validates input and feeds the OpenAPI document.
+ */
+import type { Request, Response, Router } from "express";
+import type { ZodType } from "zod";
+import { enforceAccess, type Access } from "./access.ts";
+import { parseOrThrow } from "./validate.ts";
+import { idParam } from "../../shared/ids.ts";
+import type { SessionMembership, SessionUser } from "../services/session-service.ts";
+
+type Method = "get" | "post" | "put" | "patch" | "delete";
+
+export interface RouteSpec<B = unknown, Q = unknown, P = unknown> {
+  method: Method;
+  path: string;
+  summary: string;
+  tag: string;
+  access: Access;
+  body?: ZodType<B>;
+  query?: ZodType<Q>;
+  params?: ZodType<P>;
+  /** Status sent when the handler returns a value; 200 by default. */
+  status?: number;
+  /** Status codes other than success and the generic ones, with what they mean. */
+  errors?: Record<number, string>;
+  /** Response media type when it is not JSON. */
+  produces?: string;
+}
+
+export interface RouteContext<B, Q, P> {
+  req: Request;
+  res: Response;
+  body: B;
+  query: Q;
+  params: P;
+  user: SessionUser | null;
+  membership: SessionMembership | undefined;
+}
+
+export interface SignedInContext<B, Q, P> extends RouteContext<B, Q, P> {
+  user: SessionUser;
+}
+
+export class RouteRegistry {
+  readonly routes: RouteSpec[] = [];
+
+  constructor(private readonly router: Router) {}
+
+  add<B = undefined, Q = undefined, P = undefined>(
+    spec: RouteSpec<B, Q, P>,
+    handler: (ctx: SignedInContext<B, Q, P>) => Promise<unknown> | unknown,
+  ): void {
+    if (this.routes.some((r) => r.method === spec.method && r.path === spec.path)) {
+      throw new Error(`route declared twice: ${spec.method} ${spec.path}`);
+    }
+    this.routes.push(spec as RouteSpec);
+    this.router[spec.method](spec.path, async (req: Request, res: Response) => {
+      const orgId = req.params.orgId === undefined ? undefined : parseOrThrow(idParam, req.params.orgId, "params");
+      const membership = enforceAccess(spec.access, req.user ?? null, orgId);
+      const ctx = {
+        req,
+        res,
+        body: spec.body ? parseOrThrow(spec.body, req.body, "body") : (undefined as B),
+        query: spec.query ? parseOrThrow(spec.query, req.query, "query") : (undefined as Q),
+        params: spec.params ? parseOrThrow(spec.params, req.params, "params") : (undefined as P),
+        // Public routes may run without a user; the handler of a non-public route always has one.
+        user: req.user as SessionUser,
+        membership,
+      };
+      const result = await handler(ctx);
+      if (res.headersSent) return;
+      if (result === undefined) res.status(spec.status ?? 204).end();
+      else res.status(spec.status ?? 200).json(result);
+    });
+  }
+}

@@ -1,0 +1,54 @@
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {
+  declare seq: number;
+  declare occurredAt: Date;
+  declare actorUserId: number | null;
+  declare organisationId: number | null;
+  declare action: string;
+  declare entityType: string;
+  declare entityId: string | null;
+  declare beforeDigest: string | null;
+  declare afterDigest: string | null;
+  declare details: Record<string, unknown> | null;
+  declare prevHash: string;
+  declare hash: string;
+
+  static initModel(sequelize: Sequelize) {
+    AuditEvent.init(
+      {
+        seq: { type: DataTypes.BIGINT, primaryKey: true },
+        occurredAt: { type: DataTypes.DATE(3), allowNull: false },
+        actorUserId: { type: DataTypes.INTEGER, allowNull: true },
+        organisationId: { type: DataTypes.INTEGER, allowNull: true },
+        action: { type: DataTypes.STRING(80), allowNull: false },
+        entityType: { type: DataTypes.STRING(40), allowNull: false },
+        entityId: { type: DataTypes.STRING(64), allowNull: true },
+        beforeDigest: { type: DataTypes.CHAR(64), allowNull: true },
+        afterDigest: { type: DataTypes.CHAR(64), allowNull: true },
+        details: { type: DataTypes.JSON, allowNull: true },
+        prevHash: { type: DataTypes.CHAR(64), allowNull: false },
+        hash: { type: DataTypes.CHAR(64), allowNull: false },
+      },
+      { sequelize, tableName: "audit_events", underscored: true, timestamps: false },
+    );
+  }
+}
+
+/** One row: the last sequence number and hash, used as the append lock and as the tail checkpoint. */
+export class AuditHead extends Model<InferAttributes<AuditHead>, InferCreationAttributes<AuditHead>> {
+  declare id: number;
+  declare lastSeq: number;
+  declare lastHash: string;
+
+  static initModel(sequelize: Sequelize) {
+    AuditHead.init(
+      {
+        id: { type: DataTypes.TINYINT, primaryKey: true },
+        lastSeq: { type: DataTypes.BIGINT, allowNull: false },
+        lastHash: { type: DataTypes.CHAR(64), allowNull: false },
+      },
+      { sequelize, tableName: "audit_head", underscored: true, timestamps: false },
+    );
+  }
+}

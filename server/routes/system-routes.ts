@@ -1,0 +1,32 @@
+import type { RouteRegistry } from "../http/route-registry.ts";
+import { PUBLIC } from "../http/access.ts";
+import { buildOpenApi } from "../http/openapi.ts";
+import { databaseHealth } from "../services/health-service.ts";
+import { readDevInbox } from "../services/dev-inbox-service.ts";
+import { HttpError } from "../http/problem.ts";
+
+export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; devInboxUrl?: string }): void {
+  r.add({ method: "get", path: "/api/health", tag: "system", summary: "Service and database state", access: PUBLIC, errors: { 503: "database down" } }, async ({ res }) => {
+    const db = await databaseHealth();
+    res.status(db.status === "up" ? 200 : 503);
+    return { status: db.status === "up" ? "ok" : "degraded", version: opts.version, database: db };
+  });
+
+  r.add({ method: "get", path: "/api/openapi.json", tag: "system", summary: "This API's OpenAPI 3.1 document", access: PUBLIC }, () =>
+    buildOpenApi(r.routes, opts.version),
+  );
+
+  if (opts.devInboxUrl) {
+    const url = opts.devInboxUrl;
+    r.add(
+      { method: "get", path: "/api/dev/inbox", tag: "system", summary: "Mail caught by the local SMTP fake (demo and development only)", access: PUBLIC, errors: { 502: "the mail fake is not running" } },
+      async () => {
+        try {
+          return await readDevInbox(url);
+        } catch (err) {
+          throw new HttpError(502, "Mail fake unavailable", `Could not read the local mail fake: ${(err as Error).message}`);
+        }
+      },
+    );
+  }
+}

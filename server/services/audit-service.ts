@@ -1,0 +1,148 @@
+/**
+ * Append-only, hash-chained audit log. Each entry's hash covers its content and the previous hash;
+ * the audit_head row serialises appends and acts as the checkpoint for the tail.
+ */
+import type { Transaction } from "sequelize";
+import { Op } from "sequelize";
+import { AuditEvent, AuditHead } from "../models/audit-event.ts";
+import { canonicalJson, sha256 } from "../lib/crypto.ts";
+
+export const GENESIS_HASH = "0".repeat(64);
+
+export interface AuditInput {
+  actorUserId: number | null;
+  organisationId: number | null;
+  action: string;
+  entityType: string;
+  entityId: string | number | null;
+  before?: unknown;
+  after?: unknown;
+  details?: Record<string, unknown>;
+}
+
+interface ChainedFields {
+  seq: number;
+  occurredAt: Date;
+  actorUserId: number | null;
+  organisationId: number | null;
+  action: string;
+  entityType: string;
+  entityId: string | null;
+  beforeDigest: string | null;
+  afterDigest: string | null;
+  details: Record<string, unknown> | null;
+  prevHash: string;
+}
+
+export function entryHash(e: ChainedFields): string {
+  return sha256(
+    canonicalJson({
+      seq: e.seq,
+      occurredAt: e.occurredAt.toISOString(),
+      actorUserId: e.actorUserId,
+      organisationId: e.organisationId,
+      action: e.action,
+      entityType: e.entityType,
+      entityId: e.entityId,
+      beforeDigest: e.beforeDigest,
+      afterDigest: e.afterDigest,
+      details: e.details,
+      prevHash: e.prevHash,
+    }),
+  );
+}
+
+const digest = (v: unknown) => (v === undefined ? null : sha256(canonicalJson(v)));
+
+/** Records one event inside the caller's transaction, so the event exists exactly when the change does. */
+export async function recordAudit(t: Transaction, input: AuditInput): Promise<number> {
+  const head = await AuditHead.findByPk(1, { transaction: t, lock: t.LOCK.UPDATE });
+  if (!head) throw new Error("audit_head row missing; run the migrations");
+  const fields: ChainedFields = {
+    seq: head.lastSeq + 1,
+    occurredAt: new Date(),
+    actorUserId: input.actorUserId,
+    organisationId: input.organisationId,
+    action: input.action,
+    entityType: input.entityType,
+    entityId: input.entityId === null ? null : String(input.entityId),
+    beforeDigest: digest(input.before),
+    afterDigest: digest(input.after),
+    details: input.details ?? null,
+    prevHash: head.lastHash,
+  };
+  const hash = entryHash(fields);
+  await AuditEvent.create({ ...fields, hash }, { transaction: t });
+  await head.update({ lastSeq: fields.seq, lastHash: hash }, { transaction: t });
+  return fields.seq;
+}
+
+export interface ChainVerification {
+  ok: boolean;
+  checked: number;
+  lastSeq: number;
+  firstBroken?: { seq: number; reason: string };
+}
+
+/** Walks the whole chain in order; reports the first entry that does not match, or a tail that was cut. */
+export async function verifyAuditChain(batchSize = 2000): Promise<ChainVerification> {
+  const head = await AuditHead.findByPk(1);
+  let prevHash = GENESIS_HASH;
+  let expectedSeq = 1;
+  let checked = 0;
+  const broken = (seq: number, reason: string): ChainVerification => ({
+    ok: false,
+    checked,
+    lastSeq: head?.lastSeq ?? 0,
+    firstBroken: { seq, reason },
+  });
+  for (;;) {
+    const rows = await AuditEvent.findAll({
+      where: { seq: { [Op.gte]: expectedSeq } },
+      order: [["seq", "ASC"]],
+      limit: batchSize,
+    });
+    if (rows.length === 0) break;
+    for (const row of rows) {
+      if (row.seq !== expectedSeq) return broken(expectedSeq, `entry ${expectedSeq} is missing`);
+      if (row.prevHash !== prevHash) return broken(row.seq, "its link to the previous entry does not match");
+      if (entryHash(row) !== row.hash) return broken(row.seq, "its content does not match its hash");
+      prevHash = row.hash;
+      expectedSeq += 1;
+      checked += 1;
+    }
+  }
+  const lastSeq = expectedSeq - 1;
+  if (!head) return broken(lastSeq, "the checkpoint row is missing");
+  if (head.lastSeq !== lastSeq || head.lastHash !== prevHash) {
+    return broken(Math.min(lastSeq, head.lastSeq) + 1, `the chain ends at entry ${lastSeq} but the checkpoint records entry ${head.lastSeq}`);
+  }
+  return { ok: true, checked, lastSeq };
+}
+
+export interface AuditEntryView {
+  seq: number;
+  occurredAt: string;
+  actorUserId: number | null;
+  organisationId: number | null;
+  action: string;
+  entityType: string;
+  entityId: string | null;
+  details: Record<string, unknown> | null;
+  hash: string;
+}
+
+export async function listOrganisationAudit(organisationId: number, limit = 100): Promise<AuditEntryView[]> {
+  const rows = await AuditEvent.findAll({ where: { organisationId }, order: [["seq", "DESC"]], limit, raw: true });
+  return rows.map((r) => ({
+    seq: r.seq,
+    occurredAt: new Date(r.occurredAt).toISOString(),
+    actorUserId: r.actorUserId,
+    organisationId: r.organisationId,
+    action: r.action,
+    entityType: r.entityType,
+    entityId: r.entityId,
+    details: typeof r.details === "string" ? JSON.parse(r.details) : r.details,
+    hash: r.hash,
+  }));
+}

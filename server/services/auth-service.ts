@@ -1,0 +1,130 @@
+/** Sign-in, sign-out, password reset and password change. */
+import bcrypt from "bcryptjs";
+import { Op } from "sequelize";
+import { User } from "../models/user.ts";
+import { PasswordReset } from "../models/password-reset.ts";
+import { inTransaction } from "../db/database.ts";
+import { recordAudit } from "./audit-service.ts";
+import { enqueueMail } from "./outbox-service.ts";
+import { passwordResetMail } from "../mail/templates.ts";
+import { randomToken, sha256 } from "../lib/crypto.ts";
+import { serviceSettings } from "./settings.ts";
+import { gone, unauthorized, validationFailed } from "../http/problem.ts";
+import { toSessionUser, type SessionUser } from "./session-service.ts";
+
+export const SIGN_IN_FAILED = "The e-mail address or the password is not right.";
+const RESET_MINUTES = 60;
+// Compared against when the account does not exist, so both failures take the same time.
+const DUMMY_HASH = bcrypt.hashSync("cellarpact-dummy-password", 4);
+
+export const hashPassword = (password: string) => bcrypt.hash(password, serviceSettings().bcryptCost);
+
+export async function signIn(email: string, password: string): Promise<{ user: SessionUser; sessionVersion: number }> {
+  const user = await User.findOne({ where: { email } });
+  const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
+  if (!user || !user.passwordHash || !ok) {
+    await inTransaction((t) =>
+      recordAudit(t, {
+        actorUserId: null,
+        organisationId: null,
+        action: "auth.sign_in_failed",
+        entityType: "user",
+        entityId: user?.id ?? null,
+        details: { reason: "bad credentials" },
+      }),
+    );
+    throw unauthorized(SIGN_IN_FAILED);
+  }
+  const sessionUser = await toSessionUser(user);
+  await inTransaction((t) =>
+    recordAudit(t, {
+      actorUserId: user.id,
+      organisationId: sessionUser.memberships[0]?.organisationId ?? null,
+      action: "auth.sign_in",
+      entityType: "user",
+      entityId: user.id,
+    }),
+  );
+  return { user: sessionUser, sessionVersion: user.sessionVersion };
+}
+
+/** Revokes every session of the user, not only the current cookie. */
+export async function signOut(userId: number): Promise<void> {
+  await inTransaction(async (t) => {
+    await User.increment("sessionVersion", { where: { id: userId }, transaction: t });
+    await recordAudit(t, { actorUserId: userId, organisationId: null, action: "auth.sign_out", entityType: "user", entityId: userId });
+  });
+}
+
+/** Always succeeds from the caller's view, so the answer does not reveal which addresses have accounts. */
+export async function requestPasswordReset(email: string): Promise<void> {
+  const user = await User.findOne({ where: { email } });
+  if (!user || !user.passwordHash) return;
+  const token = randomToken();
+  await inTransaction(async (t) => {
+    await PasswordReset.create(
+      { userId: user.id, tokenHash: sha256(token), expiresAt: new Date(Date.now() + RESET_MINUTES * 60_000) },
+      { transaction: t },
+    );
+    await enqueueMail(
+      t,
+      passwordResetMail({
+        to: user.email,
+        name: user.name,
+        link: `${serviceSettings().appUrl}/reset-password/${token}`,
+        expiresMinutes: RESET_MINUTES,
+      }),
+    );
+    await recordAudit(t, { actorUserId: null, organisationId: null, action: "auth.reset_requested", entityType: "user", entityId: user.id });
+  });
+}
+
+export async function resetPassword(token: string, password: string): Promise<void> {
+  const passwordHash = await hashPassword(password);
+  await inTransaction(async (t) => {
+    const reset = await PasswordReset.findOne({
+      where: { tokenHash: sha256(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
+      lock: t.LOCK.UPDATE,
+      transaction: t,
+    });
+    if (!reset) throw gone("This reset link has expired or was already used. Ask for a new one.");
+    await reset.update({ usedAt: new Date() }, { transaction: t });
+    const user = await User.findByPk(reset.userId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!user) throw gone("The account no longer exists.");
+    await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction: t });
+    await recordAudit(t, { actorUserId: user.id, organisationId: null, action: "auth.password_reset", entityType: "user", entityId: user.id });
+  });
+}
+
+export async function changePassword(userId: number, current: string, next: string): Promise<number> {
+  const user = await User.findByPk(userId);
+  if (!user?.passwordHash || !(await bcrypt.compare(current, user.passwordHash))) {
+    throw validationFailed([{ path: "currentPassword", message: "The current password is not right." }]);
+  }
+  const passwordHash = await hashPassword(next);
+  return inTransaction(async (t) => {
+    const sessionVersion = user.sessionVersion + 1;
+    await user.update({ passwordHash, sessionVersion }, { transaction: t });
+    await recordAudit(t, { actorUserId: userId, organisationId: null, action: "auth.password_changed", entityType: "user", entityId: userId });
+    return sessionVersion;
+  });
+}
+
+export async function updateProfile(userId: number, name: string): Promise<SessionUser> {
+  return inTransaction(async (t) => {
+    const user = await User.findByPk(userId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!user) throw unauthorized();
+    const before = { name: user.name };
+    await user.update({ name }, { transaction: t });
+    await recordAudit(t, {
+      actorUserId: userId,
+      organisationId: null,
+      action: "user.profile_updated",
+      entityType: "user",
+      entityId: userId,
+      before,
+      after: { name },
+    });
+    return toSessionUser(user);
+  });
+}
