@@ -141,7 +141,7 @@ export async function previewInvitation(token: string) {
  */
 export async function acceptInvitation(token: string, name: string, password: string): Promise<{ user: SessionUser; sessionVersion: number }> {
   const passwordHash = await hashPassword(password);
-  return inTransaction(async (t) => {
+  const user = await inTransaction(async (t) => {
     const inv = await findUsable(token, t);
     let user = await User.findOne({ where: { email: inv.email }, transaction: t, lock: t.LOCK.UPDATE });
     if (user?.passwordHash) throw conflict("An account with this e-mail address exists already. Sign in, then ask the admin to add you.");
@@ -158,6 +158,7 @@ export async function acceptInvitation(token: string, name: string, password: st
       after: { email: inv.email, role: inv.role },
       details: { email: inv.email, role: inv.role },
     });
-    return { user: await toSessionUser(user), sessionVersion: user.sessionVersion };
+    return user;
   });
+  return { user: await toSessionUser(user), sessionVersion: user.sessionVersion };
 }

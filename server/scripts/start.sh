@@ -1,0 +1,36 @@
+#!/usr/bin/env bash
+# One command for the demo: MariaDB, the mail fake, migrations, demo data, the client build, the server.
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+
+export PORT="${PORT:-3000}"
+export SMTP_PORT="${SMTP_PORT:-2525}"
+export MAIL_FAKE_HTTP_PORT="${MAIL_FAKE_HTTP_PORT:-2580}"
+export DB_NAME="${DB_NAME:-cellarpact}"
+
+bash server/scripts/db.sh start
+
+mkdir -p .data
+# A secret per checkout, kept beside the data, so sessions survive a restart but no secret is committed.
+[ -s .data/session-secret ] || node -e 'process.stdout.write(require("crypto").randomBytes(48).toString("base64url"))' > .data/session-secret
+export JWT_SECRET="$(cat .data/session-secret)"
+
+node --import tsx server/scripts/migrate.ts up
+node --import tsx server/scripts/migrate.ts seed
+node node_modules/vite/bin/vite.js build --logLevel warn
+
+node --import tsx server/fakes/run-mail-fake.ts &
+FAKE=$!
+cleanup() {
+  kill "$FAKE" 2>/dev/null || true
+  [ -n "${APP:-}" ] && kill "$APP" 2>/dev/null || true
+  wait 2>/dev/null || true
+  bash server/scripts/db.sh stop
+}
+trap cleanup EXIT INT TERM
+
+NODE_ENV=production CLIENT_DIR=dist DEV_INBOX_URL="http://127.0.0.1:$MAIL_FAKE_HTTP_PORT" \
+  APP_URL="${APP_URL:-http://127.0.0.1:$PORT}" node --import tsx server/main.ts &
+APP=$!
+echo "Demo accounts are listed in README.md (password Cellarpact-demo-2026). Mail inbox: http://127.0.0.1:$PORT/dev/inbox"
+wait "$APP"

@@ -1,0 +1,27 @@
+/** The app's navigation, and which roles see each entry. */
+import type { Role } from "../../shared/auth/roles.ts";
+import type { SessionMembership, SessionUser } from "../features/auth/api/session.ts";
+
+export interface NavItem {
+  label: string;
+  to: string;
+  /** Organisation roles that see this item; undefined means every member. */
+  roles?: readonly Role[];
+  platformAdminOnly?: boolean;
+}
+
+export const NAV_ITEMS: readonly NavItem[] = [
+  { label: "Overview", to: "/" },
+  { label: "Members", to: "/members", roles: ["org_admin"] },
+  { label: "Activity log", to: "/activity", roles: ["org_admin"] },
+  { label: "Organisations", to: "/platform/organisations", platformAdminOnly: true },
+  { label: "Profile", to: "/profile" },
+];
+
+export function visibleNav(user: SessionUser, membership: SessionMembership | undefined): NavItem[] {
+  return NAV_ITEMS.filter((item) => {
+    if (item.platformAdminOnly) return user.isPlatformAdmin;
+    if (!item.roles) return true;
+    return membership !== undefined && item.roles.includes(membership.role);
+  });
+}

@@ -1,0 +1,29 @@
+import { createBrowserRouter, RouterProvider } from "react-router-dom";
+import { AppShell } from "./app-shell.tsx";
+import { RouteError } from "./route-error.tsx";
+
+// Every page is its own chunk; the shell and sign-in guard load first.
+const router = createBrowserRouter([
+  { path: "/sign-in", lazy: () => import("../features/auth/sign-in-page.tsx").then((m) => ({ Component: m.SignInPage })), errorElement: <RouteError /> },
+  { path: "/forgot-password", lazy: () => import("../features/auth/forgot-password-page.tsx").then((m) => ({ Component: m.ForgotPasswordPage })) },
+  { path: "/reset-password/:token", lazy: () => import("../features/auth/reset-password-page.tsx").then((m) => ({ Component: m.ResetPasswordPage })) },
+  { path: "/accept-invitation/:token", lazy: () => import("../features/auth/accept-invitation-page.tsx").then((m) => ({ Component: m.AcceptInvitationPage })) },
+  { path: "/dev/inbox", lazy: () => import("../features/dev-inbox/dev-inbox-page.tsx").then((m) => ({ Component: m.DevInboxPage })) },
+  {
+    path: "/",
+    element: <AppShell />,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, lazy: () => import("../features/home/home-page.tsx").then((m) => ({ Component: m.HomePage })) },
+      { path: "members", lazy: () => import("../features/members/members-page.tsx").then((m) => ({ Component: m.MembersPage })) },
+      { path: "activity", lazy: () => import("../features/audit/activity-page.tsx").then((m) => ({ Component: m.ActivityPage })) },
+      { path: "profile", lazy: () => import("../features/profile/profile-page.tsx").then((m) => ({ Component: m.ProfilePage })) },
+      { path: "platform/organisations", lazy: () => import("../features/platform/organisations-page.tsx").then((m) => ({ Component: m.OrganisationsPage })) },
+      { path: "*", element: <RouteError notFound /> },
+    ],
+  },
+]);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,127 @@
+import { useQuery } from "@tanstack/react-query";
+import { useState } from "react";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { ROLE_LABELS, ROLES_BY_KIND, type Role } from "../../../shared/auth/roles.ts";
+import { invitationsQueryOptions, membersQueryOptions, useChangeRole, useRemoveMember, useRevokeInvitation } from "./api/members.ts";
+import { InviteForm } from "./invite-form.tsx";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { errorMessage } from "../../lib/api-client.ts";
+
+const date = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+
+export function MembersPage() {
+  const { user, membership } = useShellContext();
+  if (!membership || membership.role !== "org_admin") {
+    return <EmptyState title="Only an organisation admin manages members.">Ask your admin to invite people or change roles.</EmptyState>;
+  }
+  const orgId = membership.organisationId;
+  return (
+    <>
+      <PageHeader title="Members" lead={`People who work in ${membership.organisationName} on Cellarpact, and the roles that decide what they can do.`} />
+      <div className="flex flex-col gap-6">
+        <Card title="Invite someone">
+          <InviteForm orgId={orgId} kind={membership.organisationKind} />
+        </Card>
+        <MemberTable orgId={orgId} kind={membership.organisationKind} selfId={user.id} />
+        <OpenInvitations orgId={orgId} />
+      </div>
+    </>
+  );
+}
+
+function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeof ROLES_BY_KIND; selfId: number }) {
+  const members = useQuery(membersQueryOptions(orgId));
+  const changeRole = useChangeRole(orgId);
+  const remove = useRemoveMember(orgId);
+  const [error, setError] = useState<string | null>(null);
+  const onError = (err: unknown) => setError(errorMessage(err));
+
+  return (
+    <Card title="Current members">
+      {error && <Notice tone="error">{error}</Notice>}
+      {members.isPending && <LoadingState />}
+      {members.isError && <ErrorState error={members.error} onRetry={() => members.refetch()} />}
+      {members.data?.length === 0 && <EmptyState title="No members yet." />}
+      {members.data && members.data.length > 0 && (
+        <table className="mt-2 w-full text-left text-sm">
+          <thead className="border-b border-line text-ink-500">
+            <tr>
+              <th scope="col" className="py-2 pr-4 font-semibold">Name</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">E-mail</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Role</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Member since</th>
+              <th scope="col" className="py-2 font-semibold"><span className="sr-only">Actions</span></th>
+            </tr>
+          </thead>
+          <tbody>
+            {members.data.map((m) => (
+              <tr key={m.membershipId} className="border-b border-line/60">
+                <td className="py-2 pr-4 font-semibold">{m.name}{m.userId === selfId && " (you)"}</td>
+                <td className="py-2 pr-4">{m.email}</td>
+                <td className="py-2 pr-4">
+                  <label className="sr-only" htmlFor={`role-${m.membershipId}`}>Role of {m.name}</label>
+                  <select
+                    id={`role-${m.membershipId}`}
+                    className="rounded border border-line bg-white px-2 py-1"
+                    value={m.role}
+                    disabled={changeRole.isPending}
+                    onChange={(e) => {
+                      setError(null);
+                      changeRole.mutate({ membershipId: m.membershipId, role: e.target.value as Role }, { onError });
+                    }}
+                  >
+                    {ROLES_BY_KIND[kind].map((r) => (
+                      <option key={r} value={r}>{ROLE_LABELS[r]}</option>
+                    ))}
+                  </select>
+                </td>
+                <td className="py-2 pr-4">{date(m.since)}</td>
+                <td className="py-2 text-right">
+                  <Button
+                    variant="danger"
+                    disabled={remove.isPending}
+                    onClick={() => {
+                      if (!window.confirm(`Remove ${m.name} from the organisation?`)) return;
+                      setError(null);
+                      remove.mutate(m.membershipId, { onError });
+                    }}
+                  >
+                    Remove
+                  </Button>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </Card>
+  );
+}
+
+function OpenInvitations({ orgId }: { orgId: number }) {
+  const invitations = useQuery(invitationsQueryOptions(orgId));
+  const revoke = useRevokeInvitation(orgId);
+  return (
+    <Card title="Open invitations">
+      {invitations.isPending && <LoadingState />}
+      {invitations.isError && <ErrorState error={invitations.error} onRetry={() => invitations.refetch()} />}
+      {invitations.data?.length === 0 && <EmptyState title="No open invitations.">Invitations you send appear here until they are accepted.</EmptyState>}
+      {invitations.data && invitations.data.length > 0 && (
+        <ul className="divide-y divide-line/60">
+          {invitations.data.map((inv) => (
+            <li key={inv.id} className="flex flex-wrap items-center justify-between gap-2 py-2 text-sm">
+              <span>
+                <strong>{inv.email}</strong> as {ROLE_LABELS[inv.role]} · expires {date(inv.expiresAt)}
+              </span>
+              <Button variant="secondary" disabled={revoke.isPending} onClick={() => revoke.mutate(inv.id)}>
+                Revoke
+              </Button>
+            </li>
+          ))}
+        </ul>
+      )}
+    </Card>
+  );
+}

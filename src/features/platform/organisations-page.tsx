@@ -1,0 +1,136 @@
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { createOrganisationSchema, type CreateOrganisationInput } from "../../../shared/auth/schemas.ts";
+import { ORGANISATION_KINDS, ORGANISATION_KIND_LABELS, type OrganisationKind } from "../../../shared/auth/roles.ts";
+import { api } from "../../lib/api-client.ts";
+import { applyServerErrors } from "../../lib/form-errors.ts";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { SelectField, TextField } from "../../components/ui/field.tsx";
+import { Button } from "../../components/ui/button.tsx";
+
+interface OrganisationRow {
+  id: number;
+  name: string;
+  kind: OrganisationKind;
+  country: string;
+  memberCount: number;
+}
+
+interface ChainVerification {
+  ok: boolean;
+  checked: number;
+  lastSeq: number;
+  firstBroken?: { seq: number; reason: string };
+}
+
+const organisationsQuery = { queryKey: ["platform", "organisations"], queryFn: () => api<OrganisationRow[]>("/api/platform/organisations") };
+
+export function OrganisationsPage() {
+  const { user } = useShellContext();
+  if (!user.isPlatformAdmin) return <EmptyState title="Only a platform admin manages organisations." />;
+  return (
+    <>
+      <PageHeader title="Organisations" lead="Retailers, producers and laboratories on this Cellarpact platform." />
+      <div className="flex flex-col gap-6">
+        <OrganisationList />
+        <CreateOrganisation />
+        <ChainCheck />
+      </div>
+    </>
+  );
+}
+
+function OrganisationList() {
+  const orgs = useQuery(organisationsQuery);
+  return (
+    <Card title="All organisations">
+      {orgs.isPending && <LoadingState />}
+      {orgs.isError && <ErrorState error={orgs.error} onRetry={() => orgs.refetch()} />}
+      {orgs.data?.length === 0 && <EmptyState title="No organisations yet." />}
+      {orgs.data && orgs.data.length > 0 && (
+        <table className="w-full text-left text-sm">
+          <thead className="border-b border-line text-ink-500">
+            <tr>
+              <th scope="col" className="py-2 pr-4 font-semibold">Name</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Kind</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Country</th>
+              <th scope="col" className="py-2 font-semibold">Members</th>
+            </tr>
+          </thead>
+          <tbody>
+            {orgs.data.map((o) => (
+              <tr key={o.id} className="border-b border-line/60">
+                <td className="py-2 pr-4 font-semibold">{o.name}</td>
+                <td className="py-2 pr-4">{ORGANISATION_KIND_LABELS[o.kind]}</td>
+                <td className="py-2 pr-4">{o.country}</td>
+                <td className="py-2 tabular-nums">{o.memberCount}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </Card>
+  );
+}
+
+function CreateOrganisation() {
+  const qc = useQueryClient();
+  const [msg, setMsg] = useState<{ tone: "success" | "error"; text: string } | null>(null);
+  const create = useMutation({
+    mutationFn: (v: CreateOrganisationInput) => api<OrganisationRow>("/api/platform/organisations", { method: "POST", body: v }),
+  });
+  const { register, handleSubmit, setError, reset, formState } = useForm<CreateOrganisationInput>({
+    resolver: zodResolver(createOrganisationSchema),
+    defaultValues: { name: "", kind: "producer", country: "", adminEmail: "" },
+  });
+  const onSubmit = handleSubmit((v) =>
+    create.mutate(v, {
+      onSuccess: (org) => {
+        setMsg({ tone: "success", text: `${org.name} is open; its admin has been invited by e-mail.` });
+        reset();
+        void qc.invalidateQueries({ queryKey: organisationsQuery.queryKey });
+      },
+      onError: (err) => {
+        const rest = applyServerErrors(err, setError, ["name", "kind", "country", "adminEmail"]);
+        if (rest) setMsg({ tone: "error", text: rest });
+      },
+    }),
+  );
+  return (
+    <Card title="Open an organisation">
+      <form onSubmit={onSubmit} noValidate className="grid gap-4 md:grid-cols-2">
+        {msg && <div className="md:col-span-2"><Notice tone={msg.tone}>{msg.text}</Notice></div>}
+        <TextField label="Name" error={formState.errors.name?.message} {...register("name")} />
+        <SelectField label="Kind" options={ORGANISATION_KINDS.map((k) => ({ value: k, label: ORGANISATION_KIND_LABELS[k] }))} error={formState.errors.kind?.message} {...register("kind")} />
+        <TextField label="Country" hint="Two letters, e.g. FR" maxLength={2} error={formState.errors.country?.message} {...register("country")} />
+        <TextField label="First admin's e-mail" type="email" error={formState.errors.adminEmail?.message} {...register("adminEmail")} />
+        <div className="md:col-span-2">
+          <Button type="submit" disabled={create.isPending}>Open the organisation</Button>
+        </div>
+      </form>
+    </Card>
+  );
+}
+
+function ChainCheck() {
+  const verify = useMutation({ mutationFn: () => api<ChainVerification>("/api/platform/audit/verify") });
+  return (
+    <Card title="Audit chain">
+      <p className="mb-4 text-sm text-ink-700">Recomputes every entry's SHA-256 hash and its link to the previous one, and compares the end of the chain with the checkpoint.</p>
+      {verify.data?.ok && <Notice tone="success">The chain is intact: {verify.data.checked} entries checked.</Notice>}
+      {verify.data && !verify.data.ok && (
+        <Notice tone="error">
+          The chain is broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.
+        </Notice>
+      )}
+      {verify.isError && <ErrorState error={verify.error} />}
+      <Button className="mt-4" variant="secondary" disabled={verify.isPending} onClick={() => verify.mutate()}>
+        {verify.isPending ? "Verifying…" : "Verify the chain"}
+      </Button>
+    </Card>
+  );
+}

@@ -1,0 +1,108 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import request from "supertest";
+import jwt from "jsonwebtoken";
+import { buildTestApp, DEMO, DEMO_PASSWORD, signInAs, type TestApp } from "../support/api.ts";
+import { startTestMail, linkIn } from "../support/mail.ts";
+import { SIGN_IN_FAILED } from "../../server/services/auth-service.ts";
+
+let t: TestApp;
+let mail: Awaited<ReturnType<typeof startTestMail>>;
+beforeAll(async () => {
+  t = buildTestApp();
+  mail = await startTestMail();
+});
+afterAll(async () => {
+  await mail.stop();
+  await t.close();
+});
+
+describe("sign-in", () => {
+  it("when the password is right, then a session cookie is HttpOnly and SameSite and the CSRF token comes back", async () => {
+    const res = await request(t.app).post("/api/auth/sign-in").send({ email: DEMO.buyerTechnologist, password: DEMO_PASSWORD });
+    expect(res.status).toBe(200);
+    const cookies = ([] as string[]).concat(res.headers["set-cookie"] ?? []);
+    const session = cookies.find((c) => c.startsWith("cp_session="))!;
+    expect(session).toMatch(/HttpOnly/);
+    expect(session).toMatch(/SameSite=Lax/);
+    expect(res.body.csrfToken).toMatch(/^[\w-]{20,}$/);
+    expect(res.body.user.memberships[0]).toMatchObject({ organisationId: 1, role: "buyer_technologist" });
+  });
+
+  it("when the user is unknown or the password wrong, then both get the same 401 message (OWASP ASVS 2.2 account enumeration, common practice)", async () => {
+    const unknown = await request(t.app).post("/api/auth/sign-in").send({ email: "nobody@example.test", password: "whatever-123" });
+    const wrong = await request(t.app).post("/api/auth/sign-in").send({ email: DEMO.labAdmin, password: "not-the-password" });
+    expect(unknown.status).toBe(401);
+    expect(wrong.status).toBe(401);
+    expect(unknown.body.detail).toBe(SIGN_IN_FAILED);
+    expect(wrong.body.detail).toBe(unknown.body.detail);
+  });
+
+  it("when one account fails too often, then further attempts are refused with 429 even with the right password", async () => {
+    const email = DEMO.bulkProducerQuality;
+    for (let i = 0; i < 5; i++) {
+      expect((await request(t.app).post("/api/auth/sign-in").send({ email, password: `wrong-${i}` })).status).toBe(401);
+    }
+    const blocked = await request(t.app).post("/api/auth/sign-in").send({ email, password: DEMO_PASSWORD });
+    expect(blocked.status).toBe(429);
+    expect(blocked.body.detail).toMatch(/Too many failed sign-in attempts/);
+  });
+});
+
+describe("session tokens and CSRF", () => {
+  it("when a cookie-authenticated write lacks the CSRF header, then it is refused with 403 and nothing changes", async () => {
+    const { agent, csrf } = await signInAs(t.app, DEMO.producerAdmin);
+    const refused = await agent.patch("/api/me").send({ name: "Changed Without Token" });
+    expect(refused.status).toBe(403);
+    const me = await agent.get("/api/auth/session");
+    expect(me.body.user.name).toBe("Mathieu Rocheval");
+    const ok = await agent.patch("/api/me").set("x-csrf-token", csrf).send({ name: "Mathieu Rocheval" });
+    expect(ok.status).toBe(200);
+  });
+
+  it("when a token is signed with alg none or tampered, then the caller is anonymous", async () => {
+    const none = jwt.sign({ sv: 0 }, "", { algorithm: "none", subject: "1", jwtid: "x" });
+    const res = await request(t.app).get("/api/orgs/1/members").set("Cookie", `cp_session=${none}`);
+    expect(res.status).toBe(401);
+    const forged = jwt.sign({ sv: 0 }, "some-other-secret-some-other-secret", { algorithm: "HS256", subject: "2", jwtid: "y" });
+    expect((await request(t.app).get("/api/orgs/1/members").set("Cookie", `cp_session=${forged}`)).status).toBe(401);
+  });
+
+  it("when the user signs out, then the old cookie no longer works", async () => {
+    const res = await request(t.app).post("/api/auth/sign-in").send({ email: DEMO.labAnalyst, password: DEMO_PASSWORD });
+    const oldCookie = ([] as string[]).concat(res.headers["set-cookie"] ?? []).find((c) => c.startsWith("cp_session="))!.split(";")[0]!;
+    expect((await request(t.app).get("/api/orgs/5/members").set("Cookie", oldCookie)).status).toBe(200);
+    const { agent, csrf } = await signInAs(t.app, DEMO.labAnalyst);
+    expect((await agent.post("/api/auth/sign-out").set("x-csrf-token", csrf)).status).toBe(204);
+    const after = await request(t.app).get("/api/orgs/5/members").set("Cookie", oldCookie);
+    expect(after.status).toBe(401);
+  });
+});
+
+describe("password reset by mailed one-time link", () => {
+  it("when a reset is requested, then the mailed link sets a new password once and only once", async () => {
+    const email = DEMO.buyerFinance;
+    const asked = await request(t.app).post("/api/auth/password-reset/request").send({ email });
+    expect(asked.status).toBe(202);
+    await mail.deliver();
+    const [message] = mail.to(email);
+    expect(message?.subject).toBe("Reset your Cellarpact password");
+    const token = linkIn(message!.text, "/reset-password");
+
+    const newPassword = "Harvest-moon-2027";
+    expect((await request(t.app).post("/api/auth/password-reset").send({ token, password: newPassword })).status).toBe(200);
+    expect((await request(t.app).post("/api/auth/password-reset").send({ token, password: "Another-one-2028" })).status).toBe(410);
+    expect((await request(t.app).post("/api/auth/sign-in").send({ email, password: newPassword })).status).toBe(200);
+    // Put the demo password back for the browser tests.
+    await request(t.app).post("/api/auth/password-reset/request").send({ email });
+    await mail.deliver();
+    const again = linkIn(mail.to(email).at(-1)!.text, "/reset-password");
+    expect((await request(t.app).post("/api/auth/password-reset").send({ token: again, password: DEMO_PASSWORD })).status).toBe(200);
+  });
+
+  it("when the address has no account, then the answer is the same and no mail is queued", async () => {
+    const res = await request(t.app).post("/api/auth/password-reset/request").send({ email: "ghost@example.test" });
+    expect(res.status).toBe(202);
+    await mail.deliver();
+    expect(mail.to("ghost@example.test")).toHaveLength(0);
+  });
+});
