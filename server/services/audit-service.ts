@@ -5,6 +5,7 @@
 import type { Transaction } from "sequelize";
 import { Op } from "sequelize";
 import { AuditEvent, AuditHead } from "../models/audit-event.ts";
+import { User } from "../models/user.ts";
 import { canonicalJson, sha256 } from "../lib/crypto.ts";
 
 export const GENESIS_HASH = "0".repeat(64);
@@ -125,6 +126,7 @@ export interface AuditEntryView {
   occurredAt: string;
   actorUserId: number | null;
   organisationId: number | null;
+  actorName: string | null;
   action: string;
   entityType: string;
   entityId: string | null;
@@ -134,11 +136,15 @@ export interface AuditEntryView {
 
 export async function listOrganisationAudit(organisationId: number, limit = 100): Promise<AuditEntryView[]> {
   const rows = await AuditEvent.findAll({ where: { organisationId }, order: [["seq", "DESC"]], limit, raw: true });
+  const actorIds = [...new Set(rows.map((r) => r.actorUserId).filter((id): id is number => id !== null))];
+  const actors = await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"], raw: true });
+  const nameOf = new Map(actors.map((a) => [a.id, a.name]));
   return rows.map((r) => ({
     seq: r.seq,
     occurredAt: new Date(r.occurredAt).toISOString(),
     actorUserId: r.actorUserId,
     organisationId: r.organisationId,
+    actorName: r.actorUserId === null ? null : (nameOf.get(r.actorUserId) ?? `user ${r.actorUserId}`),
     action: r.action,
     entityType: r.entityType,
     entityId: r.entityId,

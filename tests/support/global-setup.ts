@@ -13,7 +13,7 @@ export default async function setup() {
   try {
     await sequelize.authenticate();
   } catch (err) {
-    throw new Error(`MariaDB is not reachable on ${config.DB_HOST}:${config.DB_PORT}; run "bash server/scripts/db.sh start" first (${(err as Error).message})`);
+    throw new Error(`MariaDB is not reachable on ${config.DB_HOST}:${config.DB_PORT}; run "bash server/scripts/db.sh start" first (${(err as Error).message})`, { cause: err });
   }
   const tables = await sequelize.query<{ name: string }>(
     "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE()",

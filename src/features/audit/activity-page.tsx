@@ -7,7 +7,7 @@ import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states
 interface AuditEntry {
   seq: number;
   occurredAt: string;
-  actorUserId: number | null;
+  actorName: string | null;
   action: string;
   entityType: string;
   entityId: string | null;
@@ -47,6 +47,7 @@ export function ActivityPage() {
               <tr>
                 <th scope="col" className="py-2 pr-4 font-semibold">#</th>
                 <th scope="col" className="py-2 pr-4 font-semibold">When (UTC)</th>
+                <th scope="col" className="py-2 pr-4 font-semibold">Who</th>
                 <th scope="col" className="py-2 pr-4 font-semibold">What</th>
                 <th scope="col" className="py-2 pr-4 font-semibold">Details</th>
                 <th scope="col" className="py-2 font-semibold">Hash</th>
@@ -57,6 +58,7 @@ export function ActivityPage() {
                 <tr key={e.seq} className="border-b border-line/60 align-top">
                   <td className="py-2 pr-4 tabular-nums">{e.seq}</td>
                   <td className="py-2 pr-4 tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</td>
+                  <td className="py-2 pr-4">{e.actorName ?? "—"}</td>
                   <td className="py-2 pr-4">{ACTION_LABELS[e.action] ?? e.action}</td>
                   <td className="py-2 pr-4 text-ink-700">
                     {e.details ? Object.entries(e.details).map(([k, v]) => `${k}: ${String(v)}`).join(", ") : "—"}

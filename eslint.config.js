@@ -1,0 +1,72 @@
+// One lint config for the whole project. Besides the usual TypeScript and React hook rules it
+// enforces the import direction (see DEVELOPERS.md, "Boundaries").
+import js from "@eslint/js";
+import tseslint from "typescript-eslint";
+import reactHooks from "eslint-plugin-react-hooks";
+import globals from "globals";
+import path from "node:path";
+
+const root = import.meta.dirname;
+
+/** [importing folder, forbidden target folders, reason] — folders relative to the project root. */
+const BOUNDARIES = [
+  ["shared", ["src", "server", "migrations", "seeders", "tests"], "shared/ is pure domain code used by both sides"],
+  ["src", ["server", "migrations", "seeders"], "the client never imports server code; share it through shared/"],
+  ["server", ["src"], "the server never imports client code; share it through shared/"],
+  ["server/routes", ["server/models", "server/db"], "routes call services; only services touch models"],
+  ["server/http", ["server/models", "server/db", "server/routes"], "HTTP plumbing calls services, never models"],
+  ["server/services", ["server/routes"], "services do not know about routes"],
+  ["server/models", ["server/services", "server/routes", "server/http"], "models are the bottom layer"],
+];
+// shared/ may use only these packages: no I/O, no framework.
+const SHARED_PACKAGES = new Set(["zod"]);
+
+const inside = (file, folder) => file === folder || file.startsWith(`${folder}/`);
+
+const importDirection = {
+  meta: { type: "problem", schema: [], messages: { forbidden: "{{from}} must not import {{to}}: {{why}}." } },
+  create(context) {
+    const file = path.relative(root, context.filename).split(path.sep).join("/");
+    function check(node) {
+      const spec = node.source && typeof node.source.value === "string" ? node.source.value : null;
+      if (!spec) return;
+      if (inside(file, "shared") && !spec.startsWith(".")) {
+        const pkg = spec.startsWith("@") ? spec.split("/").slice(0, 2).join("/") : spec.split("/")[0];
+        if (!SHARED_PACKAGES.has(pkg)) {
+          context.report({ node, messageId: "forbidden", data: { from: "shared/", to: spec, why: "shared/ stays free of I/O and frameworks" } });
+        }
+        return;
+      }
+      if (!spec.startsWith(".")) return;
+      const target = path.relative(root, path.resolve(path.dirname(context.filename), spec)).split(path.sep).join("/");
+      for (const [from, forbidden, why] of BOUNDARIES) {
+        if (!inside(file, from)) continue;
+        const hit = forbidden.find((f) => inside(target, f));
+        if (hit) context.report({ node, messageId: "forbidden", data: { from: `${from}/`, to: `${hit}/`, why } });
+      }
+    }
+    return { ImportDeclaration: check, ExportNamedDeclaration: check, ExportAllDeclaration: check, ImportExpression: check };
+  },
+};
+
+export default tseslint.config(
+  { ignores: ["dist/**", "node_modules/**", ".data/**", "test-results/**"] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    files: ["**/*.{ts,tsx,js}"],
+    languageOptions: { globals: { ...globals.node, ...globals.browser } },
+    plugins: { cellarpact: { rules: { "import-direction": importDirection } } },
+    rules: {
+      "cellarpact/import-direction": "error",
+      "@typescript-eslint/consistent-type-imports": ["error", { fixStyle: "inline-type-imports" }],
+      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      "@typescript-eslint/no-namespace": "off",
+    },
+  },
+  {
+    files: ["src/**/*.tsx", "src/**/*.ts"],
+    plugins: { "react-hooks": reactHooks },
+    rules: { ...reactHooks.configs.recommended.rules },
+  },
+);

@@ -1,0 +1,105 @@
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { QueryTypes } from "sequelize";
+import { buildTestApp, type TestApp } from "../support/api.ts";
+import { inTransaction } from "../../server/db/database.ts";
+import { recordAudit, verifyAuditChain, GENESIS_HASH } from "../../server/services/audit-service.ts";
+import { sha256 } from "../../server/lib/crypto.ts";
+
+let t: TestApp;
+beforeAll(() => {
+  t = buildTestApp();
+});
+afterAll(() => t.close());
+
+interface Snapshot {
+  events: Record<string, unknown>[];
+  head: Record<string, unknown>;
+}
+
+const sql = (q: string, replacements?: unknown[]) => t.sequelize.query(q, { replacements, type: QueryTypes.RAW });
+
+async function snapshot(): Promise<Snapshot> {
+  const events = await t.sequelize.query<Record<string, unknown>>("SELECT * FROM audit_events ORDER BY seq", { type: QueryTypes.SELECT });
+  const [head] = await t.sequelize.query<Record<string, unknown>>("SELECT * FROM audit_head", { type: QueryTypes.SELECT });
+  return { events, head: head! };
+}
+
+/** Puts the table back exactly as it was, so each tamper case starts from an intact chain. */
+async function restore(s: Snapshot) {
+  await sql("DELETE FROM audit_events");
+  for (const e of s.events) {
+    const cols = Object.keys(e);
+    await sql(
+      `INSERT INTO audit_events (${cols.join(",")}) VALUES (${cols.map(() => "?").join(",")})`,
+      cols.map((c) => (c === "details" && e[c] !== null && typeof e[c] !== "string" ? JSON.stringify(e[c]) : e[c])),
+    );
+  }
+  await sql("UPDATE audit_head SET last_seq = ?, last_hash = ? WHERE id = 1", [s.head.last_seq, s.head.last_hash]);
+}
+
+let base: Snapshot;
+beforeAll(async () => {
+  for (let i = 0; i < 5; i++) {
+    await inTransaction((tx) =>
+      recordAudit(tx, { actorUserId: 2, organisationId: 1, action: "test.event", entityType: "thing", entityId: i, before: { v: i }, after: { v: i + 1 }, details: { i } }),
+    );
+  }
+  base = await snapshot();
+});
+beforeEach(() => restore(base));
+
+describe("hash-chained audit log (RFC 9162 §2.1-style chaining; OWASP ASVS V16 log integrity)", () => {
+  it("when nothing was touched, then the whole chain verifies", async () => {
+    const v = await verifyAuditChain();
+    expect(v.ok).toBe(true);
+    expect(v.checked).toBe(base.events.length);
+  });
+
+  it("when the first entry is checked, then it links to the all-zero genesis hash", () => {
+    expect(base.events[0]!.prev_hash).toBe(GENESIS_HASH);
+    expect(sha256("abc")).toBe("ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad"); // FIPS 180-2, Appendix B.1
+  });
+
+  const victim = () => Number(base.events[base.events.length - 3]!.seq);
+
+  for (const [column, value] of [
+    ["action", "'test.forged'"],
+    ["actor_user_id", "999"],
+    ["organisation_id", "4"],
+    ["entity_id", "'77'"],
+    ["after_digest", `'${"a".repeat(64)}'`],
+    ["details", `'{"i":42}'`],
+    ["occurred_at", "occurred_at + INTERVAL 1 SECOND"],
+    ["hash", `'${"b".repeat(64)}'`],
+  ] as const) {
+    it(`when ${column} of one entry is changed through raw SQL, then verification reports that entry`, async () => {
+      await sql(`UPDATE audit_events SET ${column} = ${value} WHERE seq = ?`, [victim()]);
+      const v = await verifyAuditChain();
+      expect(v.ok).toBe(false);
+      expect(v.firstBroken?.seq).toBe(victim());
+    });
+  }
+
+  it("when an entry in the middle is deleted, then verification reports the missing sequence number", async () => {
+    await sql("DELETE FROM audit_events WHERE seq = ?", [victim()]);
+    const v = await verifyAuditChain();
+    expect(v.firstBroken).toEqual({ seq: victim(), reason: `entry ${victim()} is missing` });
+  });
+
+  it("when the tail is cut off, then the checkpoint outside the table catches it", async () => {
+    const last = Number(base.events.at(-1)!.seq);
+    await sql("DELETE FROM audit_events WHERE seq >= ?", [last - 1]);
+    const v = await verifyAuditChain();
+    expect(v.ok).toBe(false);
+    expect(v.firstBroken?.seq).toBe(last - 1);
+  });
+
+  it("when an entry is rewritten with a recomputed hash, then the next entry's link exposes it", async () => {
+    const seq = victim();
+    const row = base.events.find((e) => Number(e.seq) === seq)!;
+    await sql("UPDATE audit_events SET hash = ? WHERE seq = ?", [sha256(`forged${row.hash}`), seq]);
+    const v = await verifyAuditChain();
+    expect(v.ok).toBe(false);
+    expect(v.firstBroken?.seq).toBe(seq);
+  });
+});

@@ -1,0 +1,59 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { expectAccessible, screenshot, signInThroughForm, signOut, startStack, type Stack } from "../support/stack.ts";
+import { DEMO } from "../support/api.ts";
+
+let s: Stack;
+beforeAll(async () => {
+  s = await startStack();
+});
+afterAll(() => s?.stop());
+
+const EXPECTED_NAV: [keyof typeof DEMO, string[]][] = [
+  ["buyerTechnologist", ["Overview", "Profile"]],
+  ["buyerFinance", ["Overview", "Profile"]],
+  ["retailerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
+  ["producerQuality", ["Overview", "Profile"]],
+  ["producerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
+  ["labAnalyst", ["Overview", "Profile"]],
+  ["platformAdmin", ["Overview", "Organisations", "Profile"]],
+];
+
+describe("each demo role signs in and sees its own navigation", () => {
+  it("when the sign-in page is shown, then it is accessible", async () => {
+    await s.page.goto(`${s.baseUrl}/sign-in`);
+    await s.page.getByRole("heading", { name: "Sign in" }).waitFor();
+    await expectAccessible(s.page, "sign-in");
+    await screenshot(s.page, "sign-in");
+    await s.page.getByRole("button", { name: "Sign in" }).click();
+    expect(await s.page.getByRole("alert").allTextContents()).toContain("Enter a valid e-mail address.");
+  });
+
+  for (const [who, nav] of EXPECTED_NAV) {
+    it(`when ${who} signs in, then the navigation shows ${nav.join(", ")}`, async () => {
+      await signInThroughForm(s.page, s.baseUrl, DEMO[who]);
+      const links = await s.page.getByRole("navigation", { name: "Main" }).getByRole("link").allTextContents();
+      expect(links).toEqual(nav);
+      await expectAccessible(s.page, `${who} overview`);
+      await screenshot(s.page, `overview-${who}`);
+      for (const label of nav.slice(1)) {
+        await s.page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: label }).click();
+        await s.page.getByRole("heading", { level: 1, name: label === "Activity log" ? "Activity log" : label }).waitFor();
+        await s.page.waitForLoadState("networkidle");
+        await expectAccessible(s.page, `${who} ${label}`);
+        await screenshot(s.page, `${who}-${label.toLowerCase().replace(/\s+/g, "-")}`);
+      }
+      await signOut(s.page);
+    });
+  }
+
+  it("when a signed-out visitor opens a deep link, then sign-in comes first and leads back there", async () => {
+    await s.page.goto(`${s.baseUrl}/profile`);
+    await s.page.getByRole("heading", { name: "Sign in" }).waitFor();
+    await s.page.getByLabel("E-mail address").fill(DEMO.labAnalyst);
+    await s.page.getByLabel("Password").fill("Cellarpact-demo-2026");
+    await s.page.getByRole("button", { name: "Sign in" }).click();
+    await s.page.getByRole("heading", { level: 1, name: "Profile" }).waitFor();
+    expect(new URL(s.page.url()).pathname).toBe("/profile");
+    await signOut(s.page);
+  });
+});

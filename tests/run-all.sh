@@ -1,0 +1,43 @@
+#!/usr/bin/env bash
+# The whole test suite: MariaDB, the client build, unit + API + browser tests, then "N passed, N failed".
+set -uo pipefail
+cd "$(dirname "$0")/.."
+
+if ! command -v chromium >/dev/null 2>&1 && [ ! -x /usr/bin/chromium ]; then
+  if [ "$(id -u)" = "0" ]; then
+    echo "Installing Debian's chromium for the browser tests..."
+    apt-get update -q >/dev/null && DEBIAN_FRONTEND=noninteractive apt-get install -y -q chromium >/dev/null || { echo "chromium install failed" >&2; exit 1; }
+  else
+    echo "Chromium is missing. Install it first, as root:" >&2
+    echo "  sudo apt-get update && sudo apt-get install -y chromium" >&2
+    exit 1
+  fi
+fi
+
+# Leave a database that was already running (e.g. the demo's server) as it was.
+bash server/scripts/db.sh status >/dev/null 2>&1 || STARTED_DB=1
+bash server/scripts/db.sh start || exit 1
+trap '[ -n "${STARTED_DB:-}" ] && bash server/scripts/db.sh stop >/dev/null' EXIT
+
+# Static checks count as tests: type-check and the lint that enforces the import direction.
+STATIC_PASSED=0
+STATIC_FAILED=0
+for check in "node node_modules/typescript/bin/tsc -p tsconfig.json" "node node_modules/eslint/bin/eslint.js --max-warnings=0 ."; do
+  if $check; then STATIC_PASSED=$((STATIC_PASSED + 1)); else STATIC_FAILED=$((STATIC_FAILED + 1)); echo "FAILED: $check"; fi
+done
+
+node node_modules/vite/bin/vite.js build --logLevel warn || { echo "$STATIC_PASSED passed, $((STATIC_FAILED + 1)) failed"; exit 1; }
+
+mkdir -p test-results
+REPORT=test-results/vitest.json
+rm -f "$REPORT"
+NO_COLOR=1 node node_modules/vitest/vitest.mjs run --reporter=default --reporter=json --outputFile="$REPORT"
+STATUS=$?
+if [ -f "$REPORT" ]; then
+  node -e 'const r=require("./'"$REPORT"'");console.log(`${r.numPassedTests + '"$STATIC_PASSED"'} passed, ${r.numFailedTests + '"$STATIC_FAILED"'} failed`)'
+else
+  echo "$STATIC_PASSED passed, $((STATIC_FAILED + 1)) failed"
+  STATUS=1
+fi
+[ "$STATIC_FAILED" -gt 0 ] && STATUS=1
+exit $STATUS

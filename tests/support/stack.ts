@@ -1,0 +1,116 @@
+/**
+ * The real stack for browser tests: the built client served by the real server process on the test
+ * database, the SMTP fake, and Debian's Chromium driven by playwright-core.
+ */
+import { spawn, execSync, type ChildProcess } from "node:child_process";
+import { existsSync, mkdtempSync, mkdirSync } from "node:fs";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { AxeBuilder } from "@axe-core/playwright";
+import { expect } from "vitest";
+import { startMailFake, type MailFake } from "../../server/fakes/mail-fake.ts";
+import { DEMO_PASSWORD } from "./api.ts";
+
+const root = path.resolve(import.meta.dirname, "../..");
+export const SCREENS = path.join(root, "test-results", "screens");
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once("error", reject);
+    srv.listen(0, "127.0.0.1", () => {
+      const port = (srv.address() as net.AddressInfo).port;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+function chromiumPath(): string {
+  for (const candidate of [process.env.CHROMIUM_PATH, "/usr/bin/chromium", "/usr/bin/chromium-browser"]) {
+    if (candidate && existsSync(candidate)) return candidate;
+  }
+  return execSync("command -v chromium", { encoding: "utf8" }).trim();
+}
+
+export interface Stack {
+  baseUrl: string;
+  mail: MailFake;
+  context: BrowserContext;
+  page: Page;
+  stop(): Promise<void>;
+}
+
+export async function startStack(): Promise<Stack> {
+  if (!existsSync(path.join(root, "dist", "index.html"))) throw new Error("dist/ is missing: run `npx vite build` before the browser tests");
+  const mail = await startMailFake();
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const server: ChildProcess = spawn(process.execPath, ["--import", "tsx", "server/main.ts"], {
+    cwd: root,
+    env: {
+      ...process.env,
+      PORT: String(port),
+      APP_URL: baseUrl,
+      CLIENT_DIR: "dist",
+      SMTP_PORT: String(mail.smtpPort),
+      DEV_INBOX_URL: `http://127.0.0.1:${mail.httpPort}`,
+      LOGIN_LIMIT_PER_ACCOUNT: "50",
+      LOG_LEVEL: "warn",
+    },
+    stdio: ["ignore", "inherit", "inherit"],
+  });
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    try {
+      if ((await fetch(`${baseUrl}/api/health`)).ok) break;
+    } catch {
+      /* not up yet */
+    }
+    if (Date.now() > deadline || server.exitCode !== null) throw new Error("the server did not start");
+    await new Promise((r) => setTimeout(r, 150));
+  }
+  const context = await chromium.launchPersistentContext(mkdtempSync(path.join(os.tmpdir(), "cellarpact-e2e-")), {
+    executablePath: chromiumPath(),
+    headless: true,
+    viewport: { width: 1280, height: 860 },
+    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+  });
+  const page = context.pages()[0] ?? (await context.newPage());
+  mkdirSync(SCREENS, { recursive: true });
+  return {
+    baseUrl,
+    mail,
+    context,
+    page,
+    async stop() {
+      await context.close();
+      server.kill("SIGTERM");
+      await new Promise((r) => server.once("exit", r));
+      await mail.stop();
+    },
+  };
+}
+
+export async function signInThroughForm(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.getByRole("navigation", { name: "Main" }).waitFor();
+}
+
+export async function signOut(page: Page) {
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await page.getByRole("heading", { name: "Sign in" }).waitFor();
+}
+
+/** axe-core on the current page: no serious or critical violation (WCAG 2.x rules as axe encodes them). */
+export async function expectAccessible(page: Page, label: string) {
+  const result = await new AxeBuilder({ page }).analyze();
+  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+  expect(bad.map((v) => `${label}: ${v.id} (${v.impact}) ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
+}
+
+export const screenshot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENS, `${name}.png`), fullPage: true });

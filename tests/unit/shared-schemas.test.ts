@@ -1,0 +1,21 @@
+import { describe, expect, it } from "vitest";
+import { newPasswordSchema, signInSchema, inviteSchema } from "../../shared/auth/schemas.ts";
+import { roleFitsKind } from "../../shared/auth/roles.ts";
+
+describe("shared schemas used by both the forms and the API", () => {
+  it("when an e-mail address has spaces and capitals, then it is trimmed and lower-cased", () => {
+    expect(signInSchema.parse({ email: "  Tessa.Marlow@Harbourline.TEST ", password: "x" }).email).toBe("tessa.marlow@harbourline.test");
+  });
+
+  it("when a password exceeds bcrypt's 72-byte input (OWASP Password Storage cheat sheet), then it is refused rather than silently cut", () => {
+    expect(newPasswordSchema.safeParse("é".repeat(36)).success).toBe(true); // 72 bytes
+    expect(newPasswordSchema.safeParse("é".repeat(37)).success).toBe(false); // 74 bytes
+  });
+
+  it("when a role belongs to another kind of organisation, then it does not fit", () => {
+    expect(roleFitsKind("buyer_technologist", "retailer")).toBe(true);
+    expect(roleFitsKind("buyer_technologist", "producer")).toBe(false);
+    expect(roleFitsKind("org_admin", "laboratory")).toBe(true);
+    expect(inviteSchema.safeParse({ email: "a@b.test", role: "sommelier" }).success).toBe(false);
+  });
+});
