@@ -3,9 +3,13 @@ import { loadConfig } from "../../server/config.ts";
 
 describe("configuration parsed once at boot", () => {
   it("when several keys are bad, then the error lists every one of them", () => {
-    expect(() => loadConfig({ PORT: "eighty", DB_PORT: "0", LOG_LEVEL: "loud", APP_URL: "not a url" })).toThrow(
-      /PORT[\s\S]*DB_PORT[\s\S]*APP_URL[\s\S]*LOG_LEVEL/,
-    );
+    let message = "";
+    try {
+      loadConfig({ PORT: "eighty", DB_PORT: "0", LOG_LEVEL: "loud", APP_URL: "not a url" });
+    } catch (err) {
+      message = (err as Error).message;
+    }
+    for (const key of ["PORT", "DB_PORT", "LOG_LEVEL", "APP_URL"]) expect(message).toMatch(new RegExp(`^  ${key}: `, "m"));
   });
 
   it("when production runs with the development secret, then boot is refused", () => {
