@@ -43,7 +43,13 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   app.use(
     helmet({
       contentSecurityPolicy: {
-        directives: { "frame-ancestors": ["'none'"], "object-src": ["'none'"], "img-src": ["'self'", "data:", "blob:"] },
+        directives: {
+          "frame-ancestors": ["'none'"],
+          "object-src": ["'none'"],
+          "img-src": ["'self'", "data:", "blob:"],
+          // The demo is served over plain HTTP; only ask browsers to upgrade when cookies are Secure.
+          "upgrade-insecure-requests": config.COOKIE_SECURE ? [] : null,
+        },
       },
       strictTransportSecurity: production && config.COOKIE_SECURE,
     }),
