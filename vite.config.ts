@@ -12,12 +12,10 @@ export default defineConfig({
   server: { host: "127.0.0.1", proxy: { "/api": "http://127.0.0.1:3000" } },
   test: {
     root: import.meta.dirname,
-    include: ["tests/**/*.test.ts"],
     // One MariaDB for all test files: run files one after another so they never race.
     fileParallelism: false,
     testTimeout: 30_000,
     hookTimeout: 60_000,
-    globalSetup: ["tests/support/global-setup.ts"],
     env: {
       NO_COLOR: "1",
       NODE_ENV: "test",
@@ -29,5 +27,10 @@ export default defineConfig({
       OUTBOX_RETRY_BASE_MS: "100",
       OUTBOX_POLL_MS: "50",
     },
+    projects: [
+      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.ts"] } },
+      // API and browser tests share the test database, rebuilt once before them.
+      { extends: true, test: { name: "integration", include: ["tests/api/**/*.test.ts", "tests/e2e/**/*.test.ts"], globalSetup: ["tests/support/global-setup.ts"] } },
+    ],
   },
 });

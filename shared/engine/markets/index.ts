@@ -1,0 +1,90 @@
+/** The market rule packs and the question each answers: which limits apply to this wine, and why. */
+import { convert } from "../units.ts";
+import { parameter, type ParameterId } from "../parameters.ts";
+import type { Citation } from "../labelling.ts";
+import type { LegalLimitRule, MarketId, MarketPack, WineProfile } from "./types.ts";
+import { EU_PACK } from "./eu.ts";
+import { US_PACK } from "./us.ts";
+import { OIV_PACK } from "./oiv.ts";
+import { CA_ON_PACK, CN_PACK, UK_QWS_PACK } from "./other.ts";
+
+export const MARKET_PACKS: Record<MarketId, MarketPack> = {
+  EU: EU_PACK,
+  US: US_PACK,
+  OIV: OIV_PACK,
+  "UK-QWS": UK_QWS_PACK,
+  CN: CN_PACK,
+  "CA-ON": CA_ON_PACK,
+};
+
+export const MARKET_IDS = Object.keys(MARKET_PACKS) as MarketId[];
+
+/** A legal limit that applies, already converted to the parameter's canonical unit. */
+export interface AppliedLimit {
+  market: MarketId;
+  marketName: string;
+  packVersion: string;
+  ruleId: string;
+  parameter: ParameterId;
+  side: "max" | "min";
+  /** In the parameter's canonical unit. */
+  value: number;
+  /** As the law writes it. */
+  statedValue: number;
+  statedUnit: string;
+  condition: string;
+  citation: Citation;
+  confirmed: string;
+}
+
+export interface UndeterminedLimit {
+  market: MarketId;
+  ruleId: string;
+  parameter: ParameterId;
+  condition: string;
+  missing: string[];
+}
+
+function toApplied(pack: MarketPack, rule: LegalLimitRule, densityGPerMl?: number): AppliedLimit {
+  const canonical = parameter(rule.parameter).unit;
+  return {
+    market: pack.id,
+    marketName: pack.name,
+    packVersion: pack.version,
+    ruleId: rule.id,
+    parameter: rule.parameter,
+    side: rule.side,
+    value: convert(rule.value, rule.unit, canonical, { densityGPerMl }),
+    statedValue: rule.value,
+    statedUnit: rule.unit,
+    condition: rule.condition,
+    citation: rule.citation,
+    confirmed: rule.confirmed,
+  };
+}
+
+/**
+ * Which limits of these markets apply to this wine. Rules that need a profile field the caller did
+ * not give are listed as undetermined, never guessed. mg/kg limits use the wine's density (1.000 g/mL
+ * when unknown, stated in the result).
+ */
+export function applicableLimits(
+  markets: readonly MarketId[],
+  profile: WineProfile,
+  opts: { parameter?: ParameterId; densityGPerMl?: number } = {},
+): { limits: AppliedLimit[]; undetermined: UndeterminedLimit[] } {
+  const limits: AppliedLimit[] = [];
+  const undetermined: UndeterminedLimit[] = [];
+  for (const id of markets) {
+    const pack = MARKET_PACKS[id];
+    for (const rule of pack.rules) {
+      if (opts.parameter && rule.parameter !== opts.parameter) continue;
+      const a = rule.applies(profile);
+      if (a === true) limits.push(toApplied(pack, rule, opts.densityGPerMl));
+      else if (a !== false) undetermined.push({ market: id, ruleId: rule.id, parameter: rule.parameter, condition: rule.condition, missing: a.missing });
+    }
+  }
+  return { limits, undetermined };
+}
+
+export type { MarketId, MarketPack, WineProfile } from "./types.ts";

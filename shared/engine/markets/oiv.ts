@@ -1,0 +1,72 @@
+/** OIV maximum acceptable limits (Compendium of International Methods, Annex C, OIV-MA-C1-01, 2019 issue). */
+import { needs, type LegalLimitRule, type MarketPack } from "./types.ts";
+
+const C1 = (what: string) => ({ document: "OIV Compendium of International Methods of Analysis, Annex C", article: `OIV-MA-C1-01, ${what}`, edition: "2019 issue" });
+const simple = (id: string, parameter: LegalLimitRule["parameter"], value: number, unit: LegalLimitRule["unit"], what: string, condition = "all wines"): LegalLimitRule => ({
+  id,
+  parameter,
+  side: "max",
+  value,
+  unit,
+  condition,
+  applies: () => true,
+  citation: C1(what),
+  confirmed: "read in the source",
+});
+
+export const OIV_PACK: MarketPack = {
+  id: "OIV",
+  name: "OIV maximum acceptable limits",
+  version: "2026.1",
+  edition: "OIV-MA-C1-01, 2019 issue",
+  rules: [
+    simple("oiv-va", "volatile_acidity", 20, "meq/L", "volatile acidity"),
+    simple("oiv-citric", "citric_acid", 1, "g/L", "citric acid"),
+    {
+      ...simple("oiv-copper", "copper", 1, "mg/L", "copper (OIV-OENO 434-2011)", "wines other than liqueur wines from unfermented or slightly fermented must"),
+      applies: (p) => p.category !== "liqueur",
+    },
+    { ...simple("oiv-copper-liqueur", "copper", 2, "mg/L", "copper (OIV-OENO 434-2011)", "liqueur wines from unfermented or slightly fermented must"), applies: (p) => p.category === "liqueur" },
+    {
+      ...simple("oiv-lead", "lead", 0.1, "mg/L", "lead (OIV-OENO 638-2019)", "wine from the 2019 harvest on"),
+      applies: (p) => (p.category === "liqueur" ? false : needs(p, ["harvestYear"], (q) => q.harvestYear >= 2019)),
+    },
+    {
+      ...simple("oiv-lead-old", "lead", 0.15, "mg/L", "lead", "wine from the 2006–2018 harvests"),
+      applies: (p) => (p.category === "liqueur" ? false : needs(p, ["harvestYear"], (q) => q.harvestYear >= 2006 && q.harvestYear <= 2018)),
+    },
+    {
+      ...simple("oiv-lead-liqueur", "lead", 0.15, "mg/L", "lead (OIV-OENO 638-2019)", "liqueur wine from the 2019 harvest on"),
+      applies: (p) => (p.category === "liqueur" ? needs(p, ["harvestYear"], (q) => q.harvestYear >= 2019) : false),
+    },
+    {
+      ...simple("oiv-ota", "ochratoxin_a", 2, "µg/L", "ochratoxin A (CST 1/2002)", "wine from the 2005 harvest on"),
+      applies: (p) => needs(p, ["harvestYear"], (q) => q.harvestYear >= 2005),
+    },
+    { ...simple("oiv-methanol-red", "methanol", 400, "mg/L", "methanol (OENO 19/2004)", "red wine"), applies: (p) => p.colour === "red" },
+    { ...simple("oiv-methanol-white", "methanol", 250, "mg/L", "methanol (OENO 19/2004)", "white and rosé wine"), applies: (p) => p.colour !== "red" },
+    {
+      ...simple("oiv-so2-red", "total_so2", 150, "mg/L", "sulphur dioxide", "red wine with at most 4 g/L reducing substances"),
+      applies: (p) => (p.colour === "red" ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL <= 4) : false),
+    },
+    {
+      ...simple("oiv-so2-white", "total_so2", 200, "mg/L", "sulphur dioxide", "white and rosé wine with at most 4 g/L reducing substances"),
+      applies: (p) => (p.colour !== "red" ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL <= 4) : false),
+    },
+    {
+      ...simple("oiv-so2-sweet", "total_so2", 300, "mg/L", "sulphur dioxide", "wine with more than 4 g/L reducing substances (glucose + fructose used as the estimate)"),
+      applies: (p) => needs(p, ["sugarGPerL"], (q) => q.sugarGPerL > 4),
+    },
+    {
+      id: "oiv-sorbic",
+      parameter: "sorbic_acid",
+      side: "max",
+      value: 200,
+      unit: "mg/L",
+      condition: "wine treated with potassium sorbate, expressed as sorbic acid",
+      applies: () => true,
+      citation: { document: "OIV International Oenological Codex", article: "COEI-1-POTSOR", edition: "2000" },
+      confirmed: "read in the source",
+    },
+  ],
+};

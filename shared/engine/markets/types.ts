@@ -1,0 +1,56 @@
+import type { Citation, WineCategory } from "../labelling.ts";
+import type { ParameterId } from "../parameters.ts";
+import type { UnitId } from "../units.ts";
+
+export type Colour = "red" | "white" | "rose";
+
+/** What a market's law needs to know about a wine to pick its limits. */
+export interface WineProfile {
+  colour: Colour;
+  category: WineCategory;
+  /** Glucose + fructose, g/L. */
+  sugarGPerL?: number;
+  harvestYear?: number;
+  alcoholPercentVol?: number;
+  /** EU wines listed for higher SO2 (2019/934 Annex I Part B A.2(c)–(e)). */
+  euSo2Derogation?: 300 | 350 | 400;
+  /** Wine made from unameliorated juice of 28 °Brix or more (27 CFR 4.21). */
+  usHighBrixJuice?: boolean;
+}
+
+/** true/false, or the profile fields the rule needs but did not get. */
+export type Applicability = true | false | { missing: (keyof WineProfile)[] };
+
+export interface LegalLimitRule {
+  id: string;
+  parameter: ParameterId;
+  /** max: results above the value do not conform; min: results below it do not. The value itself conforms. */
+  side: "max" | "min";
+  value: number;
+  unit: UnitId;
+  /** When the rule applies, in words. */
+  condition: string;
+  applies: (p: WineProfile) => Applicability;
+  citation: Citation;
+  /** How far the value was confirmed against its source. */
+  confirmed: string;
+}
+
+export interface MarketPack {
+  id: MarketId;
+  name: string;
+  /** Version of this pack in Cellarpact; bumped whenever a rule changes. */
+  version: string;
+  /** The state of the law the pack implements. */
+  edition: string;
+  rules: readonly LegalLimitRule[];
+}
+
+export type MarketId = "EU" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON";
+
+/** Helper for rules that need one profile field. */
+export function needs<K extends keyof WineProfile>(p: WineProfile, keys: K[], test: (p: Required<Pick<WineProfile, K>> & WineProfile) => boolean): Applicability {
+  const missing = keys.filter((k) => p[k] === undefined);
+  if (missing.length) return { missing };
+  return test(p as Required<Pick<WineProfile, K>> & WineProfile);
+}

@@ -1,0 +1,132 @@
+import { describe, expect, it } from "vitest";
+import { applicableLimits, MARKET_PACKS } from "../../../shared/engine/markets/index.ts";
+import { buildRequirement, validateBuyerRequirement, RequirementError } from "../../../shared/engine/requirement.ts";
+import { PARAMETERS } from "../../../shared/engine/parameters.ts";
+import type { WineProfile } from "../../../shared/engine/markets/types.ts";
+
+const redDry: WineProfile = { colour: "red", category: "still", sugarGPerL: 2, harvestYear: 2023, alcoholPercentVol: 13.5 };
+const whiteOffDry: WineProfile = { colour: "white", category: "still", sugarGPerL: 6, harvestYear: 2024, alcoholPercentVol: 11.5 };
+const only = (market: "EU" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON", p: WineProfile, parameter: (typeof PARAMETERS)[number]["id"]) =>
+  applicableLimits([market], p, { parameter }).limits;
+
+describe("catalogue", () => {
+  it("when the catalogue is listed, then it has at least 30 parameters, each with canonical unit among its accepted units", () => {
+    expect(PARAMETERS.length).toBeGreaterThanOrEqual(30);
+    for (const p of PARAMETERS) expect(p.units as readonly string[]).toContain(p.unit);
+    expect(new Set(PARAMETERS.map((p) => p.id)).size).toBe(PARAMETERS.length);
+  });
+
+  it("when a pack is listed, then every rule carries a citation and a confirmation note", () => {
+    for (const pack of Object.values(MARKET_PACKS)) {
+      expect(pack.version).toMatch(/\d/);
+      for (const rule of pack.rules) {
+        expect(rule.citation.document.length, rule.id).toBeGreaterThan(3);
+        expect(rule.citation.article.length, rule.id).toBeGreaterThan(1);
+        expect(rule.confirmed.length, rule.id).toBeGreaterThan(3);
+      }
+    }
+  });
+});
+
+describe("EU total SO2 (Delegated Reg. (EU) 2019/934 Annex I Part B section A)", () => {
+  it("when a red still wine has 2 g/L sugar, then 150 mg/L applies under point A.1(a)", () => {
+    const [l] = only("EU", redDry, "total_so2");
+    expect(l).toMatchObject({ value: 150, side: "max" });
+    expect(l!.citation.article).toMatch(/A\.1\(a\)/);
+  });
+
+  it("when sugar is exactly 5 g/L ('not less than five grams per litre'), then the higher band applies: 200 red, 250 white", () => {
+    expect(only("EU", { ...redDry, sugarGPerL: 5 }, "total_so2")[0]!.value).toBe(200);
+    expect(only("EU", { ...whiteOffDry, sugarGPerL: 5 }, "total_so2")[0]!.value).toBe(250);
+    expect(only("EU", { ...whiteOffDry, sugarGPerL: 4.9 }, "total_so2")[0]!.value).toBe(200);
+  });
+
+  it("when the wine is sparkling, quality sparkling or listed for a derogation, then 235, 185 or the listed value (KVNW summary of 2019/934)", () => {
+    expect(only("EU", { ...redDry, category: "sparkling" }, "total_so2").map((l) => l.value)).toEqual([235]);
+    expect(only("EU", { ...redDry, category: "quality-sparkling" }, "total_so2").map((l) => l.value)).toEqual([185]);
+    expect(only("EU", { ...whiteOffDry, euSo2Derogation: 400 }, "total_so2").map((l) => l.value)).toEqual([400]);
+  });
+
+  it("when sugar is unknown, then the SO2 limit is undetermined and says what is missing", () => {
+    const r = applicableLimits(["EU"], { colour: "red", category: "still" }, { parameter: "total_so2" });
+    expect(r.limits).toEqual([]);
+    expect(r.undetermined[0]!.missing).toEqual(["sugarGPerL"]);
+  });
+});
+
+describe("other EU, US, OIV and scheme limits", () => {
+  it("when lead is checked by harvest year, then 0.20 / 0.15 / 0.10 mg/kg (Reg. (EU) 2021/1317 as summarised by Federvini)", () => {
+    expect(only("EU", { ...redDry, harvestYear: 2010 }, "lead")[0]!.statedValue).toBe(0.2);
+    expect(only("EU", { ...redDry, harvestYear: 2018 }, "lead")[0]!.statedValue).toBe(0.15);
+    expect(only("EU", { ...redDry, harvestYear: 2022 }, "lead")[0]!.statedValue).toBe(0.1);
+    expect(applicableLimits(["EU"], { ...redDry, harvestYear: 2022 }, { parameter: "lead", densityGPerMl: 0.994 }).limits[0]!.value).toBeCloseTo(0.0994, 6);
+  });
+
+  it("when volatile acidity is checked in the US, then 0.14 g/100 mL red and 0.12 white, as acetic acid (27 CFR 4.21(a)(1)(iv))", () => {
+    const red = only("US", redDry, "volatile_acidity")[0]!;
+    expect(red.statedValue).toBe(0.14);
+    expect(red.value).toBeCloseTo(23.31, 2); // meq/L
+    expect(only("US", whiteOffDry, "volatile_acidity")[0]!.statedValue).toBe(0.12);
+  });
+
+  it("when CO2 in a US still wine is checked, then 0.392 + 0.009 g/100 mL (27 CFR 26.222(a))", () => {
+    expect(only("US", redDry, "carbon_dioxide")[0]!.value).toBeCloseTo(4.01, 10);
+  });
+
+  it("when OIV limits apply, then methanol 400 red / 250 white and lead 0.10 mg/L from the 2019 harvest (OIV-MA-C1-01, 2019 issue)", () => {
+    expect(only("OIV", redDry, "methanol")[0]!.value).toBe(400);
+    expect(only("OIV", whiteOffDry, "methanol")[0]!.value).toBe(250);
+    expect(only("OIV", redDry, "lead")[0]!.value).toBe(0.1);
+    expect(only("OIV", { ...redDry, harvestYear: 2015 }, "lead")[0]!.value).toBe(0.15);
+  });
+
+  it("when the English quality wine scheme applies, then free SO2 45 dry / 60 other, copper 0.5, iron 8 (UK SI 2011/2936 Sch. 2)", () => {
+    expect(only("UK-QWS", redDry, "free_so2")[0]!.value).toBe(45);
+    expect(only("UK-QWS", whiteOffDry, "free_so2")[0]!.value).toBe(60);
+    expect(only("UK-QWS", redDry, "copper")[0]!.value).toBe(0.5);
+    expect(only("UK-QWS", redDry, "iron")[0]!.value).toBe(8);
+  });
+
+  it("when wine goes to China or Ontario, then sugar-free extract minima and turbidity maxima by colour (Vintessential/Wine Australia; AWRI)", () => {
+    expect(only("CN", redDry, "sugar_free_extract")[0]).toMatchObject({ side: "min", value: 18 });
+    expect(only("CN", { ...redDry, colour: "rose" }, "sugar_free_extract")[0]!.value).toBe(17);
+    expect(only("CA-ON", whiteOffDry, "turbidity")[0]!.value).toBe(5);
+  });
+});
+
+describe("requirement = buyer range ∩ market law", () => {
+  const va = { parameter: "volatile_acidity", unit: "g/L as acetic acid", rule: { kind: "simple" as const } };
+
+  it("when the buyer's VA limit is looser than EU law, then the law governs and the warning cites it", () => {
+    const r = buildRequirement({ ...va, upper: 1.5 }, ["EU"], redDry);
+    expect(r.upper!.value).toBe(20);
+    expect(r.upper!.source.kind).toBe("law");
+    expect(r.issues[0]!.message).toMatch(/looser than the law: European Union allows at most 20 meq\/L \(Commission Delegated Regulation \(EU\) 2019\/934/);
+  });
+
+  it("when the buyer is stricter, then the buyer's limit governs", () => {
+    const r = buildRequirement({ ...va, upper: 0.9 }, ["EU", "US"], redDry);
+    expect(r.upper!.source).toEqual({ kind: "buyer" });
+    expect(r.upper!.value).toBeCloseTo(14.99, 2);
+  });
+
+  it("when a white wine goes to the EU and the US, then the strictest law governs and names its market", () => {
+    const r = buildRequirement({ ...va, upper: 2 }, ["US", "EU"], whiteOffDry);
+    expect(r.upper!.source.kind === "law" && r.upper!.source.limit.market).toBe("EU");
+    expect(r.upper!.value).toBe(18);
+    expect(r.legalLimits.map((l) => l.market).sort()).toEqual(["EU", "US"]);
+  });
+
+  it("when total acidity has only a legal minimum, then the law supplies the lower bound", () => {
+    const r = buildRequirement({ parameter: "total_acidity", unit: "g/L as tartaric acid", upper: 8, rule: { kind: "simple" } }, ["EU", "UK-QWS"], redDry);
+    expect(r.lower!.source.kind === "law" && r.lower!.source.limit.market).toBe("UK-QWS");
+    expect(r.lower!.value).toBeCloseTo(53.3, 1); // 4 g/L as tartaric acid
+  });
+
+  it("when the range is impossible, then each error names its field", () => {
+    expect(validateBuyerRequirement({ parameter: "ph", unit: "pH", lower: 3.8, upper: 3.2, rule: { kind: "simple" } })).toContainEqual({ severity: "error", field: "lower", message: "The lower limit (3.8) is above the upper limit (3.2)." });
+    expect(validateBuyerRequirement({ parameter: "ph", unit: "pH", lower: 3.2, upper: 3.6, target: 3.7, rule: { kind: "simple" } })).toContainEqual({ severity: "error", field: "target", message: "The target lies outside the range." });
+    expect(validateBuyerRequirement({ parameter: "alcohol", unit: "mg/L", upper: 14, rule: { kind: "simple" } })[0]!.message).toBe("mg/L is not a unit for Actual alcoholic strength; use % vol, g/L ethanol.");
+    expect(() => buildRequirement({ parameter: "alcohol", unit: "NTU", upper: 14, rule: { kind: "simple" } }, [], redDry)).toThrow(RequirementError);
+  });
+});

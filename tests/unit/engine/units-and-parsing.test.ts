@@ -1,0 +1,97 @@
+import { describe, expect, it } from "vitest";
+import { convert, quantity, UnitError, type MgPerL } from "../../../shared/engine/units.ts";
+import { parseReading, parseDecimal } from "../../../shared/engine/parse.ts";
+import { molecularSo2 } from "../../../shared/engine/derived.ts";
+
+describe("acid expressions", () => {
+  it("when 18 and 20 meq/L of volatile acidity are expressed as acetic acid, then 1.08 and 1.20 g/L (Oxford Companion to Wine 2006, 'volatile acidity': 1 meq = 0.060 g acetic)", () => {
+    expect(convert(18, "meq/L", "g/L as acetic acid")).toBeCloseTo(1.081, 3);
+    expect(convert(20, "meq/L", "g/L as acetic acid")).toBeCloseTo(1.201, 3);
+  });
+
+  it("when 18 and 20 meq/L are expressed as sulfuric acid, then 0.88 and 0.98 g/L (Bourgogne wines glossary, 'Volatile acidity': 1 meq = 0.049 g H2SO4)", () => {
+    expect(convert(18, "meq/L", "g/L as sulfuric acid")).toBeCloseTo(0.883, 3);
+    expect(convert(20, "meq/L", "g/L as sulfuric acid")).toBeCloseTo(0.981, 3);
+  });
+
+  it("when total acidity as sulfuric acid is converted to tartaric, then the factor is 1.531 (Institut Heidger, 'Total acid')", () => {
+    // Molar masses 150.09/2 and 98.08/2 give 1.5302; the source rounds to 1.531.
+    expect(convert(1, "g/L as sulfuric acid", "g/L as tartaric acid")).toBeCloseTo(1.531, 2);
+    expect(convert(1, "g/L as sulfuric acid", "meq/L")).toBeCloseTo(20.39, 2); // conversion table: 1 g/L H2SO4 = 20.39 meq/L
+  });
+
+  it("when the EU minimum of 3.5 g/L as tartaric acid is expressed in meq/L, then 46.6 (Reg. (EU) 1308/2013 Annex VII Part II point 1)", () => {
+    expect(convert(3.5, "g/L as tartaric acid", "meq/L")).toBeCloseTo(46.6, 1);
+  });
+
+  it("when the US limit of 0.14 g/100 mL (27 CFR 4.21) is expressed per litre, then 1.4 g/L as acetic acid", () => {
+    expect(convert(0.14, "g/100 mL as acetic acid", "g/L as acetic acid")).toBeCloseTo(1.4, 10);
+  });
+});
+
+describe("other conversions", () => {
+  it("when 12 % vol is expressed in g/L ethanol, then 94.71 (ethanol 789.24 kg/m³ at 20 °C: sum of the A coefficients, Council Directive 76/766/EEC Annex)", () => {
+    expect(convert(12, "% vol", "g/L ethanol")).toBeCloseTo(94.709, 3);
+    expect(convert(94.709, "g/L ethanol", "% vol")).toBeCloseTo(12, 3);
+  });
+
+  it("when counts are per 100 mL, then they scale by 100 (membrane filtration of 100 mL, common practice)", () => {
+    expect(convert(5, "CFU/100 mL", "CFU/mL")).toBeCloseTo(0.05, 10);
+    expect(convert(1, "CFU/mL", "CFU/100 mL")).toBe(100);
+  });
+
+  it("when mass concentrations change scale, then ng/L to g/100 mL and ppm = mg/L (27 CFR 4.22(b)(1) states SO2 in ppm)", () => {
+    expect(convert(2500, "ng/L", "µg/L")).toBeCloseTo(2.5, 10);
+    expect(convert(0.392, "g/100 mL", "g/L")).toBeCloseTo(3.92, 10);
+    expect(convert(350, "ppm", "mg/L")).toBe(350);
+  });
+
+  it("when a per-kilogram limit is compared with a per-litre result, then the wine's density converts it", () => {
+    expect(convert(0.1, "mg/kg", "mg/L", { densityGPerMl: 0.9936 })).toBeCloseTo(0.09936, 6);
+    expect(convert(2, "µg/kg", "µg/L", { densityGPerMl: 1 })).toBe(2);
+  });
+
+  it("when dimensions differ, then the conversion is refused", () => {
+    expect(() => convert(1, "mg/L", "meq/L")).toThrow(UnitError);
+    expect(() => convert(1, "NTU", "%")).toThrow(UnitError);
+  });
+
+  it("when a value of the wrong unit is passed to a typed function, then the compiler refuses it", () => {
+    const free = quantity(40, "mg/L");
+    const ph = quantity(3.5, "pH");
+    // @ts-expect-error: pH and mg/L swapped
+    expect(() => molecularSo2(ph, free)).not.toThrow();
+    // @ts-expect-error: a plain number has no unit
+    const plain: MgPerL = 40;
+    expect(plain).toBe(40);
+  });
+});
+
+describe("laboratory notation", () => {
+  it("when results use decimal commas or spaces between thousands, then they are read as numbers", () => {
+    expect(parseReading("12,5")).toEqual({ ok: true, reading: { kind: "value", value: 12.5 } });
+    expect(parseReading(" 0,35 ")).toEqual({ ok: true, reading: { kind: "value", value: 0.35 } });
+    expect(parseDecimal("1 234,5")).toBe(1234.5);
+    expect(parseDecimal("-0.2")).toBe(-0.2);
+  });
+
+  it("when a result is below or above the reportable range, then it stays censored", () => {
+    expect(parseReading("<0.5")).toEqual({ ok: true, reading: { kind: "below", limit: 0.5 } });
+    expect(parseReading("< 0,5")).toEqual({ ok: true, reading: { kind: "below", limit: 0.5 } });
+    expect(parseReading("> 300")).toEqual({ ok: true, reading: { kind: "above", limit: 300 } });
+    expect(parseReading("n.d.")).toEqual({ ok: true, reading: { kind: "below", limit: null } });
+    expect(parseReading("ND", { loq: 0.1 })).toEqual({ ok: true, reading: { kind: "below", limit: 0.1 } });
+  });
+
+  it("when a result is ambiguous or not a number, then the error says why", () => {
+    expect(parseReading("1,234.5")).toMatchObject({ ok: false, error: expect.stringContaining("mixes decimal marks") });
+    expect(parseReading("twelve")).toMatchObject({ ok: false, error: expect.stringContaining("is not a number") });
+    expect(parseReading("<")).toMatchObject({ ok: false });
+    expect(parseReading("")).toEqual({ ok: false, error: "No result given." });
+  });
+
+  it("when a present/absent parameter is read, then words map to presence", () => {
+    expect(parseReading("crystals", { presence: true })).toEqual({ ok: true, reading: { kind: "presence", present: true } });
+    expect(parseReading("none", { presence: true })).toEqual({ ok: true, reading: { kind: "presence", present: false } });
+  });
+});
