@@ -39,6 +39,9 @@ const importDirection = {
       }
       if (!spec.startsWith(".")) return;
       const target = path.relative(root, path.resolve(path.dirname(context.filename), spec)).split(path.sep).join("/");
+      if (inside(target, "shared/engine") && !inside(file, "shared/engine") && target !== "shared/engine/index.ts") {
+        context.report({ node, messageId: "forbidden", data: { from: file, to: target, why: "the engine's public API is shared/engine/index.ts" } });
+      }
       for (const [from, forbidden, why] of BOUNDARIES) {
         if (!inside(file, from)) continue;
         const hit = forbidden.find((f) => inside(target, f));

@@ -1,10 +1,6 @@
 import { describe, expect, it } from "vitest";
 import jStat from "jstat";
-import { normalCdf } from "../../../shared/engine/normal.ts";
-import { conformanceProbability, guardWidth, statementForSide, type DecisionRule } from "../../../shared/engine/decision.ts";
-import { buildRequirement } from "../../../shared/engine/requirement.ts";
-import { evaluate } from "../../../shared/engine/evaluate.ts";
-import type { WineProfile } from "../../../shared/engine/markets/types.ts";
+import { normalCdf, conformanceProbability, guardWidth, statementForSide, type DecisionRule, buildRequirement, evaluate, type WineProfile } from "../../../shared/engine/index.ts";
 
 const nonBinary: DecisionRule = { kind: "non-binary", guard: { kind: "expanded", k: 2 } };
 

@@ -1,7 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { quantity } from "../../../shared/engine/units.ts";
-import { boundSo2, fixedAcidity, freeSo2ForMolecular, molecularSo2, reducedExtract, sugarFreeExtract } from "../../../shared/engine/derived.ts";
-import { euAlcoholLabelCheck, euSparklingSugarTerms, euStillSugarTerms, sulphiteStatement, usAlcoholLabelCheck } from "../../../shared/engine/labelling.ts";
+import { quantity, boundSo2, fixedAcidity, freeSo2ForMolecular, molecularSo2, reducedExtract, sugarFreeExtract, euAlcoholLabelCheck, euSparklingSugarTerms, euStillSugarTerms, sulphiteStatement, usAlcoholLabelCheck } from "../../../shared/engine/index.ts";
 
 const mg = (x: number) => quantity(x, "mg/L");
 const g = (x: number) => quantity(x, "g/L");

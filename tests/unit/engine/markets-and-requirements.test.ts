@@ -1,8 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { applicableLimits, MARKET_PACKS } from "../../../shared/engine/markets/index.ts";
-import { buildRequirement, validateBuyerRequirement, RequirementError } from "../../../shared/engine/requirement.ts";
-import { PARAMETERS } from "../../../shared/engine/parameters.ts";
-import type { WineProfile } from "../../../shared/engine/markets/types.ts";
+import { applicableLimits, MARKET_PACKS, buildRequirement, validateBuyerRequirement, RequirementError, PARAMETERS, type WineProfile } from "../../../shared/engine/index.ts";
 
 const redDry: WineProfile = { colour: "red", category: "still", sugarGPerL: 2, harvestYear: 2023, alcoholPercentVol: 13.5 };
 const whiteOffDry: WineProfile = { colour: "white", category: "still", sugarGPerL: 6, harvestYear: 2024, alcoholPercentVol: 11.5 };

@@ -1,7 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { convert, quantity, UnitError, type MgPerL } from "../../../shared/engine/units.ts";
-import { parseReading, parseDecimal } from "../../../shared/engine/parse.ts";
-import { molecularSo2 } from "../../../shared/engine/derived.ts";
+import { convert, quantity, UnitError, type MgPerL, parseReading, parseDecimal, molecularSo2 } from "../../../shared/engine/index.ts";
 
 describe("acid expressions", () => {
   it("when 18 and 20 meq/L of volatile acidity are expressed as acetic acid, then 1.08 and 1.20 g/L (Oxford Companion to Wine 2006, 'volatile acidity': 1 meq = 0.060 g acetic)", () => {
