@@ -68,3 +68,6 @@ export type { ScoreReading } from "./lab-comparison.ts";
 /** Spec versions: diff and backtest. */
 export { diffSpecs, backtest, backtestSteps } from "./spec-compare.ts";
 export type { ParameterDiff, SideChange, DiffKind, PastResult, BacktestChange, BacktestSummary } from "./spec-compare.ts";
+
+/** zod schemas for the plain-data inputs above. */
+export { buyerRequirementSchema, decisionRuleSchema, guardBandSchema, wineProfileSchema, readingSchema, resultInputSchema, resultForParameterSchema } from "./schemas.ts";
