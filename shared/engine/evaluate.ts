@@ -60,6 +60,20 @@ function boundText(b: GoverningBound, unit: string): string {
 
 const trim = (x: number) => String(Number(x.toPrecision(6)));
 
+/** The wording of a requirement's limits, built once per requirement rather than per result. */
+const TEXTS = new WeakMap<GoverningRequirement, { limitsText: string; lowerText: string; upperText: string; ruleText: string }>();
+function textsFor(req: GoverningRequirement, unitLabel: string) {
+  let t = TEXTS.get(req);
+  if (!t) {
+    const lowerText = req.lower ? boundText(req.lower, unitLabel) : "";
+    const upperText = req.upper ? boundText(req.upper, unitLabel) : "";
+    const limitsText = [lowerText && `at least ${lowerText}`, upperText && `at most ${upperText}`].filter(Boolean).join(" and ");
+    t = { limitsText, lowerText, upperText, ruleText: describeRule(req.rule) };
+    TEXTS.set(req, t);
+  }
+  return t;
+}
+
 function uncertaintyFor(req: GoverningRequirement, value: number, input: ResultInput): UsedUncertainty {
   const def = parameter(req.parameter);
   if (input.uncertainty && input.uncertainty.value >= 0) {
@@ -90,18 +104,34 @@ function statementAt(req: GoverningRequirement, x: number, w: number): { stateme
 
 const passing = (s: Statement) => s === "pass" || s === "conditional pass";
 
+type Decided = Omit<Verdict, "parameter" | "unit" | "governing" | "ruleText" | "informativeOutcome">;
+
+/** Builds every verdict with the same fields in the same order (a fixed shape keeps this fast). */
+function makeVerdict(req: GoverningRequirement, ruleText: string, d: Decided, informativeOutcome?: Outcome): Verdict {
+  const v: Verdict = {
+    parameter: req.parameter,
+    outcome: d.outcome,
+    explanation: d.explanation,
+    resultText: d.resultText,
+    value: d.value,
+    unit: req.unit,
+    decidingSide: d.decidingSide,
+    governing: { lower: req.lower, upper: req.upper },
+    uncertainty: d.uncertainty,
+    guardBand: d.guardBand,
+    conformanceProbability: d.conformanceProbability,
+    ruleText,
+  };
+  if (informativeOutcome !== undefined) v.informativeOutcome = informativeOutcome;
+  return v;
+}
+
 export function evaluate(req: GoverningRequirement, input: ResultInput | null, ctx: { requiredAtStage: boolean } = { requiredAtStage: true }): Verdict {
   const def = parameter(req.parameter);
   const unitLabel = UNITS[req.unit].label;
-  const base = {
-    parameter: req.parameter,
-    unit: req.unit,
-    governing: { lower: req.lower, upper: req.upper },
-    ruleText: describeRule(req.rule),
-  };
+  const texts = textsFor(req, unitLabel);
   if (!input) {
-    return {
-      ...base,
+    return makeVerdict(req, texts.ruleText, {
       outcome: ctx.requiredAtStage ? "missing" : "not required",
       explanation: ctx.requiredAtStage ? `No result for ${def.name}, which this stage requires.` : `${def.name} is not required at this stage.`,
       resultText: null,
@@ -110,94 +140,71 @@ export function evaluate(req: GoverningRequirement, input: ResultInput | null, c
       uncertainty: null,
       guardBand: null,
       conformanceProbability: null,
-    };
+    });
   }
-  const verdict = decide(req, input, base, unitLabel);
-  if (ctx.requiredAtStage) return verdict;
-  return {
-    ...verdict,
-    outcome: "not required",
-    informativeOutcome: verdict.outcome,
-    explanation: `${def.name} is not required at this stage; for information: ${verdict.outcome} — ${verdict.explanation}`,
-  };
+  const d = decide(req, input, unitLabel, texts);
+  if (ctx.requiredAtStage) return makeVerdict(req, texts.ruleText, d);
+  const explanation = `${def.name} is not required at this stage; for information: ${d.outcome} — ${d.explanation}`;
+  return makeVerdict(req, texts.ruleText, { ...d, outcome: "not required", explanation }, d.outcome);
 }
 
-function decide(req: GoverningRequirement, input: ResultInput, base: Pick<Verdict, "parameter" | "unit" | "governing" | "ruleText">, unitLabel: string): Verdict {
+function decided(outcome: Outcome, explanation: string, resultText: string | null, value: number | null, decidingSide: "lower" | "upper" | null, uncertainty: UsedUncertainty | null, guardBand: number | null, conformanceProbability: number | null): Decided {
+  return { outcome, explanation, resultText, value, decidingSide, uncertainty, guardBand, conformanceProbability };
+}
+
+function decide(req: GoverningRequirement, input: ResultInput, unitLabel: string, texts: ReturnType<typeof textsFor>): Decided {
   const r = input.reading;
-  const toCanonical = (x: number) => convert(x, input.unit, req.unit, { densityGPerMl: input.densityGPerMl });
-  const limitsText = [req.lower && `at least ${boundText(req.lower, unitLabel)}`, req.upper && `at most ${boundText(req.upper, unitLabel)}`].filter(Boolean).join(" and ");
+  const factor = convert(1, input.unit, req.unit, { densityGPerMl: input.densityGPerMl });
+  const { limitsText, lowerText, upperText } = texts;
 
   if (r.kind === "presence") {
-    return {
-      ...base,
-      outcome: r.present ? "fail" : "pass",
-      explanation: r.present ? `${parameter(req.parameter).name}: present, where none is allowed.` : `${parameter(req.parameter).name}: absent.`,
-      resultText: r.present ? "present" : "absent",
-      value: null,
-      decidingSide: r.present ? "upper" : null,
-      uncertainty: null,
-      guardBand: null,
-      conformanceProbability: null,
-    };
+    const name = parameter(req.parameter).name;
+    return r.present
+      ? decided("fail", `${name}: present, where none is allowed.`, "present", null, "upper", null, null, null)
+      : decided("pass", `${name}: absent.`, "absent", null, null, null, null, null);
   }
 
   if (r.kind === "value") {
-    const x = toCanonical(r.value);
+    const x = r.value * factor;
     const unc = uncertaintyFor(req, x, input);
     const w = guardWidth(req.rule, unc.u);
     const { statement, side } = statementAt(req, x, w);
     const p = conformanceProbability(x, unc.u, req.lower?.value, req.upper?.value);
-    const decided = side && req[side] ? ` The ${side} limit decides: ${boundText(req[side]!, unitLabel)}.` : "";
-    return {
-      ...base,
-      outcome: statement,
-      explanation: `${trim(x)} ${unitLabel} against ${limitsText || "no limit"}: ${statement}.${decided}${w > 0 ? ` Guard band w = ${trim(w)} ${unitLabel}.` : ""}`,
-      resultText: `${trim(x)}`,
-      value: x,
-      decidingSide: side,
-      uncertainty: unc,
-      guardBand: w,
-      conformanceProbability: p,
-    };
+    const decidedBy = side ? ` The ${side} limit decides: ${side === "upper" ? upperText : lowerText}.` : "";
+    const guard = w > 0 ? ` Guard band w = ${trim(w)} ${unitLabel}.` : "";
+    const shown = trim(x);
+    return decided(statement, `${shown} ${unitLabel} against ${limitsText || "no limit"}: ${statement}.${decidedBy}${guard}`, shown, x, side, unc, w, p);
   }
 
   // Censored: the true value lies in an interval; decide only if every value in it gives the same kind of answer.
   const canonicalText = formatReading(
-    r.kind === "below" ? { kind: "below", limit: r.limit === null ? null : toCanonical(r.limit) } : { kind: "above", limit: toCanonical(r.limit) },
+    r.kind === "below" ? { kind: "below", limit: r.limit === null ? null : r.limit * factor } : { kind: "above", limit: r.limit * factor },
     parameter(req.parameter).digits,
   );
-  const common = { ...base, resultText: canonicalText, value: null, uncertainty: null, conformanceProbability: null };
   if (r.kind === "below" && r.limit === null) {
-    return {
-      ...common,
-      outcome: "inconclusive",
-      explanation: "Reported as not detected without a limit of quantification, so conformity cannot be shown. Ask the laboratory for its limit of quantification.",
-      decidingSide: null,
-      guardBand: null,
-    };
+    return decided(
+      "inconclusive",
+      "Reported as not detected without a limit of quantification, so conformity cannot be shown. Ask the laboratory for its limit of quantification.",
+      canonicalText, null, null, null, null, null,
+    );
   }
-  const lo = r.kind === "below" ? 0 : toCanonical(r.limit);
-  const hi = r.kind === "below" ? toCanonical(r.limit!) : Infinity;
+  const lo = r.kind === "below" ? 0 : r.limit * factor;
+  const hi = r.kind === "below" ? r.limit! * factor : Infinity;
   // The reporting limit carries no usable uncertainty; the guard band uses the default for a value at the limit.
   const unc = uncertaintyFor(req, r.kind === "below" ? hi : lo, { ...input, uncertainty: null });
   const w = guardWidth(req.rule, unc.u);
   const ends = [statementAt(req, lo, w), statementAt(req, hi, w)];
   const worst = worse(ends[0]!.statement, ends[1]!.statement);
   const centre = req.lower && req.upper ? (req.lower.value + req.upper.value) / 2 : req.upper ? lo : hi;
-  const bestCandidates = [...ends, statementAt(req, Math.min(Math.max(centre, lo), hi), w)];
-  const best = bestCandidates.map((e) => e.statement).reduce((a, b) => (worse(a, b) === a ? b : a));
+  const candidates = [...ends, statementAt(req, Math.min(Math.max(centre, lo), hi), w)].map((e) => e.statement);
+  const best = candidates.reduce((a, b) => (worse(a, b) === a ? b : a));
   const side = ends.find((e) => e.statement === worst)?.side ?? null;
   if (passing(worst)) {
-    return { ...common, outcome: worst, explanation: `${canonicalText} ${unitLabel}: every value below the reporting limit meets ${limitsText}.`, decidingSide: worst === "pass" ? null : side, guardBand: w };
+    return decided(worst, `${canonicalText} ${unitLabel}: every value below the reporting limit meets ${limitsText}.`, canonicalText, null, worst === "pass" ? null : side, null, w, null);
   }
   if (!passing(best)) {
-    return { ...common, outcome: best, explanation: `${canonicalText} ${unitLabel}: every value in that range breaks ${limitsText}.`, decidingSide: side, guardBand: w };
+    return decided(best, `${canonicalText} ${unitLabel}: every value in that range breaks ${limitsText}.`, canonicalText, null, side, null, w, null);
   }
-  return {
-    ...common,
-    outcome: "inconclusive",
-    explanation: `${canonicalText} ${unitLabel} cannot be decided against ${limitsText}: the true value may lie on either side. ${r.kind === "below" ? "A method with a lower limit of quantification is needed." : "Dilute and re-analyse within the method's range."}`,
-    decidingSide: side,
-    guardBand: w,
-  };
+  const advice = r.kind === "below" ? "A method with a lower limit of quantification is needed." : "Dilute and re-analyse within the method's range.";
+  return decided("inconclusive", `${canonicalText} ${unitLabel} cannot be decided against ${limitsText}: the true value may lie on either side. ${advice}`, canonicalText, null, side, null, w, null);
 }

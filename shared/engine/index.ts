@@ -71,3 +71,7 @@ export type { ParameterDiff, SideChange, DiffKind, PastResult, BacktestChange, B
 
 /** zod schemas for the plain-data inputs above. */
 export { buyerRequirementSchema, decisionRuleSchema, guardBandSchema, wineProfileSchema, readingSchema, resultInputSchema, resultForParameterSchema } from "./schemas.ts";
+
+/** Fast path for large volumes: compiled requirements over columns of values. */
+export { STATEMENT_CODES, compileRequirement, evaluateMany } from "./batch.ts";
+export type { CompiledRequirement } from "./batch.ts";

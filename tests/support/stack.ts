@@ -27,7 +27,7 @@ async function freePort(): Promise<number> {
   });
 }
 
-function chromiumPath(): string {
+export function chromiumPath(): string {
   for (const candidate of [process.env.CHROMIUM_PATH, "/usr/bin/chromium", "/usr/bin/chromium-browser"]) {
     if (candidate && existsSync(candidate)) return candidate;
   }

@@ -3,6 +3,9 @@ import fc from "fast-check";
 import {
   buildRequirement,
   buyerRequirementSchema,
+  compileRequirement,
+  evaluateMany,
+  STATEMENT_CODES,
   convert,
   evaluate,
   MARKET_IDS,
@@ -115,5 +118,20 @@ describe("engine properties (fast-check, fixed seed)", () => {
       { seed: 20261202, numRuns: 3000 },
     );
     expect(exercised).toBeGreaterThan(300);
+  });
+
+  it("when the batch path and the full verdict see the same numeric results, then they give the same statements", () => {
+    fc.assert(
+      fc.property(fc.constantFrom(...quantityParams), finite(0, 50), finite(0.1, 200), ruleArb, fc.array(fc.tuple(finite(0, 300), fc.option(finite(0, 5))), { minLength: 1, maxLength: 30 }), (p, lower, width, rule, results) => {
+        const req = buildRequirement({ parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : lower, upper: lower + width, rule }, [], { colour: "red", category: "still" });
+        const out = new Uint8Array(results.length);
+        evaluateMany(compileRequirement(req, p.unit), results.map((r) => r[0]), results.map((r) => r[1] ?? NaN), out);
+        return results.every(([x, u], i) => {
+          const v = evaluate(req, { reading: { kind: "value", value: x }, unit: p.unit, uncertainty: u === null ? null : { kind: "standard", value: u } });
+          return v.outcome === STATEMENT_CODES[out[i]!];
+        });
+      }),
+      SEED,
+    );
   });
 });

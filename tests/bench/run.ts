@@ -1,0 +1,3 @@
+/** npm run bench: each benchmark prints its own ratio, measured side by side in this process. */
+await import("./engine.bench.ts");
+export {};
