@@ -14,6 +14,7 @@ import { mailLimiter, signInLimiters } from "./http/rate-limits.ts";
 import { registerAuthRoutes } from "./routes/auth-routes.ts";
 import { registerOrganisationRoutes } from "./routes/organisation-routes.ts";
 import { registerSystemRoutes } from "./routes/system-routes.ts";
+import { registerSpecRoutes } from "./routes/spec-routes.ts";
 import { useServiceSettings } from "./services/settings.ts";
 
 export const APP_VERSION = "0.1.0";
@@ -65,6 +66,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   registerSystemRoutes(registry, { version: APP_VERSION, devInboxUrl: config.DEV_INBOX_URL });
   registerAuthRoutes(registry, cookies);
   registerOrganisationRoutes(registry);
+  registerSpecRoutes(registry);
   app.use(router);
   app.use("/api", notFoundHandler);
 

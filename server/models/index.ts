@@ -7,9 +7,15 @@ import { Invitation } from "./invitation.ts";
 import { PasswordReset } from "./password-reset.ts";
 import { AuditEvent, AuditHead } from "./audit-event.ts";
 import { OutboxMessage } from "./outbox-message.ts";
+import { Wine } from "./wine.ts";
+import { Contract } from "./contract.ts";
+import { SpecVersion } from "./spec-version.ts";
+import { SpecRequirement } from "./spec-requirement.ts";
+import { SpecComment } from "./spec-comment.ts";
+import { Analysis, AnalysisResult, Lot } from "./lot.ts";
 
 export function initModels(sequelize: Sequelize): void {
-  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage]) {
+  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult]) {
     m.initModel(sequelize);
   }
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -17,4 +23,15 @@ export function initModels(sequelize: Sequelize): void {
   User.hasMany(Membership, { foreignKey: "userId", as: "memberships" });
   Organisation.hasMany(Membership, { foreignKey: "organisationId", as: "memberships" });
   Invitation.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
+  Contract.belongsTo(Wine, { foreignKey: "wineId", as: "wine" });
+  Contract.belongsTo(Organisation, { foreignKey: "retailerOrgId", as: "retailer" });
+  Contract.belongsTo(Organisation, { foreignKey: "producerOrgId", as: "producer" });
+  Contract.hasMany(SpecVersion, { foreignKey: "contractId", as: "versions" });
+  SpecVersion.belongsTo(Contract, { foreignKey: "contractId", as: "contract" });
+  SpecVersion.hasMany(SpecRequirement, { foreignKey: "specVersionId", as: "requirements" });
+  SpecVersion.hasMany(SpecComment, { foreignKey: "specVersionId", as: "comments" });
+  SpecComment.belongsTo(User, { foreignKey: "authorUserId", as: "author" });
+  Lot.hasMany(Analysis, { foreignKey: "lotId", as: "analyses" });
+  Analysis.belongsTo(Lot, { foreignKey: "lotId", as: "lot" });
+  Analysis.hasMany(AnalysisResult, { foreignKey: "analysisId", as: "results" });
 }

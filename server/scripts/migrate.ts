@@ -2,6 +2,7 @@
 import { loadConfig } from "../config.ts";
 import { createSequelize } from "../db/connection.ts";
 import { createMigrator, createSeeder } from "../db/migrator.ts";
+import { dropAllTables } from "../db/reset.ts";
 
 const config = loadConfig();
 const sequelize = createSequelize(config);
@@ -15,8 +16,7 @@ try {
     await migrator.down();
     console.log("last migration reverted");
   } else if (cmd === "reset") {
-    await migrator.down({ to: 0 });
-    await createSeeder(sequelize).down({ to: 0 });
+    await dropAllTables(sequelize);
     const done = await migrator.up();
     console.log(`database ${config.DB_NAME} rebuilt: ${done.length} migrations`);
   } else if (cmd === "seed") {

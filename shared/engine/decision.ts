@@ -29,6 +29,13 @@ export function guardWidth(rule: DecisionRule, u: number): number {
   return rule.guard.k * u;
 }
 
+/** A short name for tables and lists, e.g. "Non-binary, w = U (k = 2)". */
+export function ruleLabel(rule: DecisionRule): string {
+  if (rule.kind === "simple") return "Simple acceptance";
+  const g = rule.guard.kind === "expanded" ? `w = U (k = ${rule.guard.k})` : `w = ${rule.guard.k}·u`;
+  return `${rule.kind === "guarded" ? "Guarded acceptance" : "Non-binary"}, ${g}`;
+}
+
 export function describeRule(rule: DecisionRule): string {
   if (rule.kind === "simple") return "Simple acceptance: the result is compared with the limit itself (no guard band).";
   const g = rule.guard.kind === "expanded" ? `w = U = ${rule.guard.k}·u` : `w = ${rule.guard.k}·u`;

@@ -41,7 +41,7 @@ export type { AppliedLimit, UndeterminedLimit, MarketId, MarketPack, WineProfile
 export type { Colour, LegalLimitRule, Applicability } from "./markets/types.ts";
 
 /** Decision rules (ISO/IEC 17025 7.8.6, ILAC-G8) and conformance probability (JCGM 106). */
-export { DEFAULT_DECISION_RULE, conformanceProbability, describeRule, guardWidth, statementForSide } from "./decision.ts";
+export { DEFAULT_DECISION_RULE, conformanceProbability, describeRule, guardWidth, ruleLabel, statementForSide } from "./decision.ts";
 export type { DecisionRule, GuardBand, Statement } from "./decision.ts";
 export { normalCdf, erfc } from "./normal.ts";
 

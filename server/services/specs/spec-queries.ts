@@ -1,0 +1,146 @@
+/** Reading spec sheets: lists with filters, one version in full, diffs, and past results for backtests. */
+import { Op, type WhereOptions } from "sequelize";
+import { diffSpecs, type BuyerRequirement } from "../../../shared/engine/index.ts";
+import type { SpecStatus } from "../../../shared/specs/vocabulary.ts";
+import { Contract } from "../../models/contract.ts";
+import { SpecVersion } from "../../models/spec-version.ts";
+import { SpecRequirement } from "../../models/spec-requirement.ts";
+import { SpecComment } from "../../models/spec-comment.ts";
+import { User } from "../../models/user.ts";
+import { Organisation } from "../../models/organisation.ts";
+import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
+import { contractFor, contractInclude, versionFor, sideOf, type ContractWithParties } from "./spec-access.ts";
+import { actionsFor, contractView, requirementView, versionSummary } from "./spec-view.ts";
+import { badRequest } from "../../http/problem.ts";
+
+export interface SpecListFilters {
+  wine?: number;
+  producer?: number;
+  market?: string;
+  status?: SpecStatus;
+  q?: string;
+}
+
+/** Every version the organisation may see, newest first, with its contract and wine. */
+export async function listSpecs(orgId: number, f: SpecListFilters) {
+  const contractWhere: WhereOptions = { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] };
+  const contracts = (await Contract.findAll({ where: contractWhere, include: contractInclude })) as ContractWithParties[];
+  const visible = contracts.filter(
+    (c) =>
+      (!f.wine || c.wineId === f.wine) &&
+      (!f.producer || c.producerOrgId === f.producer) &&
+      (!f.market || c.wine.markets.includes(f.market as never)) &&
+      (!f.q || `${c.wine.name} ${c.reference} ${c.producer.name} ${c.wine.region}`.toLowerCase().includes(f.q.toLowerCase())),
+  );
+  if (!visible.length) return [];
+  const byId = new Map(visible.map((c) => [c.id, c]));
+  const versions = await SpecVersion.findAll({
+    where: { contractId: [...byId.keys()], ...(f.status ? { status: f.status } : {}) },
+    order: [["updatedAt", "DESC"]],
+  });
+  const counts = await SpecRequirement.count({ where: { specVersionId: versions.map((v) => v.id) }, group: ["specVersionId"] });
+  const countOf = new Map(counts.map((c) => [Number(c.specVersionId), Number(c.count)]));
+  return versions
+    .filter((v) => !(sideOf(byId.get(v.contractId)!, orgId) === "producer" && v.status === "draft"))
+    .map((v) => ({ ...versionSummary(v), requirementCount: countOf.get(v.id) ?? 0, contract: contractView(byId.get(v.contractId)!) }));
+}
+
+/** Contracts of the organisation, with the versions it may see. */
+export async function listContracts(orgId: number) {
+  const contracts = (await Contract.findAll({
+    where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] },
+    include: contractInclude,
+    order: [["reference", "ASC"]],
+  })) as ContractWithParties[];
+  const versions = await SpecVersion.findAll({ where: { contractId: contracts.map((c) => c.id) }, order: [["number", "DESC"]] });
+  return contracts.map((c) => ({
+    ...contractView(c),
+    versions: versions.filter((v) => v.contractId === c.id && !(sideOf(c, orgId) === "producer" && v.status === "draft")).map(versionSummary),
+  }));
+}
+
+export async function getContract(orgId: number, contractId: number, role: string) {
+  const { contract, side } = await contractFor(orgId, contractId);
+  const versions = await SpecVersion.findAll({ where: { contractId }, order: [["number", "DESC"]] });
+  return {
+    ...contractView(contract),
+    side,
+    canCreateVersion: side === "buyer" && role === "buyer_technologist",
+    versions: versions.filter((v) => !(side === "producer" && v.status === "draft")).map(versionSummary),
+  };
+}
+
+export async function getVersion(orgId: number, specId: number, role: string) {
+  const { version, contract, side } = await versionFor(orgId, specId);
+  const [requirements, comments] = await Promise.all([
+    SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]] }),
+    SpecComment.findAll({ where: { specVersionId: specId }, include: [{ model: User, as: "author", attributes: ["id", "name"] }], order: [["createdAt", "ASC"], ["id", "ASC"]] }),
+  ]);
+  const orgNames = new Map((await Organisation.findAll({ where: { id: [contract.retailerOrgId, contract.producerOrgId] } })).map((o) => [o.id, o.name]));
+  const siblings = await SpecVersion.findAll({ where: { contractId: contract.id }, attributes: ["id", "number", "status"], order: [["number", "ASC"]] });
+  return {
+    ...versionSummary(version),
+    side,
+    contract: contractView(contract),
+    requirements: requirements.map(requirementView),
+    comments: comments.map((c) => ({
+      id: c.id,
+      requirementId: c.requirementId,
+      author: (c as SpecComment & { author: User }).author.name,
+      organisation: orgNames.get(c.organisationId) ?? "",
+      side: c.organisationId === contract.retailerOrgId ? "buyer" : "producer",
+      body: c.body,
+      createdAt: c.createdAt.toISOString(),
+    })),
+    otherVersions: siblings.filter((s) => s.id !== specId && !(side === "producer" && s.status === "draft")).map((s) => ({ id: s.id, number: s.number, status: s.status })),
+    actions: actionsFor(version, side, role),
+  };
+}
+
+export async function requirementsOf(specId: number): Promise<(BuyerRequirement & { id: number })[]> {
+  return (await SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]] })).map((r) => ({
+    id: r.id,
+    parameter: r.parameter,
+    unit: r.unit,
+    lower: r.lower,
+    upper: r.upper,
+    target: r.target,
+    rule: r.rule,
+  }));
+}
+
+export async function diffVersions(orgId: number, specId: number, againstId: number) {
+  const a = await versionFor(orgId, againstId);
+  const b = await versionFor(orgId, specId);
+  if (a.version.contractId !== b.version.contractId) throw badRequest("Both versions must belong to the same contract.");
+  return {
+    from: versionSummary(a.version),
+    to: versionSummary(b.version),
+    parameters: diffSpecs(await requirementsOf(againstId), await requirementsOf(specId)),
+  };
+}
+
+/** The contract's past results, for a backtest run in the browser by the engine. */
+export async function pastResults(orgId: number, contractId: number) {
+  await contractFor(orgId, contractId);
+  const lots = await Lot.findAll({
+    where: { contractId },
+    include: [{ model: Analysis, as: "analyses", include: [{ model: AnalysisResult, as: "results" }] }],
+    order: [["vintage", "ASC"], ["lotCode", "ASC"]],
+  });
+  return lots.flatMap((lot) =>
+    (lot as Lot & { analyses: (Analysis & { results: AnalysisResult[] })[] }).analyses.flatMap((a) =>
+      a.results.map((r) => ({
+        lotId: String(lot.id),
+        lotCode: lot.lotCode,
+        vintage: lot.vintage,
+        stage: a.stage,
+        sampleDate: a.sampleDate,
+        parameter: r.parameter,
+        reading: r.reading,
+        unit: r.unit,
+        uncertainty: r.uncertainty,
+      })),
+    ),
+  );
+}
