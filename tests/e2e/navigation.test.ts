@@ -9,10 +9,10 @@ beforeAll(async () => {
 afterAll(() => s?.stop());
 
 const EXPECTED_NAV: [keyof typeof DEMO, string[]][] = [
-  ["buyerTechnologist", ["Overview", "Profile"]],
-  ["buyerFinance", ["Overview", "Profile"]],
+  ["buyerTechnologist", ["Overview", "Specifications", "Profile"]],
+  ["buyerFinance", ["Overview", "Specifications", "Profile"]],
   ["retailerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
-  ["producerQuality", ["Overview", "Profile"]],
+  ["producerQuality", ["Overview", "Specifications", "Profile"]],
   ["producerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
   ["labAnalyst", ["Overview", "Profile"]],
   ["platformAdmin", ["Overview", "Organisations", "Profile"]],

@@ -78,6 +78,8 @@ export async function startStack(): Promise<Stack> {
     args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
   });
   const page = context.pages()[0] ?? (await context.newPage());
+  // Fail a step well before the test times out, so the report names the locator that was missing.
+  page.setDefaultTimeout(10_000);
   mkdirSync(SCREENS, { recursive: true });
   return {
     baseUrl,
@@ -94,6 +96,8 @@ export async function startStack(): Promise<Stack> {
 }
 
 export async function signInThroughForm(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD) {
+  // Start signed out even if an earlier step left a session behind.
+  await page.context().clearCookies();
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel("E-mail address").fill(email);
   await page.getByLabel("Password").fill(password);

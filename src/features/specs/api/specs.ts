@@ -1,0 +1,80 @@
+/** Requests of the spec-sheet feature, with their query keys kept next to them. */
+import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "../../../lib/api-client.ts";
+import type { CommentInput, NewVersionInput, SpecDraftInput } from "../../../../shared/specs/schemas.ts";
+import type { ContractDetail, ContractWithVersions, PastResultRow, SpecDiff, SpecListItem, SpecVersionDetail } from "./types.ts";
+
+export interface SpecFilters {
+  wine?: number;
+  producer?: number;
+  market?: string;
+  status?: string;
+  q?: string;
+}
+
+const base = (orgId: number) => `/api/orgs/${orgId}`;
+
+export const specKeys = {
+  all: (orgId: number) => ["orgs", orgId, "specs"] as const,
+  list: (orgId: number, f: SpecFilters) => [...specKeys.all(orgId), "list", f] as const,
+  detail: (orgId: number, id: number) => [...specKeys.all(orgId), "detail", id] as const,
+  diff: (orgId: number, id: number, against: number) => [...specKeys.all(orgId), "diff", id, against] as const,
+  contracts: (orgId: number) => [...specKeys.all(orgId), "contracts"] as const,
+  contract: (orgId: number, id: number) => [...specKeys.all(orgId), "contract", id] as const,
+  results: (orgId: number, contractId: number) => [...specKeys.all(orgId), "results", contractId] as const,
+};
+
+export const specListQuery = (orgId: number, f: SpecFilters) =>
+  queryOptions({
+    queryKey: specKeys.list(orgId, f),
+    queryFn: () => {
+      const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v !== undefined && v !== "").map(([k, v]) => [k, String(v)]));
+      return api<SpecListItem[]>(`${base(orgId)}/specs${qs.size ? `?${qs}` : ""}`);
+    },
+  });
+
+export const contractsQuery = (orgId: number) => queryOptions({ queryKey: specKeys.contracts(orgId), queryFn: () => api<ContractWithVersions[]>(`${base(orgId)}/contracts`) });
+export const contractQuery = (orgId: number, id: number) => queryOptions({ queryKey: specKeys.contract(orgId, id), queryFn: () => api<ContractDetail>(`${base(orgId)}/contracts/${id}`) });
+export const specQuery = (orgId: number, id: number) => queryOptions({ queryKey: specKeys.detail(orgId, id), queryFn: () => api<SpecVersionDetail>(`${base(orgId)}/specs/${id}`) });
+export const diffQuery = (orgId: number, id: number, against: number) =>
+  queryOptions({ queryKey: specKeys.diff(orgId, id, against), queryFn: () => api<SpecDiff>(`${base(orgId)}/specs/${id}/diff?against=${against}`) });
+export const pastResultsQuery = (orgId: number, contractId: number) =>
+  queryOptions({ queryKey: specKeys.results(orgId, contractId), queryFn: () => api<PastResultRow[]>(`${base(orgId)}/contracts/${contractId}/results`) });
+
+export const specPdfUrl = (orgId: number, id: number) => `${base(orgId)}/specs/${id}/pdf`;
+
+function useInvalidateSpecs(orgId: number) {
+  const qc = useQueryClient();
+  return () => qc.invalidateQueries({ queryKey: specKeys.all(orgId) });
+}
+
+export function useCreateVersion(orgId: number, contractId: number) {
+  const invalidate = useInvalidateSpecs(orgId);
+  return useMutation({
+    mutationFn: (input: NewVersionInput) => api<{ id: number }>(`${base(orgId)}/contracts/${contractId}/specs`, { method: "POST", body: input }),
+    onSuccess: invalidate,
+  });
+}
+
+export function useSaveDraft(orgId: number, id: number) {
+  return useMutation({
+    mutationFn: (input: SpecDraftInput) => api<{ lockVersion: number; updatedAt: string }>(`${base(orgId)}/specs/${id}`, { method: "PUT", body: input }),
+  });
+}
+
+/** Lifecycle actions that take no body but the optional reason. */
+export function useSpecAction(orgId: number, id: number, action: "send" | "withdraw" | "agree" | "request-changes") {
+  const invalidate = useInvalidateSpecs(orgId);
+  return useMutation({
+    mutationFn: (body?: { reason: string }) => api<void>(`${base(orgId)}/specs/${id}/${action}`, { method: "POST", body }),
+    onSuccess: invalidate,
+  });
+}
+
+export function useAddComment(orgId: number, id: number) {
+  const invalidate = useInvalidateSpecs(orgId);
+  return useMutation({
+    mutationFn: (input: CommentInput) => api<{ id: number }>(`${base(orgId)}/specs/${id}/comments`, { method: "POST", body: input }),
+    onSuccess: invalidate,
+  });
+}

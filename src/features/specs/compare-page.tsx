@@ -1,0 +1,150 @@
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { Link, useParams, useSearchParams } from "react-router-dom";
+import { useState } from "react";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { diffQuery, pastResultsQuery, specQuery } from "./api/specs.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { SelectField } from "../../components/ui/field.tsx";
+import { convert, findParameter, UNITS, type BacktestSummary, type DiffKind, type UnitId } from "../../../shared/engine/index.ts";
+import { runBacktest, toPastResults } from "./run-backtest.ts";
+import { errorMessage } from "../../lib/api-client.ts";
+import type { SpecVersionDetail } from "./api/types.ts";
+
+const KIND_STYLE: Record<DiffKind, string> = {
+  added: "text-verjus-700",
+  removed: "text-alarm-700",
+  tightened: "text-must-700",
+  loosened: "text-ochre-700",
+  "tightened and loosened": "text-ochre-700",
+  unchanged: "text-ink-500",
+};
+const n = (x: number | null) => (x === null ? "—" : String(Number(x.toPrecision(5))));
+
+export function ComparePage() {
+  const { membership } = useShellContext();
+  const { specId } = useParams();
+  const [params, setParams] = useSearchParams();
+  const orgId = membership?.organisationId ?? 0;
+  const id = Number(specId);
+  const spec = useQuery({ ...specQuery(orgId, id), enabled: !!membership });
+  const against = Number(params.get("against"));
+  const diff = useQuery({ ...diffQuery(orgId, id, against), enabled: !!membership && against > 0 });
+  if (spec.isPending) return <LoadingState />;
+  if (spec.isError) return <ErrorState error={spec.error} />;
+  const v = spec.data;
+  return (
+    <>
+      <PageHeader title={`Compare version ${v.number} of ${v.contract.wine.name}`} lead={<Link to={`/specs/${v.id}`} className="underline">Back to version {v.number}</Link>} />
+      <div className="flex flex-col gap-6">
+        <Card title="What changed">
+          <div className="mb-4 max-w-xs">
+            <SelectField
+              label="Compare with"
+              value={against || ""}
+              onChange={(e) => setParams({ against: e.target.value }, { replace: true })}
+              options={[{ value: "", label: "Choose a version" }, ...v.otherVersions.map((o) => ({ value: String(o.id), label: `Version ${o.number}` }))]}
+            />
+          </div>
+          {diff.isPending && against > 0 && <LoadingState />}
+          {diff.isError && <ErrorState error={diff.error} />}
+          {diff.data && (
+            <table className="w-full text-left text-sm">
+              <thead className="border-b border-line text-ink-500">
+                <tr>
+                  {["Parameter", "Change", `Min: v${diff.data.from.number} → v${diff.data.to.number}`, `Max: v${diff.data.from.number} → v${diff.data.to.number}`, "Also changed"].map((h) => (
+                    <th key={h} scope="col" className="py-2 pr-4 font-semibold">{h}</th>
+                  ))}
+                </tr>
+              </thead>
+              <tbody>
+                {diff.data.parameters.map((p) => {
+                  const side = (s: "lower" | "upper") => p.sides.find((x) => x.side === s);
+                  // Show limits in the unit the buyer wrote them in, not the engine's canonical one.
+                  const canonical = findParameter(p.parameter)?.unit;
+                  const unit = (v.requirements.find((r) => r.parameter === p.parameter)?.unit ?? canonical) as UnitId | undefined;
+                  const shown = (x: number | null) => (x === null || !canonical || !unit ? n(x) : n(convert(x, canonical, unit)));
+                  return (
+                    <tr key={p.parameter} className="border-b border-line/60">
+                      <td className="py-2 pr-4 font-semibold">{p.name}</td>
+                      <td className={`py-2 pr-4 font-semibold ${KIND_STYLE[p.kind]}`}>{p.kind}</td>
+                      {(["lower", "upper"] as const).map((s) => (
+                        <td key={s} className="py-2 pr-4 tabular-nums">{side(s) ? `${shown(side(s)!.before)} → ${shown(side(s)!.after)} ${unit ? UNITS[unit].label : ""}` : "—"}</td>
+                      ))}
+                      <td className="py-2 pr-4 text-ink-500">{p.otherChanges.join(", ") || "—"}</td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            </table>
+          )}
+          {diff.data && <p className="mt-2 text-xs text-ink-500">Limits are compared after converting both versions to one unit, so a change of unit alone is not a change of limit.</p>}
+        </Card>
+        {against > 0 && <BacktestCard orgId={orgId} version={v} againstId={against} />}
+      </div>
+    </>
+  );
+}
+
+function BacktestCard({ orgId, version, againstId }: { orgId: number; version: SpecVersionDetail; againstId: number }) {
+  const qc = useQueryClient();
+  const [progress, setProgress] = useState<{ done: number; total: number } | null>(null);
+  const [summary, setSummary] = useState<BacktestSummary | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const run = async () => {
+    setError(null);
+    setSummary(null);
+    try {
+      const [rows, current] = await Promise.all([qc.fetchQuery(pastResultsQuery(orgId, version.contract.id)), qc.fetchQuery(specQuery(orgId, againstId))]);
+      const results = toPastResults(rows, version.contract.wine);
+      setProgress({ done: 0, total: results.length });
+      setSummary(await runBacktest(results, current.requirements, version.requirements, version.contract.wine.markets, (done, total) => setProgress({ done, total })));
+    } catch (err) {
+      setError(errorMessage(err));
+    }
+  };
+  const running = progress !== null && summary === null && error === null;
+  return (
+    <Card title="Backtest against past results">
+      <p className="mb-3 text-sm text-ink-700">
+        Evaluates every past result of this contract's lots under the other version and under this one, with the engine in your browser, and lists what would change.
+      </p>
+      <Button onClick={() => void run()} disabled={running}>{running ? "Running…" : "Run backtest"}</Button>
+      {progress && (
+        <div className="mt-3">
+          <progress className="h-2 w-full accent-must-700" max={Math.max(progress.total, 1)} value={progress.done} aria-label="Backtest progress" />
+          <p className="text-xs text-ink-500" role="status">{progress.done} of {progress.total} results evaluated</p>
+        </div>
+      )}
+      {error && <Notice tone="error">{error}</Notice>}
+      {summary && (
+        <div className="mt-4 flex flex-col gap-2">
+          {summary.checked === 0 && <EmptyState title="No past results for this contract yet." />}
+          {summary.checked > 0 && summary.sentences.length === 0 && <Notice tone="success">No past result would change its verdict.</Notice>}
+          {summary.sentences.map((s) => (
+            <p key={s} className="rounded-md bg-ochre-50 px-3 py-2 font-semibold text-ochre-700">{s}.</p>
+          ))}
+          {summary.newlyFailing.length > 0 && (
+            <table className="mt-2 w-full text-left text-sm">
+              <thead className="border-b border-line text-ink-500">
+                <tr>{["Lot", "Vintage", "Parameter", "Before", "Now"].map((h) => <th key={h} scope="col" className="py-1 pr-4 font-semibold">{h}</th>)}</tr>
+              </thead>
+              <tbody>
+                {[...summary.newlyFailing, ...summary.newlyPassing].map((c) => (
+                  <tr key={`${c.lotId}-${c.parameter}`} className="border-b border-line/60">
+                    <td className="py-1 pr-4">{c.lotCode}</td>
+                    <td className="py-1 pr-4">{c.vintage}</td>
+                    <td className="py-1 pr-4">{c.parameter.replace(/_/g, " ")}</td>
+                    <td className="py-1 pr-4">{c.before}</td>
+                    <td className="py-1 pr-4 font-semibold">{c.after}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+        </div>
+      )}
+    </Card>
+  );
+}

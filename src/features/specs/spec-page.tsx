@@ -1,0 +1,115 @@
+import { useQuery } from "@tanstack/react-query";
+import { Link, useNavigate, useParams } from "react-router-dom";
+import { useState } from "react";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { specPdfUrl, specQuery, useCreateVersion, useSpecAction } from "./api/specs.ts";
+import type { SpecVersionDetail } from "./api/types.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { StatusBadge } from "./status-badge.tsx";
+import { LegalCaution } from "./legal-caution.tsx";
+import { SpecEditor } from "./spec-editor.tsx";
+import { SpecReadView } from "./spec-read-view.tsx";
+import { STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
+import { errorMessage } from "../../lib/api-client.ts";
+
+export function SpecPage() {
+  const { membership } = useShellContext();
+  const { specId } = useParams();
+  const orgId = membership?.organisationId ?? 0;
+  const spec = useQuery({ ...specQuery(orgId, Number(specId)), enabled: !!membership });
+  const [saved, setSaved] = useState(true);
+  if (spec.isPending) return <LoadingState />;
+  if (spec.isError) return <ErrorState error={spec.error} onRetry={() => spec.refetch()} />;
+  const v = spec.data;
+  return (
+    <>
+      <PageHeader
+        title={`${v.contract.wine.name} · version ${v.number}`}
+        lead={
+          <>
+            Contract <Link to={`/contracts/${v.contract.id}`} className="underline">{v.contract.reference}</Link>: {v.contract.retailer.name} buys from {v.contract.producer.name}. Vintages{" "}
+            {v.vintageFrom}
+            {v.vintageTo ? `–${v.vintageTo}` : " onwards"}; stages {v.stages.map((s) => STAGE_LABELS[s].toLowerCase()).join(", ")}.
+          </>
+        }
+        actions={<StatusBadge status={v.status} />}
+      />
+      <div className="flex flex-col gap-6">
+        <Actions orgId={orgId} version={v} saved={saved} />
+        <LegalCaution />
+        <Card title={v.actions.edit ? "Requirements (draft)" : "Requirements"}>
+          {v.actions.edit ? <SpecEditor orgId={orgId} version={v} onSavedChange={setSaved} /> : <SpecReadView orgId={orgId} version={v} />}
+        </Card>
+      </div>
+    </>
+  );
+}
+
+function Actions({ orgId, version: v, saved }: { orgId: number; version: SpecVersionDetail; saved: boolean }) {
+  const navigate = useNavigate();
+  const send = useSpecAction(orgId, v.id, "send");
+  const withdraw = useSpecAction(orgId, v.id, "withdraw");
+  const agree = useSpecAction(orgId, v.id, "agree");
+  const requestChanges = useSpecAction(orgId, v.id, "request-changes");
+  const newVersion = useCreateVersion(orgId, v.contract.id);
+  const [reason, setReason] = useState("");
+  const [asking, setAsking] = useState(false);
+  const failed = [send, withdraw, agree, requestChanges, newVersion].find((m) => m.isError);
+  const compareWith = v.otherVersions.filter((o) => o.id !== v.id).at(-1);
+  return (
+    <div className="flex flex-col gap-3">
+      {failed && <Notice tone="error">{errorMessage(failed.error)}</Notice>}
+      {v.status === "with_producer" && v.side === "buyer" && <Notice>Sent to {v.contract.producer.name}; it can no longer change. Make a new version to change it.</Notice>}
+      {v.status === "agreed" && <Notice tone="success">Agreed by {v.contract.producer.name}: this version governs the lots of the vintages it covers.</Notice>}
+      <div className="flex flex-wrap gap-2">
+        {v.actions.send && (
+          <Button disabled={!saved || send.isPending} onClick={() => confirm("Send this version to the producer? It cannot change afterwards.") && send.mutate(undefined)}>
+            Send to producer
+          </Button>
+        )}
+        {v.actions.decide && (
+          <>
+            <Button disabled={agree.isPending} onClick={() => agree.mutate(undefined)}>Agree to this version</Button>
+            <Button variant="secondary" onClick={() => setAsking(true)}>Ask for changes</Button>
+          </>
+        )}
+        {v.actions.newVersion && v.status !== "draft" && (
+          <Button variant="secondary" disabled={newVersion.isPending} onClick={() => newVersion.mutate({ from: "version", versionId: v.id }, { onSuccess: ({ id }) => navigate(`/specs/${id}`) })}>
+            New version from this one
+          </Button>
+        )}
+        {compareWith && (
+          <Link to={`/specs/${v.id}/compare?against=${compareWith.id}`} className="inline-flex items-center rounded-md border border-line bg-card px-4 py-2 text-sm font-semibold hover:bg-must-50">
+            Compare and backtest
+          </Link>
+        )}
+        <a href={specPdfUrl(orgId, v.id)} className="inline-flex items-center rounded-md border border-line bg-card px-4 py-2 text-sm font-semibold hover:bg-must-50" download>
+          Download PDF
+        </a>
+        {v.actions.withdraw && (
+          <Button variant="danger" disabled={withdraw.isPending} onClick={() => confirm("Withdraw this version? It will no longer govern any lot.") && withdraw.mutate(undefined)}>
+            Withdraw
+          </Button>
+        )}
+      </div>
+      {asking && (
+        <form
+          className="flex flex-col gap-2 rounded-card border border-line bg-card p-4"
+          onSubmit={(e) => {
+            e.preventDefault();
+            requestChanges.mutate({ reason }, { onSuccess: () => setAsking(false) });
+          }}
+        >
+          <label htmlFor="change-reason" className="text-sm font-semibold">What should change?</label>
+          <textarea id="change-reason" rows={3} className="rounded-md border border-line px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
+          <div className="flex gap-2">
+            <Button type="submit" disabled={requestChanges.isPending || reason.trim().length < 3}>Send back to the buyer</Button>
+            <Button variant="quiet" onClick={() => setAsking(false)}>Cancel</Button>
+          </div>
+        </form>
+      )}
+    </div>
+  );
+}

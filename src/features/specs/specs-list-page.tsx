@@ -1,0 +1,126 @@
+import { useQuery } from "@tanstack/react-query";
+import { Link, useSearchParams } from "react-router-dom";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { contractsQuery, specListQuery, type SpecFilters } from "./api/specs.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { SelectField, TextField } from "../../components/ui/field.tsx";
+import { StatusBadge } from "./status-badge.tsx";
+import { LegalCaution } from "./legal-caution.tsx";
+import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
+import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabulary.ts";
+
+const vintages = (from: number, to: number | null) => (to ? `${from}–${to}` : `${from} →`);
+
+export function SpecsListPage() {
+  const { membership } = useShellContext();
+  const [params, setParams] = useSearchParams();
+  if (!membership) return <EmptyState title="Join an organisation to see its specifications." />;
+  const orgId = membership.organisationId;
+  const filters: SpecFilters = {
+    wine: params.get("wine") ? Number(params.get("wine")) : undefined,
+    producer: params.get("producer") ? Number(params.get("producer")) : undefined,
+    market: params.get("market") ?? undefined,
+    status: params.get("status") ?? undefined,
+    q: params.get("q") ?? undefined,
+  };
+  const set = (key: string, value: string) => {
+    const next = new URLSearchParams(params);
+    if (value) next.set(key, value);
+    else next.delete(key);
+    setParams(next, { replace: true });
+  };
+  return (
+    <>
+      <PageHeader title="Specifications" lead="Technical specifications per wine and destination market, version by version." />
+      <div className="flex flex-col gap-6">
+        <LegalCaution />
+        <ContractsCard orgId={orgId} />
+        <Card title="Versions">
+          <SpecFiltersBar orgId={orgId} filters={filters} set={set} />
+          <SpecTable orgId={orgId} filters={filters} />
+        </Card>
+      </div>
+    </>
+  );
+}
+
+function ContractsCard({ orgId }: { orgId: number }) {
+  const contracts = useQuery(contractsQuery(orgId));
+  return (
+    <Card title="Contracts">
+      {contracts.isPending && <LoadingState />}
+      {contracts.isError && <ErrorState error={contracts.error} onRetry={() => contracts.refetch()} />}
+      {contracts.data?.length === 0 && <EmptyState title="No contracts yet." />}
+      {contracts.data && contracts.data.length > 0 && (
+        <ul className="grid gap-3 md:grid-cols-2">
+          {contracts.data.map((c) => {
+            const agreed = c.versions.find((v) => v.status === "agreed");
+            return (
+              <li key={c.id} className="rounded-md border border-line p-3">
+                <Link to={`/contracts/${c.id}`} className="font-semibold text-must-700 underline">
+                  {c.wine.name}
+                </Link>
+                <p className="text-sm text-ink-500">
+                  {c.reference} · {c.producer.name} · {c.wine.markets.join(", ")}
+                </p>
+                <p className="mt-1 text-sm">{agreed ? <>Version {agreed.number} agreed</> : c.versions.length ? `${c.versions.length} version(s), none agreed` : "No spec yet"}</p>
+              </li>
+            );
+          })}
+        </ul>
+      )}
+    </Card>
+  );
+}
+
+function SpecFiltersBar({ orgId, filters, set }: { orgId: number; filters: SpecFilters; set: (k: string, v: string) => void }) {
+  const contracts = useQuery(contractsQuery(orgId));
+  const wines = [...new Map((contracts.data ?? []).map((c) => [c.wine.id, c.wine.name])).entries()];
+  const producers = [...new Map((contracts.data ?? []).map((c) => [c.producer.id, c.producer.name])).entries()];
+  return (
+    <div className="mb-4 grid gap-3 md:grid-cols-5">
+      <TextField label="Search" type="search" placeholder="Wine, contract, region" defaultValue={filters.q ?? ""} onChange={(e) => set("q", e.target.value)} />
+      <SelectField label="Wine" value={filters.wine ?? ""} onChange={(e) => set("wine", e.target.value)} options={[{ value: "", label: "All wines" }, ...wines.map(([id, name]) => ({ value: String(id), label: name }))]} />
+      <SelectField label="Producer" value={filters.producer ?? ""} onChange={(e) => set("producer", e.target.value)} options={[{ value: "", label: "All producers" }, ...producers.map(([id, name]) => ({ value: String(id), label: name }))]} />
+      <SelectField label="Market" value={filters.market ?? ""} onChange={(e) => set("market", e.target.value)} options={[{ value: "", label: "All markets" }, ...MARKET_IDS.map((m) => ({ value: m, label: MARKET_PACKS[m].name }))]} />
+      <SelectField label="Status" value={filters.status ?? ""} onChange={(e) => set("status", e.target.value)} options={[{ value: "", label: "Any status" }, ...SPEC_STATUSES.map((s) => ({ value: s, label: SPEC_STATUS_LABELS[s] }))]} />
+    </div>
+  );
+}
+
+function SpecTable({ orgId, filters }: { orgId: number; filters: SpecFilters }) {
+  const list = useQuery(specListQuery(orgId, filters));
+  if (list.isPending) return <LoadingState />;
+  if (list.isError) return <ErrorState error={list.error} onRetry={() => list.refetch()} />;
+  if (list.data.length === 0) return <EmptyState title="No version matches these filters." />;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-left text-sm">
+        <thead className="border-b border-line text-ink-500">
+          <tr>
+            {["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"].map((h) => (
+              <th key={h} scope="col" className="py-2 pr-4 font-semibold">{h}</th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {list.data.map((v) => (
+            <tr key={v.id} className="border-b border-line/60">
+              <td className="py-2 pr-4 font-semibold">
+                <Link to={`/specs/${v.id}`} className="text-must-700 underline">{v.contract.wine.name}</Link>
+              </td>
+              <td className="py-2 pr-4">{v.contract.reference}</td>
+              <td className="py-2 pr-4">{v.contract.producer.name}</td>
+              <td className="py-2 pr-4 tabular-nums">v{v.number}</td>
+              <td className="py-2 pr-4"><StatusBadge status={v.status} /></td>
+              <td className="py-2 pr-4 tabular-nums">{vintages(v.vintageFrom, v.vintageTo)}</td>
+              <td className="py-2 pr-4 tabular-nums">{v.requirementCount}</td>
+              <td className="py-2 pr-4 tabular-nums">{v.updatedAt.slice(0, 10)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
