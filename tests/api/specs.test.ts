@@ -10,21 +10,25 @@ import { findParameter } from "../../shared/engine/index.ts";
 let t: TestApp;
 let buyer: SignedInAgent;
 let producer: SignedInAgent;
-const ROUGE = 2; // Sentier Rouge contract, no versions yet (seeded)
+let valsorda: SignedInAgent;
+// API tests work on the Valsorda contract; the browser journey has Sentier Rouge to itself.
+const VALSORDA = 4;
 const KESTREL = 3;
 
 beforeAll(async () => {
   t = buildTestApp();
   buyer = await signInAs(t.app, DEMO.buyerTechnologist);
   producer = await signInAs(t.app, DEMO.producerQuality);
+  valsorda = await signInAs(t.app, DEMO.valsordaQuality);
 });
 afterAll(() => t.close());
 
 const buyerUrl = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
 const producerUrl = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
+const valsordaUrl = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
 
 async function newDraft(from: object = { from: "template", templateId: "still-red" }) {
-  const res = await buyer.agent.post(buyerUrl(`/contracts/${ROUGE}/specs`)).set("x-csrf-token", buyer.csrf).send(from);
+  const res = await buyer.agent.post(buyerUrl(`/contracts/${VALSORDA}/specs`)).set("x-csrf-token", buyer.csrf).send(from);
   expect(res.status).toBe(201);
   return (await buyer.agent.get(buyerUrl(`/specs/${res.body.id}`))).body;
 }
@@ -43,7 +47,8 @@ describe("spec sheet lifecycle and authorization", () => {
     const v = await newDraft();
     expect(v.status).toBe("draft");
     expect(v.requirements.length).toBeGreaterThan(5);
-    // The producer cannot see a draft at all.
+    // The producer cannot see a draft at all, and a producer not on the contract never sees it.
+    expect((await valsorda.agent.get(valsordaUrl(`/specs/${v.id}`))).status).toBe(404);
     expect((await producer.agent.get(producerUrl(`/specs/${v.id}`))).status).toBe(404);
 
     const saved = await buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(draftBody(v));
@@ -54,13 +59,13 @@ describe("spec sheet lifecycle and authorization", () => {
     const again = await buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(draftBody({ ...v, lockVersion: saved.body.lockVersion }));
     expect(again.status).toBe(409);
 
-    const seen = (await producer.agent.get(producerUrl(`/specs/${v.id}`))).body;
+    const seen = (await valsorda.agent.get(valsordaUrl(`/specs/${v.id}`))).body;
     expect(seen.actions).toMatchObject({ decide: true, comment: true, edit: false });
-    const comment = await producer.agent.post(producerUrl(`/specs/${v.id}/comments`)).set("x-csrf-token", producer.csrf).send({ requirementId: seen.requirements[0].id, body: "Our 2024 lots ran at 13.8 % vol." });
+    const comment = await valsorda.agent.post(valsordaUrl(`/specs/${v.id}/comments`)).set("x-csrf-token", valsorda.csrf).send({ requirementId: seen.requirements[0].id, body: "Our 2024 lots ran at 13.8 % vol." });
     expect(comment.status).toBe(201);
     // The buyer cannot agree on the producer's behalf: wrong role.
     expect((await buyer.agent.post(buyerUrl(`/specs/${v.id}/agree`)).set("x-csrf-token", buyer.csrf)).status).toBe(403);
-    expect((await producer.agent.post(producerUrl(`/specs/${v.id}/agree`)).set("x-csrf-token", producer.csrf)).status).toBe(204);
+    expect((await valsorda.agent.post(valsordaUrl(`/specs/${v.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
     expect((await buyer.agent.get(buyerUrl(`/specs/${v.id}`))).body.status).toBe("agreed");
   });
 
@@ -79,7 +84,7 @@ describe("spec sheet lifecycle and authorization", () => {
 
   it("when only the owning buyer may edit, then the producer gets 403 for the role and 404 for a draft it cannot see", async () => {
     const v = await newDraft({ from: "blank" });
-    expect((await producer.agent.put(producerUrl(`/specs/${v.id}`)).set("x-csrf-token", producer.csrf).send(draftBody(v))).status).toBe(403);
+    expect((await valsorda.agent.put(valsordaUrl(`/specs/${v.id}`)).set("x-csrf-token", valsorda.csrf).send(draftBody(v))).status).toBe(403);
     const finance = await signInAs(t.app, DEMO.buyerFinance);
     expect((await finance.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", finance.csrf).send(draftBody(v))).status).toBe(403);
   });

@@ -53,6 +53,7 @@ export const DEMO = {
   producerQuality: "elise.carbonnel@troissentes.test",
   producerAdmin: "mathieu.rocheval@troissentes.test",
   bulkProducerQuality: "priya.anand@kestrelflats.test",
+  valsordaQuality: "giulia.ferrante@valsorda.test",
   labAnalyst: "amos.kellett@northgate-lab.test",
   labAdmin: "nadia.brook@northgate-lab.test",
 } as const;
