@@ -1,26 +1,12 @@
 /** The spec sheet as a PDF: version, status, parties, and every requirement with method, decision rule and legal citation. */
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import { buildRequirement, findParameter, describeRule, ruleLabel, type BuyerRequirement, type MarketId } from "../../shared/engine/index.ts";
-import { SEVERITY_LABELS, SPEC_STATUS_LABELS, STAGE_LABELS, type Severity, type SpecStatus, type Stage } from "../../shared/specs/vocabulary.ts";
+import { buildRequirement, findParameter, describeRule, ruleLabel, type BuyerRequirement } from "../../shared/engine/index.ts";
+import { SEVERITY_LABELS, SPEC_STATUS_LABELS, STAGE_LABELS } from "../../shared/specs/vocabulary.ts";
+import type { SpecVersionDetail } from "../../shared/specs/views.ts";
 import { wineProfile } from "../../shared/specs/profile.ts";
 import { PDF_FONT, registerPdfFonts } from "./fonts.ts";
 
-export interface SpecSheetData {
-  number: number;
-  status: SpecStatus;
-  title: string | null;
-  vintageFrom: number;
-  vintageTo: number | null;
-  stages: Stage[];
-  contract: {
-    reference: string;
-    retailer: { name: string };
-    producer: { name: string };
-    wine: { name: string; colour: "red" | "white" | "rose"; category: "still" | "sparkling" | "quality-sparkling" | "semi-sparkling" | "liqueur"; region: string; markets: MarketId[]; nominalSugarGPerL: number | null; nominalAlcoholPercentVol: number | null };
-  };
-  requirements: (BuyerRequirement & { method: string | null; severity: Severity; stages: Stage[] })[];
-  generatedAt: Date;
-}
+export type SpecSheetData = Pick<SpecVersionDetail, "number" | "status" | "title" | "vintageFrom" | "vintageTo" | "stages" | "contract" | "requirements"> & { generatedAt: Date };
 
 const ink = "#1b2230";
 const must = "#5b1f3c";

@@ -7,6 +7,7 @@ import { Op } from "sequelize";
 import { AuditEvent, AuditHead } from "../models/audit-event.ts";
 import { User } from "../models/user.ts";
 import { canonicalJson, sha256 } from "../lib/crypto.ts";
+import type { AuditEntryView, ChainVerification } from "../../shared/auth/views.ts";
 
 export const GENESIS_HASH = "0".repeat(64);
 
@@ -78,13 +79,6 @@ export async function recordAudit(t: Transaction, input: AuditInput): Promise<nu
   return fields.seq;
 }
 
-export interface ChainVerification {
-  ok: boolean;
-  checked: number;
-  lastSeq: number;
-  firstBroken?: { seq: number; reason: string };
-}
-
 /** Walks the whole chain in order; reports the first entry that does not match, or a tail that was cut. */
 export async function verifyAuditChain(batchSize = 2000): Promise<ChainVerification> {
   const head = await AuditHead.findByPk(1);
@@ -119,19 +113,6 @@ export async function verifyAuditChain(batchSize = 2000): Promise<ChainVerificat
     return broken(Math.min(lastSeq, head.lastSeq) + 1, `the chain ends at entry ${lastSeq} but the checkpoint records entry ${head.lastSeq}`);
   }
   return { ok: true, checked, lastSeq };
-}
-
-export interface AuditEntryView {
-  seq: number;
-  occurredAt: string;
-  actorUserId: number | null;
-  organisationId: number | null;
-  actorName: string | null;
-  action: string;
-  entityType: string;
-  entityId: string | null;
-  details: Record<string, unknown> | null;
-  hash: string;
 }
 
 export async function listOrganisationAudit(organisationId: number, limit = 100): Promise<AuditEntryView[]> {

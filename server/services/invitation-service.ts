@@ -14,16 +14,9 @@ import { hashPassword } from "./auth-service.ts";
 import { conflict, gone, notFound, validationFailed } from "../http/problem.ts";
 import { ROLE_LABELS, roleFitsKind, type Role, ORGANISATION_KIND_LABELS } from "../../shared/auth/roles.ts";
 import { toSessionUser, type SessionUser } from "./session-service.ts";
+import type { InvitationView } from "../../shared/auth/views.ts";
 
 export const INVITATION_DAYS = 7;
-
-export interface InvitationView {
-  id: number;
-  email: string;
-  role: Role;
-  expiresAt: string;
-  createdAt: string;
-}
 
 const view = (i: Invitation): InvitationView => ({
   id: i.id,

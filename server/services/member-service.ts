@@ -8,15 +8,9 @@ import { assertRoleFits } from "./invitation-service.ts";
 import { conflict, notFound } from "../http/problem.ts";
 import type { Role } from "../../shared/auth/roles.ts";
 import type { Transaction } from "sequelize";
+import type { MemberView } from "../../shared/auth/views.ts";
 
-export interface MemberView {
-  membershipId: number;
-  userId: number;
-  name: string;
-  email: string;
-  role: Role;
-  since: string;
-}
+
 
 export async function listMembers(orgId: number): Promise<MemberView[]> {
   const rows = await Membership.findAll({

@@ -8,17 +8,8 @@ import { createInvitation, INVITATION_DAYS } from "./invitation-service.ts";
 import { organisationWelcomeMail } from "../mail/templates.ts";
 import { conflict, notFound } from "../http/problem.ts";
 import type { CreateOrganisationInput } from "../../shared/auth/schemas.ts";
-import type { OrganisationKind } from "../../shared/auth/roles.ts";
 import type { SessionUser } from "./session-service.ts";
-
-export interface OrganisationView {
-  id: number;
-  name: string;
-  kind: OrganisationKind;
-  country: string;
-  memberCount: number;
-  createdAt: string;
-}
+import type { OrganisationView } from "../../shared/auth/views.ts";
 
 export async function listOrganisations(): Promise<OrganisationView[]> {
   const [orgs, counts] = await Promise.all([

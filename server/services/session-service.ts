@@ -1,26 +1,12 @@
 /** Session tokens (JWT in an HttpOnly cookie) and the user loaded for each request. */
 import jwt from "jsonwebtoken";
 import { createHmac, randomUUID } from "node:crypto";
-import type { OrganisationKind, Role } from "../../shared/auth/roles.ts";
+import type { SessionUser } from "../../shared/auth/session.ts";
+
+export type { SessionMembership, SessionUser } from "../../shared/auth/session.ts";
 import { User } from "../models/user.ts";
 import { Membership } from "../models/membership.ts";
 import { Organisation } from "../models/organisation.ts";
-
-export interface SessionMembership {
-  membershipId: number;
-  organisationId: number;
-  organisationName: string;
-  organisationKind: OrganisationKind;
-  role: Role;
-}
-
-export interface SessionUser {
-  id: number;
-  email: string;
-  name: string;
-  isPlatformAdmin: boolean;
-  memberships: SessionMembership[];
-}
 
 interface TokenClaims {
   sub: string;

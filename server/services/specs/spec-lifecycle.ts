@@ -69,17 +69,7 @@ export async function createVersion(orgId: number, contractId: number, user: Ses
     } else if (input.from === "version") {
       const source = await SpecVersion.findOne({ where: { id: input.versionId, contractId }, transaction: t });
       if (!source) throw validationFailed([{ path: "versionId", message: "That version does not belong to this contract." }]);
-      rows = (await SpecRequirement.findAll({ where: { specVersionId: source.id }, order: [["position", "ASC"]], transaction: t })).map((r) => ({
-        parameter: r.parameter,
-        unit: r.unit as SpecRowInput["unit"],
-        lower: r.lower,
-        upper: r.upper,
-        target: r.target,
-        method: r.method,
-        rule: r.rule,
-        severity: r.severity,
-        stages: r.stages,
-      }));
+      rows = (await requirementsOf(source.id, t)).map(({ id: _id, ...r }) => ({ ...r, unit: r.unit as SpecRowInput["unit"] }));
       ({ stages, vintageFrom, vintageTo, title } = source);
       basedOn = source.id;
     }
@@ -106,7 +96,7 @@ export async function saveDraft(orgId: number, specId: number, user: SessionUser
     if (updated === 0) {
       throw conflict(`Someone saved this draft after you opened it (your copy is save ${input.lockVersion}, the stored one is save ${version.lockVersion}). Reload to see their changes; yours were not saved.`);
     }
-    const before = await requirementsOf(specId);
+    const before = await requirementsOf(specId, t);
     await writeRows(t, specId, input.rows);
     await audit(t, user, orgId, "spec.draft_saved", version, { before: { rows: before }, after: { rows: input.rows } });
     const fresh = await SpecVersion.findByPk(specId, { transaction: t });
@@ -120,7 +110,7 @@ async function mailMembers(t: Transaction, organisationId: number, role: string,
 }
 
 /** Checks the whole version against the engine before it leaves the buyer: no impossible row. */
-function assertSendable(contract: ContractWithParties, version: SpecVersion, rows: SpecRowInput[] | Awaited<ReturnType<typeof requirementsOf>>) {
+function assertSendable(contract: ContractWithParties, version: SpecVersion, rows: Awaited<ReturnType<typeof requirementsOf>>) {
   if (rows.length === 0) throw validationFailed([{ path: "rows", message: "Add at least one requirement before sending." }]);
   const profile = wineProfile(contract.wine, version.vintageFrom);
   const errors = rows.flatMap((row, i) =>
@@ -136,7 +126,7 @@ export async function sendToProducer(orgId: number, specId: number, user: Sessio
     const { version, contract, side } = await versionFor(orgId, specId, t, true);
     if (side !== "buyer") throw notFound("The spec version");
     if (version.status !== "draft") throw conflict("Only a draft can be sent.");
-    assertSendable(contract, version, await requirementsOf(specId));
+    assertSendable(contract, version, await requirementsOf(specId, t));
     await version.update({ status: "with_producer", sentAt: new Date(), lockVersion: version.lockVersion + 1 }, { transaction: t });
     await audit(t, user, orgId, "spec.sent", version);
     await mailMembers(t, contract.producerOrgId, "producer_quality", (to) =>

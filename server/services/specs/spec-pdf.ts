@@ -1,10 +1,9 @@
 import { renderSpecSheetPdf } from "../../pdf/spec-sheet-pdf.tsx";
 import { getVersion } from "./spec-queries.ts";
-import type { SpecRowInput } from "../../../shared/specs/schemas.ts";
 
 export async function specSheetPdf(orgId: number, specId: number, role: string): Promise<{ filename: string; pdf: Buffer }> {
   const v = await getVersion(orgId, specId, role);
-  const pdf = await renderSpecSheetPdf({ ...v, requirements: v.requirements.map((r) => ({ ...r, unit: r.unit as SpecRowInput["unit"] })), generatedAt: new Date() });
+  const pdf = await renderSpecSheetPdf({ ...v, generatedAt: new Date() });
   const safe = `${v.contract.reference}-v${v.number}-${v.contract.wine.name}`.replace(/[^A-Za-z0-9._-]+/g, "-");
   return { filename: `${safe}.pdf`, pdf };
 }

@@ -1,6 +1,8 @@
 /** Reading spec sheets: lists with filters, one version in full, diffs, and past results for backtests. */
 import { Op, type WhereOptions } from "sequelize";
-import { diffSpecs, type BuyerRequirement } from "../../../shared/engine/index.ts";
+import type { Transaction } from "sequelize";
+import { diffSpecs } from "../../../shared/engine/index.ts";
+import type { RequirementView } from "../../../shared/specs/views.ts";
 import type { SpecStatus } from "../../../shared/specs/vocabulary.ts";
 import { Contract } from "../../models/contract.ts";
 import { SpecVersion } from "../../models/spec-version.ts";
@@ -97,16 +99,8 @@ export async function getVersion(orgId: number, specId: number, role: string) {
   };
 }
 
-export async function requirementsOf(specId: number): Promise<(BuyerRequirement & { id: number })[]> {
-  return (await SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]] })).map((r) => ({
-    id: r.id,
-    parameter: r.parameter,
-    unit: r.unit,
-    lower: r.lower,
-    upper: r.upper,
-    target: r.target,
-    rule: r.rule,
-  }));
+export async function requirementsOf(specId: number, t?: Transaction): Promise<RequirementView[]> {
+  return (await SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]], transaction: t })).map(requirementView);
 }
 
 export async function diffVersions(orgId: number, specId: number, againstId: number) {

@@ -1,47 +1,8 @@
 /** Plain objects the API returns for spec versions. */
-import type { DecisionRule, MarketId, WineProfile } from "../../../shared/engine/index.ts";
-import type { Severity, SpecStatus, Stage } from "../../../shared/specs/vocabulary.ts";
+import type { ContractView, RequirementView, VersionActions, VersionSummary } from "../../../shared/specs/views.ts";
 import type { SpecRequirement } from "../../models/spec-requirement.ts";
 import type { SpecVersion } from "../../models/spec-version.ts";
 import type { ContractWithParties, Side } from "./spec-access.ts";
-
-export interface RequirementView {
-  id: number;
-  parameter: string;
-  unit: string;
-  lower: number | null;
-  upper: number | null;
-  target: number | null;
-  method: string | null;
-  rule: DecisionRule;
-  severity: Severity;
-  stages: Stage[];
-}
-
-export interface ContractView {
-  id: number;
-  reference: string;
-  startsOn: string;
-  endsOn: string | null;
-  retailer: { id: number; name: string };
-  producer: { id: number; name: string };
-  wine: { id: number; name: string; colour: WineProfile["colour"]; category: WineProfile["category"]; region: string; markets: MarketId[]; nominalSugarGPerL: number | null; nominalAlcoholPercentVol: number | null };
-}
-
-export interface VersionSummary {
-  id: number;
-  number: number;
-  status: SpecStatus;
-  title: string | null;
-  vintageFrom: number;
-  vintageTo: number | null;
-  stages: Stage[];
-  lockVersion: number;
-  basedOnVersionId: number | null;
-  sentAt: string | null;
-  decidedAt: string | null;
-  updatedAt: string;
-}
 
 export const requirementView = (r: SpecRequirement): RequirementView => ({
   id: r.id,
@@ -89,16 +50,6 @@ export const versionSummary = (v: SpecVersion): VersionSummary => ({
   decidedAt: v.decidedAt ? v.decidedAt.toISOString() : null,
   updatedAt: v.updatedAt.toISOString(),
 });
-
-/** What the caller may do with a version, decided once on the server and shown by the client. */
-export interface VersionActions {
-  edit: boolean;
-  send: boolean;
-  withdraw: boolean;
-  decide: boolean;
-  comment: boolean;
-  newVersion: boolean;
-}
 
 export function actionsFor(v: SpecVersion, side: Side, role: string): VersionActions {
   const buyerTech = side === "buyer" && role === "buyer_technologist";

@@ -1,19 +1,9 @@
 import { useQuery } from "@tanstack/react-query";
 import { api } from "../../lib/api-client.ts";
+import type { AuditEntryView as AuditEntry } from "../../../shared/auth/views.ts";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
-
-interface AuditEntry {
-  seq: number;
-  occurredAt: string;
-  actorName: string | null;
-  action: string;
-  entityType: string;
-  entityId: string | null;
-  details: Record<string, unknown> | null;
-  hash: string;
-}
 
 const ACTION_LABELS: Record<string, string> = {
   "auth.sign_in": "Signed in",

@@ -3,29 +3,15 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { createOrganisationSchema, type CreateOrganisationInput } from "../../../shared/auth/schemas.ts";
-import { ORGANISATION_KINDS, ORGANISATION_KIND_LABELS, type OrganisationKind } from "../../../shared/auth/roles.ts";
+import { ORGANISATION_KINDS, ORGANISATION_KIND_LABELS } from "../../../shared/auth/roles.ts";
 import { api } from "../../lib/api-client.ts";
+import type { ChainVerification, OrganisationView as OrganisationRow } from "../../../shared/auth/views.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
-
-interface OrganisationRow {
-  id: number;
-  name: string;
-  kind: OrganisationKind;
-  country: string;
-  memberCount: number;
-}
-
-interface ChainVerification {
-  ok: boolean;
-  checked: number;
-  lastSeq: number;
-  firstBroken?: { seq: number; reason: string };
-}
 
 const organisationsQuery = { queryKey: ["platform", "organisations"], queryFn: () => api<OrganisationRow[]>("/api/platform/organisations") };
 

@@ -10,7 +10,7 @@ import { SelectField } from "../../components/ui/field.tsx";
 import { convert, findParameter, UNITS, type BacktestSummary, type DiffKind, type UnitId } from "../../../shared/engine/index.ts";
 import { runBacktest, toPastResults } from "./run-backtest.ts";
 import { errorMessage } from "../../lib/api-client.ts";
-import type { SpecVersionDetail } from "./api/types.ts";
+import type { SpecVersionDetail } from "../../../shared/specs/views.ts";
 
 const KIND_STYLE: Record<DiffKind, string> = {
   added: "text-verjus-700",

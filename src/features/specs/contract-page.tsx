@@ -12,7 +12,7 @@ import { SPEC_TEMPLATES } from "../../../shared/specs/templates.ts";
 import { COLOUR_LABELS, STAGE_LABELS, WINE_CATEGORY_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { errorMessage } from "../../lib/api-client.ts";
-import type { ContractDetail } from "./api/types.ts";
+import type { ContractDetail } from "../../../shared/specs/views.ts";
 
 export function ContractPage() {
   const { membership } = useShellContext();

@@ -1,7 +1,7 @@
 /** Runs the engine's backtest in small steps so the page stays responsive and can show progress. */
 import { backtestSteps, type BacktestSummary, type BuyerRequirement, type MarketId, type PastResult, type UnitId } from "../../../shared/engine/index.ts";
 import { wineProfile, type WineFacts } from "../../../shared/specs/profile.ts";
-import type { PastResultRow } from "./api/types.ts";
+import type { PastResultRow } from "../../../shared/specs/views.ts";
 
 export function toPastResults(rows: PastResultRow[], wine: WineFacts): PastResult[] {
   return rows.map((r) => ({

@@ -12,7 +12,7 @@ import { wineProfile } from "../../../shared/specs/profile.ts";
 import { DEFAULT_DECISION_RULE, PARAMETERS, findParameter } from "../../../shared/engine/index.ts";
 import { ApiError, errorMessage } from "../../lib/api-client.ts";
 import { specKeys, useSaveDraft } from "./api/specs.ts";
-import type { SpecVersionDetail } from "./api/types.ts";
+import type { SpecVersionDetail } from "../../../shared/specs/views.ts";
 import { RequirementRow } from "./requirement-row.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";

@@ -3,7 +3,7 @@ import { Link, useNavigate, useParams } from "react-router-dom";
 import { useState } from "react";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { specPdfUrl, specQuery, useCreateVersion, useSpecAction } from "./api/specs.ts";
-import type { SpecVersionDetail } from "./api/types.ts";
+import type { SpecVersionDetail } from "../../../shared/specs/views.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";

@@ -4,7 +4,7 @@ import { findParameter, ruleLabel, UNITS, type UnitId } from "../../../shared/en
 import { SEVERITY_LABELS, STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { wineProfile } from "../../../shared/specs/profile.ts";
 import { useAddComment } from "./api/specs.ts";
-import type { Requirement, SpecComment, SpecVersionDetail } from "./api/types.ts";
+import type { RequirementView, SpecCommentView, SpecVersionDetail } from "../../../shared/specs/views.ts";
 import { LegalCheck } from "./legal-check.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
@@ -12,7 +12,7 @@ import { errorMessage } from "../../lib/api-client.ts";
 
 const num = (x: number | null) => (x === null ? null : String(Number(x.toPrecision(6))));
 
-function limits(r: Requirement): string {
+function limits(r: RequirementView): string {
   const u = UNITS[r.unit as UnitId]?.label ?? r.unit;
   const lo = num(r.lower);
   const hi = num(r.upper);
@@ -66,7 +66,7 @@ export function SpecReadView({ orgId, version }: { orgId: number; version: SpecV
   );
 }
 
-function Thread({ orgId, version, requirement, comments }: { orgId: number; version: SpecVersionDetail; requirement?: Requirement; comments: SpecComment[] }) {
+function Thread({ orgId, version, requirement, comments }: { orgId: number; version: SpecVersionDetail; requirement?: RequirementView; comments: SpecCommentView[] }) {
   const add = useAddComment(orgId, version.id);
   const [body, setBody] = useState("");
   const [open, setOpen] = useState(false);

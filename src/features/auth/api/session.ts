@@ -1,23 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
-import type { OrganisationKind, Role } from "../../../../shared/auth/roles.ts";
+import type { SessionUser } from "../../../../shared/auth/session.ts";
+
+export type { SessionMembership, SessionUser } from "../../../../shared/auth/session.ts";
 import type { SignInInput } from "../../../../shared/auth/schemas.ts";
-
-export interface SessionMembership {
-  membershipId: number;
-  organisationId: number;
-  organisationName: string;
-  organisationKind: OrganisationKind;
-  role: Role;
-}
-
-export interface SessionUser {
-  id: number;
-  email: string;
-  name: string;
-  isPlatformAdmin: boolean;
-  memberships: SessionMembership[];
-}
 
 export interface Session {
   user: SessionUser | null;

@@ -1,24 +1,8 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
 import type { Role } from "../../../../shared/auth/roles.ts";
+import type { InvitationView as OpenInvitation, MemberView as Member } from "../../../../shared/auth/views.ts";
 import type { InviteInput } from "../../../../shared/auth/schemas.ts";
-
-export interface Member {
-  membershipId: number;
-  userId: number;
-  name: string;
-  email: string;
-  role: Role;
-  since: string;
-}
-
-export interface OpenInvitation {
-  id: number;
-  email: string;
-  role: Role;
-  expiresAt: string;
-  createdAt: string;
-}
 
 export const membersQueryOptions = (orgId: number) =>
   queryOptions({ queryKey: ["orgs", orgId, "members"], queryFn: () => api<Member[]>(`/api/orgs/${orgId}/members`) });

@@ -2,7 +2,7 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
 import type { CommentInput, NewVersionInput, SpecDraftInput } from "../../../../shared/specs/schemas.ts";
-import type { ContractDetail, ContractWithVersions, PastResultRow, SpecDiff, SpecListItem, SpecVersionDetail } from "./types.ts";
+import type { ContractDetail, ContractWithVersions, PastResultRow, SpecDiff, SpecListItem, SpecVersionDetail } from "../../../../shared/specs/views.ts";
 
 export interface SpecFilters {
   wine?: number;

@@ -1,0 +1,48 @@
+/** Shapes of the organisation API's answers, shared by server and client. */
+import type { OrganisationKind, Role } from "./roles.ts";
+
+export interface MemberView {
+  membershipId: number;
+  userId: number;
+  name: string;
+  email: string;
+  role: Role;
+  since: string;
+}
+
+export interface InvitationView {
+  id: number;
+  email: string;
+  role: Role;
+  expiresAt: string;
+  createdAt: string;
+}
+
+export interface OrganisationView {
+  id: number;
+  name: string;
+  kind: OrganisationKind;
+  country: string;
+  memberCount: number;
+  createdAt: string;
+}
+
+export interface AuditEntryView {
+  seq: number;
+  occurredAt: string;
+  actorUserId: number | null;
+  organisationId: number | null;
+  actorName: string | null;
+  action: string;
+  entityType: string;
+  entityId: string | null;
+  details: Record<string, unknown> | null;
+  hash: string;
+}
+
+export interface ChainVerification {
+  ok: boolean;
+  checked: number;
+  lastSeq: number;
+  firstBroken?: { seq: number; reason: string };
+}
