@@ -1,11 +1,13 @@
 import { z } from "zod";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { orgMember } from "../http/access.ts";
+import { validationFailed } from "../http/problem.ts";
 import { idParam } from "../../shared/ids.ts";
-import { commentSchema, newVersionSchema, requestChangesSchema, specDraftSchema, specListQuerySchema } from "../../shared/specs/schemas.ts";
+import { commentSchema, newContractSchema, newVersionSchema, requestChangesSchema, specDraftSchema, specListQuerySchema } from "../../shared/specs/schemas.ts";
 import * as queries from "../services/specs/spec-queries.ts";
 import * as lifecycle from "../services/specs/spec-lifecycle.ts";
 import { specSheetPdf } from "../services/specs/spec-pdf.ts";
+import { createContract, listProducers } from "../services/specs/contract-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const contractParams = orgParams.extend({ contractId: idParam });
@@ -19,6 +21,16 @@ export function registerSpecRoutes(r: RouteRegistry): void {
   r.add({ method: "get", path: "/api/orgs/:orgId/contracts", tag: "specs", summary: "Contracts your organisation is party to, with their versions", access: PARTIES, params: orgParams }, ({ params }) =>
     queries.listContracts(params.orgId),
   );
+
+  r.add(
+    { method: "post", path: "/api/orgs/:orgId/contracts", tag: "specs", summary: "Open a contract for a wine bought from a producer", access: BUYER, params: orgParams, body: newContractSchema, status: 201, errors: { 409: "reference taken" } },
+    ({ params, body, user, membership }) => {
+      if (membership!.organisationKind !== "retailer") throw validationFailed([{ path: "(body)", message: "Only a retailer opens purchasing contracts." }]);
+      return createContract(params.orgId, user, body);
+    },
+  );
+
+  r.add({ method: "get", path: "/api/orgs/:orgId/producers", tag: "specs", summary: "Producers a buyer can contract with", access: BUYER, params: orgParams }, () => listProducers());
 
   r.add({ method: "get", path: "/api/orgs/:orgId/contracts/:contractId", tag: "specs", summary: "One contract with its spec versions", access: PARTIES, params: contractParams }, ({ params, membership }) =>
     queries.getContract(params.orgId, params.contractId, membership!.role),

@@ -75,3 +75,16 @@ export const wineSchema = z.object({
   nominalSugarGPerL: z.number().min(0).max(600).nullish(),
   nominalAlcoholPercentVol: z.number().min(0).max(25).nullish(),
 });
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: "Use a date like 2026-03-31." });
+
+export const newContractSchema = z
+  .object({
+    reference: z.string().trim().min(3, { error: "Use at least 3 characters." }).max(40, { error: "At most 40 characters." }).regex(/^[A-Za-z0-9._/-]+$/, { error: "Use letters, digits and . _ / - only." }),
+    producerOrgId: z.number({ error: "Choose the producer." }).int().positive({ error: "Choose the producer." }),
+    startsOn: isoDate,
+    endsOn: isoDate.nullish(),
+    wine: wineSchema,
+  })
+  .refine((c) => !c.endsOn || c.endsOn >= c.startsOn, { path: ["endsOn"], error: "The contract cannot end before it starts." });
+export type NewContractInput = z.infer<typeof newContractSchema>;

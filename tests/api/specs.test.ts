@@ -161,3 +161,30 @@ describe("PDF", () => {
     expect(fonts).toMatch(/SourceSans3.*yes/);
   });
 });
+
+describe("contracts", () => {
+  const contract = (reference: string, producerOrgId: number = ORG.valsorda) => ({
+    reference,
+    producerOrgId,
+    startsOn: "2026-01-01",
+    endsOn: null,
+    wine: { name: "Valsorda Bianco", colour: "white", category: "still", region: "Veneto", markets: ["EU"], nominalSugarGPerL: 3, nominalAlcoholPercentVol: 12 },
+  });
+
+  it("when the buyer opens a contract, then it is listed for both parties and the reference cannot be reused", async () => {
+    const ref = `HG-T-${Date.now()}`;
+    const res = await buyer.agent.post(buyerUrl("/contracts")).set("x-csrf-token", buyer.csrf).send(contract(ref));
+    expect(res.status).toBe(201);
+    expect((await valsorda.agent.get(valsordaUrl(`/contracts/${res.body.id}`))).body.reference).toBe(ref);
+    expect((await buyer.agent.post(buyerUrl("/contracts")).set("x-csrf-token", buyer.csrf).send(contract(ref))).status).toBe(409);
+  });
+
+  it("when the producer named is not a producer, or the caller is not a buyer, then the contract is refused", async () => {
+    const bad = await buyer.agent.post(buyerUrl("/contracts")).set("x-csrf-token", buyer.csrf).send(contract(`HG-X-${Date.now()}`, ORG.lab));
+    expect(bad.status).toBe(400);
+    expect(bad.body.errors[0]).toEqual({ path: "producerOrgId", message: "Choose a producer organisation." });
+    expect((await valsorda.agent.post(valsordaUrl("/contracts")).set("x-csrf-token", valsorda.csrf).send(contract("X-1"))).status).toBe(403);
+    const ends = await buyer.agent.post(buyerUrl("/contracts")).set("x-csrf-token", buyer.csrf).send({ ...contract("HG-Y"), endsOn: "2025-01-01" });
+    expect(ends.body.errors).toEqual([{ path: "endsOn", message: "The contract cannot end before it starts." }]);
+  });
+});

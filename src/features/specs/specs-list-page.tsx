@@ -7,6 +7,7 @@ import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { StatusBadge } from "./status-badge.tsx";
 import { LegalCaution } from "./legal-caution.tsx";
+import { NewContractForm } from "./new-contract-form.tsx";
 import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabulary.ts";
 
@@ -36,6 +37,14 @@ export function SpecsListPage() {
       <div className="flex flex-col gap-6">
         <LegalCaution />
         <ContractsCard orgId={orgId} />
+        {membership.role === "buyer_technologist" && (
+          <details className="rounded-card border border-line bg-card p-gutter">
+            <summary className="cursor-pointer text-lg font-semibold">Open a new contract</summary>
+            <div className="mt-4">
+              <NewContractForm orgId={orgId} />
+            </div>
+          </details>
+        )}
         <Card title="Versions">
           <SpecFiltersBar orgId={orgId} filters={filters} set={set} />
           <SpecTable orgId={orgId} filters={filters} />

@@ -1,7 +1,7 @@
 /** Requests of the spec-sheet feature, with their query keys kept next to them. */
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
-import type { CommentInput, NewVersionInput, SpecDraftInput } from "../../../../shared/specs/schemas.ts";
+import type { CommentInput, NewContractInput, NewVersionInput, SpecDraftInput } from "../../../../shared/specs/schemas.ts";
 import type { ContractDetail, ContractWithVersions, PastResultRow, SpecDiff, SpecListItem, SpecVersionDetail } from "../../../../shared/specs/views.ts";
 
 export interface SpecFilters {
@@ -75,6 +75,17 @@ export function useAddComment(orgId: number, id: number) {
   const invalidate = useInvalidateSpecs(orgId);
   return useMutation({
     mutationFn: (input: CommentInput) => api<{ id: number }>(`${base(orgId)}/specs/${id}/comments`, { method: "POST", body: input }),
+    onSuccess: invalidate,
+  });
+}
+
+export const producersQuery = (orgId: number) =>
+  queryOptions({ queryKey: [...specKeys.all(orgId), "producers"], queryFn: () => api<{ id: number; name: string; country: string }[]>(`${base(orgId)}/producers`) });
+
+export function useCreateContract(orgId: number) {
+  const invalidate = useInvalidateSpecs(orgId);
+  return useMutation({
+    mutationFn: (input: NewContractInput) => api<{ id: number }>(`${base(orgId)}/contracts`, { method: "POST", body: input }),
     onSuccess: invalidate,
   });
 }
