@@ -15,13 +15,16 @@ import { registerAuthRoutes } from "./routes/auth-routes.ts";
 import { registerOrganisationRoutes } from "./routes/organisation-routes.ts";
 import { registerSystemRoutes } from "./routes/system-routes.ts";
 import { registerSpecRoutes } from "./routes/spec-routes.ts";
+import { registerLotRoutes } from "./routes/lot-routes.ts";
 import { useServiceSettings } from "./services/settings.ts";
 
 export const APP_VERSION = "0.1.0";
 export const BODY_LIMIT = "100kb";
+/** CSV imports arrive in batches of up to 2,000 samples. */
+export const IMPORT_BODY_LIMIT = "8mb";
 
 export function createApp(config: Config, logger: Logger): { app: Express; registry: RouteRegistry } {
-  useServiceSettings({ appUrl: config.APP_URL, bcryptCost: config.BCRYPT_COST });
+  useServiceSettings({ appUrl: config.APP_URL, bcryptCost: config.BCRYPT_COST, certificateDir: path.resolve(config.CERTIFICATE_DIR) });
   const production = config.NODE_ENV === "production";
   const cookies: CookieSettings = { secret: config.JWT_SECRET, hours: config.SESSION_HOURS, secure: config.COOKIE_SECURE };
   const limits = { perIp: config.LOGIN_LIMIT_PER_IP, perAccount: config.LOGIN_LIMIT_PER_ACCOUNT, windowMinutes: config.LOGIN_WINDOW_MINUTES };
@@ -56,6 +59,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
     }),
   );
   app.use(cookieParser());
+  app.use(/^\/api\/orgs\/\d+\/contracts\/\d+\/imports$/, express.json({ limit: IMPORT_BODY_LIMIT }));
   app.use("/api", express.json({ limit: BODY_LIMIT }));
   app.use("/api", sessionMiddleware(cookies));
   app.use("/api/auth/sign-in", ...signInLimiters(limits));
@@ -67,6 +71,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   registerAuthRoutes(registry, cookies);
   registerOrganisationRoutes(registry);
   registerSpecRoutes(registry);
+  registerLotRoutes(registry, { certificateMaxBytes: config.CERTIFICATE_MAX_BYTES });
   app.use(router);
   app.use("/api", notFoundHandler);
 

@@ -31,6 +31,9 @@ const schema = z
     LOGIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(8),
     LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
     CLIENT_DIR: z.string().optional(),
+    // Outside the web root: certificates are only ever served by the download route.
+    CERTIFICATE_DIR: z.string().default(".data/certificates"),
+    CERTIFICATE_MAX_BYTES: z.coerce.number().int().min(1024).max(100 * 1024 * 1024).default(10 * 1024 * 1024),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
   .superRefine((c, ctx) => {

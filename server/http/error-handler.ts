@@ -1,6 +1,7 @@
 /** Turns anything thrown into a problem+json response; hides internals in production. */
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import { ZodError } from "zod";
+import { MulterError } from "multer";
 import { HttpError, validationFailed } from "./problem.ts";
 import { zodFieldErrors } from "./validate.ts";
 
@@ -12,6 +13,10 @@ interface BodyParserError {
 
 function toHttpError(err: unknown): HttpError | null {
   if (err instanceof HttpError) return err;
+  if (err instanceof MulterError) {
+    if (err.code === "LIMIT_FILE_SIZE") return new HttpError(413, "Payload too large", "The file is larger than the upload limit.");
+    return new HttpError(400, "Bad upload", `The upload was not accepted: ${err.message}. Send one file in the field "file".`);
+  }
   if (err instanceof ZodError) return validationFailed(zodFieldErrors(err));
   const e = err as BodyParserError;
   if (e?.type === "entity.parse.failed") return new HttpError(400, "Malformed JSON", "The request body is not valid JSON.");

@@ -2,7 +2,7 @@
  * Every API route is declared here with its access rule and zod schemas. The same declaration
  * registers the Express handler, validates input and feeds the OpenAPI document.
  */
-import type { Request, Response, Router } from "express";
+import type { Request, RequestHandler, Response, Router } from "express";
 import type { ZodType } from "zod";
 import { enforceAccess, type Access } from "./access.ts";
 import { parseOrThrow } from "./validate.ts";
@@ -26,6 +26,10 @@ export interface RouteSpec<B = unknown, Q = unknown, P = unknown> {
   errors?: Record<number, string>;
   /** Response media type when it is not JSON. */
   produces?: string;
+  /** Request media type when it is not JSON (uploads). */
+  consumes?: string;
+  /** Runs after the access check and before validation, e.g. an upload parser, so strangers cannot make the server read a file. */
+  before?: RequestHandler;
 }
 
 export interface RouteContext<B, Q, P> {
@@ -58,6 +62,7 @@ export class RouteRegistry {
     this.router[spec.method](spec.path, async (req: Request, res: Response) => {
       const orgId = req.params.orgId === undefined ? undefined : parseOrThrow(idParam, req.params.orgId, "params");
       const membership = enforceAccess(spec.access, req.user ?? null, orgId);
+      if (spec.before) await new Promise<void>((resolve, reject) => spec.before!(req, res, (err?: unknown) => (err ? reject(err) : resolve())));
       const ctx = {
         req,
         res,
@@ -70,8 +75,10 @@ export class RouteRegistry {
       };
       const result = await handler(ctx);
       if (res.headersSent) return;
-      if (result === undefined) res.status(spec.status ?? 204).end();
-      else res.status(spec.status ?? 200).json(result);
+      // A handler that needs another success status (a replay, a degraded health check) sets res.locals.status.
+      const status = (res.locals.status as number | undefined) ?? spec.status;
+      if (result === undefined) res.status(status ?? 204).end();
+      else res.status(status ?? 200).json(result);
     });
   }
 }

@@ -13,9 +13,10 @@ import { SpecVersion } from "./spec-version.ts";
 import { SpecRequirement } from "./spec-requirement.ts";
 import { SpecComment } from "./spec-comment.ts";
 import { Analysis, AnalysisResult, Lot } from "./lot.ts";
+import { AnalysisEvaluation, Certificate, Deviation, IdempotencyKey } from "./evaluation.ts";
 
 export function initModels(sequelize: Sequelize): void {
-  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult]) {
+  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey]) {
     m.initModel(sequelize);
   }
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -34,4 +35,8 @@ export function initModels(sequelize: Sequelize): void {
   Lot.hasMany(Analysis, { foreignKey: "lotId", as: "analyses" });
   Analysis.belongsTo(Lot, { foreignKey: "lotId", as: "lot" });
   Analysis.hasMany(AnalysisResult, { foreignKey: "analysisId", as: "results" });
+  AnalysisResult.belongsTo(Analysis, { foreignKey: "analysisId", as: "analysis" });
+  Analysis.hasOne(AnalysisEvaluation, { foreignKey: "analysisId", as: "evaluation" });
+  Analysis.hasMany(Certificate, { foreignKey: "analysisId", as: "certificates" });
+  Lot.belongsTo(Contract, { foreignKey: "contractId", as: "contract" });
 }

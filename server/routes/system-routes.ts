@@ -8,7 +8,7 @@ import { HttpError } from "../http/problem.ts";
 export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; devInboxUrl?: string }): void {
   r.add({ method: "get", path: "/api/health", tag: "system", summary: "Service and database state", access: PUBLIC, errors: { 503: "database down" } }, async ({ res }) => {
     const db = await databaseHealth();
-    res.status(db.status === "up" ? 200 : 503);
+    if (db.status !== "up") res.locals.status = 503;
     return { status: db.status === "up" ? "ok" : "degraded", version: opts.version, database: db };
   });
 

@@ -2,6 +2,7 @@
 export interface ServiceSettings {
   appUrl: string;
   bcryptCost: number;
+  certificateDir: string;
 }
 
 let current: ServiceSettings | null = null;

@@ -1,0 +1,114 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import type { StoredVerdict } from "../../shared/lots/views.ts";
+
+export class AnalysisEvaluation extends Model<InferAttributes<AnalysisEvaluation>, InferCreationAttributes<AnalysisEvaluation>> {
+  declare id: CreationOptional<number>;
+  declare analysisId: number;
+  declare specVersionId: number | null;
+  declare engineVersion: string;
+  declare marketVersions: Record<string, string>;
+  declare worstOutcome: string;
+  declare verdicts: StoredVerdict[];
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    AnalysisEvaluation.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        analysisId: { type: DataTypes.INTEGER, allowNull: false },
+        specVersionId: { type: DataTypes.INTEGER, allowNull: true },
+        engineVersion: { type: DataTypes.STRING(20), allowNull: false },
+        marketVersions: { type: DataTypes.JSON, allowNull: false },
+        worstOutcome: { type: DataTypes.STRING(20), allowNull: false },
+        verdicts: { type: DataTypes.JSON, allowNull: false },
+        createdAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "analysis_evaluations", underscored: true, updatedAt: false },
+    );
+  }
+}
+
+export class Deviation extends Model<InferAttributes<Deviation>, InferCreationAttributes<Deviation>> {
+  declare id: CreationOptional<number>;
+  declare contractId: number;
+  declare lotId: number;
+  declare analysisId: number | null;
+  declare kind: "result" | "transit" | "manual";
+  declare status: string;
+  declare parameters: string[];
+  declare summary: string;
+  declare openedBy: number | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Deviation.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        contractId: { type: DataTypes.INTEGER, allowNull: false },
+        lotId: { type: DataTypes.INTEGER, allowNull: false },
+        analysisId: { type: DataTypes.INTEGER, allowNull: true },
+        kind: { type: DataTypes.ENUM("result", "transit", "manual"), allowNull: false },
+        status: { type: DataTypes.STRING(30), allowNull: false },
+        parameters: { type: DataTypes.JSON, allowNull: false },
+        summary: { type: DataTypes.TEXT, allowNull: false },
+        openedBy: { type: DataTypes.INTEGER, allowNull: true },
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "deviations", underscored: true },
+    );
+  }
+}
+
+export class Certificate extends Model<InferAttributes<Certificate>, InferCreationAttributes<Certificate>> {
+  declare id: CreationOptional<number>;
+  declare analysisId: number;
+  declare originalName: string;
+  declare storedName: string;
+  declare mime: string;
+  declare sizeBytes: number;
+  declare sha256: string;
+  declare uploadedBy: number;
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Certificate.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        analysisId: { type: DataTypes.INTEGER, allowNull: false },
+        originalName: { type: DataTypes.STRING(200), allowNull: false },
+        storedName: { type: DataTypes.STRING(80), allowNull: false },
+        mime: { type: DataTypes.STRING(60), allowNull: false },
+        sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
+        sha256: { type: DataTypes.CHAR(64), allowNull: false },
+        uploadedBy: { type: DataTypes.INTEGER, allowNull: false },
+        createdAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "certificates", underscored: true, updatedAt: false },
+    );
+  }
+}
+
+export class IdempotencyKey extends Model<InferAttributes<IdempotencyKey>, InferCreationAttributes<IdempotencyKey>> {
+  declare id: CreationOptional<number>;
+  declare organisationId: number;
+  declare key: string;
+  declare requestHash: string;
+  declare response: unknown;
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    IdempotencyKey.init(
+      {
+        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+        organisationId: { type: DataTypes.INTEGER, allowNull: false },
+        key: { type: DataTypes.STRING(100), allowNull: false },
+        requestHash: { type: DataTypes.CHAR(64), allowNull: false },
+        response: { type: DataTypes.JSON, allowNull: false },
+        createdAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "idempotency_keys", underscored: true, updatedAt: false },
+    );
+  }
+}

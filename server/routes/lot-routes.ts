@@ -1,0 +1,76 @@
+import { z } from "zod";
+import multer from "multer";
+import type { RouteRegistry } from "../http/route-registry.ts";
+import { orgMember } from "../http/access.ts";
+import { idParam } from "../../shared/ids.ts";
+import { PARAMETERS } from "../../shared/engine/index.ts";
+import { analysisSubmissionSchema, importBatchSchema, lotSchema } from "../../shared/lots/schemas.ts";
+import * as submissions from "../services/lots/submission-service.ts";
+import * as queries from "../services/lots/lot-queries.ts";
+import { readCertificate, storeCertificate } from "../services/lots/certificate-service.ts";
+import { badRequest } from "../http/problem.ts";
+
+const orgParams = z.object({ orgId: idParam });
+const PRODUCER = orgMember("producer_quality");
+const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "org_admin");
+
+export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes: number }): void {
+  // Memory storage with a hard size limit; nothing reaches the disk before the content check passes.
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.certificateMaxBytes, files: 1, fields: 0 } }).single("file");
+
+  r.add({ method: "get", path: "/api/orgs/:orgId/lots", tag: "lots", summary: "Lots on your contracts", access: PARTIES, params: orgParams, query: z.object({ contract: z.coerce.number().int().positive().optional(), q: z.string().trim().max(60).optional() }) }, ({ params, query }) =>
+    queries.listLots(params.orgId, query),
+  );
+
+  r.add({ method: "post", path: "/api/orgs/:orgId/lots", tag: "lots", summary: "Register a lot under a contract (producer)", access: PRODUCER, params: orgParams, body: lotSchema, status: 201 }, ({ params, user, body }) =>
+    submissions.registerLot(params.orgId, user, body),
+  );
+
+  r.add({ method: "get", path: "/api/orgs/:orgId/lots/:lotId", tag: "lots", summary: "One lot: governing spec, analyses with stored verdicts, certificates, transit, deviations", access: PARTIES, params: orgParams.extend({ lotId: idParam }) }, ({ params, membership }) =>
+    queries.getLot(params.orgId, params.lotId, membership!.role),
+  );
+
+  r.add(
+    { method: "post", path: "/api/orgs/:orgId/lots/:lotId/analyses", tag: "lots", summary: "Submit one analysis; evaluated and stored at once (idempotent by key)", access: PRODUCER, params: orgParams.extend({ lotId: idParam }), body: analysisSubmissionSchema, status: 201, errors: { 409: "idempotency key reused with another body" } },
+    async ({ params, user, body, res }) => {
+      const { replayed, response } = await submissions.submitAnalysis(params.orgId, params.lotId, user, body);
+      if (replayed) res.locals.status = 200;
+      return response;
+    },
+  );
+
+  r.add(
+    { method: "post", path: "/api/orgs/:orgId/contracts/:contractId/imports", tag: "lots", summary: "Import a batch of analyses from a CSV (idempotent by key)", access: PRODUCER, params: orgParams.extend({ contractId: idParam }), body: importBatchSchema, status: 201, errors: { 409: "idempotency key reused, or a lot's vintage differs" } },
+    async ({ params, user, body, res }) => {
+      const { replayed, response } = await submissions.importAnalyses(params.orgId, params.contractId, user, body);
+      if (replayed) res.locals.status = 200;
+      return response;
+    },
+  );
+
+  r.add(
+    { method: "post", path: "/api/orgs/:orgId/analyses/:analysisId/certificates", tag: "lots", summary: "Upload the laboratory's certificate (PDF, PNG or JPEG, checked by content)", access: PRODUCER, params: orgParams.extend({ analysisId: idParam }), consumes: "multipart/form-data", before: upload, status: 201, errors: { 413: "file too large", 415: "not a PDF or image" } },
+    ({ params, user, req }) => {
+      if (!req.file) throw badRequest('Send the certificate as multipart/form-data in the field "file".');
+      return storeCertificate(params.orgId, params.analysisId, user, req.file);
+    },
+  );
+
+  r.add(
+    { method: "get", path: "/api/orgs/:orgId/certificates/:certificateId", tag: "lots", summary: "Download a certificate", access: PARTIES, params: orgParams.extend({ certificateId: idParam }), produces: "application/octet-stream" },
+    async ({ params, res }) => {
+      const c = await readCertificate(params.orgId, params.certificateId);
+      res.status(200).type(c.mime).attachment(c.filename).setHeader("X-Content-Type-Options", "nosniff");
+      res.send(c.body);
+    },
+  );
+
+  r.add({ method: "get", path: "/api/orgs/:orgId/readiness", tag: "lots", summary: "Lots approaching filling or shipment: what is missing, what fails", access: PARTIES, params: orgParams }, ({ params }) =>
+    queries.readiness(params.orgId),
+  );
+
+  r.add(
+    { method: "get", path: "/api/orgs/:orgId/contracts/:contractId/trend", tag: "lots", summary: "One parameter across the contract's lots and vintages", access: PARTIES, params: orgParams.extend({ contractId: idParam }), query: z.object({ parameter: z.enum(PARAMETERS.map((p) => p.id) as [string, ...string[]], { error: "Choose a parameter." }) }) },
+    ({ params, query }) => queries.trend(params.orgId, params.contractId, query.parameter),
+  );
+}

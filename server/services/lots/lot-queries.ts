@@ -1,0 +1,163 @@
+/** Reading lots: lists, one lot in full, the readiness board and trends. */
+import { Op } from "sequelize";
+import { compareTransit, convert, findParameter, formatReading, type MarketId, type Outcome, type UnitId } from "../../../shared/engine/index.ts";
+import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
+import type { AnalysisView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
+import type { Stage } from "../../../shared/specs/vocabulary.ts";
+import { Contract } from "../../models/contract.ts";
+import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
+import { AnalysisEvaluation, Certificate, Deviation } from "../../models/evaluation.ts";
+import { contractFor, contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
+import { contractView, versionSummary } from "../specs/spec-view.ts";
+import { lotFor } from "./lot-access.ts";
+import { governingVersion } from "./governing.ts";
+import { transitValues } from "./store-analyses.ts";
+
+type LoadedAnalysis = Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null; certificates: Certificate[] };
+
+async function partyContracts(orgId: number) {
+  return (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] }, include: contractInclude })) as ContractWithParties[];
+}
+
+async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties>): Promise<LotSummary[]> {
+  const ids = lots.map((l) => l.id);
+  const [analyses, deviations] = await Promise.all([
+    Analysis.findAll({ where: { lotId: ids }, include: [{ model: AnalysisEvaluation, as: "evaluation", attributes: ["worstOutcome"] }], attributes: ["id", "lotId", "stage", "sampleDate"], order: [["sampleDate", "ASC"], ["id", "ASC"]] }),
+    Deviation.findAll({ where: { lotId: ids, status: { [Op.ne]: "closed" } }, attributes: ["lotId"] }),
+  ]);
+  return lots.map((l) => {
+    const c = contracts.get(l.contractId)!;
+    const mine = analyses.filter((a) => a.lotId === l.id) as (Analysis & { evaluation: AnalysisEvaluation | null })[];
+    const last = mine.at(-1);
+    return {
+      id: l.id,
+      contractId: l.contractId,
+      contractReference: c.reference,
+      wineName: c.wine.name,
+      producerName: c.producer.name,
+      vintage: l.vintage,
+      lotCode: l.lotCode,
+      volumeLitres: Number(l.volumeLitres),
+      container: l.container,
+      plannedDate: l.plannedDate,
+      market: l.market as MarketId,
+      latestStage: (last?.stage as AnalysisStage) ?? null,
+      worstOutcome: (last?.evaluation?.worstOutcome as Outcome) ?? null,
+      openDeviations: deviations.filter((d) => d.lotId === l.id).length,
+    };
+  });
+}
+
+export async function listLots(orgId: number, f: { contract?: number; q?: string }) {
+  const contracts = await partyContracts(orgId);
+  const byId = new Map(contracts.map((c) => [c.id, c]));
+  const lots = await Lot.findAll({
+    where: { contractId: f.contract ? [f.contract].filter((id) => byId.has(id)) : [...byId.keys()], ...(f.q ? { lotCode: { [Op.like]: `%${f.q.replace(/[%_]/g, "")}%` } } : {}) },
+    order: [["vintage", "DESC"], ["lotCode", "ASC"]],
+    limit: 500,
+  });
+  return summaries(lots, byId);
+}
+
+function analysisView(a: LoadedAnalysis): AnalysisView {
+  return {
+    id: a.id,
+    stage: a.stage,
+    laboratoryName: a.laboratoryName,
+    accreditation: a.accreditation,
+    sampleDate: a.sampleDate,
+    createdAt: a.createdAt.toISOString(),
+    results: a.results.map((r) => ({ parameter: r.parameter, rawText: r.rawText, reading: r.reading, unit: r.unit, uncertainty: r.uncertainty, method: r.method })),
+    evaluation: a.evaluation
+      ? { specVersionId: a.evaluation.specVersionId, engineVersion: a.evaluation.engineVersion, marketVersions: a.evaluation.marketVersions, worstOutcome: a.evaluation.worstOutcome as Outcome, verdicts: a.evaluation.verdicts }
+      : null,
+    certificates: a.certificates.map((c) => ({ id: c.id, originalName: c.originalName, mime: c.mime, sizeBytes: c.sizeBytes, sha256: c.sha256, createdAt: c.createdAt.toISOString() })),
+  };
+}
+
+export async function getLot(orgId: number, lotId: number, role: string): Promise<LotDetail> {
+  const { lot, contract, side } = await lotFor(orgId, lotId);
+  const [summary] = await summaries([lot], new Map([[contract.id, contract]]));
+  const analyses = (await Analysis.findAll({
+    where: { lotId },
+    include: [{ model: AnalysisResult, as: "results" }, { model: AnalysisEvaluation, as: "evaluation" }, { model: Certificate, as: "certificates" }],
+    order: [["sampleDate", "ASC"], ["id", "ASC"]],
+  })) as LoadedAnalysis[];
+  const governing = await governingVersion(contract.id, lot.vintage);
+  const pre = [...analyses].reverse().find((a) => a.stage === "pre_shipment");
+  const arrival = [...analyses].reverse().find((a) => a.stage === "on_arrival");
+  const deviations = await Deviation.findAll({ where: { lotId }, order: [["createdAt", "DESC"]] });
+  return {
+    ...summary!,
+    side,
+    canSubmit: side === "producer" && role === "producer_quality",
+    contract: contractView(contract),
+    governing: governing ? { ...versionSummary(governing.version), requirements: governing.requirements } : null,
+    analyses: analyses.map(analysisView),
+    transit: isBulk(lot.container) && pre && arrival ? compareTransit(transitValues(pre.results), transitValues(arrival.results)) : null,
+    deviations: deviations.map((d) => ({ id: d.id, kind: d.kind, status: d.status, parameters: d.parameters, summary: d.summary, analysisId: d.analysisId, createdAt: d.createdAt.toISOString() })),
+  };
+}
+
+/** Lots not yet shipped or due within the horizon, with what each required stage still lacks. */
+export async function readiness(orgId: number, horizonDays = 120): Promise<ReadinessRow[]> {
+  const contracts = await partyContracts(orgId);
+  const byId = new Map(contracts.map((c) => [c.id, c]));
+  const today = new Date().toISOString().slice(0, 10);
+  const horizon = new Date(Date.now() + horizonDays * 86_400_000).toISOString().slice(0, 10);
+  const lots = await Lot.findAll({
+    where: { contractId: [...byId.keys()], [Op.or]: [{ plannedDate: null }, { plannedDate: { [Op.between]: [today, horizon] } }] },
+    order: [["plannedDate", "ASC"], ["lotCode", "ASC"]],
+    limit: 300,
+  });
+  const base = await summaries(lots, byId);
+  const analyses = (await Analysis.findAll({ where: { lotId: lots.map((l) => l.id) }, include: [{ model: AnalysisResult, as: "results", attributes: ["parameter"] }, { model: AnalysisEvaluation, as: "evaluation" }] })) as LoadedAnalysis[];
+  const governingCache = new Map<string, Awaited<ReturnType<typeof governingVersion>>>();
+  const rows: ReadinessRow[] = [];
+  for (const [i, lot] of lots.entries()) {
+    const key = `${lot.contractId}|${lot.vintage}`;
+    if (!governingCache.has(key)) governingCache.set(key, await governingVersion(lot.contractId, lot.vintage));
+    const g = governingCache.get(key);
+    const mine = analyses.filter((a) => a.lotId === lot.id);
+    const stages = (g?.version.stages ?? []).map((stage: Stage) => {
+      const atStage = mine.filter((a) => a.stage === stage || (stage === "pre_filling" && a.stage === "retest"));
+      const measured = new Set(atStage.flatMap((a) => a.results.map((r) => r.parameter)));
+      const required = (g?.requirements ?? []).filter((r) => r.stages.includes(stage)).map((r) => r.parameter);
+      const latest = atStage.at(-1)?.evaluation?.verdicts ?? [];
+      return {
+        stage,
+        analysed: atStage.length > 0,
+        missing: required.filter((p) => !measured.has(p)),
+        failing: latest.filter((v) => v.outcome === "fail" || v.outcome === "conditional fail").map((v) => v.parameter),
+      };
+    });
+    rows.push({ ...base[i]!, stages, hasAgreedSpec: g !== null });
+  }
+  return rows;
+}
+
+/** One parameter across the contract's lots and vintages, in the parameter's canonical unit. */
+export async function trend(orgId: number, contractId: number, parameterId: string): Promise<TrendData> {
+  const { contract } = await contractFor(orgId, contractId);
+  const p = findParameter(parameterId)!;
+  const lots = await Lot.findAll({ where: { contractId } });
+  const lotById = new Map(lots.map((l) => [l.id, l]));
+  const results = (await AnalysisResult.findAll({
+    where: { parameter: parameterId },
+    include: [{ model: Analysis, as: "analysis", where: { lotId: lots.map((l) => l.id) }, attributes: ["lotId", "stage", "sampleDate"] }],
+  })) as (AnalysisResult & { analysis: Analysis })[];
+  const latestVintage = Math.max(0, ...lots.map((l) => l.vintage));
+  const governing = latestVintage ? await governingVersion(contract.id, latestVintage) : null;
+  const row = governing?.requirements.find((r) => r.parameter === parameterId);
+  const toCanonical = (x: number | null) => (x === null || !row ? null : convert(x, row.unit as UnitId, p.unit));
+  const points = results
+    .map((r) => {
+      const lot = lotById.get(r.analysis.lotId)!;
+      const value = r.reading.kind === "value" ? convert(r.reading.value, r.unit as UnitId, p.unit) : null;
+      const text = r.reading.kind === "value" ? String(Number(value!.toPrecision(6))) : formatReading(r.reading, p.digits);
+      return { lotId: lot.id, lotCode: lot.lotCode, vintage: lot.vintage, stage: r.analysis.stage, sampleDate: r.analysis.sampleDate, value, text };
+    })
+    .sort((a, b) => (a.sampleDate < b.sampleDate ? -1 : a.sampleDate > b.sampleDate ? 1 : a.lotCode.localeCompare(b.lotCode)));
+  return { parameter: parameterId, unit: p.unit, lower: toCanonical(row?.lower ?? null), upper: toCanonical(row?.upper ?? null), points };
+}
+

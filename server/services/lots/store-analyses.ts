@@ -1,0 +1,136 @@
+/**
+ * Stores analyses with their results and the engine's stored evaluation, opens deviations for
+ * failing results and for transit drift, all inside the caller's transaction (never half-written).
+ */
+import { Op, type Transaction } from "sequelize";
+import { compareTransit, findParameter, parseReading, convert, type ParameterId, type TransitValue, type UnitId } from "../../../shared/engine/index.ts";
+import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
+import type { ResultEntry } from "../../../shared/lots/schemas.ts";
+import { Analysis, AnalysisResult, type Lot } from "../../models/lot.ts";
+import { AnalysisEvaluation, Deviation } from "../../models/evaluation.ts";
+import type { ContractWithParties } from "../specs/spec-access.ts";
+import { governingVersion } from "./governing.ts";
+import { evaluateAnalysis } from "./evaluate-analysis.ts";
+
+export interface AnalysisHeader {
+  stage: AnalysisStage;
+  laboratoryName: string;
+  accreditation?: string | null;
+}
+
+export interface SampleToStore {
+  lot: Lot;
+  sampleDate: string;
+  results: ResultEntry[];
+}
+
+export interface StoredSummary {
+  analysisIds: number[];
+  failing: { analysisId: number; lotCode: string; parameters: string[] }[];
+  deviationIds: number[];
+}
+
+const FAILING = new Set(["fail", "conditional fail"]);
+
+export async function storeAnalyses(t: Transaction, contract: ContractWithParties, userId: number, header: AnalysisHeader, samples: SampleToStore[]): Promise<StoredSummary> {
+  const governingCache = new Map<number, Awaited<ReturnType<typeof governingVersion>>>();
+  const governing = async (vintage: number) => {
+    if (!governingCache.has(vintage)) governingCache.set(vintage, await governingVersion(contract.id, vintage, t));
+    return governingCache.get(vintage)!;
+  };
+  for (const s of samples) await governing(s.lot.vintage);
+
+  const analyses = await Analysis.bulkCreate(
+    samples.map((s) => ({
+      lotId: s.lot.id,
+      stage: header.stage,
+      laboratoryName: header.laboratoryName,
+      accreditation: header.accreditation ?? null,
+      sampleDate: s.sampleDate,
+      specVersionId: governingCache.get(s.lot.vintage)?.version.id ?? null,
+      submittedBy: userId,
+    })),
+    { transaction: t },
+  );
+  await AnalysisResult.bulkCreate(
+    samples.flatMap((s, i) =>
+      s.results.map((r) => {
+        const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" });
+        return { analysisId: analyses[i]!.id, parameter: r.parameter, rawText: r.raw, reading: parsed.ok ? parsed.reading : { kind: "below" as const, limit: null }, unit: r.unit, uncertainty: r.uncertainty ?? null, method: r.method ?? null };
+      }),
+    ),
+    { transaction: t },
+  );
+
+  const summary: StoredSummary = { analysisIds: analyses.map((a) => a.id), failing: [], deviationIds: [] };
+  const evaluations = samples.map((s, i) => {
+    const g = governingCache.get(s.lot.vintage);
+    const e = evaluateAnalysis(contract, s.lot, header.stage, g?.requirements ?? null, s.results);
+    const failing = e.verdicts.filter((v) => FAILING.has(v.outcome)).map((v) => v.parameter);
+    if (failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: failing });
+    return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts };
+  });
+  await AnalysisEvaluation.bulkCreate(evaluations, { transaction: t });
+
+  const lotOf = new Map(samples.map((s, i) => [analyses[i]!.id, s.lot]));
+  const deviations: { contractId: number; lotId: number; analysisId: number; kind: "result" | "transit"; status: string; parameters: string[]; summary: string; openedBy: number }[] = summary.failing.map((f) => ({
+    contractId: contract.id,
+    lotId: lotOf.get(f.analysisId)!.id,
+    analysisId: f.analysisId,
+    kind: "result" as const,
+    status: "open",
+    parameters: f.parameters,
+    summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification at ${header.stage.replace("_", " ")}.`,
+    openedBy: userId,
+  }));
+  if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, contract.id, userId, samples, analyses)));
+  if (deviations.length) summary.deviationIds = (await Deviation.bulkCreate(deviations, { transaction: t })).map((d) => d.id);
+  return summary;
+}
+
+/** The pre-shipment and arrival values of one lot, in canonical units, for the transit check. */
+export function transitValues(results: { parameter: string; reading: { kind: string; value?: number }; unit: string; uncertainty?: { kind: string; value: number; k?: number } | null }[]) {
+  const out: Partial<Record<ParameterId, TransitValue>> = {};
+  for (const r of results) {
+    const p = findParameter(r.parameter);
+    if (!p || r.reading.kind !== "value" || typeof r.reading.value !== "number") continue;
+    const value = convert(r.reading.value, r.unit as UnitId, p.unit);
+    const u = r.uncertainty ? convert(r.uncertainty.value, r.unit as UnitId, p.unit) / (r.uncertainty.kind === "expanded" ? (r.uncertainty.k ?? 2) : 1) : undefined;
+    out[p.id as ParameterId] = u === undefined ? { value } : { value, u };
+  }
+  return out;
+}
+
+async function transitDeviations(t: Transaction, contractId: number, userId: number, samples: SampleToStore[], analyses: Analysis[]) {
+  const bulk = samples.map((s, i) => ({ s, analysis: analyses[i]! })).filter((x) => isBulk(x.s.lot.container));
+  if (!bulk.length) return [];
+  const before = await Analysis.findAll({
+    where: { lotId: bulk.map((b) => b.s.lot.id), stage: "pre_shipment", id: { [Op.notIn]: analyses.map((a) => a.id) } },
+    include: [{ model: AnalysisResult, as: "results" }],
+    order: [["sampleDate", "DESC"], ["id", "DESC"]],
+    transaction: t,
+  });
+  const found = [];
+  for (const { s, analysis } of bulk) {
+    const pre = before.find((a) => a.lotId === s.lot.id) as (Analysis & { results: AnalysisResult[] }) | undefined;
+    if (!pre) continue;
+    const arrival = s.results.map((r) => {
+      const parsed = parseReading(r.raw);
+      return { parameter: r.parameter, reading: parsed.ok ? (parsed.reading as { kind: string; value?: number }) : { kind: "none" }, unit: r.unit, uncertainty: r.uncertainty ?? null };
+    });
+    const exceeded = compareTransit(transitValues(pre.results), transitValues(arrival)).filter((f) => f.exceeded);
+    if (exceeded.length) {
+      found.push({
+        contractId,
+        lotId: s.lot.id,
+        analysisId: analysis.id,
+        kind: "transit" as const,
+        status: "open",
+        parameters: exceeded.map((f) => f.parameter),
+        summary: `Lot ${s.lot.lotCode} changed in transit: ${exceeded.map((f) => f.message).join(" ")}`,
+        openedBy: userId,
+      });
+    }
+  }
+  return found;
+}

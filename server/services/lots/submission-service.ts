@@ -1,0 +1,88 @@
+/** Registering lots and submitting analyses (one by form, many by CSV import), idempotently. */
+import { Lot } from "../../models/lot.ts";
+import { recordAudit } from "../audit-service.ts";
+import { idempotent } from "../idempotency.ts";
+import { conflict, notFound, validationFailed } from "../../http/problem.ts";
+import { inTransaction } from "../../db/database.ts";
+import type { AnalysisSubmission, ImportBatch, LotInput } from "../../../shared/lots/schemas.ts";
+import { contractFor } from "../specs/spec-access.ts";
+import { lotFor } from "./lot-access.ts";
+import { storeAnalyses } from "./store-analyses.ts";
+import type { SessionUser } from "../session-service.ts";
+
+export async function registerLot(orgId: number, user: SessionUser, input: LotInput): Promise<{ id: number }> {
+  return inTransaction(async (t) => {
+    const { contract, side } = await contractFor(orgId, input.contractId, t);
+    if (side !== "producer") throw notFound("The contract");
+    if (await Lot.findOne({ where: { contractId: contract.id, lotCode: input.lotCode }, transaction: t })) {
+      throw validationFailed([{ path: "lotCode", message: `Lot ${input.lotCode} is already registered under this contract.` }]);
+    }
+    const lot = await Lot.create({ ...input, volumeLitres: String(input.volumeLitres), plannedDate: input.plannedDate ?? null }, { transaction: t });
+    await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.registered", entityType: "lot", entityId: lot.id, after: input, details: { lotCode: input.lotCode, contractId: contract.id } });
+    return { id: lot.id };
+  });
+}
+
+export async function submitAnalysis(orgId: number, lotId: number, user: SessionUser, input: AnalysisSubmission) {
+  const { idempotencyKey, ...body } = input;
+  return idempotent(orgId, idempotencyKey, { lotId, ...body }, async (t) => {
+    const { lot, contract, side } = await lotFor(orgId, lotId, t);
+    if (side !== "producer") throw notFound("The lot");
+    const stored = await storeAnalyses(t, contract, user.id, body, [{ lot, sampleDate: body.sampleDate, results: body.results }]);
+    await recordAudit(t, {
+      actorUserId: user.id,
+      organisationId: orgId,
+      action: "analysis.submitted",
+      entityType: "analysis",
+      entityId: stored.analysisIds[0]!,
+      after: body,
+      details: { lotId, stage: body.stage, results: body.results.length, failing: stored.failing[0]?.parameters ?? [], deviations: stored.deviationIds },
+    });
+    return { analysisId: stored.analysisIds[0]!, failing: stored.failing[0]?.parameters ?? [], deviationIds: stored.deviationIds };
+  });
+}
+
+/** A batch from the CSV import: unknown lot codes become lots when the row gives a vintage. */
+export async function importAnalyses(orgId: number, contractId: number, user: SessionUser, batch: ImportBatch) {
+  const { idempotencyKey, samples, market, ...header } = batch;
+  return idempotent(orgId, idempotencyKey, { contractId, ...batch, idempotencyKey: undefined }, async (t) => {
+    const { contract, side } = await contractFor(orgId, contractId, t);
+    if (side !== "producer") throw notFound("The contract");
+    const codes = [...new Set(samples.map((s) => s.lotCode))];
+    const existing = new Map((await Lot.findAll({ where: { contractId, lotCode: codes }, transaction: t })).map((l) => [l.lotCode, l]));
+    const missing = codes.filter((c) => !existing.has(c));
+    const unknown = missing.filter((c) => !samples.some((s) => s.lotCode === c && s.vintage));
+    if (unknown.length) {
+      throw validationFailed(unknown.slice(0, 20).map((c) => ({ path: "samples", message: `Lot ${c} is not registered; add a vintage column so it can be created.` })));
+    }
+    if (missing.length) {
+      const created = await Lot.bulkCreate(
+        missing.map((code) => ({
+          contractId,
+          lotCode: code,
+          vintage: samples.find((s) => s.lotCode === code && s.vintage)!.vintage!,
+          volumeLitres: "0",
+          container: "bottles" as const,
+          plannedDate: null,
+          market: market ?? contract.wine.markets[0]!,
+        })),
+        { transaction: t },
+      );
+      for (const l of created) existing.set(l.lotCode, l);
+    }
+    for (const s of samples) {
+      if (s.vintage && existing.get(s.lotCode)!.vintage !== s.vintage) throw conflict(`Lot ${s.lotCode} is registered as vintage ${existing.get(s.lotCode)!.vintage}, not ${s.vintage}.`);
+    }
+    const stored = await storeAnalyses(t, contract, user.id, header, samples.map((s) => ({ lot: existing.get(s.lotCode)!, sampleDate: s.sampleDate, results: s.results })));
+    await recordAudit(t, {
+      actorUserId: user.id,
+      organisationId: orgId,
+      action: "analysis.imported",
+      entityType: "contract",
+      entityId: contractId,
+      after: batch,
+      details: { stage: header.stage, analyses: stored.analysisIds.length, lotsCreated: missing.length, failing: stored.failing.length, deviations: stored.deviationIds.length },
+    });
+    return { analyses: stored.analysisIds.length, lotsCreated: missing.length, failing: stored.failing, deviationIds: stored.deviationIds };
+  });
+}

@@ -1,0 +1,78 @@
+/** Lot and analysis schemas shared by the forms, the CSV import and the API. */
+import { z } from "zod";
+import { findParameter, MARKET_IDS, parseReading, PARAMETERS, UNITS, type MarketId, type UnitId } from "../engine/index.ts";
+import { ANALYSIS_STAGES, CONTAINERS } from "./vocabulary.ts";
+
+const parameterIds = PARAMETERS.map((p) => p.id) as [string, ...string[]];
+const unitIds = Object.keys(UNITS) as [UnitId, ...UnitId[]];
+export const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: "Use a date like 2026-03-31." });
+export const lotCodeSchema = z.string().trim().min(1, { error: "Give the lot code." }).max(60, { error: "A lot code has at most 60 characters." }).regex(/^[A-Za-z0-9._/-]+$/, { error: "A lot code uses letters, digits and . _ / - only." });
+
+export const lotSchema = z.object({
+  contractId: z.number().int().positive({ error: "Choose the contract." }),
+  vintage: z.number({ error: "Enter the vintage." }).int().min(1950, { error: "Enter a vintage from 1950." }).max(2100),
+  lotCode: lotCodeSchema,
+  volumeLitres: z.number({ error: "Enter the volume." }).positive({ error: "The volume must be above 0." }).max(10_000_000, { error: "The volume is too large." }),
+  container: z.enum(CONTAINERS, { error: "Choose the container." }),
+  plannedDate: isoDate.nullish(),
+  market: z.enum(MARKET_IDS as [MarketId, ...MarketId[]], { error: "Choose the destination market." }),
+});
+export type LotInput = z.infer<typeof lotSchema>;
+
+export const uncertaintySchema = z.object({
+  kind: z.enum(["expanded", "standard"]),
+  value: z.number({ error: "Enter the uncertainty as a number." }).min(0, { error: "An uncertainty cannot be negative." }),
+  k: z.number().gt(0).lte(5).optional(),
+});
+
+/** One result as typed or imported: the laboratory's text is kept, and read by the engine. */
+export const resultEntrySchema = z
+  .object({
+    parameter: z.enum(parameterIds, { error: "Unknown parameter." }),
+    raw: z.string().trim().min(1, { error: "Enter the result." }).max(40, { error: "A result has at most 40 characters." }),
+    unit: z.enum(unitIds, { error: "Unknown unit." }),
+    uncertainty: uncertaintySchema.nullish(),
+    method: z.string().trim().max(120).nullish(),
+  })
+  .superRefine((r, ctx) => {
+    const p = findParameter(r.parameter);
+    if (!p) return;
+    if (!(p.units as readonly string[]).includes(r.unit)) ctx.addIssue({ code: "custom", path: ["unit"], message: `${r.unit} is not a unit for ${p.name}.` });
+    const parsed = parseReading(r.raw, { presence: p.kind === "presence" });
+    if (!parsed.ok) ctx.addIssue({ code: "custom", path: ["raw"], message: parsed.error });
+  });
+export type ResultEntry = z.infer<typeof resultEntrySchema>;
+
+const uniqueParameters = (results: { parameter: string }[], ctx: z.RefinementCtx) => {
+  const seen = new Set<string>();
+  results.forEach((r, i) => {
+    if (seen.has(r.parameter)) ctx.addIssue({ code: "custom", path: ["results", i, "parameter"], message: "This parameter appears twice in one analysis." });
+    seen.add(r.parameter);
+  });
+};
+
+const analysisHeader = {
+  stage: z.enum(ANALYSIS_STAGES, { error: "Choose the stage." }),
+  laboratoryName: z.string().trim().min(2, { error: "Name the laboratory." }).max(160),
+  accreditation: z.string().trim().max(60).nullish(),
+};
+
+export const idempotencyKeySchema = z.string().regex(/^[A-Za-z0-9_-]{8,100}$/, { error: "An idempotency key has 8–100 letters, digits, _ or -." });
+
+export const analysisSubmissionSchema = z
+  .object({ idempotencyKey: idempotencyKeySchema, ...analysisHeader, sampleDate: isoDate, results: z.array(resultEntrySchema).min(1, { error: "Enter at least one result." }).max(80) })
+  .superRefine((a, ctx) => uniqueParameters(a.results, ctx));
+export type AnalysisSubmission = z.infer<typeof analysisSubmissionSchema>;
+
+export const importSampleSchema = z
+  .object({ lotCode: lotCodeSchema, vintage: z.number().int().min(1950).max(2100).nullish(), sampleDate: isoDate, results: z.array(resultEntrySchema).min(1).max(80) })
+  .superRefine((s, ctx) => uniqueParameters(s.results, ctx));
+
+export const IMPORT_BATCH_MAX = 2000;
+export const importBatchSchema = z.object({
+  idempotencyKey: idempotencyKeySchema,
+  ...analysisHeader,
+  market: z.enum(MARKET_IDS as [MarketId, ...MarketId[]]).nullish(),
+  samples: z.array(importSampleSchema).min(1, { error: "The file has no sample to import." }).max(IMPORT_BATCH_MAX),
+});
+export type ImportBatch = z.infer<typeof importBatchSchema>;

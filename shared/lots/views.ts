@@ -1,0 +1,123 @@
+/** Shapes of the lots API's answers, shared by server and client. */
+import type { Citation, MarketId, Outcome, Reading, ReportedUncertainty, TransitFinding } from "../engine/index.ts";
+import type { Severity, Stage } from "../specs/vocabulary.ts";
+import type { ContractView, VersionSummary, RequirementView } from "../specs/views.ts";
+import type { AnalysisStage, Container } from "./vocabulary.ts";
+
+export interface StoredBound {
+  value: number;
+  source: "buyer" | "law";
+  market?: MarketId;
+  citation?: Citation;
+}
+
+/** A verdict as stored with its analysis: enough to show and to reproduce it. */
+export interface StoredVerdict {
+  parameter: string;
+  severity: Severity | null;
+  outcome: Outcome;
+  informativeOutcome?: Outcome;
+  explanation: string;
+  resultText: string | null;
+  value: number | null;
+  unit: string;
+  decidingSide: "lower" | "upper" | null;
+  lower: StoredBound | null;
+  upper: StoredBound | null;
+  uncertainty: { u: number; source: string; basis: string } | null;
+  guardBand: number | null;
+  conformanceProbability: number | null;
+  ruleText: string;
+}
+
+export interface LotSummary {
+  id: number;
+  contractId: number;
+  contractReference: string;
+  wineName: string;
+  producerName: string;
+  vintage: number;
+  lotCode: string;
+  volumeLitres: number;
+  container: Container;
+  plannedDate: string | null;
+  market: MarketId;
+  latestStage: AnalysisStage | null;
+  worstOutcome: Outcome | null;
+  openDeviations: number;
+}
+
+export interface ResultView {
+  parameter: string;
+  rawText: string;
+  reading: Reading;
+  unit: string;
+  uncertainty: ReportedUncertainty | null;
+  method: string | null;
+}
+
+export interface CertificateView {
+  id: number;
+  originalName: string;
+  mime: string;
+  sizeBytes: number;
+  sha256: string;
+  createdAt: string;
+}
+
+export interface AnalysisView {
+  id: number;
+  stage: AnalysisStage;
+  laboratoryName: string;
+  accreditation: string | null;
+  sampleDate: string;
+  createdAt: string;
+  results: ResultView[];
+  evaluation: { specVersionId: number | null; engineVersion: string; marketVersions: Record<string, string>; worstOutcome: Outcome; verdicts: StoredVerdict[] } | null;
+  certificates: CertificateView[];
+}
+
+export interface DeviationSummary {
+  id: number;
+  kind: "result" | "transit" | "manual";
+  status: string;
+  parameters: string[];
+  summary: string;
+  analysisId: number | null;
+  createdAt: string;
+}
+
+export interface LotDetail extends LotSummary {
+  side: "buyer" | "producer";
+  canSubmit: boolean;
+  contract: ContractView;
+  governing: (VersionSummary & { requirements: RequirementView[] }) | null;
+  analyses: AnalysisView[];
+  transit: TransitFinding[] | null;
+  deviations: DeviationSummary[];
+}
+
+export interface ReadinessRow extends LotSummary {
+  /** Stages the governing version requires, with what is still missing at each. */
+  stages: { stage: Stage; analysed: boolean; missing: string[]; failing: string[] }[];
+  hasAgreedSpec: boolean;
+}
+
+export interface TrendPoint {
+  lotId: number;
+  lotCode: string;
+  vintage: number;
+  stage: AnalysisStage;
+  sampleDate: string;
+  /** Canonical unit; null for a censored result, which is then described in text. */
+  value: number | null;
+  text: string;
+}
+
+export interface TrendData {
+  parameter: string;
+  unit: string;
+  lower: number | null;
+  upper: number | null;
+  points: TrendPoint[];
+}
