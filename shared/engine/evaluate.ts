@@ -53,23 +53,37 @@ export interface Verdict {
   informativeOutcome?: Outcome;
 }
 
-function boundText(b: GoverningBound, unit: string): string {
+function boundText(b: GoverningBound, unit: string, factor: number): string {
   const where = b.source.kind === "buyer" ? "the buyer's specification" : `${b.source.limit.marketName}: ${b.source.limit.citation.document}, ${b.source.limit.citation.article}`;
-  return `${trim(b.value)} ${unit} (${where})`;
+  return `${trim(b.value * factor)} ${unit} (${where})`;
 }
 
 const trim = (x: number) => String(Number(x.toPrecision(6)));
 
-/** The wording of a requirement's limits, built once per requirement rather than per result. */
-const TEXTS = new WeakMap<GoverningRequirement, { limitsText: string; lowerText: string; upperText: string; ruleText: string }>();
-function textsFor(req: GoverningRequirement, unitLabel: string) {
-  let t = TEXTS.get(req);
+interface Wording {
+  limitsText: string;
+  lowerText: string;
+  upperText: string;
+  ruleText: string;
+  /** Unit the explanation speaks in, and the factor from the canonical unit to it. */
+  unitLabel: string;
+  factor: number;
+}
+
+/** The wording of a requirement's limits, built once per requirement and display unit rather than per result. */
+const TEXTS = new WeakMap<GoverningRequirement, Map<UnitId, Wording>>();
+function textsFor(req: GoverningRequirement, displayUnit: UnitId): Wording {
+  let byUnit = TEXTS.get(req);
+  if (!byUnit) TEXTS.set(req, (byUnit = new Map()));
+  let t = byUnit.get(displayUnit);
   if (!t) {
-    const lowerText = req.lower ? boundText(req.lower, unitLabel) : "";
-    const upperText = req.upper ? boundText(req.upper, unitLabel) : "";
+    const factor = convert(1, req.unit, displayUnit);
+    const unitLabel = UNITS[displayUnit].label;
+    const lowerText = req.lower ? boundText(req.lower, unitLabel, factor) : "";
+    const upperText = req.upper ? boundText(req.upper, unitLabel, factor) : "";
     const limitsText = [lowerText && `at least ${lowerText}`, upperText && `at most ${upperText}`].filter(Boolean).join(" and ");
-    t = { limitsText, lowerText, upperText, ruleText: describeRule(req.rule) };
-    TEXTS.set(req, t);
+    t = { limitsText, lowerText, upperText, ruleText: describeRule(req.rule), unitLabel, factor };
+    byUnit.set(displayUnit, t);
   }
   return t;
 }
@@ -126,10 +140,13 @@ function makeVerdict(req: GoverningRequirement, ruleText: string, d: Decided, in
   return v;
 }
 
-export function evaluate(req: GoverningRequirement, input: ResultInput | null, ctx: { requiredAtStage: boolean } = { requiredAtStage: true }): Verdict {
+/**
+ * ctx.displayUnit (one of the parameter's units, e.g. the unit the buyer wrote the spec in) is the
+ * unit of the explanation and resultText; value, bounds and uncertainty stay in the canonical unit.
+ */
+export function evaluate(req: GoverningRequirement, input: ResultInput | null, ctx: { requiredAtStage: boolean; displayUnit?: UnitId } = { requiredAtStage: true }): Verdict {
   const def = parameter(req.parameter);
-  const unitLabel = UNITS[req.unit].label;
-  const texts = textsFor(req, unitLabel);
+  const texts = textsFor(req, ctx.displayUnit ?? req.unit);
   if (!input) {
     return makeVerdict(req, texts.ruleText, {
       outcome: ctx.requiredAtStage ? "missing" : "not required",
@@ -142,7 +159,7 @@ export function evaluate(req: GoverningRequirement, input: ResultInput | null, c
       conformanceProbability: null,
     });
   }
-  const d = decide(req, input, unitLabel, texts);
+  const d = decide(req, input, texts);
   if (ctx.requiredAtStage) return makeVerdict(req, texts.ruleText, d);
   const explanation = `${def.name} is not required at this stage; for information: ${d.outcome} — ${d.explanation}`;
   return makeVerdict(req, texts.ruleText, { ...d, outcome: "not required", explanation }, d.outcome);
@@ -152,10 +169,10 @@ function decided(outcome: Outcome, explanation: string, resultText: string | nul
   return { outcome, explanation, resultText, value, decidingSide, uncertainty, guardBand, conformanceProbability };
 }
 
-function decide(req: GoverningRequirement, input: ResultInput, unitLabel: string, texts: ReturnType<typeof textsFor>): Decided {
+function decide(req: GoverningRequirement, input: ResultInput, texts: Wording): Decided {
   const r = input.reading;
   const factor = convert(1, input.unit, req.unit, { densityGPerMl: input.densityGPerMl });
-  const { limitsText, lowerText, upperText } = texts;
+  const { limitsText, lowerText, upperText, unitLabel, factor: show } = texts;
 
   if (r.kind === "presence") {
     const name = parameter(req.parameter).name;
@@ -171,14 +188,14 @@ function decide(req: GoverningRequirement, input: ResultInput, unitLabel: string
     const { statement, side } = statementAt(req, x, w);
     const p = conformanceProbability(x, unc.u, req.lower?.value, req.upper?.value);
     const decidedBy = side ? ` The ${side} limit decides: ${side === "upper" ? upperText : lowerText}.` : "";
-    const guard = w > 0 ? ` Guard band w = ${trim(w)} ${unitLabel}.` : "";
-    const shown = trim(x);
+    const guard = w > 0 ? ` Guard band w = ${trim(w * show)} ${unitLabel}.` : "";
+    const shown = trim(x * show);
     return decided(statement, `${shown} ${unitLabel} against ${limitsText || "no limit"}: ${statement}.${decidedBy}${guard}`, shown, x, side, unc, w, p);
   }
 
   // Censored: the true value lies in an interval; decide only if every value in it gives the same kind of answer.
   const canonicalText = formatReading(
-    r.kind === "below" ? { kind: "below", limit: r.limit === null ? null : r.limit * factor } : { kind: "above", limit: r.limit * factor },
+    r.kind === "below" ? { kind: "below", limit: r.limit === null ? null : r.limit * factor * show } : { kind: "above", limit: r.limit * factor * show },
     parameter(req.parameter).digits,
   );
   if (r.kind === "below" && r.limit === null) {

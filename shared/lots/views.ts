@@ -19,8 +19,11 @@ export interface StoredVerdict {
   informativeOutcome?: Outcome;
   explanation: string;
   resultText: string | null;
+  /** Canonical unit of value, bounds and uncertainty. */
   value: number | null;
   unit: string;
+  /** The unit of the spec row; resultText and explanation use it. */
+  displayUnit: string;
   decidingSide: "lower" | "upper" | null;
   lower: StoredBound | null;
   upper: StoredBound | null;
@@ -28,6 +31,8 @@ export interface StoredVerdict {
   guardBand: number | null;
   conformanceProbability: number | null;
   ruleText: string;
+  /** Every legal limit that applies to this parameter in the lot's market, governing or not. */
+  legalLimits: { market: MarketId; side: "max" | "min"; value: number; citation: Citation }[];
 }
 
 export interface LotSummary {

@@ -9,10 +9,10 @@ beforeAll(async () => {
 afterAll(() => s?.stop());
 
 const EXPECTED_NAV: [keyof typeof DEMO, string[]][] = [
-  ["buyerTechnologist", ["Overview", "Specifications", "Profile"]],
-  ["buyerFinance", ["Overview", "Specifications", "Profile"]],
+  ["buyerTechnologist", ["Overview", "Specifications", "Lots", "Readiness", "Profile"]],
+  ["buyerFinance", ["Overview", "Specifications", "Lots", "Profile"]],
   ["retailerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
-  ["producerQuality", ["Overview", "Specifications", "Profile"]],
+  ["producerQuality", ["Overview", "Specifications", "Lots", "Readiness", "Profile"]],
   ["producerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
   ["labAnalyst", ["Overview", "Profile"]],
   ["platformAdmin", ["Overview", "Organisations", "Profile"]],

@@ -48,7 +48,7 @@ export function evaluateAnalysis(
     const req = buildRequirement(row, markets, profile);
     const r = byParameter.get(row.parameter);
     const parsed = r ? parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" }) : null;
-    const v = evaluate(req, r && parsed?.ok ? { reading: parsed.reading, unit: r.unit as UnitId, uncertainty: r.uncertainty ?? null } : null, { requiredAtStage });
+    const v = evaluate(req, r && parsed?.ok ? { reading: parsed.reading, unit: r.unit as UnitId, uncertainty: r.uncertainty ?? null } : null, { requiredAtStage, displayUnit: row.unit as UnitId });
     return {
       parameter: row.parameter,
       severity: row.severity,
@@ -58,6 +58,7 @@ export function evaluateAnalysis(
       resultText: v.resultText,
       value: v.value,
       unit: v.unit,
+      displayUnit: row.unit,
       decidingSide: v.decidingSide,
       lower: storedBound(v.governing.lower),
       upper: storedBound(v.governing.upper),
@@ -65,6 +66,7 @@ export function evaluateAnalysis(
       guardBand: v.guardBand,
       conformanceProbability: v.conformanceProbability,
       ruleText: v.ruleText,
+      legalLimits: req.legalLimits.map((l) => ({ market: l.market, side: l.side, value: l.value, citation: l.citation })),
     };
   });
   return {

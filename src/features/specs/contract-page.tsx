@@ -24,7 +24,17 @@ export function ContractPage() {
   const c = contract.data;
   return (
     <>
-      <PageHeader title={c.wine.name} lead={`Contract ${c.reference} between ${c.retailer.name} and ${c.producer.name}.`} />
+      <PageHeader
+        title={c.wine.name}
+        lead={`Contract ${c.reference} between ${c.retailer.name} and ${c.producer.name}.`}
+        actions={
+          <div className="flex flex-wrap gap-2">
+            <Link to={`/lots?contract=${c.id}`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Lots</Link>
+            <Link to={`/contracts/${c.id}/trends`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Trends</Link>
+            {c.side === "producer" && <Link to={`/contracts/${c.id}/import`} className="rounded-md bg-must-700 px-3 py-1.5 text-sm font-semibold text-white hover:bg-must-800">Import results (CSV)</Link>}
+          </div>
+        }
+      />
       <div className="grid gap-6 lg:grid-cols-3">
         <Card title="The wine" className="lg:col-span-1">
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">

@@ -1,0 +1,60 @@
+import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { api, ApiError } from "../../../lib/api-client.ts";
+import type { AnalysisSubmission, ImportBatch, LotInput } from "../../../../shared/lots/schemas.ts";
+import type { LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../../shared/lots/views.ts";
+
+const base = (orgId: number) => `/api/orgs/${orgId}`;
+
+export const lotKeys = {
+  all: (orgId: number) => ["orgs", orgId, "lots"] as const,
+  list: (orgId: number, f: { contract?: number; q?: string }) => [...lotKeys.all(orgId), "list", f] as const,
+  detail: (orgId: number, id: number) => [...lotKeys.all(orgId), "detail", id] as const,
+  readiness: (orgId: number) => [...lotKeys.all(orgId), "readiness"] as const,
+  trend: (orgId: number, contractId: number, parameter: string) => [...lotKeys.all(orgId), "trend", contractId, parameter] as const,
+};
+
+export const lotsQuery = (orgId: number, f: { contract?: number; q?: string }) =>
+  queryOptions({
+    queryKey: lotKeys.list(orgId, f),
+    queryFn: () => {
+      const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v !== undefined && v !== "").map(([k, v]) => [k, String(v)]));
+      return api<LotSummary[]>(`${base(orgId)}/lots${qs.size ? `?${qs}` : ""}`);
+    },
+  });
+export const lotQuery = (orgId: number, id: number) => queryOptions({ queryKey: lotKeys.detail(orgId, id), queryFn: () => api<LotDetail>(`${base(orgId)}/lots/${id}`) });
+export const readinessQuery = (orgId: number) => queryOptions({ queryKey: lotKeys.readiness(orgId), queryFn: () => api<ReadinessRow[]>(`${base(orgId)}/readiness`) });
+export const trendQuery = (orgId: number, contractId: number, parameter: string) =>
+  queryOptions({ queryKey: lotKeys.trend(orgId, contractId, parameter), queryFn: () => api<TrendData>(`${base(orgId)}/contracts/${contractId}/trend?parameter=${parameter}`) });
+export const certificateUrl = (orgId: number, id: number) => `${base(orgId)}/certificates/${id}`;
+
+function useInvalidateLots(orgId: number) {
+  const qc = useQueryClient();
+  return () => qc.invalidateQueries({ queryKey: lotKeys.all(orgId) });
+}
+
+export function useRegisterLot(orgId: number) {
+  const invalidate = useInvalidateLots(orgId);
+  return useMutation({ mutationFn: (input: LotInput) => api<{ id: number }>(`${base(orgId)}/lots`, { method: "POST", body: input }), onSuccess: invalidate });
+}
+
+export function useSubmitAnalysis(orgId: number, lotId: number) {
+  const invalidate = useInvalidateLots(orgId);
+  return useMutation({
+    mutationFn: (input: AnalysisSubmission) => api<{ analysisId: number; failing: string[]; deviationIds: number[] }>(`${base(orgId)}/lots/${lotId}/analyses`, { method: "POST", body: input }),
+    onSuccess: invalidate,
+  });
+}
+
+export const importBatch = (orgId: number, contractId: number, batch: ImportBatch) =>
+  api<{ analyses: number; lotsCreated: number; failing: { analysisId: number; lotCode: string; parameters: string[] }[]; deviationIds: number[] }>(`${base(orgId)}/contracts/${contractId}/imports`, { method: "POST", body: batch });
+
+/** Multipart upload; the CSRF header travels as for any write. */
+export async function uploadCertificate(orgId: number, analysisId: number, file: File): Promise<{ id: number; sha256: string }> {
+  const form = new FormData();
+  form.append("file", file);
+  const csrf = document.cookie.split("; ").find((c) => c.startsWith("cp_csrf="))?.slice(8);
+  const res = await fetch(`${base(orgId)}/analyses/${analysisId}/certificates`, { method: "POST", body: form, headers: csrf ? { "x-csrf-token": decodeURIComponent(csrf) } : {}, credentials: "same-origin" });
+  const data = await res.json().catch(() => ({}));
+  if (!res.ok) throw new ApiError(res.status, data.title ?? res.statusText, data.detail ?? "", data.errors ?? []);
+  return data;
+}

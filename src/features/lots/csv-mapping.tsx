@@ -1,0 +1,67 @@
+/** The column-mapping step of the CSV import: what each column of the file means. */
+import { PARAMETERS, UNITS, findParameter, type UnitId } from "../../../shared/engine/index.ts";
+import type { ColumnRole } from "../../../shared/lots/csv.ts";
+
+const ROLE_OPTIONS: { value: string; label: string }[] = [
+  { value: "ignore", label: "Ignore this column" },
+  { value: "lot", label: "Lot code" },
+  { value: "vintage", label: "Vintage" },
+  { value: "date", label: "Sample date" },
+  { value: "parameter-name", label: "Parameter name (one result per row)" },
+  { value: "value", label: "Result value (one result per row)" },
+  { value: "unit", label: "Unit (one result per row)" },
+  { value: "uncertainty", label: "Uncertainty U (one result per row)" },
+  { value: "method", label: "Method (one result per row)" },
+  ...PARAMETERS.map((p) => ({ value: `parameter:${p.id}`, label: `Result: ${p.name}` })),
+];
+
+const roleValue = (r: ColumnRole) => (r.kind === "parameter" ? `parameter:${r.parameter}` : r.kind);
+
+function roleFrom(value: string): ColumnRole {
+  if (value.startsWith("parameter:")) {
+    const p = findParameter(value.slice("parameter:".length))!;
+    return { kind: "parameter", parameter: p.id, unit: p.unit as UnitId };
+  }
+  return { kind: value } as ColumnRole;
+}
+
+export function CsvMapping({ headers, sample, mapping, onChange }: { headers: string[]; sample: string[][]; mapping: ColumnRole[]; onChange: (m: ColumnRole[]) => void }) {
+  const set = (i: number, role: ColumnRole) => onChange(mapping.map((m, j) => (j === i ? role : m)));
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-left text-sm">
+        <thead className="border-b border-line text-ink-500">
+          <tr>{["Column in the file", "First values", "Means", "Unit"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+        </thead>
+        <tbody>
+          {headers.map((h, i) => {
+            const role = mapping[i] ?? { kind: "ignore" };
+            const p = role.kind === "parameter" ? findParameter(role.parameter) : undefined;
+            return (
+              <tr key={`${h}-${i}`} className="border-b border-line/60">
+                <td className="py-2 pr-3 font-semibold">{h || `(column ${i + 1})`}</td>
+                <td className="py-2 pr-3 text-ink-500">{sample.slice(0, 3).map((r) => r[i]).filter(Boolean).join(" · ")}</td>
+                <td className="py-2 pr-3">
+                  <label className="sr-only" htmlFor={`map-${i}`}>Meaning of column {h}</label>
+                  <select id={`map-${i}`} className="w-72 rounded border border-line px-2 py-1" value={roleValue(role)} onChange={(e) => set(i, roleFrom(e.target.value))}>
+                    {ROLE_OPTIONS.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+                  </select>
+                </td>
+                <td className="py-2 pr-3">
+                  {role.kind === "parameter" && p && (
+                    <>
+                      <label className="sr-only" htmlFor={`unit-${i}`}>Unit of column {h}</label>
+                      <select id={`unit-${i}`} className="rounded border border-line px-2 py-1" value={role.unit} onChange={(e) => set(i, { ...role, unit: e.target.value as UnitId })}>
+                        {p.units.map((u) => <option key={u} value={u}>{UNITS[u as UnitId].label}</option>)}
+                      </select>
+                    </>
+                  )}
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}

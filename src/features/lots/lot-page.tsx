@@ -1,0 +1,112 @@
+import { useQuery } from "@tanstack/react-query";
+import { Link, useParams } from "react-router-dom";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { certificateUrl, lotQuery } from "./api/lots.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { OutcomeBadge } from "./outcome-badge.tsx";
+import { VerdictTable } from "./verdict-table.tsx";
+import { ResultEntryForm } from "./result-entry-form.tsx";
+import { CertificateUpload } from "./certificate-upload.tsx";
+import { LegalCaution } from "../specs/legal-caution.tsx";
+import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
+import { findParameter } from "../../../shared/engine/index.ts";
+
+export function LotPage() {
+  const { membership } = useShellContext();
+  const { lotId } = useParams();
+  const orgId = membership?.organisationId ?? 0;
+  const lot = useQuery({ ...lotQuery(orgId, Number(lotId)), enabled: !!membership });
+  if (lot.isPending) return <LoadingState />;
+  if (lot.isError) return <ErrorState error={lot.error} onRetry={() => lot.refetch()} />;
+  const l = lot.data;
+  return (
+    <>
+      <PageHeader
+        title={`Lot ${l.lotCode}`}
+        lead={
+          <>
+            {l.wineName}, vintage {l.vintage} · {CONTAINER_LABELS[l.container]}
+            {l.volumeLitres ? `, ${l.volumeLitres.toLocaleString("en-GB")} L` : ""} · for {l.market} · contract{" "}
+            <Link to={`/contracts/${l.contractId}`} className="underline">{l.contractReference}</Link> ({l.producerName})
+          </>
+        }
+        actions={
+          <div className="flex items-center gap-3">
+            {l.worstOutcome && <OutcomeBadge outcome={l.worstOutcome} />}
+            <Link to={`/contracts/${l.contractId}/trends`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Trends</Link>
+          </div>
+        }
+      />
+      <div className="flex flex-col gap-6">
+        <LegalCaution />
+        <Card title="Specification in force">
+          {l.governing ? (
+            <p className="text-sm">
+              <Link to={`/specs/${l.governing.id}`} className="font-semibold text-must-700 underline">Version {l.governing.number}</Link>, agreed, covers vintages {l.governing.vintageFrom}
+              {l.governing.vintageTo ? `–${l.governing.vintageTo}` : " onwards"} with {l.governing.requirements.length} requirements.
+            </p>
+          ) : (
+            <EmptyState title={`No agreed specification covers vintage ${l.vintage}.`}>Results are stored but cannot be judged until a version is agreed.</EmptyState>
+          )}
+        </Card>
+        {l.deviations.length > 0 && (
+          <Card title="Deviations">
+            <ul className="flex flex-col gap-2 text-sm">
+              {l.deviations.map((d) => (
+                <li key={d.id} className="rounded-md border border-alarm-700/30 bg-alarm-50 px-3 py-2">
+                  <span className="font-semibold">{d.kind === "transit" ? "Transit" : "Result"} deviation #{d.id}</span> · {d.status} · {d.summary}
+                </li>
+              ))}
+            </ul>
+          </Card>
+        )}
+        {l.transit && (
+          <Card title="Transit: arrival against pre-shipment">
+            <table className="w-full text-left text-sm">
+              <thead className="border-b border-line text-ink-500">
+                <tr>{["Parameter", "Pre-shipment", "On arrival", "Change", "Allowed", ""].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+              </thead>
+              <tbody>
+                {l.transit.map((f) => (
+                  <tr key={f.parameter} className="border-b border-line/60">
+                    <td className="py-2 pr-3 font-semibold">{f.name}</td>
+                    <td className="py-2 pr-3 tabular-nums">{f.before}</td>
+                    <td className="py-2 pr-3 tabular-nums">{f.after}</td>
+                    <td className="py-2 pr-3 tabular-nums">{f.change > 0 ? "+" : ""}{Number(f.change.toPrecision(4))}</td>
+                    <td className="py-2 pr-3 text-xs">{f.allowance.direction === "either" ? "±" : f.allowance.direction === "increase" ? "+" : "−"}{f.allowance.allowed} <span className="block text-ink-500">{f.allowance.basis}</span></td>
+                    <td className="py-2 pr-3">{f.exceeded ? <OutcomeBadge outcome="fail" /> : <OutcomeBadge outcome="pass" />}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </Card>
+        )}
+        {l.analyses.length === 0 && <EmptyState title="No analysis yet.">{l.canSubmit ? "Enter results below or import a CSV from the contract page." : "The producer has not submitted results yet."}</EmptyState>}
+        {[...l.analyses].reverse().map((a) => (
+          <Card key={a.id} title={`${ANALYSIS_STAGE_LABELS[a.stage]} · sampled ${a.sampleDate}`}>
+            <p className="mb-3 text-sm text-ink-700">
+              {a.laboratoryName}
+              {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · submitted {new Date(a.createdAt).toLocaleString("en-GB")}
+              {a.evaluation && ` · judged with engine ${a.evaluation.engineVersion}, spec version id ${a.evaluation.specVersionId ?? "none"}, market packs ${Object.entries(a.evaluation.marketVersions).map(([m, v]) => `${m} ${v}`).join(", ")}`}
+            </p>
+            {a.evaluation ? <VerdictTable verdicts={a.evaluation.verdicts} /> : <p className="text-sm">{a.results.map((r) => `${findParameter(r.parameter)?.name}: ${r.rawText} ${r.unit}`).join(" · ")}</p>}
+            <div className="mt-4 flex flex-col gap-2">
+              {a.certificates.map((c) => (
+                <a key={c.id} href={certificateUrl(orgId, c.id)} className="text-sm font-semibold text-must-700 underline">
+                  Certificate: {c.originalName} ({Math.round(c.sizeBytes / 1024)} KB, SHA-256 {c.sha256.slice(0, 12)}…)
+                </a>
+              ))}
+              {l.canSubmit && <CertificateUpload orgId={orgId} analysisId={a.id} />}
+            </div>
+          </Card>
+        ))}
+        {l.canSubmit && (
+          <Card title="Enter results">
+            <ResultEntryForm orgId={orgId} lot={l} />
+          </Card>
+        )}
+      </div>
+    </>
+  );
+}

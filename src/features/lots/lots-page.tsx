@@ -1,0 +1,115 @@
+import { useQuery } from "@tanstack/react-query";
+import { Link, useNavigate, useSearchParams } from "react-router-dom";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { lotsQuery, useRegisterLot } from "./api/lots.ts";
+import { contractsQuery } from "../specs/api/specs.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { SelectField, TextField } from "../../components/ui/field.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { OutcomeBadge } from "./outcome-badge.tsx";
+import { lotSchema, type LotInput } from "../../../shared/lots/schemas.ts";
+import { ANALYSIS_STAGE_LABELS, CONTAINERS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
+import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
+import { applyServerErrors } from "../../lib/form-errors.ts";
+
+export function LotsPage() {
+  const { membership } = useShellContext();
+  const [params, setParams] = useSearchParams();
+  if (!membership) return <EmptyState title="Join an organisation to see its lots." />;
+  const orgId = membership.organisationId;
+  const filters = { contract: params.get("contract") ? Number(params.get("contract")) : undefined, q: params.get("q") ?? undefined };
+  const set = (k: string, v: string) => {
+    const next = new URLSearchParams(params);
+    if (v) next.set(k, v);
+    else next.delete(k);
+    setParams(next, { replace: true });
+  };
+  return (
+    <>
+      <PageHeader title="Lots" lead="Every lot under your contracts, its latest analysis and verdict." />
+      <div className="flex flex-col gap-6">
+        {membership.role === "producer_quality" && (
+          <details className="rounded-card border border-line bg-card p-gutter">
+            <summary className="cursor-pointer text-lg font-semibold">Register a lot</summary>
+            <div className="mt-4"><RegisterLotForm orgId={orgId} /></div>
+          </details>
+        )}
+        <Card>
+          <LotFilters orgId={orgId} filters={filters} set={set} />
+          <LotTable orgId={orgId} filters={filters} />
+        </Card>
+      </div>
+    </>
+  );
+}
+
+function LotFilters({ orgId, filters, set }: { orgId: number; filters: { contract?: number; q?: string }; set: (k: string, v: string) => void }) {
+  const contracts = useQuery(contractsQuery(orgId));
+  return (
+    <div className="mb-4 grid gap-3 md:grid-cols-3">
+      <TextField label="Lot code contains" type="search" defaultValue={filters.q ?? ""} onChange={(e) => set("q", e.target.value)} />
+      <SelectField label="Contract" value={filters.contract ?? ""} onChange={(e) => set("contract", e.target.value)} options={[{ value: "", label: "All contracts" }, ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.reference} · ${c.wine.name}` }))]} />
+    </div>
+  );
+}
+
+function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: number; q?: string } }) {
+  const lots = useQuery(lotsQuery(orgId, filters));
+  if (lots.isPending) return <LoadingState />;
+  if (lots.isError) return <ErrorState error={lots.error} onRetry={() => lots.refetch()} />;
+  if (lots.data.length === 0) return <EmptyState title="No lot matches." />;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-left text-sm">
+        <thead className="border-b border-line text-ink-500">
+          <tr>{["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Verdict", "Open deviations"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+        </thead>
+        <tbody>
+          {lots.data.map((l) => (
+            <tr key={l.id} className="border-b border-line/60">
+              <td className="py-2 pr-3 font-semibold"><Link to={`/lots/${l.id}`} className="text-must-700 underline">{l.lotCode}</Link></td>
+              <td className="py-2 pr-3">{l.wineName}</td>
+              <td className="py-2 pr-3 tabular-nums">{l.vintage}</td>
+              <td className="py-2 pr-3">{CONTAINER_LABELS[l.container]}</td>
+              <td className="py-2 pr-3 tabular-nums">{l.plannedDate ?? "—"}</td>
+              <td className="py-2 pr-3">{l.latestStage ? ANALYSIS_STAGE_LABELS[l.latestStage] : "—"}</td>
+              <td className="py-2 pr-3">{l.worstOutcome ? <OutcomeBadge outcome={l.worstOutcome} /> : "—"}</td>
+              <td className="py-2 pr-3 tabular-nums">{l.openDeviations || "—"}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function RegisterLotForm({ orgId }: { orgId: number }) {
+  const navigate = useNavigate();
+  const contracts = useQuery(contractsQuery(orgId));
+  const register = useRegisterLot(orgId);
+  const [error, setError] = useState<string | null>(null);
+  const form = useForm<LotInput>({ resolver: zodResolver(lotSchema), defaultValues: { vintage: new Date().getUTCFullYear() - 1, container: "bottles", market: "EU", plannedDate: null } });
+  const e = form.formState.errors;
+  const num = (v: unknown) => (v === "" ? undefined : Number(String(v).replace(",", ".")));
+  return (
+    <form
+      noValidate
+      className="grid gap-3 md:grid-cols-4"
+      onSubmit={form.handleSubmit((v) => register.mutate(v, { onSuccess: ({ id }) => navigate(`/lots/${id}`), onError: (err) => setError(applyServerErrors(err, form.setError, ["lotCode", "contractId", "vintage"])) }))}
+    >
+      {error && <div className="md:col-span-4"><Notice tone="error">{error}</Notice></div>}
+      <SelectField label="Contract" error={e.contractId?.message} options={[{ value: "", label: "Choose…" }, ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.reference} · ${c.wine.name}` }))]} {...form.register("contractId", { setValueAs: num })} />
+      <TextField label="Lot code" error={e.lotCode?.message} {...form.register("lotCode")} />
+      <TextField label="Vintage" inputMode="numeric" error={e.vintage?.message} {...form.register("vintage", { setValueAs: num })} />
+      <TextField label="Volume (litres)" inputMode="decimal" error={e.volumeLitres?.message} {...form.register("volumeLitres", { setValueAs: num })} />
+      <SelectField label="Container" options={CONTAINERS.map((c) => ({ value: c, label: CONTAINER_LABELS[c] }))} {...form.register("container")} />
+      <TextField label="Planned filling or shipping" type="date" {...form.register("plannedDate", { setValueAs: (v) => (v === "" ? null : v) })} />
+      <SelectField label="Destination market" options={MARKET_IDS.map((m) => ({ value: m, label: MARKET_PACKS[m].name }))} {...form.register("market")} />
+      <div className="flex items-end"><Button type="submit" disabled={register.isPending}>Register the lot</Button></div>
+    </form>
+  );
+}

@@ -1,0 +1,62 @@
+import { useQuery } from "@tanstack/react-query";
+import { Link } from "react-router-dom";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { readinessQuery } from "./api/lots.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { OutcomeBadge } from "./outcome-badge.tsx";
+import { STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
+import { CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
+import { findParameter } from "../../../shared/engine/index.ts";
+
+const names = (ids: string[]) => ids.map((p) => findParameter(p)?.name ?? p).join(", ");
+
+export function ReadinessPage() {
+  const { membership } = useShellContext();
+  const orgId = membership?.organisationId ?? 0;
+  const rows = useQuery({ ...readinessQuery(orgId), enabled: !!membership });
+  return (
+    <>
+      <PageHeader title="Readiness" lead="Lots due for filling or shipment in the next four months, or not yet planned: what each required stage still lacks, and what fails." />
+      <Card>
+        {rows.isPending && <LoadingState />}
+        {rows.isError && <ErrorState error={rows.error} onRetry={() => rows.refetch()} />}
+        {rows.data?.length === 0 && <EmptyState title="No lot is due." />}
+        {rows.data && rows.data.length > 0 && (
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm">
+              <thead className="border-b border-line text-ink-500">
+                <tr>{["Lot", "Wine", "Due", "Verdict", "Stages"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+              </thead>
+              <tbody>
+                {rows.data.map((r) => (
+                  <tr key={r.id} className="border-b border-line/60 align-top">
+                    <td className="py-2 pr-3 font-semibold">
+                      <Link to={`/lots/${r.id}`} className="text-must-700 underline">{r.lotCode}</Link>
+                      <span className="block text-xs font-normal text-ink-500">{CONTAINER_LABELS[r.container]}</span>
+                    </td>
+                    <td className="py-2 pr-3">{r.wineName}<span className="block text-xs text-ink-500">{r.producerName} · {r.vintage}</span></td>
+                    <td className="py-2 pr-3 tabular-nums">{r.plannedDate ?? "not planned"}</td>
+                    <td className="py-2 pr-3">{r.worstOutcome ? <OutcomeBadge outcome={r.worstOutcome} /> : "—"}{r.openDeviations > 0 && <span className="block text-xs text-alarm-700">{r.openDeviations} open deviation(s)</span>}</td>
+                    <td className="py-2 pr-3 text-xs">
+                      {!r.hasAgreedSpec && <span className="text-ochre-700">No agreed specification for this vintage.</span>}
+                      <ul className="flex flex-col gap-1">
+                        {r.stages.map((s) => (
+                          <li key={s.stage}>
+                            <strong>{STAGE_LABELS[s.stage]}:</strong>{" "}
+                            {!s.analysed ? <span className="text-ochre-700">no analysis yet</span> : s.missing.length ? <span className="text-ochre-700">missing {names(s.missing)}</span> : <span className="text-verjus-700">complete</span>}
+                            {s.failing.length > 0 && <span className="text-alarm-700"> · failing {names(s.failing)}</span>}
+                          </li>
+                        ))}
+                      </ul>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,129 @@
+/**
+ * Entering one analysis by hand: one line per requirement of the governing version, with the
+ * verdict computed by the engine in the browser as the user types.
+ */
+import { useState } from "react";
+import { buildRequirement, evaluate, findParameter, parseReading, UNITS, type MarketId, type UnitId } from "../../../shared/engine/index.ts";
+import { analysisSubmissionSchema, type ResultEntry } from "../../../shared/lots/schemas.ts";
+import { ANALYSIS_STAGES, ANALYSIS_STAGE_LABELS, specStageFor, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
+import { wineProfile } from "../../../shared/specs/profile.ts";
+import type { LotDetail } from "../../../shared/lots/views.ts";
+import { useSubmitAnalysis } from "./api/lots.ts";
+import { OutcomeBadge } from "./outcome-badge.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { Notice } from "../../components/ui/states.tsx";
+import { SelectField, TextField } from "../../components/ui/field.tsx";
+import { errorMessage, ApiError } from "../../lib/api-client.ts";
+
+interface Line {
+  raw: string;
+  unit: string;
+  u: string;
+}
+
+export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail }) {
+  const submit = useSubmitAnalysis(orgId, lot.id);
+  const requirements = lot.governing?.requirements ?? [];
+  const [stage, setStage] = useState<AnalysisStage>("pre_filling");
+  const [lab, setLab] = useState("");
+  const [accreditation, setAccreditation] = useState("");
+  const [sampleDate, setSampleDate] = useState(new Date().toISOString().slice(0, 10));
+  const [lines, setLines] = useState<Record<string, Line>>(() => Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])));
+  const [key, setKey] = useState(() => crypto.randomUUID());
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [done, setDone] = useState<string | null>(null);
+  const markets = (lot.market ? [lot.market] : lot.contract.wine.markets) as MarketId[];
+  const profile = wineProfile(lot.contract.wine, lot.vintage);
+  const built = new Map(requirements.map((r) => [r.parameter, buildRequirement(r, markets, profile)]));
+  const visible = requirements.filter((r) => r.stages.includes(specStageFor(stage)) || lines[r.parameter]?.raw);
+
+  const results: ResultEntry[] = requirements
+    .filter((r) => lines[r.parameter]?.raw.trim())
+    .map((r) => {
+      const l = lines[r.parameter]!;
+      const u = l.u.trim() ? Number(l.u.replace(",", ".")) : null;
+      return { parameter: r.parameter, raw: l.raw.trim(), unit: l.unit as UnitId, uncertainty: u === null ? null : { kind: "expanded", value: u, k: 2 }, method: r.method };
+    });
+
+  const onSubmit = () => {
+    setDone(null);
+    const body = { idempotencyKey: key, stage, laboratoryName: lab, accreditation: accreditation || null, sampleDate, results };
+    const parsed = analysisSubmissionSchema.safeParse(body);
+    if (!parsed.success) {
+      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [i.path.join("."), i.message])));
+      return;
+    }
+    setErrors({});
+    submit.mutate(parsed.data, {
+      onSuccess: (r) => {
+        setDone(r.failing.length ? `Saved. ${r.failing.length} parameter(s) outside the specification: ${r.failing.map((p) => findParameter(p)?.name).join(", ")}. A deviation was opened.` : "Saved. Every required result conforms.");
+        setKey(crypto.randomUUID());
+        setLines(Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])));
+      },
+      onError: (err) => {
+        if (err instanceof ApiError) setErrors(Object.fromEntries(err.errors.map((e) => [e.path, e.message])));
+      },
+    });
+  };
+
+  if (!lot.governing) return <Notice>No agreed specification covers vintage {lot.vintage} yet, so results cannot be judged. The buyer must send a version and you must agree to it first.</Notice>;
+  return (
+    <div className="flex flex-col gap-4">
+      {done && <Notice tone={done.includes("outside") ? "error" : "success"}>{done}</Notice>}
+      {submit.isError && <Notice tone="error">{errorMessage(submit.error)}</Notice>}
+      <div className="grid gap-3 md:grid-cols-4">
+        <SelectField label="Stage" value={stage} onChange={(e) => setStage(e.target.value as AnalysisStage)} options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))} />
+        <TextField label="Laboratory" value={lab} onChange={(e) => setLab(e.target.value)} error={errors.laboratoryName} placeholder="Own laboratory or external lab" />
+        <TextField label="Accreditation number" value={accreditation} onChange={(e) => setAccreditation(e.target.value)} hint="Empty for an own, unaccredited lab." />
+        <TextField label="Sample date" type="date" value={sampleDate} onChange={(e) => setSampleDate(e.target.value)} error={errors.sampleDate} />
+      </div>
+      <table className="w-full text-left text-sm">
+        <thead className="border-b border-line text-ink-500">
+          <tr>
+            {["Parameter", "Result", "Unit", "U (k = 2)", "Verdict as you type"].map((h) => (
+              <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {visible.map((r) => {
+            const p = findParameter(r.parameter);
+            const l = lines[r.parameter]!;
+            const i = results.findIndex((x) => x.parameter === r.parameter);
+            const parsed = l.raw.trim() ? parseReading(l.raw, { presence: p?.kind === "presence" }) : null;
+            const u = l.u.trim() ? Number(l.u.replace(",", ".")) : null;
+            const verdict = parsed?.ok ? evaluate(built.get(r.parameter)!, { reading: parsed.reading, unit: l.unit as UnitId, uncertainty: u === null || Number.isNaN(u) ? null : { kind: "expanded", value: u, k: 2 } }) : null;
+            const set = (patch: Partial<Line>) => setLines((all) => ({ ...all, [r.parameter]: { ...l, ...patch } }));
+            const error = (parsed && !parsed.ok ? parsed.error : undefined) ?? errors[`results.${i}.raw`] ?? errors[`results.${i}.unit`];
+            return (
+              <tr key={r.parameter} className="border-b border-line/60 align-top">
+                <td className="py-2 pr-3 font-semibold">
+                  <label htmlFor={`result-${r.parameter}`}>{p?.name ?? r.parameter}</label>
+                </td>
+                <td className="py-2 pr-3">
+                  <input id={`result-${r.parameter}`} inputMode="decimal" className="w-28 rounded border border-line px-2 py-1" value={l.raw} onChange={(e) => set({ raw: e.target.value })} aria-invalid={error ? true : undefined} placeholder={p?.kind === "presence" ? "absent" : "e.g. 0,45 or <0.5"} />
+                  {error && <span role="alert" className="block text-xs font-semibold text-alarm-700">{error}</span>}
+                </td>
+                <td className="py-2 pr-3">
+                  <label className="sr-only" htmlFor={`unit-${r.parameter}`}>Unit of {p?.name}</label>
+                  <select id={`unit-${r.parameter}`} className="rounded border border-line px-2 py-1" value={l.unit} onChange={(e) => set({ unit: e.target.value })}>
+                    {(p?.units ?? [r.unit]).map((x) => (
+                      <option key={x} value={x}>{UNITS[x as UnitId]?.label ?? x}</option>
+                    ))}
+                  </select>
+                </td>
+                <td className="py-2 pr-3">
+                  <label className="sr-only" htmlFor={`u-${r.parameter}`}>Expanded uncertainty of {p?.name}</label>
+                  <input id={`u-${r.parameter}`} inputMode="decimal" className="w-20 rounded border border-line px-2 py-1" value={l.u} onChange={(e) => set({ u: e.target.value })} />
+                </td>
+                <td className="py-2 pr-3 text-xs">{verdict ? <><OutcomeBadge outcome={verdict.outcome} /> <span className="text-ink-500">{verdict.uncertainty?.source === "default" ? "default uncertainty" : ""}</span></> : <span className="text-ink-500">—</span>}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      {errors.results && <Notice tone="error">{errors.results}</Notice>}
+      <Button onClick={onSubmit} disabled={submit.isPending}>{submit.isPending ? "Saving…" : "Submit the analysis"}</Button>
+    </div>
+  );
+}

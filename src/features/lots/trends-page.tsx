@@ -1,0 +1,146 @@
+/**
+ * One parameter across lots and vintages: the results, the spec limits, the EWMA with its limits,
+ * Western Electric signals and capability, plus the full result list (virtualised) and a CSV export.
+ */
+import { useQuery } from "@tanstack/react-query";
+import { Link, useParams, useSearchParams } from "react-router-dom";
+import { useRef } from "react";
+import { CartesianGrid, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis, Legend } from "recharts";
+import { useVirtualizer } from "@tanstack/react-virtual";
+import Papa from "papaparse";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { contractQuery, specQuery } from "../specs/api/specs.ts";
+import { trendQuery } from "./api/lots.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { SelectField } from "../../components/ui/field.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { capability, driftWarning, ewmaChart, findParameter, individualsChart, PARAMETERS, UNITS, westernElectricSignals, type UnitId } from "../../../shared/engine/index.ts";
+import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
+import type { TrendData } from "../../../shared/lots/views.ts";
+
+const n = (x: number | null | undefined, d = 3) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : String(Number(x.toPrecision(d + 1))));
+
+export function TrendsPage() {
+  const { membership } = useShellContext();
+  const { contractId } = useParams();
+  const [params, setParams] = useSearchParams();
+  const orgId = membership?.organisationId ?? 0;
+  const parameter = params.get("parameter") ?? "volatile_acidity";
+  const contract = useQuery({ ...contractQuery(orgId, Number(contractId)), enabled: !!membership });
+  const agreed = contract.data?.versions.find((v) => v.status === "agreed");
+  const spec = useQuery({ ...specQuery(orgId, agreed?.id ?? 0), enabled: !!agreed });
+  const trend = useQuery({ ...trendQuery(orgId, Number(contractId), parameter), enabled: !!membership });
+  const options = (spec.data?.requirements.map((r) => r.parameter) ?? []).concat(PARAMETERS.map((p) => p.id)).filter((p, i, all) => all.indexOf(p) === i);
+  return (
+    <>
+      <PageHeader title={`Trends${contract.data ? ` for ${contract.data.wine.name}` : ""}`} lead={contract.data && <>Contract <Link className="underline" to={`/contracts/${contract.data.id}`}>{contract.data.reference}</Link>, all lots and vintages.</>} />
+      <div className="flex flex-col gap-6">
+        <div className="max-w-sm">
+          <SelectField label="Parameter" value={parameter} onChange={(e) => setParams({ parameter: e.target.value }, { replace: true })} options={options.map((p) => ({ value: p, label: findParameter(p)?.name ?? p }))} />
+        </div>
+        {trend.isPending && <LoadingState />}
+        {trend.isError && <ErrorState error={trend.error} onRetry={() => trend.refetch()} />}
+        {trend.data && <TrendView data={trend.data} />}
+      </div>
+    </>
+  );
+}
+
+function TrendView({ data }: { data: TrendData }) {
+  const unit = UNITS[data.unit as UnitId]?.label ?? data.unit;
+  const numeric = data.points.filter((p) => p.value !== null);
+  const values = numeric.map((p) => p.value!);
+  const stats = (() => {
+    if (values.length < 3) return null;
+    const chart = individualsChart(values);
+    const ewma = ewmaChart(values, { target: chart.centre, sigma: chart.sigma || 1e-9, lambda: 0.3 });
+    const signals = westernElectricSignals(values, chart.centre, chart.sigma || 1e-9);
+    const spec = { ...(data.lower !== null ? { lower: data.lower } : {}), ...(data.upper !== null ? { upper: data.upper } : {}) };
+    const cap = data.lower !== null || data.upper !== null ? capability(values, spec, chart.sigma || undefined) : null;
+    return { chart, ewma, signals, cap, drift: driftWarning(values, spec) };
+  })();
+  if (data.points.length === 0) return <EmptyState title="No result for this parameter yet." />;
+  const flagged = new Set(stats?.signals.map((s) => s.index));
+  const series = numeric.map((p, i) => ({ i: i + 1, label: `${p.lotCode} (${p.vintage})`, value: p.value, ewma: stats?.ewma[i]?.ewma, flagged: flagged.has(i) ? p.value : null }));
+  return (
+    <>
+      <Card title={`${findParameter(data.parameter)?.name} (${unit})`}>
+        {stats?.drift && <p className="mb-3 rounded-md bg-ochre-50 px-3 py-2 text-sm font-semibold text-ochre-700" role="status">{stats.drift.message}</p>}
+        <div className="h-80" role="img" aria-label={`Chart of ${findParameter(data.parameter)?.name} by lot with spec limits and EWMA`}>
+          <ResponsiveContainer width="100%" height="100%">
+            <ComposedChart data={series} margin={{ top: 10, right: 20, bottom: 10, left: 10 }}>
+              <CartesianGrid stroke="#ddd6ca" strokeDasharray="3 3" />
+              <XAxis dataKey="i" tick={{ fontSize: 12 }} label={{ value: "sample, oldest first", position: "insideBottom", offset: -4, fontSize: 12 }} />
+              <YAxis tick={{ fontSize: 12 }} domain={["auto", "auto"]} />
+              <Tooltip formatter={(v: unknown) => n(v as number)} labelFormatter={(i: unknown) => series[Number(i) - 1]?.label ?? ""} />
+              <Legend />
+              {data.upper !== null && <ReferenceLine y={data.upper} stroke="#a3261d" strokeDasharray="6 3" label={{ value: "spec max", fontSize: 11, fill: "#a3261d" }} />}
+              {data.lower !== null && <ReferenceLine y={data.lower} stroke="#a3261d" strokeDasharray="6 3" label={{ value: "spec min", fontSize: 11, fill: "#a3261d" }} />}
+              {stats && <ReferenceLine y={stats.ewma[0]!.ucl} stroke="#7a5200" strokeDasharray="2 4" />}
+              {stats && <ReferenceLine y={stats.ewma[0]!.lcl} stroke="#7a5200" strokeDasharray="2 4" />}
+              <Line type="linear" dataKey="value" name="Result" stroke="#5b1f3c" dot={{ r: 3 }} isAnimationActive={false} />
+              <Line type="monotone" dataKey="ewma" name="EWMA (λ = 0.3)" stroke="#7a5200" dot={false} isAnimationActive={false} />
+              <Scatter dataKey="flagged" name="Run-rule signal" fill="#a3261d" isAnimationActive={false} />
+            </ComposedChart>
+          </ResponsiveContainer>
+        </div>
+        {stats && (
+          <dl className="mt-4 grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4">
+            <dt className="text-ink-500">Mean</dt><dd className="tabular-nums">{n(stats.chart.centre)} {unit}</dd>
+            <dt className="text-ink-500">σ (moving range)</dt><dd className="tabular-nums">{n(stats.chart.sigma)} {unit}</dd>
+            <dt className="text-ink-500">Cp</dt><dd className="tabular-nums">{n(stats.cap?.cp, 2)}</dd>
+            <dt className="text-ink-500">Cpk</dt><dd className="tabular-nums">{n(stats.cap?.cpk, 2)}</dd>
+            <dt className="text-ink-500">Control limits (I chart)</dt><dd className="tabular-nums">{n(stats.chart.lcl)} – {n(stats.chart.ucl)}</dd>
+            <dt className="text-ink-500">Run-rule signals</dt><dd>{stats.signals.length ? stats.signals.map((s) => `#${s.index + 1} rule ${s.rule}`).join(", ") : "none"}</dd>
+          </dl>
+        )}
+        {!stats && <p className="mt-3 text-sm text-ink-500">At least three numeric results are needed for control limits and capability.</p>}
+      </Card>
+      <ResultsTable data={data} unit={unit} />
+    </>
+  );
+}
+
+function ResultsTable({ data, unit }: { data: TrendData; unit: string }) {
+  const parent = useRef<HTMLDivElement>(null);
+  const rows = data.points;
+  // eslint-disable-next-line react-hooks/incompatible-library -- the virtualiser is read fresh on every render by design
+  const virtual = useVirtualizer({ count: rows.length, getScrollElement: () => parent.current, estimateSize: () => 33, overscan: 10 });
+  const exportCsv = () => {
+    const csv = Papa.unparse(rows.map((p) => ({ lot: p.lotCode, vintage: p.vintage, stage: p.stage, sample_date: p.sampleDate, result: p.text, unit })));
+    const url = URL.createObjectURL(new Blob([`\uFEFF${csv}`], { type: "text/csv;charset=utf-8" }));
+    const a = Object.assign(document.createElement("a"), { href: url, download: `${data.parameter}-results.csv` });
+    a.click();
+    URL.revokeObjectURL(url);
+  };
+  return (
+    <Card title={`All results (${rows.length})`}>
+      <Button variant="secondary" onClick={exportCsv} className="mb-3">Export CSV</Button>
+      <div role="table" aria-label="Results" aria-rowcount={rows.length} className="text-sm">
+        <div role="rowgroup">
+          <div role="row" aria-rowindex={1} className="grid grid-cols-5 border-b border-line py-1 font-semibold text-ink-500">
+            {["Lot", "Vintage", "Stage", "Sampled", `Result (${unit})`].map((h) => <span key={h} role="columnheader">{h}</span>)}
+          </div>
+        </div>
+        {/* Only the rows in view are in the DOM, so ten thousand results scroll smoothly. */}
+        <div ref={parent} role="rowgroup" className="max-h-96 overflow-y-auto" tabIndex={0} aria-label="Scrollable results">
+          <div role="presentation" style={{ height: virtual.getTotalSize(), position: "relative" }}>
+            {virtual.getVirtualItems().map((v) => {
+              const p = rows[v.index]!;
+              return (
+                <div key={v.key} role="row" aria-rowindex={v.index + 2} className="absolute left-0 grid w-full grid-cols-5 border-b border-line/60 py-1" style={{ top: v.start, height: v.size }}>
+                  <span role="cell">{p.lotCode}</span>
+                  <span role="cell">{p.vintage}</span>
+                  <span role="cell">{ANALYSIS_STAGE_LABELS[p.stage]}</span>
+                  <span role="cell">{p.sampleDate}</span>
+                  <span role="cell" className="tabular-nums">{p.text}</span>
+                </div>
+              );
+            })}
+          </div>
+        </div>
+      </div>
+    </Card>
+  );
+}

@@ -1,0 +1,81 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { expectAccessible, screenshot, signInThroughForm, signOut, startStack, type Stack } from "../support/stack.ts";
+import { DEMO } from "../support/api.ts";
+
+let s: Stack;
+beforeAll(async () => {
+  s = await startStack();
+});
+afterAll(() => s?.stop());
+
+const nav = (label: string) => s.page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: label, exact: true }).click();
+const fixture = path.resolve(import.meta.dirname, "../fixtures/sentier-blanc-prefilling.csv");
+
+describe("lots and results: import, certificate, verdicts and trends", () => {
+  it("when the producer imports the lab's CSV for Sentier Blanc, then the preview reads it and the import reports two failing parameters", async () => {
+    const { page, baseUrl } = s;
+    await signInThroughForm(page, baseUrl, DEMO.producerQuality);
+    await nav("Specifications");
+    await page.getByRole("link", { name: "Sentier Blanc" }).first().click();
+    await page.getByRole("link", { name: "Import results (CSV)" }).click();
+    await page.getByLabel("CSV file").setInputFiles(fixture);
+    await page.getByText("2 samples", { exact: true }).waitFor();
+    await page.getByLabel("Laboratory").fill("Domaine des Trois Sentes cellar laboratory");
+    expect(await page.getByLabel("Meaning of column VA (g/L acetic)").inputValue()).toBe("parameter:volatile_acidity");
+    await expectAccessible(page, "import preview");
+    await screenshot(page, "import-preview");
+    await page.getByRole("button", { name: "Import 2 samples" }).click();
+    await page.getByText(/1 sample\(s\) outside the specification/).waitFor();
+    expect(await page.getByText(/SB-25-E2: Free SO2, Volatile acidity failing/).count()).toBe(1);
+    await screenshot(page, "import-done");
+  });
+
+  it("when the producer opens the failing lot and attaches the certificate, then the certificate is listed with its hash", async () => {
+    const { page } = s;
+    await nav("Lots");
+    await page.getByRole("link", { name: "SB-25-E2" }).click();
+    await page.getByRole("heading", { level: 1, name: "Lot SB-25-E2" }).waitFor();
+    const dir = mkdtempSync(path.join(os.tmpdir(), "cert-"));
+    const file = path.join(dir, "northgate-certificate.pdf");
+    writeFileSync(file, "%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n");
+    await page.getByLabel(/Attach the laboratory's certificate/).setInputFiles(file);
+    await page.getByText(/Attached. SHA-256/).waitFor();
+    await page.getByRole("link", { name: /Certificate: northgate-certificate.pdf/ }).waitFor();
+    await expectAccessible(page, "lot page (producer)");
+    await signOut(page);
+  });
+
+  it("when the buyer opens the lot, then each verdict shows its governing limit and the law with its citation, and the trend chart draws", async () => {
+    const { page, baseUrl } = s;
+    await signInThroughForm(page, baseUrl, DEMO.buyerTechnologist);
+    await nav("Lots");
+    await page.getByRole("link", { name: "SB-25-E2" }).click();
+    const va = page.getByRole("row", { name: "Volatile acidity", exact: true });
+    await va.getByText("fail", { exact: true }).waitFor();
+    await va.getByText(/max 0\.6 g\/L as acetic acid \(buyer's spec\)/).waitFor();
+    // EU 18 meq/L, shown in the buyer's unit (Oxford Companion: 1 meq = 0.060 g acetic acid → 1.08 g/L).
+    await va.getByText(/Law, EU: max 1\.08\d* g\/L as acetic acid \(Commission Delegated Regulation \(EU\) 2019\/934/).waitFor();
+    await page.getByRole("row", { name: "Free SO2", exact: true }).getByText("fail", { exact: true }).waitFor();
+    await page.getByRole("link", { name: /Certificate: northgate-certificate.pdf/ }).waitFor();
+    await expectAccessible(page, "lot page (buyer)");
+    await screenshot(page, "lot-buyer");
+
+    await page.getByRole("link", { name: "Trends" }).click();
+    await page.getByRole("img", { name: /Chart of Volatile acidity/ }).waitFor();
+    await page.locator(".recharts-line").first().waitFor();
+    expect(await page.locator(".recharts-reference-line").count()).toBeGreaterThanOrEqual(1);
+    await page.getByRole("table", { name: "Results" }).waitFor();
+    await expectAccessible(page, "trends");
+    await screenshot(page, "trends");
+
+    await nav("Readiness");
+    await page.getByRole("heading", { level: 1, name: "Readiness" }).waitFor();
+    await page.waitForLoadState("networkidle");
+    await expectAccessible(page, "readiness");
+    await screenshot(page, "readiness");
+    await signOut(page);
+  });
+});
