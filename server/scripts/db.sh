@@ -11,7 +11,7 @@ DIR="${DB_DIR:-$PWD/.data/mariadb}"
 PORT="${DB_PORT:-3407}"
 USER_NAME="${DB_USER:-cellarpact}"
 USER_PASS="${DB_PASSWORD:-cellarpact-local}"
-DATABASES="${DB_NAMES:-cellarpact cellarpact_test}"
+DATABASES="${DB_NAMES:-cellarpact cellarpact_test cellarpact_bench}"
 SOCK="$DIR/run/mysqld.sock"
 PIDFILE="$DIR/run/mysqld.pid"
 

@@ -1,3 +1,4 @@
 /** npm run bench: each benchmark prints its own ratio, measured side by side in this process. */
 await import("./engine.bench.ts");
+await import("./import.bench.ts");
 export {};

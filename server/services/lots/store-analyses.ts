@@ -2,15 +2,20 @@
  * Stores analyses with their results and the engine's stored evaluation, opens deviations for
  * failing results and for transit drift, all inside the caller's transaction (never half-written).
  */
-import { Op, type Transaction } from "sequelize";
+import { Op, type QueryInterface, type Transaction } from "sequelize";
+import { database } from "../../db/database.ts";
 import { compareTransit, findParameter, parseReading, convert, type ParameterId, type TransitValue, type UnitId } from "../../../shared/engine/index.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { ResultEntry } from "../../../shared/lots/schemas.ts";
 import { Analysis, AnalysisResult, type Lot } from "../../models/lot.ts";
-import { AnalysisEvaluation, Deviation } from "../../models/evaluation.ts";
+import { Deviation } from "../../models/evaluation.ts";
 import type { ContractWithParties } from "../specs/spec-access.ts";
 import { governingVersion } from "./governing.ts";
 import { evaluateAnalysis } from "./evaluate-analysis.ts";
+
+async function insertInChunks(qi: QueryInterface, t: Transaction, table: string, rows: object[], size = 2000) {
+  for (let i = 0; i < rows.length; i += size) await qi.bulkInsert(table, rows.slice(i, i + size), { transaction: t });
+}
 
 export interface AnalysisHeader {
   stage: AnalysisStage;
@@ -52,14 +57,26 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     })),
     { transaction: t },
   );
-  await AnalysisResult.bulkCreate(
+  // Raw multi-row inserts: building a model instance per result costs more than the insert itself.
+  const qi = database().getQueryInterface();
+  await insertInChunks(
+    qi,
+    t,
+    "analysis_results",
     samples.flatMap((s, i) =>
       s.results.map((r) => {
         const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" });
-        return { analysisId: analyses[i]!.id, parameter: r.parameter, rawText: r.raw, reading: parsed.ok ? parsed.reading : { kind: "below" as const, limit: null }, unit: r.unit, uncertainty: r.uncertainty ?? null, method: r.method ?? null };
+        return {
+          analysis_id: analyses[i]!.id,
+          parameter: r.parameter,
+          raw_text: r.raw,
+          reading: JSON.stringify(parsed.ok ? parsed.reading : { kind: "below", limit: null }),
+          unit: r.unit,
+          uncertainty: r.uncertainty ? JSON.stringify(r.uncertainty) : null,
+          method: r.method ?? null,
+        };
       }),
     ),
-    { transaction: t },
   );
 
   const summary: StoredSummary = { analysisIds: analyses.map((a) => a.id), failing: [], deviationIds: [] };
@@ -70,7 +87,21 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     if (failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: failing });
     return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts };
   });
-  await AnalysisEvaluation.bulkCreate(evaluations, { transaction: t });
+  const now = new Date();
+  await insertInChunks(
+    qi,
+    t,
+    "analysis_evaluations",
+    evaluations.map((e) => ({
+      analysis_id: e.analysisId,
+      spec_version_id: e.specVersionId,
+      engine_version: e.engineVersion,
+      market_versions: JSON.stringify(e.marketVersions),
+      worst_outcome: e.worstOutcome,
+      verdicts: JSON.stringify(e.verdicts),
+      created_at: now,
+    })),
+  );
 
   const lotOf = new Map(samples.map((s, i) => [analyses[i]!.id, s.lot]));
   const deviations: { contractId: number; lotId: number; analysisId: number; kind: "result" | "transit"; status: string; parameters: string[]; summary: string; openedBy: number }[] = summary.failing.map((f) => ({
