@@ -16,6 +16,8 @@ import { registerOrganisationRoutes } from "./routes/organisation-routes.ts";
 import { registerSystemRoutes } from "./routes/system-routes.ts";
 import { registerSpecRoutes } from "./routes/spec-routes.ts";
 import { registerLotRoutes } from "./routes/lot-routes.ts";
+import { registerDeviationRoutes } from "./routes/deviation-routes.ts";
+import { registerAuditRoutes } from "./routes/audit-routes.ts";
 import { useServiceSettings } from "./services/settings.ts";
 
 export const APP_VERSION = "0.1.0";
@@ -72,6 +74,8 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   registerOrganisationRoutes(registry);
   registerSpecRoutes(registry);
   registerLotRoutes(registry, { certificateMaxBytes: config.CERTIFICATE_MAX_BYTES });
+  registerDeviationRoutes(registry, { attachmentMaxBytes: config.CERTIFICATE_MAX_BYTES });
+  registerAuditRoutes(registry);
   app.use(router);
   app.use("/api", notFoundHandler);
 

@@ -6,6 +6,8 @@ import { createSequelize } from "./db/connection.ts";
 import { useDatabase } from "./db/database.ts";
 import { createApp } from "./app.ts";
 import { startOutboxWorker } from "./services/outbox-service.ts";
+import { sendDigests } from "./services/notification-service.ts";
+import { warnApproachingDeadlines } from "./services/deviations/deviation-service.ts";
 
 let config: Config;
 try {
@@ -38,6 +40,12 @@ const worker = startOutboxWorker(
   (err) => logger.warn({ err }, "outbox pass failed"),
 );
 
+// Hourly housekeeping: daily digests (each user at most once a day) and deadline warnings.
+const housekeeping = setInterval(() => {
+  void sendDigests().catch((err) => logger.warn({ err }, "digest pass failed"));
+  void warnApproachingDeadlines().catch((err) => logger.warn({ err }, "deadline pass failed"));
+}, 60 * 60 * 1000);
+
 const server = app.listen(config.PORT, config.HOST, () => {
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : config.PORT;
@@ -54,6 +62,7 @@ async function shutdown(signal: string) {
   force.unref();
   // close() stops new connections and waits for requests in flight.
   await new Promise<void>((resolve) => server.close(() => resolve()));
+  clearInterval(housekeeping);
   await worker.stop();
   transport.close();
   await sequelize.close();

@@ -28,39 +28,6 @@ export class AnalysisEvaluation extends Model<InferAttributes<AnalysisEvaluation
   }
 }
 
-export class Deviation extends Model<InferAttributes<Deviation>, InferCreationAttributes<Deviation>> {
-  declare id: CreationOptional<number>;
-  declare contractId: number;
-  declare lotId: number;
-  declare analysisId: number | null;
-  declare kind: "result" | "transit" | "manual";
-  declare status: string;
-  declare parameters: string[];
-  declare summary: string;
-  declare openedBy: number | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
-  static initModel(sequelize: Sequelize) {
-    Deviation.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        contractId: { type: DataTypes.INTEGER, allowNull: false },
-        lotId: { type: DataTypes.INTEGER, allowNull: false },
-        analysisId: { type: DataTypes.INTEGER, allowNull: true },
-        kind: { type: DataTypes.ENUM("result", "transit", "manual"), allowNull: false },
-        status: { type: DataTypes.STRING(30), allowNull: false },
-        parameters: { type: DataTypes.JSON, allowNull: false },
-        summary: { type: DataTypes.TEXT, allowNull: false },
-        openedBy: { type: DataTypes.INTEGER, allowNull: true },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "deviations", underscored: true },
-    );
-  }
-}
-
 export class Certificate extends Model<InferAttributes<Certificate>, InferCreationAttributes<Certificate>> {
   declare id: CreationOptional<number>;
   declare analysisId: number;

@@ -13,10 +13,11 @@ import { SpecVersion } from "./spec-version.ts";
 import { SpecRequirement } from "./spec-requirement.ts";
 import { SpecComment } from "./spec-comment.ts";
 import { Analysis, AnalysisResult, Lot } from "./lot.ts";
-import { AnalysisEvaluation, Certificate, Deviation, IdempotencyKey } from "./evaluation.ts";
+import { AnalysisEvaluation, Certificate, IdempotencyKey } from "./evaluation.ts";
+import { Deviation, DeviationAttachment, DeviationMessage, DeviationMessageEdit, Notification, NotificationPreference } from "./deviation.ts";
 
 export function initModels(sequelize: Sequelize): void {
-  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey]) {
+  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey, DeviationMessage, DeviationMessageEdit, DeviationAttachment, Notification, NotificationPreference]) {
     m.initModel(sequelize);
   }
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -39,4 +40,9 @@ export function initModels(sequelize: Sequelize): void {
   Analysis.hasOne(AnalysisEvaluation, { foreignKey: "analysisId", as: "evaluation" });
   Analysis.hasMany(Certificate, { foreignKey: "analysisId", as: "certificates" });
   Lot.belongsTo(Contract, { foreignKey: "contractId", as: "contract" });
+  Deviation.belongsTo(Lot, { foreignKey: "lotId", as: "lot" });
+  Deviation.hasMany(DeviationMessage, { foreignKey: "deviationId", as: "messages" });
+  DeviationMessage.belongsTo(User, { foreignKey: "authorUserId", as: "author" });
+  DeviationMessage.hasMany(DeviationMessageEdit, { foreignKey: "messageId", as: "edits" });
+  DeviationMessage.hasMany(DeviationAttachment, { foreignKey: "messageId", as: "attachments" });
 }

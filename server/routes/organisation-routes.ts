@@ -6,7 +6,7 @@ import { idParam } from "../../shared/ids.ts";
 import * as members from "../services/member-service.ts";
 import * as invitations from "../services/invitation-service.ts";
 import * as organisations from "../services/organisation-service.ts";
-import { listOrganisationAudit, verifyAuditChain } from "../services/audit-service.ts";
+import { verifyAuditChain } from "../services/audit-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const memberParams = orgParams.extend({ membershipId: idParam });
@@ -43,11 +43,6 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
   r.add(
     { method: "delete", path: "/api/orgs/:orgId/invitations/:invitationId", tag: "members", summary: "Revoke an open invitation", access: orgMember("org_admin"), params: invitationParams },
     ({ params, user }) => invitations.revokeInvitation(params.orgId, params.invitationId, user.id),
-  );
-
-  r.add(
-    { method: "get", path: "/api/orgs/:orgId/audit", tag: "audit", summary: "Recent audit entries of your organisation", access: orgMember("org_admin"), params: orgParams, query: z.object({ limit: z.coerce.number().int().min(1).max(500).default(100) }) },
-    ({ params, query }) => listOrganisationAudit(params.orgId, query.limit),
   );
 
   r.add({ method: "get", path: "/api/platform/organisations", tag: "platform", summary: "All organisations", access: PLATFORM_ADMIN }, () =>

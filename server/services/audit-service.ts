@@ -3,7 +3,7 @@
  * the audit_head row serialises appends and acts as the checkpoint for the tail.
  */
 import type { Transaction } from "sequelize";
-import { Op } from "sequelize";
+import { Op, type WhereOptions } from "sequelize";
 import { AuditEvent, AuditHead } from "../models/audit-event.ts";
 import { User } from "../models/user.ts";
 import { canonicalJson, sha256 } from "../lib/crypto.ts";
@@ -115,8 +115,33 @@ export async function verifyAuditChain(batchSize = 2000): Promise<ChainVerificat
   return { ok: true, checked, lastSeq };
 }
 
-export async function listOrganisationAudit(organisationId: number, limit = 100): Promise<AuditEntryView[]> {
-  const rows = await AuditEvent.findAll({ where: { organisationId }, order: [["seq", "DESC"]], limit, raw: true });
+export interface AuditFilters {
+  action?: string;
+  entityType?: string;
+  entityId?: string;
+  actorUserId?: number;
+  from?: string;
+  to?: string;
+  limit?: number;
+}
+
+/** Entries recorded for an organisation, newest first, narrowed by the filters. */
+export async function listOrganisationAudit(organisationId: number, f: AuditFilters = {}): Promise<AuditEntryView[]> {
+  const where: WhereOptions = { organisationId };
+  if (f.action) Object.assign(where, { action: { [Op.like]: `${f.action.replace(/[%_]/g, "")}%` } });
+  if (f.entityType) Object.assign(where, { entityType: f.entityType });
+  if (f.entityId) Object.assign(where, { entityId: f.entityId });
+  if (f.actorUserId) Object.assign(where, { actorUserId: f.actorUserId });
+  if (f.from || f.to) Object.assign(where, { occurredAt: { ...(f.from ? { [Op.gte]: new Date(`${f.from}T00:00:00Z`) } : {}), ...(f.to ? { [Op.lte]: new Date(`${f.to}T23:59:59.999Z`) } : {}) } });
+  return toViews(await AuditEvent.findAll({ where, order: [["seq", "DESC"]], limit: f.limit ?? 200, raw: true }));
+}
+
+/** The history of one entity, across the organisations that recorded it. */
+export async function entityHistory(entityType: string, entityId: string): Promise<AuditEntryView[]> {
+  return toViews(await AuditEvent.findAll({ where: { entityType, entityId }, order: [["seq", "ASC"]], limit: 1000, raw: true }));
+}
+
+async function toViews(rows: AuditEvent[]): Promise<AuditEntryView[]> {
   const actorIds = [...new Set(rows.map((r) => r.actorUserId).filter((id): id is number => id !== null))];
   const actors = await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"], raw: true });
   const nameOf = new Map(actors.map((a) => [a.id, a.name]));

@@ -6,7 +6,8 @@ import type { AnalysisView, LotDetail, LotSummary, ReadinessRow, TrendData } fro
 import type { Stage } from "../../../shared/specs/vocabulary.ts";
 import { Contract } from "../../models/contract.ts";
 import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
-import { AnalysisEvaluation, Certificate, Deviation } from "../../models/evaluation.ts";
+import { AnalysisEvaluation, Certificate } from "../../models/evaluation.ts";
+import { Deviation } from "../../models/deviation.ts";
 import { contractFor, contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { contractView, versionSummary } from "../specs/spec-view.ts";
 import { lotFor } from "./lot-access.ts";

@@ -8,7 +8,7 @@ import { compareTransit, findParameter, parseReading, convert, type ParameterId,
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { ResultEntry } from "../../../shared/lots/schemas.ts";
 import { Analysis, AnalysisResult, type Lot } from "../../models/lot.ts";
-import { Deviation } from "../../models/evaluation.ts";
+import { openDeviations, type NewDeviation } from "../deviations/open-deviations.ts";
 import type { ContractWithParties } from "../specs/spec-access.ts";
 import { governingVersion } from "./governing.ts";
 import { evaluateAnalysis } from "./evaluate-analysis.ts";
@@ -104,18 +104,15 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
   );
 
   const lotOf = new Map(samples.map((s, i) => [analyses[i]!.id, s.lot]));
-  const deviations: { contractId: number; lotId: number; analysisId: number; kind: "result" | "transit"; status: string; parameters: string[]; summary: string; openedBy: number }[] = summary.failing.map((f) => ({
-    contractId: contract.id,
+  const deviations: NewDeviation[] = summary.failing.map((f) => ({
     lotId: lotOf.get(f.analysisId)!.id,
     analysisId: f.analysisId,
     kind: "result" as const,
-    status: "open",
     parameters: f.parameters,
     summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification at ${header.stage.replace("_", " ")}.`,
-    openedBy: userId,
   }));
-  if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, contract.id, userId, samples, analyses)));
-  if (deviations.length) summary.deviationIds = (await Deviation.bulkCreate(deviations, { transaction: t })).map((d) => d.id);
+  if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analyses)));
+  summary.deviationIds = await openDeviations(t, contract, { userId, organisationId: contract.producerOrgId }, deviations);
   return summary;
 }
 
@@ -132,7 +129,7 @@ export function transitValues(results: { parameter: string; reading: { kind: str
   return out;
 }
 
-async function transitDeviations(t: Transaction, contractId: number, userId: number, samples: SampleToStore[], analyses: Analysis[]) {
+async function transitDeviations(t: Transaction, samples: SampleToStore[], analyses: Analysis[]): Promise<NewDeviation[]> {
   const bulk = samples.map((s, i) => ({ s, analysis: analyses[i]! })).filter((x) => isBulk(x.s.lot.container));
   if (!bulk.length) return [];
   const before = await Analysis.findAll({
@@ -141,7 +138,7 @@ async function transitDeviations(t: Transaction, contractId: number, userId: num
     order: [["sampleDate", "DESC"], ["id", "DESC"]],
     transaction: t,
   });
-  const found = [];
+  const found: NewDeviation[] = [];
   for (const { s, analysis } of bulk) {
     const pre = before.find((a) => a.lotId === s.lot.id) as (Analysis & { results: AnalysisResult[] }) | undefined;
     if (!pre) continue;
@@ -152,14 +149,11 @@ async function transitDeviations(t: Transaction, contractId: number, userId: num
     const exceeded = compareTransit(transitValues(pre.results), transitValues(arrival)).filter((f) => f.exceeded);
     if (exceeded.length) {
       found.push({
-        contractId,
         lotId: s.lot.id,
         analysisId: analysis.id,
         kind: "transit" as const,
-        status: "open",
         parameters: exceeded.map((f) => f.parameter),
         summary: `Lot ${s.lot.lotCode} changed in transit: ${exceeded.map((f) => f.message).join(" ")}`,
-        openedBy: userId,
       });
     }
   }

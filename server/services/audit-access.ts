@@ -1,0 +1,32 @@
+/** Whether an organisation may read the history of an entity: it must be a party to it. */
+import { notFound } from "../http/problem.ts";
+import { versionFor, contractFor } from "./specs/spec-access.ts";
+import { lotFor } from "./lots/lot-access.ts";
+import { Deviation } from "../models/deviation.ts";
+import { entityHistory } from "./audit-service.ts";
+
+export const HISTORY_ENTITY_TYPES = ["spec_version", "lot", "deviation", "contract"] as const;
+export type HistoryEntityType = (typeof HISTORY_ENTITY_TYPES)[number];
+
+export async function historyFor(orgId: number, entityType: HistoryEntityType, entityId: number) {
+  switch (entityType) {
+    case "spec_version":
+      await versionFor(orgId, entityId);
+      break;
+    case "lot":
+      await lotFor(orgId, entityId);
+      break;
+    case "contract":
+      await contractFor(orgId, entityId);
+      break;
+    case "deviation": {
+      const d = await Deviation.findByPk(entityId);
+      if (!d) throw notFound("The deviation");
+      await contractFor(orgId, d.contractId).catch(() => {
+        throw notFound("The deviation");
+      });
+      break;
+    }
+  }
+  return entityHistory(entityType, String(entityId));
+}

@@ -1,0 +1,275 @@
+/**
+ * Negotiating deviations: a threaded discussion (replies, mentions, quoted results, attachments,
+ * edit history) in which producers propose and only the buyer's technologist decides, with a reason.
+ */
+import { Op, type Transaction } from "sequelize";
+import { Deviation, DeviationAttachment, DeviationMessage, DeviationMessageEdit } from "../../models/deviation.ts";
+import { Analysis, Lot } from "../../models/lot.ts";
+import { AnalysisEvaluation } from "../../models/evaluation.ts";
+import { Membership } from "../../models/membership.ts";
+import { User } from "../../models/user.ts";
+import { Contract } from "../../models/contract.ts";
+import { inTransaction } from "../../db/database.ts";
+import { recordAudit } from "../audit-service.ts";
+import { notify, usersWithRoles } from "../notification-service.ts";
+import { conflict, forbidden, notFound, validationFailed } from "../../http/problem.ts";
+import { contractFor, contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
+import { createVersion } from "../specs/spec-lifecycle.ts";
+import { governingVersion } from "../lots/governing.ts";
+import { openDeviations, responseDeadline } from "./open-deviations.ts";
+import { discardFile, readStoredFile, saveCheckedFile } from "../stored-files.ts";
+import { DEVIATION_OUTCOME_LABELS, type DeviationStatus } from "../../../shared/deviations/vocabulary.ts";
+import type { DecisionInput, MessageInput } from "../../../shared/deviations/schemas.ts";
+import type { DeviationDetail, DeviationSummaryView, MessageView } from "../../../shared/deviations/views.ts";
+import type { StoredVerdict } from "../../../shared/lots/views.ts";
+import type { SessionUser, SessionMembership } from "../session-service.ts";
+
+const CLOSED: DeviationStatus[] = ["decided", "closed"];
+const isOverdue = (d: Deviation, now = Date.now()) => !CLOSED.includes(d.status) && d.respondBy !== null && d.respondBy.getTime() < now;
+
+async function deviationFor(orgId: number, id: number, t?: Transaction, lock = false) {
+  const deviation = await Deviation.findByPk(id, { transaction: t, lock: lock && t ? t.LOCK.UPDATE : undefined });
+  if (!deviation) throw notFound("The deviation");
+  const { contract, side } = await contractFor(orgId, deviation.contractId, t).catch(() => {
+    throw notFound("The deviation");
+  });
+  return { deviation, contract, side };
+}
+
+function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationSummaryView {
+  return {
+    id: d.id,
+    kind: d.kind,
+    status: d.status,
+    parameters: d.parameters,
+    summary: d.summary,
+    lotId: lot.id,
+    lotCode: lot.lotCode,
+    vintage: lot.vintage,
+    contractId: c.id,
+    contractReference: c.reference,
+    wineName: c.wine.name,
+    producerName: c.producer.name,
+    respondBy: d.respondBy ? d.respondBy.toISOString() : null,
+    overdue: isOverdue(d),
+    createdAt: d.createdAt.toISOString(),
+    updatedAt: d.updatedAt.toISOString(),
+  };
+}
+
+export async function listDeviations(orgId: number, f: { status?: DeviationStatus; lot?: number; contract?: number; overdue?: "true" | "false" }) {
+  const contracts = (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] }, include: contractInclude })) as ContractWithParties[];
+  const byId = new Map(contracts.map((c) => [c.id, c]));
+  const ids = f.contract ? [f.contract].filter((id) => byId.has(id)) : [...byId.keys()];
+  const rows = await Deviation.findAll({
+    where: { contractId: ids, ...(f.status ? { status: f.status } : {}), ...(f.lot ? { lotId: f.lot } : {}) },
+    include: [{ model: Lot, as: "lot" }],
+    order: [["createdAt", "DESC"]],
+    limit: 500,
+  });
+  const views = rows.map((d) => summaryView(d, (d as Deviation & { lot: Lot }).lot, byId.get(d.contractId)!));
+  return f.overdue === "true" ? views.filter((v) => v.overdue) : f.overdue === "false" ? views.filter((v) => !v.overdue) : views;
+}
+
+/** Everyone who can take part: handles are the local part of their e-mail address (@tessa.marlow). */
+async function participants(c: ContractWithParties, t?: Transaction) {
+  const rows = await Membership.findAll({ where: { organisationId: [c.retailerOrgId, c.producerOrgId] }, include: [{ model: User, as: "user" }], transaction: t });
+  return rows.map((m) => {
+    const u = (m as Membership & { user: User }).user;
+    return { userId: u.id, handle: u.email.split("@")[0]!.toLowerCase(), name: u.name, organisation: m.organisationId === c.retailerOrgId ? c.retailer.name : c.producer.name };
+  });
+}
+
+export async function getDeviation(orgId: number, id: number, user: SessionUser, membership: SessionMembership): Promise<DeviationDetail> {
+  const { deviation, contract, side } = await deviationFor(orgId, id);
+  const lot = (await Lot.findByPk(deviation.lotId))!;
+  const evaluation = deviation.analysisId ? await AnalysisEvaluation.findOne({ where: { analysisId: deviation.analysisId } }) : null;
+  const people = await participants(contract);
+  const messages = (await DeviationMessage.findAll({
+    where: { deviationId: id },
+    include: [{ model: User, as: "author", attributes: ["id", "name"] }, { model: DeviationMessageEdit, as: "edits" }, { model: DeviationAttachment, as: "attachments" }],
+    order: [["createdAt", "ASC"], ["id", "ASC"]],
+  })) as (DeviationMessage & { author: User; edits: DeviationMessageEdit[]; attachments: DeviationAttachment[] })[];
+  const decider = deviation.decidedBy ? await User.findByPk(deviation.decidedBy, { attributes: ["name"] }) : null;
+  const open = !CLOSED.includes(deviation.status);
+  const role = membership.role;
+  return {
+    ...summaryView(deviation, lot, contract),
+    side,
+    verdicts: ((evaluation?.verdicts ?? []) as StoredVerdict[]).filter((v) => deviation.parameters.includes(v.parameter)),
+    decision: deviation.decision,
+    decidedAt: deviation.decidedAt ? deviation.decidedAt.toISOString() : null,
+    decidedBy: decider?.name ?? null,
+    messages: messages.map((m): MessageView => ({
+      id: m.id,
+      parentId: m.parentId,
+      kind: m.kind,
+      author: m.author.name,
+      organisation: m.organisationId === contract.retailerOrgId ? contract.retailer.name : contract.producer.name,
+      side: m.organisationId === contract.retailerOrgId ? "buyer" : "producer",
+      body: m.body,
+      proposal: m.proposal,
+      quote: m.quote,
+      mentions: people.filter((p) => m.mentions.includes(p.userId)).map((p) => p.handle),
+      edits: m.edits.map((e) => ({ previousBody: e.previousBody, editedAt: e.editedAt.toISOString() })),
+      attachments: m.attachments.map((a) => ({ id: a.id, originalName: a.originalName, sizeBytes: a.sizeBytes, sha256: a.sha256 })),
+      mine: m.authorUserId === user.id,
+      createdAt: m.createdAt.toISOString(),
+      editedAt: m.editedAt ? m.editedAt.toISOString() : null,
+    })),
+    participants: people.map(({ handle, name, organisation }) => ({ handle, name, organisation })),
+    actions: {
+      comment: open && ["buyer_technologist", "producer_quality"].includes(role),
+      propose: open && ["buyer_technologist", "producer_quality"].includes(role),
+      accept: open && ["buyer_technologist", "producer_quality"].includes(role),
+      decide: open && side === "buyer" && role === "buyer_technologist",
+      close: deviation.status === "decided" && side === "buyer" && role === "buyer_technologist",
+    },
+  };
+}
+
+const audit = (t: Transaction, user: SessionUser, orgId: number, action: string, d: Deviation, details: Record<string, unknown>, after?: unknown) =>
+  recordAudit(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "deviation", entityId: d.id, after, details });
+
+export async function postMessage(orgId: number, id: number, user: SessionUser, input: MessageInput) {
+  return inTransaction(async (t) => {
+    const { deviation, contract } = await deviationFor(orgId, id, t, true);
+    if (CLOSED.includes(deviation.status)) throw conflict("This deviation has been decided; the discussion is closed.");
+    let parent: DeviationMessage | null = null;
+    if (input.parentId) {
+      parent = await DeviationMessage.findOne({ where: { id: input.parentId, deviationId: id }, transaction: t });
+      if (!parent) throw validationFailed([{ path: "parentId", message: "You can only reply to a message of this deviation." }]);
+    }
+    if (input.kind === "acceptance") {
+      if (parent?.kind !== "proposal") throw validationFailed([{ path: "parentId", message: "Only a proposal can be accepted." }]);
+      if (parent.organisationId === orgId) throw validationFailed([{ path: "parentId", message: "Accept the other party's proposal, not your own." }]);
+    }
+    let quote = null;
+    if ("quote" in input && input.quote) {
+      const evaluation = await AnalysisEvaluation.findOne({ where: { analysisId: input.quote.analysisId }, transaction: t });
+      const analysis = evaluation ? await Analysis.findByPk(input.quote.analysisId, { transaction: t }) : null;
+      const verdict = (evaluation?.verdicts ?? []).find((v) => v.parameter === input.quote!.parameter);
+      if (!analysis || analysis.lotId !== deviation.lotId || !verdict) throw validationFailed([{ path: "quote", message: "Quote a result of this deviation's lot." }]);
+      quote = { analysisId: analysis.id, parameter: verdict.parameter, resultText: verdict.resultText, outcome: verdict.outcome };
+    }
+    const people = await participants(contract, t);
+    const handles = [...input.body.matchAll(/@([a-z0-9._-]+)/gi)].map((m) => m[1]!.toLowerCase());
+    const mentioned = people.filter((p) => handles.includes(p.handle)).map((p) => p.userId);
+    const message = await DeviationMessage.create(
+      { deviationId: id, parentId: input.parentId ?? null, authorUserId: user.id, organisationId: orgId, kind: input.kind, body: input.body, proposal: input.kind === "proposal" ? input.proposal : null, quote, mentions: mentioned },
+      { transaction: t },
+    );
+    // Each message hands the turn to the other side, with a fresh response deadline.
+    await deviation.update({ status: "in_discussion", respondBy: responseDeadline(), deadlineWarnedAt: null }, { transaction: t });
+    await audit(t, user, orgId, `deviation.${input.kind === "comment" ? "commented" : input.kind === "proposal" ? "proposed" : "accepted"}`, deviation, { messageId: message.id, ...(input.kind === "proposal" ? { outcome: input.proposal.outcome } : {}) }, { body: input.body });
+    const parties = await usersWithRoles([contract.retailerOrgId, contract.producerOrgId], ["buyer_technologist", "producer_quality"], t);
+    const what = input.kind === "proposal" ? `proposes: ${DEVIATION_OUTCOME_LABELS[input.proposal.outcome]}` : input.kind === "acceptance" ? "accepts the proposal" : "comments";
+    await notify(t, parties.filter((p) => !mentioned.includes(p)), { kind: "comment", title: `Deviation #${id} (${contract.wine.name}): ${user.name} ${what}`, body: input.body, link: `/deviations/${id}` }, user.id);
+    await notify(t, mentioned, { kind: "mention", title: `${user.name} mentioned you on deviation #${id}`, body: input.body, link: `/deviations/${id}` }, user.id);
+    return { id: message.id };
+  });
+}
+
+export async function editMessage(orgId: number, id: number, messageId: number, user: SessionUser, body: string) {
+  await inTransaction(async (t) => {
+    const { deviation } = await deviationFor(orgId, id, t);
+    const message = await DeviationMessage.findOne({ where: { id: messageId, deviationId: id }, transaction: t, lock: t.LOCK.UPDATE });
+    if (!message) throw notFound("The message");
+    if (message.authorUserId !== user.id) throw forbidden("Only the author can edit a message.");
+    if (CLOSED.includes(deviation.status)) throw conflict("This deviation has been decided; messages can no longer change.");
+    await DeviationMessageEdit.create({ messageId, previousBody: message.body, editedAt: new Date() }, { transaction: t });
+    await message.update({ body, editedAt: new Date() }, { transaction: t });
+    await audit(t, user, orgId, "deviation.message_edited", deviation, { messageId }, { body });
+  });
+}
+
+/** Only the buyer's technologist decides, with a reason. A spec change starts a draft version from the governing one. */
+export async function decide(orgId: number, id: number, user: SessionUser, input: DecisionInput) {
+  const specVersionId = await inTransaction(async (t) => {
+    const { deviation, contract, side } = await deviationFor(orgId, id, t, true);
+    if (side !== "buyer") throw forbidden("Only the buyer decides a deviation.");
+    if (CLOSED.includes(deviation.status)) throw conflict("This deviation has already been decided.");
+    const decision = { outcome: input.outcome, conditions: input.conditions, reason: input.reason };
+    await deviation.update({ status: "decided", decision, decidedAt: new Date(), decidedBy: user.id }, { transaction: t });
+    await DeviationMessage.create({ deviationId: id, parentId: null, authorUserId: user.id, organisationId: orgId, kind: "decision", body: input.reason, proposal: { outcome: input.outcome, conditions: input.conditions }, quote: null, mentions: [] }, { transaction: t });
+    await audit(t, user, orgId, "deviation.decided", deviation, { outcome: input.outcome, conditions: input.conditions.length }, decision);
+    const parties = await usersWithRoles([contract.retailerOrgId, contract.producerOrgId], ["buyer_technologist", "producer_quality"], t);
+    const conditions = input.conditions.length ? ` Conditions: ${input.conditions.map((c) => c.detail).join("; ")}.` : "";
+    await notify(t, parties, { kind: "decision", title: `Deviation #${id} decided: ${DEVIATION_OUTCOME_LABELS[input.outcome]}`, body: `${input.reason}${conditions}`, link: `/deviations/${id}` }, user.id);
+    return contract.id;
+  });
+  if (input.outcome !== "spec_change") return { specVersionId: null };
+  // The new draft is the buyer's own work, made after the decision is safely recorded.
+  const deviation = (await Deviation.findByPk(id))!;
+  const lot = (await Lot.findByPk(deviation.lotId))!;
+  const governing = await governingVersion(specVersionId, lot.vintage);
+  const draft = await createVersion(orgId, specVersionId, user, governing ? { from: "version", versionId: governing.version.id } : { from: "blank" });
+  await deviation.update({ decision: { ...deviation.decision!, specVersionId: draft.id } });
+  return { specVersionId: draft.id };
+}
+
+export async function closeDeviation(orgId: number, id: number, user: SessionUser) {
+  await inTransaction(async (t) => {
+    const { deviation, side } = await deviationFor(orgId, id, t, true);
+    if (side !== "buyer") throw forbidden("Only the buyer closes a deviation.");
+    if (deviation.status !== "decided") throw conflict("Only a decided deviation can be closed.");
+    await deviation.update({ status: "closed" }, { transaction: t });
+    await audit(t, user, orgId, "deviation.closed", deviation, {});
+  });
+}
+
+export async function openManualDeviation(orgId: number, user: SessionUser, input: { lotId: number; parameters: string[]; reason: string }) {
+  return inTransaction(async (t) => {
+    const lot = await Lot.findByPk(input.lotId, { transaction: t });
+    if (!lot) throw notFound("The lot");
+    const { contract } = await contractFor(orgId, lot.contractId, t).catch(() => {
+      throw notFound("The lot");
+    });
+    const [id] = await openDeviations(t, contract, { userId: user.id, organisationId: orgId }, [{ lotId: lot.id, analysisId: null, kind: "manual", parameters: input.parameters, summary: `Lot ${lot.lotCode}: ${input.reason}` }]);
+    return { id: id! };
+  });
+}
+
+export async function attachToMessage(orgId: number, id: number, messageId: number, user: SessionUser, file: { buffer: Buffer; originalname: string }) {
+  await deviationFor(orgId, id);
+  const message = await DeviationMessage.findOne({ where: { id: messageId, deviationId: id } });
+  if (!message) throw notFound("The message");
+  if (message.authorUserId !== user.id) throw forbidden("Attach files to your own messages.");
+  const saved = await saveCheckedFile(file);
+  try {
+    return await inTransaction(async (t) => {
+      const a = await DeviationAttachment.create({ messageId, ...saved, uploadedBy: user.id }, { transaction: t });
+      await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "deviation.attachment_added", entityType: "deviation", entityId: id, details: { messageId, sha256: saved.sha256, bytes: saved.sizeBytes } });
+      return { id: a.id, sha256: saved.sha256 };
+    });
+  } catch (err) {
+    await discardFile(saved.storedName);
+    throw err;
+  }
+}
+
+export async function readAttachment(orgId: number, attachmentId: number) {
+  const a = await DeviationAttachment.findByPk(attachmentId);
+  const message = a ? await DeviationMessage.findByPk(a.messageId) : null;
+  if (!a || !message) throw notFound("The attachment");
+  await deviationFor(orgId, message.deviationId).catch(() => {
+    throw notFound("The attachment");
+  });
+  return { body: await readStoredFile(a.storedName), mime: a.mime, filename: a.originalName };
+}
+
+/** Warns both parties once when a response deadline is less than a day away. */
+export async function warnApproachingDeadlines(now = new Date()): Promise<number> {
+  const soon = new Date(now.getTime() + 86_400_000);
+  const due = await Deviation.findAll({ where: { status: ["open", "in_discussion"], deadlineWarnedAt: null, respondBy: { [Op.between]: [now, soon] } }, include: [{ model: Lot, as: "lot" }] });
+  for (const d of due) {
+    await inTransaction(async (t) => {
+      const c = (await Contract.findByPk(d.contractId, { include: contractInclude, transaction: t })) as ContractWithParties;
+      const parties = await usersWithRoles([c.retailerOrgId, c.producerOrgId], ["buyer_technologist", "producer_quality"], t);
+      await notify(t, parties, { kind: "deadline", title: `Deviation #${d.id} needs a response by ${d.respondBy!.toISOString().slice(0, 16).replace("T", " ")} UTC`, body: d.summary, link: `/deviations/${d.id}` });
+      await d.update({ deadlineWarnedAt: now }, { transaction: t });
+    });
+  }
+  return due.length;
+}
+

@@ -1,0 +1,51 @@
+import type { DeviationDecision, DeviationProposal, DeviationStatus, MessageKind, QuotedResult } from "./vocabulary.ts";
+import type { StoredVerdict } from "../lots/views.ts";
+
+export interface DeviationSummaryView {
+  id: number;
+  kind: "result" | "transit" | "manual";
+  status: DeviationStatus;
+  parameters: string[];
+  summary: string;
+  lotId: number;
+  lotCode: string;
+  vintage: number;
+  contractId: number;
+  contractReference: string;
+  wineName: string;
+  producerName: string;
+  respondBy: string | null;
+  overdue: boolean;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface MessageView {
+  id: number;
+  parentId: number | null;
+  kind: MessageKind;
+  author: string;
+  organisation: string;
+  side: "buyer" | "producer";
+  body: string;
+  proposal: DeviationProposal | null;
+  quote: QuotedResult | null;
+  mentions: string[];
+  edits: { previousBody: string; editedAt: string }[];
+  attachments: { id: number; originalName: string; sizeBytes: number; sha256: string }[];
+  mine: boolean;
+  createdAt: string;
+  editedAt: string | null;
+}
+
+export interface DeviationDetail extends DeviationSummaryView {
+  side: "buyer" | "producer";
+  /** The verdicts that opened it, when it came from an analysis. */
+  verdicts: StoredVerdict[];
+  decision: DeviationDecision | null;
+  decidedAt: string | null;
+  decidedBy: string | null;
+  messages: MessageView[];
+  participants: { handle: string; name: string; organisation: string }[];
+  actions: { comment: boolean; propose: boolean; accept: boolean; decide: boolean; close: boolean };
+}

@@ -1,0 +1,69 @@
+/** Words of the deviation workflow. */
+
+/** A deviation is open, then discussed, then decided by the buyer, then closed once its conditions are met. */
+export const DEVIATION_STATUSES = ["open", "in_discussion", "decided", "closed"] as const;
+export type DeviationStatus = (typeof DEVIATION_STATUSES)[number];
+export const DEVIATION_STATUS_LABELS: Record<DeviationStatus, string> = {
+  open: "Open",
+  in_discussion: "In discussion",
+  decided: "Decided",
+  closed: "Closed",
+};
+
+export const DEVIATION_OUTCOMES = ["concession", "rejected", "retest_passed", "spec_change"] as const;
+export type DeviationOutcome = (typeof DEVIATION_OUTCOMES)[number];
+export const DEVIATION_OUTCOME_LABELS: Record<DeviationOutcome, string> = {
+  concession: "Concession for this lot",
+  rejected: "Lot rejected",
+  retest_passed: "Resolved by a passing re-test",
+  spec_change: "Specification change proposed",
+};
+
+export const CONDITION_KINDS = ["retest", "treatment", "price_adjustment", "other"] as const;
+export type ConditionKind = (typeof CONDITION_KINDS)[number];
+export const CONDITION_LABELS: Record<ConditionKind, string> = {
+  retest: "Re-test",
+  treatment: "Treatment",
+  price_adjustment: "Price adjustment",
+  other: "Other condition",
+};
+
+export interface DeviationCondition {
+  kind: ConditionKind;
+  detail: string;
+}
+
+export interface DeviationProposal {
+  outcome: DeviationOutcome;
+  conditions: DeviationCondition[];
+}
+
+export interface DeviationDecision extends DeviationProposal {
+  reason: string;
+  /** Draft spec version started when the outcome is a spec change. */
+  specVersionId?: number;
+}
+
+export const MESSAGE_KINDS = ["comment", "proposal", "acceptance", "decision"] as const;
+export type MessageKind = (typeof MESSAGE_KINDS)[number];
+
+/** A result quoted into a message, as it stood when quoted. */
+export interface QuotedResult {
+  analysisId: number;
+  parameter: string;
+  resultText: string | null;
+  outcome: string;
+}
+
+export const NOTIFICATION_KINDS = ["deviation_opened", "comment", "mention", "decision", "deadline"] as const;
+export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
+export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
+  deviation_opened: "A new deviation",
+  comment: "A new comment",
+  mention: "Someone mentions me",
+  decision: "A decision",
+  deadline: "A response deadline draws near",
+};
+
+/** Days each side has to respond before a deviation is marked overdue (common practice). */
+export const RESPONSE_DAYS = 5;
