@@ -40,6 +40,8 @@ export interface MessageView {
 
 export interface DeviationDetail extends DeviationSummaryView {
   side: "buyer" | "producer";
+  /** The analysis that opened it, if any; its results can be quoted. */
+  analysisId: number | null;
   /** The verdicts that opened it, when it came from an analysis. */
   verdicts: StoredVerdict[];
   decision: DeviationDecision | null;

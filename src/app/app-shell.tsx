@@ -4,6 +4,7 @@ import { useCurrentMembership } from "../features/auth/current-organisation.ts";
 import { visibleNav } from "./navigation.ts";
 import { LoadingState, ErrorState } from "../components/ui/states.tsx";
 import { ROLE_LABELS } from "../../shared/auth/roles.ts";
+import { NotificationBell } from "../features/notifications/notifications-page.tsx";
 
 /** Layout of every signed-in page: header with organisation switcher, role-aware navigation, content. */
 export function AppShell() {
@@ -50,6 +51,7 @@ export function AppShell() {
             {membership && ` · ${ROLE_LABELS[membership.role]}`}
             {user.isPlatformAdmin && " · Platform admin"}
           </span>
+          <NotificationBell />
           <button
             type="button"
             className="rounded border border-white/40 px-3 py-1 text-sm font-semibold hover:bg-must-800"

@@ -15,6 +15,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: "Specifications", to: "/specs", roles: ["buyer_technologist", "buyer_finance", "producer_quality"] },
   { label: "Lots", to: "/lots", roles: ["buyer_technologist", "buyer_finance", "producer_quality"] },
   { label: "Readiness", to: "/readiness", roles: ["buyer_technologist", "producer_quality"] },
+  { label: "Deviations", to: "/deviations", roles: ["buyer_technologist", "buyer_finance", "producer_quality"] },
   { label: "Members", to: "/members", roles: ["org_admin"] },
   { label: "Activity log", to: "/activity", roles: ["org_admin"] },
   { label: "Organisations", to: "/platform/organisations", platformAdminOnly: true },

@@ -9,10 +9,10 @@ beforeAll(async () => {
 afterAll(() => s?.stop());
 
 const EXPECTED_NAV: [keyof typeof DEMO, string[]][] = [
-  ["buyerTechnologist", ["Overview", "Specifications", "Lots", "Readiness", "Profile"]],
-  ["buyerFinance", ["Overview", "Specifications", "Lots", "Profile"]],
+  ["buyerTechnologist", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Profile"]],
+  ["buyerFinance", ["Overview", "Specifications", "Lots", "Deviations", "Profile"]],
   ["retailerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
-  ["producerQuality", ["Overview", "Specifications", "Lots", "Readiness", "Profile"]],
+  ["producerQuality", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Profile"]],
   ["producerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
   ["labAnalyst", ["Overview", "Profile"]],
   ["platformAdmin", ["Overview", "Organisations", "Profile"]],

@@ -96,6 +96,7 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
   return {
     ...summaryView(deviation, lot, contract),
     side,
+    analysisId: deviation.analysisId,
     verdicts: ((evaluation?.verdicts ?? []) as StoredVerdict[]).filter((v) => deviation.parameters.includes(v.parameter)),
     decision: deviation.decision,
     decidedAt: deviation.decidedAt ? deviation.decidedAt.toISOString() : null,

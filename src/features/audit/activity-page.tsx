@@ -1,5 +1,10 @@
 import { useQuery } from "@tanstack/react-query";
 import { api } from "../../lib/api-client.ts";
+import { useMutation } from "@tanstack/react-query";
+import { useSearchParams } from "react-router-dom";
+import { verifyChain } from "../deviations/api/deviations.ts";
+import { SelectField, TextField } from "../../components/ui/field.tsx";
+import { Button } from "../../components/ui/button.tsx";
 import type { AuditEntryView as AuditEntry } from "../../../shared/auth/views.ts";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
@@ -13,21 +18,55 @@ const ACTION_LABELS: Record<string, string> = {
   "membership.role_changed": "Role changed",
   "membership.removed": "Member removed",
   "organisation.created": "Organisation opened",
+  "deviation.opened": "Deviation opened",
+  "deviation.proposed": "Outcome proposed",
+  "deviation.accepted": "Proposal accepted",
+  "deviation.commented": "Deviation comment",
+  "deviation.decided": "Deviation decided",
+  "deviation.closed": "Deviation closed",
+  "spec.sent": "Spec sent",
+  "spec.agreed": "Spec agreed",
+  "analysis.submitted": "Analysis submitted",
+  "analysis.imported": "Analyses imported",
+  "certificate.uploaded": "Certificate uploaded",
 };
 
 export function ActivityPage() {
   const { membership } = useShellContext();
   const orgId = membership?.organisationId;
+  const [params, setParams] = useSearchParams();
+  const filters = Object.fromEntries(["action", "entityType", "from", "to"].map((k) => [k, params.get(k) ?? ""]).filter(([, v]) => v));
+  const qs = new URLSearchParams({ ...filters, limit: "500" });
   const entries = useQuery({
-    queryKey: ["orgs", orgId, "audit"],
-    queryFn: () => api<AuditEntry[]>(`/api/orgs/${orgId}/audit?limit=200`),
+    queryKey: ["orgs", orgId, "audit", filters],
+    queryFn: () => api<AuditEntry[]>(`/api/orgs/${orgId}/audit?${qs}`),
     enabled: orgId !== undefined && membership?.role === "org_admin",
   });
+  const verify = useMutation({ mutationFn: () => verifyChain(orgId!) });
+  const set = (k: string, v: string) => {
+    const next = new URLSearchParams(params);
+    if (v) next.set(k, v);
+    else next.delete(k);
+    setParams(next, { replace: true });
+  };
   if (!membership || membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the activity log." />;
   return (
     <>
       <PageHeader title="Activity log" lead="Recent recorded events of your organisation. Each entry is chained to the previous one by its SHA-256 hash, so later changes show." />
       <Card>
+        <div className="mb-4 grid gap-3 md:grid-cols-4">
+          <TextField label="Action starts with" placeholder="deviation." defaultValue={filters.action ?? ""} onChange={(e) => set("action", e.target.value)} />
+          <SelectField label="Entity" value={filters.entityType ?? ""} onChange={(e) => set("entityType", e.target.value)} options={[{ value: "", label: "Any" }, ...["user", "membership", "invitation", "organisation", "contract", "spec_version", "lot", "analysis", "certificate", "deviation"].map((v) => ({ value: v, label: v.replace("_", " ") }))]} />
+          <TextField label="From" type="date" value={filters.from ?? ""} onChange={(e) => set("from", e.target.value)} />
+          <TextField label="To" type="date" value={filters.to ?? ""} onChange={(e) => set("to", e.target.value)} />
+        </div>
+        <div className="mb-4 flex flex-wrap items-center gap-3">
+          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/audit?${qs}&format=csv`}>Export CSV</a>
+          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/audit?${qs}&format=json`}>Export JSON</a>
+          <Button variant="secondary" onClick={() => verify.mutate()} disabled={verify.isPending}>Verify the hash chain</Button>
+          {verify.data?.ok && <span className="text-sm font-semibold text-verjus-700" role="status">Intact: {verify.data.checked} entries checked.</span>}
+          {verify.data && !verify.data.ok && <span className="text-sm font-semibold text-alarm-700" role="status">Broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.</span>}
+        </div>
         {entries.isPending && <LoadingState />}
         {entries.isError && <ErrorState error={entries.error} onRetry={() => entries.refetch()} />}
         {entries.data?.length === 0 && <EmptyState title="Nothing recorded yet." />}

@@ -55,7 +55,7 @@ export function LotPage() {
             <ul className="flex flex-col gap-2 text-sm">
               {l.deviations.map((d) => (
                 <li key={d.id} className="rounded-md border border-alarm-700/30 bg-alarm-50 px-3 py-2">
-                  <span className="font-semibold">{d.kind === "transit" ? "Transit" : "Result"} deviation #{d.id}</span> · {d.status} · {d.summary}
+                  <Link to={`/deviations/${d.id}`} className="font-semibold text-alarm-700 underline">{d.kind === "transit" ? "Transit" : d.kind === "manual" ? "Manual" : "Result"} deviation #{d.id}</Link> · {d.status.replace("_", " ")} · {d.summary}
                 </li>
               ))}
             </ul>

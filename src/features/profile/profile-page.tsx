@@ -12,6 +12,7 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
+import { PreferencesCard } from "../notifications/preferences-card.tsx";
 
 export function ProfilePage() {
   const { user } = useShellContext();
@@ -21,6 +22,7 @@ export function ProfilePage() {
       <div className="grid gap-6 lg:grid-cols-2">
         <NameForm initialName={user.name} />
         <PasswordForm />
+        <PreferencesCard />
         <Card title="Your organisations" className="lg:col-span-2">
           <p className="mb-3 text-sm text-ink-500">Signed in as {user.email}.</p>
           <ul className="list-disc pl-5 text-sm">

@@ -1,0 +1,33 @@
+/** The recorded history of one entity, with the hash chain's verification on demand. */
+import { useMutation, useQuery } from "@tanstack/react-query";
+import { historyQuery, verifyChain } from "../deviations/api/deviations.ts";
+import { Card } from "../../components/ui/page.tsx";
+import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { Button } from "../../components/ui/button.tsx";
+
+export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; entityType: "deviation" | "lot" | "spec_version" | "contract"; entityId: number }) {
+  const history = useQuery(historyQuery(orgId, entityType, entityId));
+  const verify = useMutation({ mutationFn: () => verifyChain(orgId) });
+  return (
+    <Card title="Audit trail">
+      {history.isPending && <LoadingState />}
+      {history.isError && <ErrorState error={history.error} />}
+      {history.data && (
+        <ol className="mb-3 flex flex-col gap-1 text-sm" aria-label="Recorded events">
+          {history.data.map((e) => (
+            <li key={e.seq} className="flex flex-wrap gap-x-3">
+              <span className="tabular-nums text-ink-500">#{e.seq} · {e.occurredAt.replace("T", " ").slice(0, 19)} UTC</span>
+              <span className="font-semibold">{e.action}</span>
+              <span>{e.actorName ?? "system"}</span>
+              <span className="font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</span>
+            </li>
+          ))}
+        </ol>
+      )}
+      <Button variant="secondary" onClick={() => verify.mutate()} disabled={verify.isPending}>{verify.isPending ? "Verifying…" : "Verify the hash chain"}</Button>
+      {verify.data?.ok && <div className="mt-2"><Notice tone="success">The chain is intact: {verify.data.checked} entries recomputed, the last one matches the checkpoint.</Notice></div>}
+      {verify.data && !verify.data.ok && <div className="mt-2"><Notice tone="error">The chain is broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.</Notice></div>}
+      {verify.isError && <ErrorState error={verify.error} />}
+    </Card>
+  );
+}

@@ -1,0 +1,55 @@
+import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "../../../lib/api-client.ts";
+import type { DecisionInput, MessageInput } from "../../../../shared/deviations/schemas.ts";
+import type { DeviationDetail, DeviationSummaryView } from "../../../../shared/deviations/views.ts";
+import type { AuditEntryView, ChainVerification } from "../../../../shared/auth/views.ts";
+
+const base = (orgId: number) => `/api/orgs/${orgId}`;
+
+export const deviationKeys = {
+  all: (orgId: number) => ["orgs", orgId, "deviations"] as const,
+  list: (orgId: number, f: Record<string, string | undefined>) => [...deviationKeys.all(orgId), "list", f] as const,
+  detail: (orgId: number, id: number) => [...deviationKeys.all(orgId), "detail", id] as const,
+  history: (orgId: number, type: string, id: number) => ["orgs", orgId, "history", type, id] as const,
+};
+
+export const deviationsQuery = (orgId: number, f: Record<string, string | undefined>) =>
+  queryOptions({
+    queryKey: deviationKeys.list(orgId, f),
+    queryFn: () => {
+      const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v).map(([k, v]) => [k, v!]));
+      return api<DeviationSummaryView[]>(`${base(orgId)}/deviations${qs.size ? `?${qs}` : ""}`);
+    },
+  });
+export const deviationQuery = (orgId: number, id: number) => queryOptions({ queryKey: deviationKeys.detail(orgId, id), queryFn: () => api<DeviationDetail>(`${base(orgId)}/deviations/${id}`) });
+export const historyQuery = (orgId: number, type: string, id: number) =>
+  queryOptions({ queryKey: deviationKeys.history(orgId, type, id), queryFn: () => api<AuditEntryView[]>(`${base(orgId)}/history/${type}/${id}`) });
+export const verifyChain = (orgId: number) => api<ChainVerification>(`${base(orgId)}/audit/verify`);
+export const deviationPdfUrl = (orgId: number, id: number) => `${base(orgId)}/deviations/${id}/pdf`;
+export const attachmentUrl = (orgId: number, id: number) => `${base(orgId)}/deviation-attachments/${id}`;
+
+function useInvalidate(orgId: number) {
+  const qc = useQueryClient();
+  return () => {
+    void qc.invalidateQueries({ queryKey: deviationKeys.all(orgId) });
+    void qc.invalidateQueries({ queryKey: ["orgs", orgId, "history"] });
+    void qc.invalidateQueries({ queryKey: ["notifications"] });
+  };
+}
+
+export function usePostMessage(orgId: number, id: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({ mutationFn: (m: MessageInput) => api<{ id: number }>(`${base(orgId)}/deviations/${id}/messages`, { method: "POST", body: m }), onSuccess: invalidate });
+}
+export function useEditMessage(orgId: number, id: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({ mutationFn: (p: { messageId: number; body: string }) => api<void>(`${base(orgId)}/deviations/${id}/messages/${p.messageId}`, { method: "PATCH", body: { body: p.body } }), onSuccess: invalidate });
+}
+export function useDecide(orgId: number, id: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({ mutationFn: (d: DecisionInput) => api<{ specVersionId: number | null }>(`${base(orgId)}/deviations/${id}/decision`, { method: "POST", body: d }), onSuccess: invalidate });
+}
+export function useCloseDeviation(orgId: number, id: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({ mutationFn: () => api<void>(`${base(orgId)}/deviations/${id}/close`, { method: "POST" }), onSuccess: invalidate });
+}

@@ -1,0 +1,40 @@
+import { useQuery } from "@tanstack/react-query";
+import { Link } from "react-router-dom";
+import { notificationsQuery, useMarkRead } from "./api.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { Button } from "../../components/ui/button.tsx";
+
+export function NotificationsPage() {
+  const q = useQuery(notificationsQuery());
+  const mark = useMarkRead();
+  return (
+    <>
+      <PageHeader title="Notifications" lead="New deviations, comments, mentions, decisions and deadlines. Choose what reaches you by e-mail on your profile." actions={<Button variant="secondary" onClick={() => mark.mutate("all")}>Mark all read</Button>} />
+      <Card>
+        {q.isPending && <LoadingState />}
+        {q.isError && <ErrorState error={q.error} />}
+        {q.data?.items.length === 0 && <EmptyState title="Nothing yet." />}
+        <ul className="flex flex-col divide-y divide-line/60">
+          {q.data?.items.map((n) => (
+            <li key={n.id} className={`py-2 text-sm ${n.read ? "text-ink-500" : ""}`}>
+              <Link to={n.link} className="font-semibold text-must-700 underline" onClick={() => !n.read && mark.mutate([n.id])}>{n.title}</Link>
+              <span className="ml-2 text-xs text-ink-500">{new Date(n.createdAt).toLocaleString("en-GB")}</span>
+              <p className="line-clamp-2 whitespace-pre-wrap">{n.body}</p>
+            </li>
+          ))}
+        </ul>
+      </Card>
+    </>
+  );
+}
+
+export function NotificationBell() {
+  const q = useQuery(notificationsQuery());
+  const unread = q.data?.unread ?? 0;
+  return (
+    <Link to="/notifications" className="rounded border border-white/40 px-3 py-1 text-sm font-semibold hover:bg-must-800">
+      Notifications{unread > 0 && <span className="ml-1 rounded-full bg-white px-1.5 text-xs text-must-700">{unread}<span className="sr-only"> unread</span></span>}
+    </Link>
+  );
+}
