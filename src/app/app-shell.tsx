@@ -4,7 +4,7 @@ import { useCurrentMembership } from "../features/auth/current-organisation.ts";
 import { visibleNav } from "./navigation.ts";
 import { LoadingState, ErrorState } from "../components/ui/states.tsx";
 import { ROLE_LABELS } from "../../shared/auth/roles.ts";
-import { NotificationBell } from "../features/notifications/notifications-page.tsx";
+import { NotificationBell } from "../features/notifications/notification-bell.tsx";
 
 /** Layout of every signed-in page: header with organisation switcher, role-aware navigation, content. */
 export function AppShell() {

@@ -84,6 +84,27 @@ describe("deviations", () => {
     expect((await lab.agent.get(`/api/orgs/${ORG.lab}/deviations`)).body).toEqual([]);
   });
 
+  it("when a producer attaches a PDF to a message and the record is printed, then the file is kept with its hash and the PDF holds the discussion", async () => {
+    const { deviationId } = await failingLot();
+    const m = await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "comment", body: "Our lab report is attached." });
+    const pdf = Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n");
+    const up = await producer.agent.post(P(`/deviations/${deviationId}/messages/${m.body.id}/attachments`)).set("x-csrf-token", producer.csrf).attach("file", pdf, "lab-report.pdf");
+    expect(up.status).toBe(201);
+    expect((await buyer.agent.post(B(`/deviations/${deviationId}/messages/${m.body.id}/attachments`)).set("x-csrf-token", buyer.csrf).attach("file", pdf, "x.pdf")).status).toBe(403);
+    const detail = (await buyer.agent.get(B(`/deviations/${deviationId}`))).body;
+    expect(detail.messages[0].attachments[0]).toMatchObject({ originalName: "lab-report.pdf", sha256: up.body.sha256 });
+    const record = await buyer.agent.get(B(`/deviations/${deviationId}/pdf`)).buffer(true).parse((r, cb) => {
+      const c: Buffer[] = [];
+      r.on("data", (x: Buffer) => c.push(x));
+      r.on("end", () => cb(null, Buffer.concat(c)));
+    });
+    expect(record.headers["content-type"]).toBe("application/pdf");
+    const { execFileSync } = await import("node:child_process");
+    const text = execFileSync("pdftotext", ["-", "-"], { input: record.body as Buffer, encoding: "utf8" });
+    expect(text).toContain(`Deviation #${deviationId}`);
+    expect(text).toContain("Our lab report is attached.");
+  });
+
   it("when a message is edited, then its earlier wording is kept; only its author may edit", async () => {
     const { deviationId } = await failingLot();
     const m = await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "comment", body: "First wording" });

@@ -2,13 +2,16 @@ import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttribu
 
 interface FieldShellProps {
   label: string;
+  /** A caller-chosen id for the control; generated when absent. */
+  id?: string;
   error?: string;
   hint?: string;
   children: (ids: { inputId: string; describedBy: string | undefined }) => ReactNode;
 }
 
-function FieldShell({ label, error, hint, children }: FieldShellProps) {
-  const inputId = useId();
+function FieldShell({ label, error, hint, id, children }: FieldShellProps) {
+  const generated = useId();
+  const inputId = id ?? generated;
   const hintId = `${inputId}-hint`;
   const errorId = `${inputId}-error`;
   const describedBy = [hint ? hintId : null, error ? errorId : null].filter(Boolean).join(" ") || undefined;
@@ -37,9 +40,9 @@ const inputClass =
 
 type TextFieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; error?: string; hint?: string };
 
-export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function TextField({ label, error, hint, ...props }, ref) {
+export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function TextField({ label, error, hint, id, ...props }, ref) {
   return (
-    <FieldShell label={label} error={error} hint={hint}>
+    <FieldShell label={label} error={error} hint={hint} id={id}>
       {({ inputId, describedBy }) => (
         <input ref={ref} id={inputId} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={inputClass} {...props} />
       )}
@@ -54,9 +57,9 @@ type SelectFieldProps = SelectHTMLAttributes<HTMLSelectElement> & {
   options: readonly { value: string; label: string }[];
 };
 
-export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(function SelectField({ label, error, hint, options, ...props }, ref) {
+export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(function SelectField({ label, error, hint, options, id, ...props }, ref) {
   return (
-    <FieldShell label={label} error={error} hint={hint}>
+    <FieldShell label={label} error={error} hint={hint} id={id}>
       {({ inputId, describedBy }) => (
         <select ref={ref} id={inputId} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={inputClass} {...props}>
           {options.map((o) => (

@@ -1,8 +1,9 @@
-import { useQuery } from "@tanstack/react-query";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { uploadFile } from "../../lib/upload.ts";
 import { Link, useNavigate, useParams } from "react-router-dom";
 import { useState } from "react";
 import { useShellContext } from "../../app/use-shell-context.ts";
-import { attachmentUrl, deviationPdfUrl, deviationQuery, useCloseDeviation, useDecide, useEditMessage, usePostMessage } from "./api/deviations.ts";
+import { attachmentUrl, deviationKeys, deviationPdfUrl, deviationQuery, useCloseDeviation, useDecide, useEditMessage, usePostMessage } from "./api/deviations.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -124,6 +125,7 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
       {m.attachments.map((a) => (
         <a key={a.id} href={attachmentUrl(orgId, a.id)} className="block text-xs font-semibold text-must-700 underline">{a.originalName} ({Math.max(1, Math.round(a.sizeBytes / 1024))} KB)</a>
       ))}
+      {m.mine && d.actions.comment && <AttachFile orgId={orgId} deviationId={d.id} messageId={m.id} />}
       {accept.isError && <Notice tone="error">{errorMessage(accept.error)}</Notice>}
       <div className="mt-1 flex flex-wrap gap-3 text-xs font-semibold">
         {d.actions.comment && <button type="button" className="text-must-700 underline" onClick={() => setReplying((v) => !v)}>Reply<span className="sr-only"> to {m.author}</span></button>}
@@ -136,6 +138,36 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
       </div>
       {replying && <div className="mt-2"><MessageComposer orgId={orgId} deviation={d} parentId={m.id} onDone={() => setReplying(false)} /></div>}
     </article>
+  );
+}
+
+function AttachFile({ orgId, deviationId, messageId }: { orgId: number; deviationId: number; messageId: number }) {
+  const qc = useQueryClient();
+  const [error, setError] = useState<string | null>(null);
+  const id = `attach-${messageId}`;
+  return (
+    <div className="mt-1 text-xs">
+      <label htmlFor={id} className="font-semibold">Attach a PDF or image</label>{" "}
+      <input
+        id={id}
+        type="file"
+        accept="application/pdf,image/png,image/jpeg"
+        onChange={async (e) => {
+          const file = e.target.files?.[0];
+          if (!file) return;
+          setError(null);
+          try {
+            await uploadFile(`/api/orgs/${orgId}/deviations/${deviationId}/messages/${messageId}/attachments`, file);
+            await qc.invalidateQueries({ queryKey: deviationKeys.all(orgId) });
+          } catch (err) {
+            setError(errorMessage(err));
+          } finally {
+            e.target.value = "";
+          }
+        }}
+      />
+      {error && <span role="alert" className="block font-semibold text-alarm-700">{error}</span>}
+    </div>
   );
 }
 

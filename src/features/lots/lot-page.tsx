@@ -9,6 +9,7 @@ import { VerdictTable } from "./verdict-table.tsx";
 import { ResultEntryForm } from "./result-entry-form.tsx";
 import { CertificateUpload } from "./certificate-upload.tsx";
 import { LegalCaution } from "../specs/legal-caution.tsx";
+import { HistoryPanel } from "../audit/history-panel.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
@@ -101,6 +102,7 @@ export function LotPage() {
             </div>
           </Card>
         ))}
+        <HistoryPanel orgId={orgId} entityType="lot" entityId={l.id} />
         {l.canSubmit && (
           <Card title="Enter results">
             <ResultEntryForm orgId={orgId} lot={l} />

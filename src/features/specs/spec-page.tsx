@@ -9,6 +9,7 @@ import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx
 import { Button } from "../../components/ui/button.tsx";
 import { StatusBadge } from "./status-badge.tsx";
 import { LegalCaution } from "./legal-caution.tsx";
+import { HistoryPanel } from "../audit/history-panel.tsx";
 import { SpecEditor } from "./spec-editor.tsx";
 import { SpecReadView } from "./spec-read-view.tsx";
 import { STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
@@ -42,6 +43,7 @@ export function SpecPage() {
         <Card title={v.actions.edit ? "Requirements (draft)" : "Requirements"}>
           {v.actions.edit ? <SpecEditor orgId={orgId} version={v} onSavedChange={setSaved} /> : <SpecReadView orgId={orgId} version={v} />}
         </Card>
+        <HistoryPanel orgId={orgId} entityType="spec_version" entityId={v.id} />
       </div>
     </>
   );

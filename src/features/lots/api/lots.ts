@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
-import { api, ApiError } from "../../../lib/api-client.ts";
+import { api } from "../../../lib/api-client.ts";
+import { uploadFile } from "../../../lib/upload.ts";
 import type { AnalysisSubmission, ImportBatch, LotInput } from "../../../../shared/lots/schemas.ts";
 import type { LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../../shared/lots/views.ts";
 
@@ -48,13 +49,4 @@ export function useSubmitAnalysis(orgId: number, lotId: number) {
 export const importBatch = (orgId: number, contractId: number, batch: ImportBatch) =>
   api<{ analyses: number; lotsCreated: number; failing: { analysisId: number; lotCode: string; parameters: string[] }[]; deviationIds: number[] }>(`${base(orgId)}/contracts/${contractId}/imports`, { method: "POST", body: batch });
 
-/** Multipart upload; the CSRF header travels as for any write. */
-export async function uploadCertificate(orgId: number, analysisId: number, file: File): Promise<{ id: number; sha256: string }> {
-  const form = new FormData();
-  form.append("file", file);
-  const csrf = document.cookie.split("; ").find((c) => c.startsWith("cp_csrf="))?.slice(8);
-  const res = await fetch(`${base(orgId)}/analyses/${analysisId}/certificates`, { method: "POST", body: form, headers: csrf ? { "x-csrf-token": decodeURIComponent(csrf) } : {}, credentials: "same-origin" });
-  const data = await res.json().catch(() => ({}));
-  if (!res.ok) throw new ApiError(res.status, data.title ?? res.statusText, data.detail ?? "", data.errors ?? []);
-  return data;
-}
+export const uploadCertificate = (orgId: number, analysisId: number, file: File) => uploadFile<{ id: number; sha256: string }>(`${base(orgId)}/analyses/${analysisId}/certificates`, file);
