@@ -136,3 +136,16 @@ describe("deviations", () => {
     expect(JSON.parse(json.text).every((e: { entityType: string }) => e.entityType === "deviation")).toBe(true);
   });
 });
+
+describe("deviations opened by hand", () => {
+  it("when the buyer opens one with a reason, then both parties see it; without a reason it is refused", async () => {
+    const { lotId } = await failingLot();
+    const bad = await buyer.agent.post(B("/deviations")).set("x-csrf-token", buyer.csrf).send({ lotId, parameters: [], reason: "short" });
+    expect(bad.body.errors[0]).toMatchObject({ path: "reason" });
+    const ok = await buyer.agent.post(B("/deviations")).set("x-csrf-token", buyer.csrf).send({ lotId, parameters: ["turbidity"], reason: "Visible haze in the retained sample at our tasting panel." });
+    expect(ok.status).toBe(201);
+    const seen = (await producer.agent.get(P(`/deviations/${ok.body.id}`))).body;
+    expect(seen).toMatchObject({ kind: "manual", status: "open", parameters: ["turbidity"] });
+    expect(seen.summary).toContain("Visible haze");
+  });
+});

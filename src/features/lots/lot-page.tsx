@@ -10,6 +10,7 @@ import { ResultEntryForm } from "./result-entry-form.tsx";
 import { CertificateUpload } from "./certificate-upload.tsx";
 import { LegalCaution } from "../specs/legal-caution.tsx";
 import { HistoryPanel } from "../audit/history-panel.tsx";
+import { OpenDeviationForm } from "../deviations/open-deviation-form.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
@@ -102,6 +103,12 @@ export function LotPage() {
             </div>
           </Card>
         ))}
+        {["buyer_technologist", "producer_quality"].includes(membership?.role ?? "") && (
+          <details className="rounded-card border border-line bg-card p-gutter">
+            <summary className="cursor-pointer text-lg font-semibold">Open a deviation by hand</summary>
+            <div className="mt-3"><OpenDeviationForm orgId={orgId} lotId={l.id} parameters={l.governing?.requirements.map((r) => r.parameter) ?? []} /></div>
+          </details>
+        )}
         <HistoryPanel orgId={orgId} entityType="lot" entityId={l.id} />
         {l.canSubmit && (
           <Card title="Enter results">
