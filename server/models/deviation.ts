@@ -1,3 +1,4 @@
+import { storedFileAttributes } from "./stored-file-attributes.ts";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { DeviationDecision, DeviationProposal, DeviationStatus, MessageKind, QuotedResult } from "../../shared/deviations/vocabulary.ts";
 
@@ -114,13 +115,7 @@ export class DeviationAttachment extends Model<InferAttributes<DeviationAttachme
       {
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         messageId: { type: DataTypes.INTEGER, allowNull: false },
-        originalName: { type: DataTypes.STRING(200), allowNull: false },
-        storedName: { type: DataTypes.STRING(80), allowNull: false },
-        mime: { type: DataTypes.STRING(60), allowNull: false },
-        sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
-        sha256: { type: DataTypes.CHAR(64), allowNull: false },
-        uploadedBy: { type: DataTypes.INTEGER, allowNull: false },
-        createdAt: DataTypes.DATE(3),
+        ...storedFileAttributes,
       },
       { sequelize, tableName: "deviation_attachments", underscored: true, updatedAt: false },
     );

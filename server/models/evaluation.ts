@@ -1,3 +1,4 @@
+import { storedFileAttributes } from "./stored-file-attributes.ts";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { StoredVerdict } from "../../shared/lots/views.ts";
 
@@ -44,13 +45,7 @@ export class Certificate extends Model<InferAttributes<Certificate>, InferCreati
       {
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         analysisId: { type: DataTypes.INTEGER, allowNull: false },
-        originalName: { type: DataTypes.STRING(200), allowNull: false },
-        storedName: { type: DataTypes.STRING(80), allowNull: false },
-        mime: { type: DataTypes.STRING(60), allowNull: false },
-        sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
-        sha256: { type: DataTypes.CHAR(64), allowNull: false },
-        uploadedBy: { type: DataTypes.INTEGER, allowNull: false },
-        createdAt: DataTypes.DATE(3),
+        ...storedFileAttributes,
       },
       { sequelize, tableName: "certificates", underscored: true, updatedAt: false },
     );

@@ -1,7 +1,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { api } from "../../lib/api-client.ts";
 import { useMutation } from "@tanstack/react-query";
-import { useSearchParams } from "react-router-dom";
+import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { verifyChain } from "../deviations/api/deviations.ts";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -34,7 +34,7 @@ const ACTION_LABELS: Record<string, string> = {
 export function ActivityPage() {
   const { membership } = useShellContext();
   const orgId = membership?.organisationId;
-  const [params, setParams] = useSearchParams();
+  const [params, set] = useFilterParams();
   const filters = Object.fromEntries(["action", "entityType", "from", "to"].map((k) => [k, params.get(k) ?? ""]).filter(([, v]) => v));
   const qs = new URLSearchParams({ ...filters, limit: "500" });
   const entries = useQuery({
@@ -43,12 +43,6 @@ export function ActivityPage() {
     enabled: orgId !== undefined && membership?.role === "org_admin",
   });
   const verify = useMutation({ mutationFn: () => verifyChain(orgId!) });
-  const set = (k: string, v: string) => {
-    const next = new URLSearchParams(params);
-    if (v) next.set(k, v);
-    else next.delete(k);
-    setParams(next, { replace: true });
-  };
   if (!membership || membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the activity log." />;
   return (
     <>

@@ -1,5 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
-import { Link, useSearchParams } from "react-router-dom";
+import { Link } from "react-router-dom";
+import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { deviationsQuery } from "./api/deviations.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
@@ -10,16 +11,10 @@ import { findParameter } from "../../../shared/engine/index.ts";
 
 export function DeviationsPage() {
   const { membership } = useShellContext();
-  const [params, setParams] = useSearchParams();
+  const [params, set] = useFilterParams();
   const orgId = membership?.organisationId ?? 0;
   const f = { status: params.get("status") ?? undefined, overdue: params.get("overdue") ?? undefined, contract: params.get("contract") ?? undefined };
   const list = useQuery({ ...deviationsQuery(orgId, f), enabled: !!membership });
-  const set = (k: string, v: string) => {
-    const next = new URLSearchParams(params);
-    if (v) next.set(k, v);
-    else next.delete(k);
-    setParams(next, { replace: true });
-  };
   return (
     <>
       <PageHeader title="Deviations" lead="Results outside the agreed specification, transit drift and deviations opened by hand, until the buyer decides." />

@@ -1,5 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
-import { Link, useNavigate, useSearchParams } from "react-router-dom";
+import { Link, useNavigate } from "react-router-dom";
+import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
@@ -18,16 +19,10 @@ import { applyServerErrors } from "../../lib/form-errors.ts";
 
 export function LotsPage() {
   const { membership } = useShellContext();
-  const [params, setParams] = useSearchParams();
+  const [params, set] = useFilterParams();
   if (!membership) return <EmptyState title="Join an organisation to see its lots." />;
   const orgId = membership.organisationId;
   const filters = { contract: params.get("contract") ? Number(params.get("contract")) : undefined, q: params.get("q") ?? undefined };
-  const set = (k: string, v: string) => {
-    const next = new URLSearchParams(params);
-    if (v) next.set(k, v);
-    else next.delete(k);
-    setParams(next, { replace: true });
-  };
   return (
     <>
       <PageHeader title="Lots" lead="Every lot under your contracts, its latest analysis and verdict." />

@@ -1,5 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
-import { Link, useSearchParams } from "react-router-dom";
+import { Link } from "react-router-dom";
+import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { contractsQuery, specListQuery, type SpecFilters } from "./api/specs.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
@@ -15,7 +16,7 @@ const vintages = (from: number, to: number | null) => (to ? `${from}–${to}` : 
 
 export function SpecsListPage() {
   const { membership } = useShellContext();
-  const [params, setParams] = useSearchParams();
+  const [params, set] = useFilterParams();
   if (!membership) return <EmptyState title="Join an organisation to see its specifications." />;
   const orgId = membership.organisationId;
   const filters: SpecFilters = {
@@ -24,12 +25,6 @@ export function SpecsListPage() {
     market: params.get("market") ?? undefined,
     status: params.get("status") ?? undefined,
     q: params.get("q") ?? undefined,
-  };
-  const set = (key: string, value: string) => {
-    const next = new URLSearchParams(params);
-    if (value) next.set(key, value);
-    else next.delete(key);
-    setParams(next, { replace: true });
   };
   return (
     <>
