@@ -25,9 +25,9 @@ describe("a deviation negotiated to a recorded decision", () => {
     await form.getByRole("button", { name: "Register the lot" }).click();
     await page.getByRole("heading", { level: 1, name: "Lot SB-25-D1" }).waitFor();
     await page.getByLabel("Laboratory", { exact: true }).fill("Domaine des Trois Sentes cellar laboratory");
-    await page.getByLabel("Volatile acidity", { exact: true }).fill("0,74");
-    await page.getByRole("row").filter({ has: page.getByLabel("Volatile acidity", { exact: true }) }).getByText("fail", { exact: true }).waitFor();
-    await page.getByLabel("Free SO2", { exact: true }).fill("31");
+    await page.getByRole("textbox", { name: "Volatile acidity", exact: true }).fill("0,74");
+    await page.getByRole("row").filter({ has: page.getByRole("textbox", { name: "Volatile acidity", exact: true }) }).getByText("fail", { exact: true }).waitFor();
+    await page.getByRole("textbox", { name: "Free SO2", exact: true }).fill("31");
     await page.getByRole("button", { name: "Submit the analysis" }).click();
     await page.getByText(/A deviation was opened/).waitFor();
     await page.getByRole("link", { name: /Result deviation #\d+/ }).click();
