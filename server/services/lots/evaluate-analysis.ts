@@ -12,11 +12,10 @@ import {
   type ReportedUncertainty,
   type UnitId,
 } from "../../../shared/engine/index.ts";
-import { wineProfile } from "../../../shared/specs/profile.ts";
+import { wineProfile, type WineFacts } from "../../../shared/specs/profile.ts";
 import { specStageFor, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { StoredBound, StoredVerdict } from "../../../shared/lots/views.ts";
 import type { RequirementView } from "../../../shared/specs/views.ts";
-import type { ContractWithParties } from "../specs/spec-access.ts";
 
 export interface EvaluatedResult {
   parameter: string;
@@ -34,14 +33,14 @@ function storedBound(b: GoverningBound | undefined): StoredBound | null {
 }
 
 export function evaluateAnalysis(
-  contract: ContractWithParties,
+  wine: WineFacts & { markets: MarketId[] },
   lot: { vintage: number; market: string },
   stage: AnalysisStage,
   requirements: RequirementView[] | null,
   results: EvaluatedResult[],
 ): { verdicts: StoredVerdict[]; worst: Outcome; marketVersions: Record<string, string>; engineVersion: string } {
-  const markets = (MARKET_PACKS[lot.market as MarketId] ? [lot.market] : contract.wine.markets) as MarketId[];
-  const profile = wineProfile(contract.wine, lot.vintage);
+  const markets = (MARKET_PACKS[lot.market as MarketId] ? [lot.market] : wine.markets) as MarketId[];
+  const profile = wineProfile(wine, lot.vintage);
   const byParameter = new Map(results.map((r) => [r.parameter, r]));
   const verdicts: StoredVerdict[] = (requirements ?? []).map((row) => {
     const requiredAtStage = row.stages.includes(specStageFor(stage));

@@ -82,7 +82,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
   const summary: StoredSummary = { analysisIds: analyses.map((a) => a.id), failing: [], deviationIds: [] };
   const evaluations = samples.map((s, i) => {
     const g = governingCache.get(s.lot.vintage);
-    const e = evaluateAnalysis(contract, s.lot, header.stage, g?.requirements ?? null, s.results);
+    const e = evaluateAnalysis(contract.wine, s.lot, header.stage, g?.requirements ?? null, s.results);
     const failing = e.verdicts.filter((v) => FAILING.has(v.outcome)).map((v) => v.parameter);
     if (failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: failing });
     return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts };
