@@ -22,7 +22,7 @@ trap '[ -n "${STARTED_DB:-}" ] && bash server/scripts/db.sh stop >/dev/null' EXI
 # Static checks count as tests: type-check and the lint that enforces the import direction.
 STATIC_PASSED=0
 STATIC_FAILED=0
-for check in "node node_modules/typescript/bin/tsc -p tsconfig.json" "node node_modules/eslint/bin/eslint.js --max-warnings=0 ."; do
+for check in "node node_modules/typescript/bin/tsc -p tsconfig.json" "node node_modules/eslint/bin/eslint.js --config .eslint.config.js --max-warnings=0 ."; do
   if $check; then STATIC_PASSED=$((STATIC_PASSED + 1)); else STATIC_FAILED=$((STATIC_FAILED + 1)); echo "FAILED: $check"; fi
 done
 
