@@ -20,7 +20,8 @@ try {
   throw err;
 }
 
-const logger = pino({ level: config.LOG_LEVEL });
+// Session cookies and CSRF tokens never reach the log.
+const logger = pino({ level: config.LOG_LEVEL, redact: ["req.headers.cookie", 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'] });
 const sequelize = createSequelize(config, logger);
 useDatabase(sequelize);
 await sequelize.authenticate();

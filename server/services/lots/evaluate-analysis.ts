@@ -24,8 +24,9 @@ export interface EvaluatedResult {
   uncertainty?: ReportedUncertainty | null;
 }
 
-const ORDER: Outcome[] = ["pass", "not required", "missing", "inconclusive", "conditional pass", "conditional fail", "fail"];
-export const worstOf = (outcomes: Outcome[]): Outcome => outcomes.reduce<Outcome>((w, o) => (ORDER.indexOf(o) > ORDER.indexOf(w) ? o : w), "pass");
+// A lot is as good as its worst required result; a missing required result outweighs a conditional pass.
+const ORDER: Outcome[] = ["not required", "pass", "conditional pass", "missing", "inconclusive", "conditional fail", "fail"];
+export const worstOf = (outcomes: Outcome[]): Outcome => outcomes.reduce<Outcome>((w, o) => (ORDER.indexOf(o) > ORDER.indexOf(w) ? o : w), "not required");
 
 function storedBound(b: GoverningBound | undefined): StoredBound | null {
   if (!b) return null;
