@@ -61,7 +61,10 @@ describe("a user who forgot the password", () => {
     await page.getByRole("link", { name: "Forgot your password?" }).click();
     await page.getByLabel("E-mail address").fill(DEMO.bulkProducerQuality);
     await expectAccessible(page, "forgot password");
+    const answer = page.waitForResponse((r) => r.url().endsWith("/api/auth/password-reset/request"));
     await page.getByRole("button", { name: "Send the reset link" }).click();
+    const res = await answer;
+    expect(res.status(), await res.text()).toBe(202);
     await page.getByText("a reset link is on its way").waitFor();
 
     await followMailLink("Reset your Cellarpact password", "/reset-password/");
