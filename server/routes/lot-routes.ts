@@ -4,7 +4,7 @@ import type { RouteRegistry } from "../http/route-registry.ts";
 import { orgMember } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { PARAMETERS } from "../../shared/engine/index.ts";
-import { analysisSubmissionSchema, importBatchSchema, lotSchema } from "../../shared/lots/schemas.ts";
+import { analysisSubmissionSchema, importBatchSchema, lotSchema, lotUpdateSchema } from "../../shared/lots/schemas.ts";
 import * as submissions from "../services/lots/submission-service.ts";
 import * as queries from "../services/lots/lot-queries.ts";
 import { readCertificate, storeCertificate } from "../services/lots/certificate-service.ts";
@@ -24,6 +24,11 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
 
   r.add({ method: "post", path: "/api/orgs/:orgId/lots", tag: "lots", summary: "Register a lot under a contract (producer)", access: PRODUCER, params: orgParams, body: lotSchema, status: 201 }, ({ params, user, body }) =>
     submissions.registerLot(params.orgId, user, body),
+  );
+
+  r.add(
+    { method: "patch", path: "/api/orgs/:orgId/lots/:lotId", tag: "lots", summary: "Correct a lot's volume, container, planned date or market (producer)", access: PRODUCER, params: orgParams.extend({ lotId: idParam }), body: lotUpdateSchema },
+    ({ params, user, body }) => submissions.updateLot(params.orgId, params.lotId, user, body),
   );
 
   r.add({ method: "get", path: "/api/orgs/:orgId/lots/:lotId", tag: "lots", summary: "One lot: governing spec, analyses with stored verdicts, certificates, transit, deviations", access: PARTIES, params: orgParams.extend({ lotId: idParam }) }, ({ params, membership }) =>

@@ -76,3 +76,7 @@ export const importBatchSchema = z.object({
   samples: z.array(importSampleSchema).min(1, { error: "The file has no sample to import." }).max(IMPORT_BATCH_MAX),
 });
 export type ImportBatch = z.infer<typeof importBatchSchema>;
+
+/** What a producer may correct on a registered lot; contract, vintage and code stay fixed. */
+export const lotUpdateSchema = lotSchema.pick({ volumeLitres: true, container: true, plannedDate: true, market: true });
+export type LotUpdate = z.infer<typeof lotUpdateSchema>;

@@ -192,3 +192,18 @@ describe("CSV import through the API", () => {
     expect(lots[0]!.n).toBe(10_000);
   }, 240_000);
 });
+
+describe("correcting a lot", () => {
+  it("when the producer corrects volume and container, then the lot changes and the change is in its history; the buyer may not", async () => {
+    const lotId = await newLot();
+    const res = await producer.agent.patch(P(`/lots/${lotId}`)).set("x-csrf-token", producer.csrf).send({ volumeLitres: 24000, container: "iso_tank", plannedDate: "2027-02-01", market: "EU" });
+    expect(res.status).toBe(204);
+    const lot = (await buyer.agent.get(B(`/lots/${lotId}`))).body;
+    expect(lot).toMatchObject({ volumeLitres: 24000, container: "iso_tank", plannedDate: "2027-02-01" });
+    expect((await buyer.agent.patch(B(`/lots/${lotId}`)).set("x-csrf-token", buyer.csrf).send({ volumeLitres: 1, container: "bottles", plannedDate: null, market: "EU" })).status).toBe(403);
+    const history = (await buyer.agent.get(B(`/history/lot/${lotId}`))).body as { action: string }[];
+    expect(history.map((h) => h.action)).toEqual(["lot.registered", "lot.updated"]);
+    const bad = await producer.agent.patch(P(`/lots/${lotId}`)).set("x-csrf-token", producer.csrf).send({ volumeLitres: -5, container: "bottles", market: "EU" });
+    expect(bad.body.errors[0]).toEqual({ path: "volumeLitres", message: "The volume must be above 0." });
+  });
+});

@@ -4,7 +4,7 @@ import { recordAudit } from "../audit-service.ts";
 import { idempotent } from "../idempotency.ts";
 import { conflict, notFound, validationFailed } from "../../http/problem.ts";
 import { inTransaction } from "../../db/database.ts";
-import type { AnalysisSubmission, ImportBatch, LotInput } from "../../../shared/lots/schemas.ts";
+import type { AnalysisSubmission, ImportBatch, LotInput, LotUpdate } from "../../../shared/lots/schemas.ts";
 import { contractFor } from "../specs/spec-access.ts";
 import { lotFor } from "./lot-access.ts";
 import { storeAnalyses } from "./store-analyses.ts";
@@ -20,6 +20,16 @@ export async function registerLot(orgId: number, user: SessionUser, input: LotIn
     const lot = await Lot.create({ ...input, volumeLitres: String(input.volumeLitres), plannedDate: input.plannedDate ?? null }, { transaction: t });
     await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.registered", entityType: "lot", entityId: lot.id, after: input, details: { lotCode: input.lotCode, contractId: contract.id } });
     return { id: lot.id };
+  });
+}
+
+export async function updateLot(orgId: number, lotId: number, user: SessionUser, input: LotUpdate): Promise<void> {
+  await inTransaction(async (t) => {
+    const { lot, side } = await lotFor(orgId, lotId, t);
+    if (side !== "producer") throw notFound("The lot");
+    const before = { volumeLitres: Number(lot.volumeLitres), container: lot.container, plannedDate: lot.plannedDate, market: lot.market };
+    await lot.update({ volumeLitres: String(input.volumeLitres), container: input.container, plannedDate: input.plannedDate ?? null, market: input.market }, { transaction: t });
+    await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.updated", entityType: "lot", entityId: lot.id, before, after: input, details: { lotCode: lot.lotCode } });
   });
 }
 

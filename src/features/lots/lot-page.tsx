@@ -11,6 +11,7 @@ import { CertificateUpload } from "./certificate-upload.tsx";
 import { LegalCaution } from "../specs/legal-caution.tsx";
 import { HistoryPanel } from "../audit/history-panel.tsx";
 import { OpenDeviationForm } from "../deviations/open-deviation-form.tsx";
+import { LotEditForm } from "./lot-edit-form.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
@@ -107,6 +108,12 @@ export function LotPage() {
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Open a deviation by hand</summary>
             <div className="mt-3"><OpenDeviationForm orgId={orgId} lotId={l.id} parameters={l.governing?.requirements.map((r) => r.parameter) ?? []} /></div>
+          </details>
+        )}
+        {l.canSubmit && (
+          <details className="rounded-card border border-line bg-card p-gutter">
+            <summary className="cursor-pointer text-lg font-semibold">Correct the lot's details</summary>
+            <div className="mt-3"><LotEditForm orgId={orgId} lot={l} /></div>
           </details>
         )}
         <HistoryPanel orgId={orgId} entityType="lot" entityId={l.id} />
