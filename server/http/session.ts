@@ -62,10 +62,7 @@ export function sessionMiddleware(s: CookieSettings): RequestHandler {
     req.sessionId = claims.jti;
     // Renew a session that is past half its life, so active users are not signed out mid-task.
     const halfLife = (s.hours * 3600) / 2;
-    if (Date.now() / 1000 - claims.iat > halfLife && req.method === "GET") {
-      const fresh = await loadSessionUser(claims);
-      if (fresh) startSession(res, s, fresh.id, claims.sv);
-    }
+    if (Date.now() / 1000 - claims.iat > halfLife && req.method === "GET") startSession(res, s, user.id, claims.sv);
     next();
   };
 }
