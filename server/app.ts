@@ -18,6 +18,8 @@ import { registerSpecRoutes } from "./routes/spec-routes.ts";
 import { registerLotRoutes } from "./routes/lot-routes.ts";
 import { registerDeviationRoutes } from "./routes/deviation-routes.ts";
 import { registerAuditRoutes } from "./routes/audit-routes.ts";
+import { registerComplianceAuditRoutes } from "./routes/compliance-audit-routes.ts";
+import { registerPaymentWebhookRoutes, STRIPE_WEBHOOK_PATH } from "./routes/payment-webhook-routes.ts";
 import { useServiceSettings } from "./services/settings.ts";
 
 export const APP_VERSION = "0.1.0";
@@ -26,7 +28,12 @@ export const BODY_LIMIT = "100kb";
 export const IMPORT_BODY_LIMIT = "8mb";
 
 export function createApp(config: Config, logger: Logger): { app: Express; registry: RouteRegistry } {
-  useServiceSettings({ appUrl: config.APP_URL, bcryptCost: config.BCRYPT_COST, certificateDir: path.resolve(config.CERTIFICATE_DIR) });
+  useServiceSettings({
+    appUrl: config.APP_URL,
+    bcryptCost: config.BCRYPT_COST,
+    certificateDir: path.resolve(config.CERTIFICATE_DIR),
+    stripe: { secretKey: config.STRIPE_SECRET_KEY, webhookSecret: config.STRIPE_WEBHOOK_SECRET, host: config.STRIPE_API_HOST, port: config.STRIPE_API_PORT, protocol: config.STRIPE_API_PROTOCOL },
+  });
   const production = config.NODE_ENV === "production";
   const cookies: CookieSettings = { secret: config.JWT_SECRET, hours: config.SESSION_HOURS, secure: config.COOKIE_SECURE };
   const limits = { perIp: config.LOGIN_LIMIT_PER_IP, perAccount: config.LOGIN_LIMIT_PER_ACCOUNT, windowMinutes: config.LOGIN_WINDOW_MINUTES };
@@ -61,6 +68,8 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
     }),
   );
   app.use(cookieParser());
+  // Stripe signs the exact bytes it sends, so its webhook gets the raw body, before any JSON parser runs.
+  app.use(STRIPE_WEBHOOK_PATH, express.raw({ type: "application/json", limit: "1mb" }));
   app.use(/^\/api\/orgs\/\d+\/contracts\/\d+\/imports$/, express.json({ limit: IMPORT_BODY_LIMIT }));
   app.use("/api", express.json({ limit: BODY_LIMIT }));
   app.use("/api", sessionMiddleware(cookies));
@@ -76,6 +85,8 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   registerLotRoutes(registry, { certificateMaxBytes: config.CERTIFICATE_MAX_BYTES });
   registerDeviationRoutes(registry, { attachmentMaxBytes: config.CERTIFICATE_MAX_BYTES });
   registerAuditRoutes(registry);
+  registerComplianceAuditRoutes(registry);
+  registerPaymentWebhookRoutes(registry);
   app.use(router);
   app.use("/api", notFoundHandler);
 

@@ -34,6 +34,12 @@ const schema = z
     // Outside the web root: certificates are only ever served by the download route.
     CERTIFICATE_DIR: z.string().default(".data/certificates"),
     CERTIFICATE_MAX_BYTES: z.coerce.number().int().min(1024).max(100 * 1024 * 1024).default(10 * 1024 * 1024),
+    // Payments go through the stripe SDK; outside production it talks to the local fake (server/fakes/stripe).
+    STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_\w+$/, { error: "a Stripe secret key starts with sk_test_ or sk_live_" }).default("sk_test_cellarpact_local"),
+    STRIPE_WEBHOOK_SECRET: z.string().min(16).default("whsec_cellarpact_local_development"),
+    STRIPE_API_HOST: z.string().default("127.0.0.1"),
+    STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).default(12111),
+    STRIPE_API_PROTOCOL: z.enum(["http", "https"]).default("http"),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   })
   .superRefine((c, ctx) => {

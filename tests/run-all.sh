@@ -3,13 +3,17 @@
 set -uo pipefail
 cd "$(dirname "$0")/.."
 
-if ! command -v chromium >/dev/null 2>&1 && [ ! -x /usr/bin/chromium ]; then
+# Debian's chromium drives the browser tests; poppler-utils' pdftotext reads the PDFs back.
+need=()
+command -v chromium >/dev/null 2>&1 || [ -x /usr/bin/chromium ] || need+=(chromium)
+command -v pdftotext >/dev/null 2>&1 || need+=(poppler-utils)
+if [ ${#need[@]} -gt 0 ]; then
   if [ "$(id -u)" = "0" ]; then
-    echo "Installing Debian's chromium for the browser tests..."
-    apt-get update -q >/dev/null && DEBIAN_FRONTEND=noninteractive apt-get install -y -q chromium >/dev/null || { echo "chromium install failed" >&2; exit 1; }
+    echo "Installing ${need[*]} for the tests..."
+    apt-get update -q >/dev/null && DEBIAN_FRONTEND=noninteractive apt-get install -y -q "${need[@]}" >/dev/null || { echo "installing ${need[*]} failed" >&2; exit 1; }
   else
-    echo "Chromium is missing. Install it first, as root:" >&2
-    echo "  sudo apt-get update && sudo apt-get install -y chromium" >&2
+    echo "Missing ${need[*]}. Install them first, as root:" >&2
+    echo "  sudo apt-get update && sudo apt-get install -y ${need[*]}" >&2
     exit 1
   fi
 fi

@@ -1,13 +1,15 @@
 import { storedFileAttributes } from "./stored-file-attributes.ts";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { DeviationDecision, DeviationProposal, DeviationStatus, MessageKind, QuotedResult } from "../../shared/deviations/vocabulary.ts";
+import type { DeviationDecision, DeviationKind, DeviationProposal, DeviationStatus, MessageKind, QuotedResult } from "../../shared/deviations/vocabulary.ts";
 
 export class Deviation extends Model<InferAttributes<Deviation>, InferCreationAttributes<Deviation>> {
   declare id: CreationOptional<number>;
   declare contractId: number;
   declare lotId: number;
   declare analysisId: number | null;
-  declare kind: "result" | "transit" | "manual";
+  declare kind: DeviationKind;
+  /** The paid audit whose results opened it; its laboratory may read it. */
+  declare auditOrderId: CreationOptional<number | null>;
   declare status: DeviationStatus;
   declare parameters: string[];
   declare summary: string;
@@ -27,7 +29,8 @@ export class Deviation extends Model<InferAttributes<Deviation>, InferCreationAt
         contractId: { type: DataTypes.INTEGER, allowNull: false },
         lotId: { type: DataTypes.INTEGER, allowNull: false },
         analysisId: { type: DataTypes.INTEGER, allowNull: true },
-        kind: { type: DataTypes.ENUM("result", "transit", "manual"), allowNull: false },
+        kind: { type: DataTypes.ENUM("result", "transit", "manual", "audit"), allowNull: false },
+        auditOrderId: { type: DataTypes.INTEGER, allowNull: true },
         status: { type: DataTypes.STRING(30), allowNull: false },
         parameters: { type: DataTypes.JSON, allowNull: false },
         summary: { type: DataTypes.TEXT, allowNull: false },

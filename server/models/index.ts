@@ -14,10 +14,11 @@ import { SpecRequirement } from "./spec-requirement.ts";
 import { SpecComment } from "./spec-comment.ts";
 import { Analysis, AnalysisResult, Lot } from "./lot.ts";
 import { AnalysisEvaluation, Certificate, IdempotencyKey } from "./evaluation.ts";
+import { AuditOrder, AuditOrderLot, AuditPayment, LabPrice, StripeEvent } from "./audit-order.ts";
 import { Deviation, DeviationAttachment, DeviationMessage, DeviationMessageEdit, Notification, NotificationPreference } from "./deviation.ts";
 
 export function initModels(sequelize: Sequelize): void {
-  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey, DeviationMessage, DeviationMessageEdit, DeviationAttachment, Notification, NotificationPreference]) {
+  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey, DeviationMessage, DeviationMessageEdit, DeviationAttachment, Notification, NotificationPreference, LabPrice, AuditOrder, AuditOrderLot, AuditPayment, StripeEvent]) {
     m.initModel(sequelize);
   }
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -45,4 +46,11 @@ export function initModels(sequelize: Sequelize): void {
   DeviationMessage.belongsTo(User, { foreignKey: "authorUserId", as: "author" });
   DeviationMessage.hasMany(DeviationMessageEdit, { foreignKey: "messageId", as: "edits" });
   DeviationMessage.hasMany(DeviationAttachment, { foreignKey: "messageId", as: "attachments" });
+  AuditOrder.hasMany(AuditOrderLot, { foreignKey: "auditOrderId", as: "lots" });
+  AuditOrder.hasMany(AuditPayment, { foreignKey: "auditOrderId", as: "payments" });
+  AuditOrder.belongsTo(Contract, { foreignKey: "contractId", as: "contract" });
+  AuditOrder.belongsTo(Organisation, { foreignKey: "laboratoryOrgId", as: "laboratory" });
+  AuditOrder.belongsTo(User, { foreignKey: "orderedBy", as: "orderer" });
+  AuditOrderLot.belongsTo(Lot, { foreignKey: "lotId", as: "lot" });
+  AuditOrderLot.belongsTo(AuditOrder, { foreignKey: "auditOrderId", as: "order" });
 }

@@ -41,6 +41,8 @@ export class Analysis extends Model<InferAttributes<Analysis>, InferCreationAttr
   declare sampleDate: string;
   declare specVersionId: number | null;
   declare submittedBy: number | null;
+  /** Set when an independent laboratory submitted this analysis for a paid audit. */
+  declare auditOrderId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -55,6 +57,7 @@ export class Analysis extends Model<InferAttributes<Analysis>, InferCreationAttr
         sampleDate: { type: DataTypes.DATEONLY, allowNull: false },
         specVersionId: { type: DataTypes.INTEGER, allowNull: true },
         submittedBy: { type: DataTypes.INTEGER, allowNull: true },
+        auditOrderId: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

@@ -3,19 +3,16 @@ import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-p
 import { findParameter } from "../../shared/engine/index.ts";
 import { CONDITION_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../shared/deviations/vocabulary.ts";
 import type { DeviationDetail } from "../../shared/deviations/views.ts";
-import { PDF_FONT, registerPdfFonts } from "./fonts.ts";
+import { registerPdfFonts } from "./fonts.ts";
+import { base } from "./styles.ts";
 
-const s = StyleSheet.create({
-  page: { fontFamily: PDF_FONT as unknown as string, fontSize: 9.5, color: "#1b2230", padding: 40, paddingBottom: 56 },
-  brand: { fontSize: 10, fontWeight: 600, color: "#5b1f3c" },
-  h1: { fontSize: 17, fontWeight: 600, marginTop: 4, marginBottom: 8 },
-  h2: { fontSize: 12, fontWeight: 600, marginTop: 14, marginBottom: 4 },
-  row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: "#ddd6ca", paddingVertical: 3 },
-  cell: { width: "25%", paddingRight: 4 },
-  message: { marginBottom: 6, paddingLeft: 6, borderLeftWidth: 2, borderLeftColor: "#ddd6ca" },
-  small: { fontSize: 8, color: "#5c6470" },
-  footer: { position: "absolute", bottom: 24, left: 40, right: 40, fontSize: 7.5, color: "#5c6470", flexDirection: "row", justifyContent: "space-between" },
-});
+const s = {
+  ...base,
+  ...StyleSheet.create({
+    cell: { width: "25%", paddingRight: 4 },
+    message: { marginBottom: 6, paddingLeft: 6, borderLeftWidth: 2, borderLeftColor: "#ddd6ca" },
+  }),
+};
 
 function Record({ d, generatedAt }: { d: DeviationDetail; generatedAt: Date }) {
   return (

@@ -11,7 +11,8 @@ import { badRequest } from "../http/problem.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const devParams = orgParams.extend({ deviationId: idParam });
-const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "org_admin");
+// The laboratory reads the deviations its audit results opened.
+const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin");
 const DISCUSSANTS = orgMember("buyer_technologist", "producer_quality");
 const BUYER = orgMember("buyer_technologist");
 

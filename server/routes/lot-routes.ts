@@ -9,6 +9,7 @@ import * as submissions from "../services/lots/submission-service.ts";
 import * as queries from "../services/lots/lot-queries.ts";
 import { readCertificate, storeCertificate } from "../services/lots/certificate-service.ts";
 import { badRequest } from "../http/problem.ts";
+import { conformityCertificate } from "../services/lots/conformity-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const PRODUCER = orgMember("producer_quality");
@@ -67,6 +68,14 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
       const c = await readCertificate(params.orgId, params.certificateId);
       res.status(200).type(c.mime).attachment(c.filename).setHeader("X-Content-Type-Options", "nosniff");
       res.send(c.body);
+    },
+  );
+
+  r.add(
+    { method: "get", path: "/api/orgs/:orgId/lots/:lotId/conformity.pdf", tag: "lots", summary: "Certificate of conformity for the lot (results, verdicts, decision rule, audit outcome)", access: PARTIES, params: orgParams.extend({ lotId: idParam }), produces: "application/pdf", errors: { 409: "no evaluated results yet" } },
+    async ({ params, membership, res }) => {
+      const { filename, pdf } = await conformityCertificate(params.orgId, params.lotId, membership!.role);
+      res.status(200).type("application/pdf").attachment(filename).send(pdf);
     },
   );
 

@@ -3,6 +3,8 @@ export interface ServiceSettings {
   appUrl: string;
   bcryptCost: number;
   certificateDir: string;
+  /** Where the stripe SDK sends its requests (a local fake outside production) and the webhook signing secret. */
+  stripe: { secretKey: string; webhookSecret: string; host: string; port: number; protocol: "http" | "https" };
 }
 
 let current: ServiceSettings | null = null;

@@ -1,9 +1,9 @@
-import type { DeviationDecision, DeviationProposal, DeviationStatus, MessageKind, QuotedResult } from "./vocabulary.ts";
+import type { DeviationDecision, DeviationKind, DeviationProposal, DeviationStatus, MessageKind, QuotedResult } from "./vocabulary.ts";
 import type { StoredVerdict } from "../lots/views.ts";
 
 export interface DeviationSummaryView {
   id: number;
-  kind: "result" | "transit" | "manual";
+  kind: DeviationKind;
   status: DeviationStatus;
   parameters: string[];
   summary: string;
@@ -26,7 +26,7 @@ export interface MessageView {
   kind: MessageKind;
   author: string;
   organisation: string;
-  side: "buyer" | "producer";
+  side: "buyer" | "producer" | "laboratory";
   body: string;
   proposal: DeviationProposal | null;
   quote: QuotedResult | null;
@@ -39,7 +39,7 @@ export interface MessageView {
 }
 
 export interface DeviationDetail extends DeviationSummaryView {
-  side: "buyer" | "producer";
+  side: "buyer" | "producer" | "laboratory";
   /** The analysis that opened it, if any; its results can be quoted. */
   analysisId: number | null;
   /** The verdicts that opened it, when it came from an analysis. */

@@ -10,6 +10,11 @@ export const DEVIATION_STATUS_LABELS: Record<DeviationStatus, string> = {
   closed: "Closed",
 };
 
+/** What opened a deviation: a failing result, drift in transit, a person, or an independent audit that disagreed. */
+export const DEVIATION_KINDS = ["result", "transit", "manual", "audit"] as const;
+export type DeviationKind = (typeof DEVIATION_KINDS)[number];
+export const DEVIATION_KIND_LABELS: Record<DeviationKind, string> = { result: "Result", transit: "Transit", manual: "Manual", audit: "Audit" };
+
 export const DEVIATION_OUTCOMES = ["concession", "rejected", "retest_passed", "spec_change"] as const;
 export type DeviationOutcome = (typeof DEVIATION_OUTCOMES)[number];
 export const DEVIATION_OUTCOME_LABELS: Record<DeviationOutcome, string> = {
@@ -55,7 +60,7 @@ export interface QuotedResult {
   outcome: string;
 }
 
-export const NOTIFICATION_KINDS = ["deviation_opened", "comment", "mention", "decision", "deadline"] as const;
+export const NOTIFICATION_KINDS = ["deviation_opened", "comment", "mention", "decision", "deadline", "audit"] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
   deviation_opened: "A new deviation",
@@ -63,6 +68,7 @@ export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
   mention: "Someone mentions me",
   decision: "A decision",
   deadline: "A response deadline draws near",
+  audit: "An independent audit is paid or its results arrive",
 };
 
 /** Days each side has to respond before a deviation is marked overdue (common practice). */

@@ -4,7 +4,7 @@
  * explained outcomes; a censored result is never treated as a number.
  */
 import { conformanceProbability, describeRule, guardWidth, statementForSide, worse, type Statement } from "./decision.ts";
-import { parameter } from "./parameters.ts";
+import { parameter, type ParameterId } from "./parameters.ts";
 import { formatReading, type Reading } from "./parse.ts";
 import { convert, UNITS, type UnitId } from "./units.ts";
 import type { GoverningBound, GoverningRequirement } from "./requirement.ts";
@@ -88,11 +88,12 @@ function textsFor(req: GoverningRequirement, displayUnit: UnitId): Wording {
   return t;
 }
 
-function uncertaintyFor(req: GoverningRequirement, value: number, input: ResultInput): UsedUncertainty {
-  const def = parameter(req.parameter);
+/** The standard uncertainty of a result in the parameter's canonical unit: the laboratory's, else the catalogue default. */
+export function usedUncertainty(parameterId: ParameterId, canonicalUnit: UnitId, value: number, input: Pick<ResultInput, "unit" | "uncertainty" | "densityGPerMl">): UsedUncertainty {
+  const def = parameter(parameterId);
   if (input.uncertainty && input.uncertainty.value >= 0) {
     const k = input.uncertainty.kind === "expanded" ? (input.uncertainty.k ?? 2) : 1;
-    const inCanonical = convert(input.uncertainty.value, input.unit, req.unit, { densityGPerMl: input.densityGPerMl });
+    const inCanonical = convert(input.uncertainty.value, input.unit, canonicalUnit, { densityGPerMl: input.densityGPerMl });
     return {
       u: Math.abs(inCanonical) / k,
       source: "laboratory",
@@ -105,6 +106,8 @@ function uncertaintyFor(req: GoverningRequirement, value: number, input: ResultI
   }
   return { u: 0, source: "none", basis: "no uncertainty reported and no default exists for this parameter; the result is taken as exact" };
 }
+
+const uncertaintyFor = (req: GoverningRequirement, value: number, input: ResultInput) => usedUncertainty(req.parameter, req.unit, value, input);
 
 /** Overall statement for a value: the worse of the two sides, and which side decided. */
 function statementAt(req: GoverningRequirement, x: number, w: number): { statement: Statement; side: "lower" | "upper" | null } {

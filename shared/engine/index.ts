@@ -50,7 +50,7 @@ export { buildRequirement, validateBuyerRequirement, RequirementError } from "./
 export type { BuyerRequirement, GoverningRequirement, GoverningBound, BoundSource, RequirementIssue } from "./requirement.ts";
 
 /** Verdicts for one result. */
-export { ENGINE_VERSION, evaluate } from "./evaluate.ts";
+export { ENGINE_VERSION, evaluate, usedUncertainty } from "./evaluate.ts";
 export type { Verdict, Outcome, ResultInput, ReportedUncertainty, UsedUncertainty } from "./evaluate.ts";
 
 /** Transit: arrival against pre-shipment. */
@@ -62,8 +62,8 @@ export { D2, E2, D4, individualsChart, ewmaChart, westernElectricSignals, capabi
 export type { IndividualsChart, EwmaPoint, RuleSignal, Capability, DriftWarning } from "./consistency.ts";
 
 /** Producer vs independent laboratory (ISO 13528 scores). */
-export { enNumber, zScore, zetaScore } from "./lab-comparison.ts";
-export type { ScoreReading } from "./lab-comparison.ts";
+export { enNumber, zScore, zetaScore, compareWithReference } from "./lab-comparison.ts";
+export type { ScoreReading, ComparedResult, ComparisonOutcome, ResultComparison } from "./lab-comparison.ts";
 
 /** Spec versions: diff and backtest. */
 export { diffSpecs, backtest, backtestSteps } from "./spec-compare.ts";

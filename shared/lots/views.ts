@@ -1,5 +1,7 @@
 /** Shapes of the lots API's answers, shared by server and client. */
-import type { Citation, MarketId, Outcome, Reading, ReportedUncertainty, TransitFinding } from "../engine/index.ts";
+import type { DeviationKind } from "../deviations/vocabulary.ts";
+import type { Citation, MarketId, Outcome, Reading, ReportedUncertainty, ResultComparison, TransitFinding } from "../engine/index.ts";
+import type { OrderStatus } from "../audits/vocabulary.ts";
 import type { Severity, Stage } from "../specs/vocabulary.ts";
 import type { ContractView, VersionSummary, RequirementView } from "../specs/views.ts";
 import type { AnalysisStage, Container } from "./vocabulary.ts";
@@ -75,6 +77,8 @@ export interface AnalysisView {
   stage: AnalysisStage;
   laboratoryName: string;
   accreditation: string | null;
+  /** Set when an independent laboratory reported this analysis for a paid audit. */
+  auditOrderId: number | null;
   sampleDate: string;
   createdAt: string;
   results: ResultView[];
@@ -84,7 +88,7 @@ export interface AnalysisView {
 
 export interface DeviationSummary {
   id: number;
-  kind: "result" | "transit" | "manual";
+  kind: DeviationKind;
   status: string;
   parameters: string[];
   summary: string;
@@ -100,6 +104,18 @@ export interface LotDetail extends LotSummary {
   analyses: AnalysisView[];
   transit: TransitFinding[] | null;
   deviations: DeviationSummary[];
+  audits: LotAuditView[];
+}
+
+export interface LotAuditView {
+  orderId: number;
+  reference: string;
+  laboratoryName: string;
+  status: OrderStatus;
+  reportReference: string | null;
+  resultsSubmittedAt: string | null;
+  analysisId: number | null;
+  comparisons: ResultComparison[];
 }
 
 export interface ReadinessRow extends LotSummary {

@@ -24,7 +24,7 @@ execFileSync("bash", ["server/scripts/db.sh", "start"], { cwd: root, stdio: "ign
 const config = loadConfig({ ...process.env, DB_NAME: "cellarpact_bench", LOG_LEVEL: "silent" });
 const sequelize = createSequelize(config);
 useDatabase(sequelize);
-useServiceSettings({ appUrl: "http://127.0.0.1", bcryptCost: 4, certificateDir: path.join(root, ".data/bench-certificates") });
+useServiceSettings({ appUrl: "http://127.0.0.1", bcryptCost: 4, certificateDir: path.join(root, ".data/bench-certificates"), stripe: { secretKey: "sk_test_bench", webhookSecret: "whsec_bench_not_used", host: "127.0.0.1", port: 12111, protocol: "http" } });
 await dropAllTables(sequelize);
 await createMigrator(sequelize).up();
 await createSeeder(sequelize).up();

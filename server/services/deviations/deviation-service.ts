@@ -13,7 +13,8 @@ import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { conflict, forbidden, notFound, validationFailed } from "../../http/problem.ts";
-import { contractFor, contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
+import { contractFor, contractInclude, type ContractWithParties, type Side } from "../specs/spec-access.ts";
+import { AuditOrder } from "../../models/audit-order.ts";
 import { createVersion } from "../specs/spec-lifecycle.ts";
 import { governingVersion } from "../lots/governing.ts";
 import { openDeviations, responseDeadline } from "./open-deviations.ts";
@@ -27,13 +28,23 @@ import type { SessionUser, SessionMembership } from "../session-service.ts";
 const CLOSED: DeviationStatus[] = ["decided", "closed"];
 const isOverdue = (d: Deviation, now = Date.now()) => !CLOSED.includes(d.status) && d.respondBy !== null && d.respondBy.getTime() < now;
 
-async function deviationFor(orgId: number, id: number, t?: Transaction, lock = false) {
+async function deviationFor(orgId: number, id: number, t?: Transaction, lock = false): Promise<{ deviation: Deviation; contract: ContractWithParties; side: Side | "laboratory" }> {
   const deviation = await Deviation.findByPk(id, { transaction: t, lock: lock && t ? t.LOCK.UPDATE : undefined });
   if (!deviation) throw notFound("The deviation");
-  const { contract, side } = await contractFor(orgId, deviation.contractId, t).catch(() => {
-    throw notFound("The deviation");
-  });
-  return { deviation, contract, side };
+  const party = await contractFor(orgId, deviation.contractId, t).catch(() => null);
+  if (party) return { deviation, ...party };
+  // The laboratory of a paid audit reads the deviations its results opened, and only those.
+  const order = deviation.auditOrderId ? await AuditOrder.findByPk(deviation.auditOrderId, { transaction: t }) : null;
+  if (order?.laboratoryOrgId !== orgId) throw notFound("The deviation");
+  const contract = (await Contract.findByPk(deviation.contractId, { include: contractInclude, transaction: t })) as ContractWithParties;
+  return { deviation, contract, side: "laboratory" };
+}
+
+/** Writes belong to the two parties of the contract. */
+async function partyDeviationFor(orgId: number, id: number, t?: Transaction, lock = false) {
+  const found = await deviationFor(orgId, id, t, lock);
+  if (found.side === "laboratory") throw forbidden("The laboratory reads this deviation; the buyer and the producer discuss it.");
+  return found as typeof found & { side: Side };
 }
 
 function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationSummaryView {
@@ -58,11 +69,14 @@ function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationS
 }
 
 export async function listDeviations(orgId: number, f: { status?: DeviationStatus; lot?: number; contract?: number; overdue?: "true" | "false" }) {
-  const contracts = (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] }, include: contractInclude })) as ContractWithParties[];
+  const labOrders = await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] });
+  const contracts = (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] }, include: contractInclude })) as ContractWithParties[];
   const byId = new Map(contracts.map((c) => [c.id, c]));
-  const ids = f.contract ? [f.contract].filter((id) => byId.has(id)) : [...byId.keys()];
+  const own = contracts.filter((c) => c.retailerOrgId === orgId || c.producerOrgId === orgId).map((c) => c.id);
+  const ids = f.contract ? [f.contract].filter((id) => own.includes(id)) : own;
+  const labWhere = labOrders.length ? [{ auditOrderId: labOrders.map((o) => o.id), ...(f.contract ? { contractId: f.contract } : {}) }] : [];
   const rows = await Deviation.findAll({
-    where: { contractId: ids, ...(f.status ? { status: f.status } : {}), ...(f.lot ? { lotId: f.lot } : {}) },
+    where: { [Op.or]: [{ contractId: ids }, ...labWhere], ...(f.status ? { status: f.status } : {}), ...(f.lot ? { lotId: f.lot } : {}) },
     include: [{ model: Lot, as: "lot" }],
     order: [["createdAt", "DESC"]],
     limit: 500,
@@ -106,8 +120,8 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
       parentId: m.parentId,
       kind: m.kind,
       author: m.author.name,
-      organisation: m.organisationId === contract.retailerOrgId ? contract.retailer.name : contract.producer.name,
-      side: m.organisationId === contract.retailerOrgId ? "buyer" : "producer",
+      organisation: m.organisationId === contract.retailerOrgId ? contract.retailer.name : m.organisationId === contract.producerOrgId ? contract.producer.name : "Laboratory",
+      side: m.organisationId === contract.retailerOrgId ? "buyer" : m.organisationId === contract.producerOrgId ? "producer" : "laboratory",
       body: m.body,
       proposal: m.proposal,
       quote: m.quote,
@@ -134,7 +148,7 @@ const audit = (t: Transaction, user: SessionUser, orgId: number, action: string,
 
 export async function postMessage(orgId: number, id: number, user: SessionUser, input: MessageInput) {
   return inTransaction(async (t) => {
-    const { deviation, contract } = await deviationFor(orgId, id, t, true);
+    const { deviation, contract } = await partyDeviationFor(orgId, id, t, true);
     if (CLOSED.includes(deviation.status)) throw conflict("This deviation has been decided; the discussion is closed.");
     let parent: DeviationMessage | null = null;
     if (input.parentId) {
@@ -173,7 +187,7 @@ export async function postMessage(orgId: number, id: number, user: SessionUser, 
 
 export async function editMessage(orgId: number, id: number, messageId: number, user: SessionUser, body: string) {
   await inTransaction(async (t) => {
-    const { deviation } = await deviationFor(orgId, id, t);
+    const { deviation } = await partyDeviationFor(orgId, id, t);
     const message = await DeviationMessage.findOne({ where: { id: messageId, deviationId: id }, transaction: t, lock: t.LOCK.UPDATE });
     if (!message) throw notFound("The message");
     if (message.authorUserId !== user.id) throw forbidden("Only the author can edit a message.");
@@ -187,7 +201,7 @@ export async function editMessage(orgId: number, id: number, messageId: number, 
 /** Only the buyer's technologist decides, with a reason. A spec change starts a draft version from the governing one. */
 export async function decide(orgId: number, id: number, user: SessionUser, input: DecisionInput) {
   const specVersionId = await inTransaction(async (t) => {
-    const { deviation, contract, side } = await deviationFor(orgId, id, t, true);
+    const { deviation, contract, side } = await partyDeviationFor(orgId, id, t, true);
     if (side !== "buyer") throw forbidden("Only the buyer decides a deviation.");
     if (CLOSED.includes(deviation.status)) throw conflict("This deviation has already been decided.");
     const decision = { outcome: input.outcome, conditions: input.conditions, reason: input.reason };
@@ -211,7 +225,7 @@ export async function decide(orgId: number, id: number, user: SessionUser, input
 
 export async function closeDeviation(orgId: number, id: number, user: SessionUser) {
   await inTransaction(async (t) => {
-    const { deviation, side } = await deviationFor(orgId, id, t, true);
+    const { deviation, side } = await partyDeviationFor(orgId, id, t, true);
     if (side !== "buyer") throw forbidden("Only the buyer closes a deviation.");
     if (deviation.status !== "decided") throw conflict("Only a decided deviation can be closed.");
     await deviation.update({ status: "closed" }, { transaction: t });
@@ -232,7 +246,7 @@ export async function openManualDeviation(orgId: number, user: SessionUser, inpu
 }
 
 export async function attachToMessage(orgId: number, id: number, messageId: number, user: SessionUser, file: { buffer: Buffer; originalname: string }) {
-  await deviationFor(orgId, id);
+  await partyDeviationFor(orgId, id);
   const message = await DeviationMessage.findOne({ where: { id: messageId, deviationId: id } });
   if (!message) throw notFound("The message");
   if (message.authorUserId !== user.id) throw forbidden("Attach files to your own messages.");

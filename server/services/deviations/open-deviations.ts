@@ -1,4 +1,5 @@
 /** Opening deviations (from failing results, transit drift, or by hand): deadline, audit entry, notifications. */
+import type { DeviationKind } from "../../../shared/deviations/vocabulary.ts";
 import type { Transaction } from "sequelize";
 import { Deviation } from "../../models/deviation.ts";
 import { recordAudit } from "../audit-service.ts";
@@ -9,9 +10,10 @@ import type { ContractWithParties } from "../specs/spec-access.ts";
 export interface NewDeviation {
   lotId: number;
   analysisId: number | null;
-  kind: "result" | "transit" | "manual";
+  kind: DeviationKind;
   parameters: string[];
   summary: string;
+  auditOrderId?: number | null;
 }
 
 export const responseDeadline = (from = new Date()) => new Date(from.getTime() + RESPONSE_DAYS * 86_400_000);

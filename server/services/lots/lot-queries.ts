@@ -2,7 +2,7 @@
 import { Op } from "sequelize";
 import { compareTransit, convert, findParameter, formatReading, type MarketId, type Outcome, type UnitId } from "../../../shared/engine/index.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
-import type { AnalysisView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
+import type { AnalysisView, LotAuditView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
 import type { Stage } from "../../../shared/specs/vocabulary.ts";
 import { Contract } from "../../models/contract.ts";
 import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
@@ -11,6 +11,9 @@ import { Deviation } from "../../models/deviation.ts";
 import { contractFor, contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { contractView, versionSummary } from "../specs/spec-view.ts";
 import { lotFor } from "./lot-access.ts";
+import { AuditOrder, AuditOrderLot } from "../../models/audit-order.ts";
+import { Organisation } from "../../models/organisation.ts";
+import { orderReference } from "../../../shared/audits/vocabulary.ts";
 import { governingVersion } from "./governing.ts";
 import { transitValues } from "./store-analyses.ts";
 
@@ -66,6 +69,7 @@ function analysisView(a: LoadedAnalysis): AnalysisView {
     stage: a.stage,
     laboratoryName: a.laboratoryName,
     accreditation: a.accreditation,
+    auditOrderId: a.auditOrderId ?? null,
     sampleDate: a.sampleDate,
     createdAt: a.createdAt.toISOString(),
     results: a.results.map((r) => ({ parameter: r.parameter, rawText: r.rawText, reading: r.reading, unit: r.unit, uncertainty: r.uncertainty, method: r.method })),
@@ -88,6 +92,7 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
   const pre = [...analyses].reverse().find((a) => a.stage === "pre_shipment");
   const arrival = [...analyses].reverse().find((a) => a.stage === "on_arrival");
   const deviations = await Deviation.findAll({ where: { lotId }, order: [["createdAt", "DESC"]] });
+  const audits = await lotAudits(lotId, side);
   return {
     ...summary!,
     side,
@@ -97,7 +102,27 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
     analyses: analyses.map(analysisView),
     transit: isBulk(lot.container) && pre && arrival ? compareTransit(transitValues(pre.results), transitValues(arrival.results)) : null,
     deviations: deviations.map((d) => ({ id: d.id, kind: d.kind, status: d.status, parameters: d.parameters, summary: d.summary, analysisId: d.analysisId, createdAt: d.createdAt.toISOString() })),
+    audits,
   };
+}
+
+/** Independent audits of the lot: the buyer sees them from payment on, the producer once results are in. */
+export async function lotAudits(lotId: number, side: "buyer" | "producer"): Promise<LotAuditView[]> {
+  const rows = (await AuditOrderLot.findAll({
+    where: { lotId },
+    include: [{ model: AuditOrder, as: "order", where: side === "buyer" ? { paidAt: { [Op.ne]: null } } : { resultsSubmittedAt: { [Op.ne]: null } }, include: [{ model: Organisation, as: "laboratory" }] }],
+    order: [["id", "DESC"]],
+  })) as (AuditOrderLot & { order: AuditOrder & { laboratory: Organisation } })[];
+  return rows.map((r) => ({
+    orderId: r.auditOrderId,
+    reference: orderReference(r.auditOrderId),
+    laboratoryName: r.order.laboratory.name,
+    status: r.order.status,
+    reportReference: r.order.reportReference,
+    resultsSubmittedAt: r.order.resultsSubmittedAt ? r.order.resultsSubmittedAt.toISOString() : null,
+    analysisId: r.analysisId,
+    comparisons: r.comparisons ?? [],
+  }));
 }
 
 /** Lots not yet shipped or due within the horizon, with what each required stage still lacks. */

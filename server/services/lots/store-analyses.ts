@@ -21,6 +21,10 @@ export interface AnalysisHeader {
   stage: AnalysisStage;
   laboratoryName: string;
   accreditation?: string | null;
+  /** Set for an independent laboratory's results on a paid audit: stored and evaluated alike, opened deviations link the audit. */
+  auditOrderId?: number | null;
+  /** The organisation acting, for the audit log; the producer unless a laboratory submits. */
+  actingOrgId?: number;
 }
 
 export interface SampleToStore {
@@ -54,6 +58,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
       sampleDate: s.sampleDate,
       specVersionId: governingCache.get(s.lot.vintage)?.version.id ?? null,
       submittedBy: userId,
+      auditOrderId: header.auditOrderId ?? null,
     })),
     { transaction: t },
   );
@@ -109,10 +114,11 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     analysisId: f.analysisId,
     kind: "result" as const,
     parameters: f.parameters,
-    summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification at ${header.stage.replace("_", " ")}.`,
+    summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification at ${header.stage.replace("_", " ")}${header.auditOrderId ? ", by the independent laboratory" : ""}.`,
+    auditOrderId: header.auditOrderId ?? null,
   }));
   if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analyses)));
-  summary.deviationIds = await openDeviations(t, contract, { userId, organisationId: contract.producerOrgId }, deviations);
+  summary.deviationIds = await openDeviations(t, contract, { userId, organisationId: header.actingOrgId ?? contract.producerOrgId }, deviations);
   return summary;
 }
 

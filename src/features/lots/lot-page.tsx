@@ -14,6 +14,7 @@ import { OpenDeviationForm } from "../deviations/open-deviation-form.tsx";
 import { LotEditForm } from "./lot-edit-form.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
+import { DEVIATION_KIND_LABELS } from "../../../shared/deviations/vocabulary.ts";
 
 export function LotPage() {
   const { membership } = useShellContext();
@@ -58,7 +59,7 @@ export function LotPage() {
             <ul className="flex flex-col gap-2 text-sm">
               {l.deviations.map((d) => (
                 <li key={d.id} className="rounded-md border border-alarm-700/30 bg-alarm-50 px-3 py-2">
-                  <Link to={`/deviations/${d.id}`} className="font-semibold text-alarm-700 underline">{d.kind === "transit" ? "Transit" : d.kind === "manual" ? "Manual" : "Result"} deviation #{d.id}</Link> · {d.status.replace("_", " ")} · {d.summary}
+                  <Link to={`/deviations/${d.id}`} className="font-semibold text-alarm-700 underline">{DEVIATION_KIND_LABELS[d.kind]} deviation #{d.id}</Link> · {d.status.replace("_", " ")} · {d.summary}
                 </li>
               ))}
             </ul>

@@ -1,0 +1,85 @@
+/** Audit orders as the API shows them; payment details only to the buyer who paid. */
+import { Op } from "sequelize";
+import { AuditOrder, AuditOrderLot, AuditPayment } from "../../models/audit-order.ts";
+import { Organisation } from "../../models/organisation.ts";
+import { User } from "../../models/user.ts";
+import { Lot } from "../../models/lot.ts";
+import { Deviation } from "../../models/deviation.ts";
+import { AnalysisEvaluation } from "../../models/evaluation.ts";
+import { Contract } from "../../models/contract.ts";
+import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
+import { orderReference } from "../../../shared/audits/vocabulary.ts";
+import type { AuditOrderDetail, AuditOrderSummary } from "../../../shared/audits/views.ts";
+import type { StoredVerdict } from "../../../shared/lots/views.ts";
+import type { Role } from "../../../shared/auth/roles.ts";
+import type { OrderSide } from "./order-access.ts";
+
+type Loaded = AuditOrder & { lots: (AuditOrderLot & { lot: Lot })[]; laboratory: Organisation; orderer: User; contract: ContractWithParties };
+
+export const orderInclude = [
+  { model: AuditOrderLot, as: "lots", include: [{ model: Lot, as: "lot" }] },
+  { model: Organisation, as: "laboratory" },
+  { model: User, as: "orderer", attributes: ["id", "name", "email"] },
+  { model: Contract, as: "contract", include: contractInclude },
+];
+
+export function summaryOf(o: Loaded): AuditOrderSummary {
+  return {
+    id: o.id,
+    reference: orderReference(o.id),
+    status: o.status,
+    contractId: o.contractId,
+    wineName: o.contract.wine.name,
+    buyerName: o.contract.retailer.name,
+    producerName: o.contract.producer.name,
+    laboratoryName: o.laboratory.name,
+    lotCodes: o.lots.map((l) => l.lot.lotCode),
+    parameters: o.parameters,
+    amountCents: o.amountCents,
+    paidCents: o.paidCents,
+    refundedCents: o.refundedCents,
+    currency: o.currency,
+    orderedBy: o.orderer.name,
+    createdAt: o.createdAt.toISOString(),
+    paidAt: o.paidAt ? o.paidAt.toISOString() : null,
+    resultsSubmittedAt: o.resultsSubmittedAt ? o.resultsSubmittedAt.toISOString() : null,
+  };
+}
+
+export async function loadOrders(where: Record<string, unknown>): Promise<Loaded[]> {
+  return (await AuditOrder.findAll({ where, include: orderInclude, order: [["createdAt", "DESC"], ["id", "DESC"]], limit: 1000 })) as Loaded[];
+}
+
+export async function detailOf(id: number, side: OrderSide, role: Role): Promise<AuditOrderDetail> {
+  const o = (await AuditOrder.findByPk(id, { include: orderInclude })) as Loaded;
+  const payments = side === "buyer" ? await AuditPayment.findAll({ where: { auditOrderId: id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }) : [];
+  const analysisIds = o.lots.map((l) => l.analysisId).filter((x): x is number => x !== null);
+  const evaluations = new Map((await AnalysisEvaluation.findAll({ where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } } })).map((e) => [e.analysisId, e.verdicts as StoredVerdict[]]));
+  const deviations = await Deviation.findAll({ where: { auditOrderId: id }, attributes: ["id"] });
+  // The laboratory works blind: the producer's declared values stay hidden from it.
+  const showComparisons = side !== "laboratory";
+  return {
+    ...summaryOf(o),
+    ...(side === "buyer" ? {} : { amountCents: 0, paidCents: 0, refundedCents: 0 }),
+    stage: o.stage,
+    note: o.note,
+    lines: side === "buyer" ? o.lines : [],
+    payments: payments.map((p) => ({ kind: p.kind, amountCents: p.amountCents, stripeRef: p.stripeRef, detail: p.detail, at: p.createdAt.toISOString() })),
+    lots: o.lots.map((l) => ({
+      lotId: l.lotId,
+      lotCode: l.lot.lotCode,
+      vintage: l.lot.vintage,
+      analysisId: l.analysisId,
+      declaredAnalysisId: showComparisons ? l.declaredAnalysisId : null,
+      comparisons: showComparisons ? (l.comparisons ?? []) : [],
+      verdicts: l.analysisId ? (evaluations.get(l.analysisId) ?? []) : [],
+    })),
+    deviationIds: deviations.map((d) => d.id),
+    reportReference: o.reportReference,
+    actions: {
+      pay: side === "buyer" && role === "buyer_finance" && (o.status === "awaiting_payment" || o.status === "payment_failed"),
+      refund: side === "buyer" && role === "buyer_finance" && o.status === "paid",
+      submitResults: side === "laboratory" && role === "lab_analyst" && o.status === "paid",
+    },
+  };
+}

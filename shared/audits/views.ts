@@ -1,0 +1,71 @@
+/** What the audit endpoints return. */
+import type { ResultComparison } from "../engine/index.ts";
+import type { AnalysisStage } from "../lots/vocabulary.ts";
+import type { StoredVerdict } from "../lots/views.ts";
+import type { OrderStatus, PaymentKind } from "./vocabulary.ts";
+import type { QuoteLine } from "./pricing.ts";
+
+export interface LaboratoryOffer {
+  id: number;
+  name: string;
+  items: { parameter: string; priceCents: number }[];
+}
+
+export interface AuditOrderSummary {
+  id: number;
+  reference: string;
+  status: OrderStatus;
+  contractId: number;
+  wineName: string;
+  buyerName: string;
+  producerName: string;
+  laboratoryName: string;
+  lotCodes: string[];
+  parameters: string[];
+  amountCents: number;
+  paidCents: number;
+  refundedCents: number;
+  currency: string;
+  orderedBy: string;
+  createdAt: string;
+  paidAt: string | null;
+  resultsSubmittedAt: string | null;
+}
+
+export interface PaymentView {
+  kind: PaymentKind;
+  amountCents: number;
+  stripeRef: string;
+  detail: string | null;
+  at: string;
+}
+
+export interface AuditedLotView {
+  lotId: number;
+  lotCode: string;
+  vintage: number;
+  analysisId: number | null;
+  declaredAnalysisId: number | null;
+  comparisons: ResultComparison[];
+  verdicts: StoredVerdict[];
+}
+
+export interface AuditOrderDetail extends AuditOrderSummary {
+  stage: AnalysisStage;
+  note: string | null;
+  lines: QuoteLine[];
+  payments: PaymentView[];
+  lots: AuditedLotView[];
+  deviationIds: number[];
+  reportReference: string | null;
+  /** What the caller may do now. */
+  actions: { pay: boolean; refund: boolean; submitResults: boolean };
+}
+
+export interface FinanceDashboard {
+  currency: string;
+  totals: { orders: number; paidCents: number; outstandingCents: number; refundedCents: number };
+  byProducer: { producerName: string; orders: number; paidCents: number; refundedCents: number }[];
+  byMonth: { month: string; orders: number; paidCents: number; refundedCents: number }[];
+  outstanding: AuditOrderSummary[];
+}
