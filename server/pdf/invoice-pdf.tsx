@@ -54,7 +54,7 @@ function InvoiceDocument({ o, generatedAt }: { o: AuditOrderDetail; generatedAt:
               {p.detail ? ` · ${p.detail}` : ""}
             </Text>
             <Text style={[s.num, { width: "36%" }]}>{p.stripeRef}</Text>
-            <Text style={s.num}>{p.kind === "failure" ? "—" : `${p.kind === "refund" ? "−" : ""}${money(p.amountCents)}`}</Text>
+            <Text style={s.num}>{p.kind === "failure" ? "—" : `${p.kind === "refund" ? "-" : ""}${money(p.amountCents)}`}</Text>
           </View>
         ))}
         <View style={s.box}>

@@ -13,7 +13,7 @@ export function verdictText(v: StoredVerdict): { result: string; limits: string;
   const display = v.displayUnit as UnitId;
   const factor = convert(1, v.unit as UnitId, display);
   const unit = UNITS[display]?.label ?? display;
-  const limits = [v.lower && `≥ ${boundText(v.lower, factor, unit)}`, v.upper && `≤ ${boundText(v.upper, factor, unit)}`].filter(Boolean).join("; ") || "—";
+  const limits = [v.lower && `min ${boundText(v.lower, factor, unit)}`, v.upper && `max ${boundText(v.upper, factor, unit)}`].filter(Boolean).join("; ") || "—";
   const u = v.uncertainty && v.uncertainty.source !== "none" ? v.uncertainty : null;
   return {
     result: v.resultText === null ? "not reported" : `${v.resultText}${u ? ` ± ${n(2 * u.u * factor)}` : ""} ${unit}`,

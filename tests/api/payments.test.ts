@@ -11,12 +11,12 @@ import Stripe from "stripe";
 import type http from "node:http";
 import type { AddressInfo } from "node:net";
 import { randomUUID } from "node:crypto";
-import { execFileSync } from "node:child_process";
-import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
 import { startTestMail } from "../support/mail.ts";
 import { startStripeFake, type StripeFake } from "../../server/fakes/stripe/server.ts";
+import { signed, succeededEvent, TEST_WEBHOOK_SECRET } from "../support/stripe-events.ts";
 
-const SECRET = "whsec_payments_test_secret_0123456789";
+const SECRET = TEST_WEBHOOK_SECRET;
 let t: TestApp;
 let server: http.Server;
 let base: string;
@@ -74,24 +74,8 @@ async function placeOrder(parameters = ["volatile_acidity", "free_so2"]) {
 }
 
 const order = async (id: number) => (await finance.agent.get(B(`/audit-orders/${id}`))).body;
-const signed = (event: object, timestamp?: number) => {
-  const payload = JSON.stringify(event);
-  return { payload, header: Stripe.webhooks.generateTestHeaderString({ payload, secret: SECRET, ...(timestamp ? { timestamp } : {}) }) };
-};
 const post = (payload: string, header?: string) =>
   fetch(`${base}/api/webhooks/stripe`, { method: "POST", headers: { "content-type": "application/json", ...(header ? { "stripe-signature": header } : {}) }, body: payload });
-const succeededEvent = (orderId: number, amount: number, pi = `pi_${randomUUID().replaceAll("-", "")}`) => ({
-  id: `evt_${randomUUID().replaceAll("-", "")}`,
-  object: "event",
-  api_version: "2026-10-28.endive",
-  created: Math.floor(Date.now() / 1000),
-  type: "payment_intent.succeeded",
-  livemode: false,
-  pending_webhooks: 1,
-  request: { id: null, idempotency_key: null },
-  data: { object: { id: pi, object: "payment_intent", amount, amount_received: amount, currency: "eur", status: "succeeded", metadata: { auditOrderId: String(orderId) } } },
-});
-
 describe("ordering and paying an audit", () => {
   it("prices the order from the laboratory's list, in integer cents", async () => {
     const labs = await finance.agent.get(B("/laboratories"));
@@ -166,13 +150,9 @@ describe("ordering and paying an audit", () => {
     expect(receipts).toHaveLength(1);
     expect(receipts[0]!.text).toContain(`/audit-orders/${placed.id}/invoice.pdf`);
 
-    const receipt = await finance.agent.get(B(`/audit-orders/${placed.id}/invoice.pdf`)).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on("data", (c: Buffer) => chunks.push(c));
-      res.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
+    const receipt = await getPdf(finance.agent, B(`/audit-orders/${placed.id}/invoice.pdf`));
     expect(receipt.status).toBe(200);
-    const text = execFileSync("pdftotext", ["-", "-"], { input: receipt.body as Buffer, encoding: "utf8" });
+    const text = receipt.text;
     expect(text).toContain(`Receipt for independent audit ${placed.reference}`);
     expect(text).toContain("Declined attempt");
 

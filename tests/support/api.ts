@@ -1,5 +1,6 @@
 /** Test helpers: the real app on the real test database, driven over HTTP with supertest. */
 import request from "supertest";
+import { execFileSync } from "node:child_process";
 import { pino } from "pino";
 import type { Express } from "express";
 import type { Sequelize } from "sequelize";
@@ -59,3 +60,17 @@ export const DEMO = {
 } as const;
 
 export const ORG = { retailer: 1, troisSentes: 2, kestrelFlats: 3, valsorda: 4, lab: 5 } as const;
+
+/** GETs a PDF and reads its text back with poppler's pdftotext. */
+export async function getPdf(agent: SignedInAgent["agent"], url: string) {
+  const res = await agent
+    .get(url)
+    .buffer(true)
+    .parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on("data", (x: Buffer) => chunks.push(x));
+      r.on("end", () => cb(null, Buffer.concat(chunks)));
+    });
+  const text = res.status === 200 ? execFileSync("pdftotext", ["-", "-"], { input: res.body as Buffer, encoding: "utf8" }) : "";
+  return { status: res.status, type: res.headers["content-type"] as string | undefined, text: text.replace(/\s+/g, " ") };
+}
