@@ -4,7 +4,7 @@
  * caution that it does not replace an accredited laboratory's report or the market's own controls.
  */
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import { findParameter } from "../../shared/engine/index.ts";
+import { convert, findParameter, UNITS, type ResultComparison } from "../../shared/engine/index.ts";
 import { verdictText } from "../../shared/lots/verdict-text.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, StoredVerdict } from "../../shared/lots/views.ts";
@@ -32,6 +32,7 @@ export interface ConformityData {
 }
 
 const name = (p: string) => findParameter(p)?.name ?? p;
+const inUnit = (x: number | null, c: ResultComparison) => (x === null ? null : convert(x, c.unit, c.displayUnit));
 const num = (x: number | null) => (x === null ? "—" : String(Number(x.toPrecision(3))));
 
 function Results({ verdicts }: { verdicts: StoredVerdict[] }) {
@@ -115,7 +116,7 @@ function Certificate({ d, generatedAt }: { d: ConformityData; generatedAt: Date 
               <View key={c.parameter} style={s.row} wrap={false}>
                 <Text style={s.c}>{name(c.parameter)}</Text>
                 <Text style={s.c}>
-                  {num(c.declared)} / {num(c.independent)} {c.unit}
+                  {num(inUnit(c.declared, c))} / {num(inUnit(c.independent, c))} {UNITS[c.displayUnit]?.label ?? c.displayUnit}
                 </Text>
                 <Text style={s.c}>{num(c.en)}</Text>
                 <Text style={s.c}>{num(c.z)}</Text>

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# One command for the demo: MariaDB, the mail fake, migrations, demo data, the client build, the server.
+# One command for the demo: MariaDB, the mail and Stripe fakes, migrations, demo data, the client build, the server.
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 
@@ -7,6 +7,7 @@ export PORT="${PORT:-3000}"
 export SMTP_PORT="${SMTP_PORT:-2525}"
 export MAIL_FAKE_HTTP_PORT="${MAIL_FAKE_HTTP_PORT:-2580}"
 export DB_NAME="${DB_NAME:-cellarpact}"
+export STRIPE_API_PORT="${STRIPE_API_PORT:-12111}"
 
 bash server/scripts/db.sh start
 
@@ -14,6 +15,9 @@ mkdir -p .data
 # A secret per checkout, kept beside the data, so sessions survive a restart but no secret is committed.
 [ -s .data/session-secret ] || node -e 'process.stdout.write(require("crypto").randomBytes(48).toString("base64url"))' > .data/session-secret
 export JWT_SECRET="$(cat .data/session-secret)"
+# The Stripe fake signs its webhooks with this secret and the app checks them with it.
+[ -s .data/stripe-webhook-secret ] || node -e 'process.stdout.write("whsec_" + require("crypto").randomBytes(24).toString("hex"))' > .data/stripe-webhook-secret
+export STRIPE_WEBHOOK_SECRET="$(cat .data/stripe-webhook-secret)"
 
 node --import tsx server/scripts/migrate.ts up
 node --import tsx server/scripts/migrate.ts seed
@@ -21,8 +25,10 @@ node node_modules/vite/bin/vite.js build --logLevel warn
 
 node --import tsx server/fakes/run-mail-fake.ts &
 FAKE=$!
+STRIPE_FAKE_PORT="$STRIPE_API_PORT" STRIPE_WEBHOOK_URL="http://127.0.0.1:$PORT/api/webhooks/stripe" node --import tsx server/fakes/stripe/run.ts &
+PAYMENTS=$!
 cleanup() {
-  kill "$FAKE" 2>/dev/null || true
+  kill "$FAKE" "$PAYMENTS" 2>/dev/null || true
   [ -n "${APP:-}" ] && kill "$APP" 2>/dev/null || true
   wait 2>/dev/null || true
   bash server/scripts/db.sh stop

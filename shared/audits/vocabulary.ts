@@ -42,3 +42,10 @@ export const PAYMENT_KINDS = ["payment", "refund", "failure"] as const;
 export type PaymentKind = (typeof PAYMENT_KINDS)[number];
 
 export const orderReference = (id: number) => `AUD-${String(id).padStart(5, "0")}`;
+
+/** "14", "14.5", "14,50" → 1450 cents; anything else (three decimals, signs, words) → null. */
+export function parseMoney(text: string): number | null {
+  const m = text.trim().match(/^(\d{1,6})(?:[.,](\d{1,2}))?$/);
+  if (!m) return null;
+  return Number(m[1]) * 100 + Number((m[2] ?? "").padEnd(2, "0"));
+}

@@ -8,7 +8,7 @@
 import { usedUncertainty, type ReportedUncertainty, type UsedUncertainty } from "./evaluate.ts";
 import { parameter, type ParameterId } from "./parameters.ts";
 import type { Reading } from "./parse.ts";
-import { convert, type UnitId } from "./units.ts";
+import { convert, UNITS, type UnitId } from "./units.ts";
 
 export type ScoreReading = "satisfactory" | "questionable" | "unsatisfactory";
 
@@ -49,8 +49,10 @@ export type ComparisonOutcome = "agrees" | "questionable" | "discrepant" | "not 
 export interface ResultComparison {
   parameter: ParameterId;
   outcome: ComparisonOutcome;
-  /** Both values in the parameter's canonical unit. */
+  /** Both values, the uncertainties and σ_pt in the parameter's canonical unit. */
   unit: UnitId;
+  /** The unit people read it in (the independent laboratory's); the explanation uses it. */
+  displayUnit: UnitId;
   declared: number | null;
   independent: number | null;
   difference: number | null;
@@ -78,7 +80,8 @@ const outcomeOf = (en: ScoreReading, z: ScoreReading | null): ComparisonOutcome 
 export function compareWithReference(parameterId: ParameterId, declared: ComparedResult | null, independent: ComparedResult): ResultComparison {
   const def = parameter(parameterId);
   const unit = def.unit;
-  const empty = { unit, declared: null, independent: null, difference: null, declaredU: null, independentU: null, uncertaintySources: null, en: null, z: null, sigmaPt: null };
+  const displayUnit = independent.unit;
+  const empty = { unit, displayUnit, declared: null, independent: null, difference: null, declaredU: null, independentU: null, uncertaintySources: null, en: null, z: null, sigmaPt: null };
   if (!declared) return { parameter: parameterId, outcome: "not comparable", ...empty, explanation: "The producer declared no result for this parameter at this stage." };
   if (declared.reading.kind !== "value" || independent.reading.kind !== "value") {
     const bothBelow = declared.reading.kind === "below" && independent.reading.kind === "below";
@@ -92,7 +95,7 @@ export function compareWithReference(parameterId: ParameterId, declared: Compare
   const uRef = usedUncertainty(parameterId, unit, ref, independent);
   const fitness = usedUncertainty(parameterId, unit, ref, { unit, uncertainty: null });
   const sources = { declared: uDeclared.source, independent: uRef.source };
-  const values = { unit, declared: x, independent: ref, difference: x - ref, uncertaintySources: sources };
+  const values = { unit, displayUnit, declared: x, independent: ref, difference: x - ref, uncertaintySources: sources };
   if (uDeclared.u === 0 && uRef.u === 0) {
     return { parameter: parameterId, outcome: "not comparable", ...empty, ...values, explanation: "Neither result carries an uncertainty and the catalogue has no default for this parameter, so En cannot be computed." };
   }
@@ -100,9 +103,10 @@ export function compareWithReference(parameterId: ParameterId, declared: Compare
   const z = fitness.u > 0 ? zScore(x, ref, fitness.u) : null;
   const outcome = outcomeOf(en.reading, z?.reading ?? null);
   const fmt = (v: number) => String(Number(v.toPrecision(3)));
+  const shown = (v: number) => fmt(convert(v, unit, displayUnit));
   const explanation =
-    `Declared ${fmt(x)} against independent ${fmt(ref)} ${unit}: En = ${fmt(en.en)} (|En| ≤ 1 agrees)` +
-    (z ? `, z = ${fmt(z.z)} with σ_pt = ${fmt(fitness.u)} (|z| ≤ 2 agrees, 2–3 questionable, ≥ 3 discrepant).` : ".") +
+    `Declared ${shown(x)} against independent ${shown(ref)} ${UNITS[displayUnit].label}: En = ${fmt(en.en)} (|En| ≤ 1 agrees)` +
+    (z ? `, z = ${fmt(z.z)} with σ_pt = ${shown(fitness.u)} (|z| ≤ 2 agrees, 2–3 questionable, ≥ 3 discrepant).` : ".") +
     (uDeclared.source === "default" || uRef.source === "default" ? " A catalogue default uncertainty stood in where a laboratory reported none." : "");
   return {
     parameter: parameterId,

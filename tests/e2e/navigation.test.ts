@@ -9,12 +9,13 @@ beforeAll(async () => {
 afterAll(() => s?.stop());
 
 const EXPECTED_NAV: [keyof typeof DEMO, string[]][] = [
-  ["buyerTechnologist", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Profile"]],
-  ["buyerFinance", ["Overview", "Specifications", "Lots", "Deviations", "Profile"]],
+  ["buyerTechnologist", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Audits", "Profile"]],
+  ["buyerFinance", ["Overview", "Specifications", "Lots", "Deviations", "Audits", "Profile"]],
   ["retailerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
-  ["producerQuality", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Profile"]],
+  ["producerQuality", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Audits", "Profile"]],
   ["producerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
-  ["labAnalyst", ["Overview", "Profile"]],
+  ["labAnalyst", ["Overview", "Deviations", "Audits", "Profile"]],
+  ["labAdmin", ["Overview", "Members", "Activity log", "Price list", "Profile"]],
   ["platformAdmin", ["Overview", "Organisations", "Profile"]],
 ];
 

@@ -11,6 +11,7 @@ import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { AxeBuilder } from "@axe-core/playwright";
 import { expect } from "vitest";
 import { startMailFake, type MailFake } from "../../server/fakes/mail-fake.ts";
+import { startStripeFake, type StripeFake } from "../../server/fakes/stripe/server.ts";
 import { DEMO_PASSWORD } from "./api.ts";
 
 const root = path.resolve(import.meta.dirname, "../..");
@@ -37,6 +38,7 @@ export function chromiumPath(): string {
 export interface Stack {
   baseUrl: string;
   mail: MailFake;
+  stripe: StripeFake;
   context: BrowserContext;
   page: Page;
   stop(): Promise<void>;
@@ -47,6 +49,8 @@ export async function startStack(): Promise<Stack> {
   const mail = await startMailFake();
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
+  const webhookSecret = "whsec_e2e_local_secret_0123456789";
+  const stripe = await startStripeFake({ webhook: { url: `${baseUrl}/api/webhooks/stripe`, secret: webhookSecret, retryBaseMs: 200 } });
   const server: ChildProcess = spawn(process.execPath, ["--import", "tsx", "server/main.ts"], {
     cwd: root,
     env: {
@@ -56,6 +60,8 @@ export async function startStack(): Promise<Stack> {
       CLIENT_DIR: "dist",
       SMTP_PORT: String(mail.smtpPort),
       DEV_INBOX_URL: `http://127.0.0.1:${mail.httpPort}`,
+      STRIPE_API_PORT: String(stripe.port),
+      STRIPE_WEBHOOK_SECRET: webhookSecret,
       LOGIN_LIMIT_PER_ACCOUNT: "50",
       LOG_LEVEL: "warn",
     },
@@ -84,6 +90,7 @@ export async function startStack(): Promise<Stack> {
   return {
     baseUrl,
     mail,
+    stripe,
     context,
     page,
     async stop() {
@@ -91,6 +98,7 @@ export async function startStack(): Promise<Stack> {
       server.kill("SIGTERM");
       await new Promise((r) => server.once("exit", r));
       await mail.stop();
+      await stripe.stop();
     },
   };
 }

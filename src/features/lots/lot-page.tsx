@@ -14,6 +14,8 @@ import { OpenDeviationForm } from "../deviations/open-deviation-form.tsx";
 import { LotEditForm } from "./lot-edit-form.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
+import { ComparisonTable } from "../audits/comparison-table.tsx";
+import { conformityUrl } from "../audits/api/audits.ts";
 import { DEVIATION_KIND_LABELS } from "../../../shared/deviations/vocabulary.ts";
 
 export function LotPage() {
@@ -39,6 +41,9 @@ export function LotPage() {
           <div className="flex items-center gap-3">
             {l.worstOutcome && <OutcomeBadge outcome={l.worstOutcome} />}
             <Link to={`/contracts/${l.contractId}/trends`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Trends</Link>
+            {l.analyses.some((a) => a.evaluation) && (
+              <a href={conformityUrl(orgId, l.id)} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Certificate of conformity (PDF)</a>
+            )}
           </div>
         }
       />
@@ -65,6 +70,15 @@ export function LotPage() {
             </ul>
           </Card>
         )}
+        {l.audits.map((a) => (
+          <Card key={a.orderId} title={`Independent audit ${a.reference} · ${a.laboratoryName}`}>
+            {a.resultsSubmittedAt ? (
+              <ComparisonTable comparisons={a.comparisons} caption={`Results in ${a.resultsSubmittedAt.slice(0, 10)}${a.reportReference ? `, report ${a.reportReference}` : ""}. The laboratory's values are the reference.`} />
+            ) : (
+              <p className="text-sm">Paid; the laboratory's results are not in yet. <Link to={`/audits/${a.orderId}`} className="font-semibold text-must-700 underline">The order</Link></p>
+            )}
+          </Card>
+        ))}
         {l.transit && (
           <Card title="Transit: arrival against pre-shipment">
             <table className="w-full text-left text-sm">
@@ -88,7 +102,7 @@ export function LotPage() {
         )}
         {l.analyses.length === 0 && <EmptyState title="No analysis yet.">{l.canSubmit ? "Enter results below or import a CSV from the contract page." : "The producer has not submitted results yet."}</EmptyState>}
         {[...l.analyses].reverse().map((a) => (
-          <Card key={a.id} title={`${ANALYSIS_STAGE_LABELS[a.stage]} · sampled ${a.sampleDate}`}>
+          <Card key={a.id} title={`${ANALYSIS_STAGE_LABELS[a.stage]}${a.auditOrderId ? " · independent audit" : ""} · sampled ${a.sampleDate}`}>
             <p className="mb-3 text-sm text-ink-700">
               {a.laboratoryName}
               {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · submitted {new Date(a.createdAt).toLocaleString("en-GB")}

@@ -1,0 +1,62 @@
+import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "../../../lib/api-client.ts";
+import type { LabResultsInput, NewAuditOrder, PriceListInput } from "../../../../shared/audits/schemas.ts";
+import type { AuditOrderDetail, AuditOrderSummary, FinanceDashboard, LaboratoryOffer } from "../../../../shared/audits/views.ts";
+
+const base = (orgId: number) => `/api/orgs/${orgId}`;
+const query = (f: Record<string, string | undefined>) => {
+  const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v).map(([k, v]) => [k, v!]));
+  return qs.size ? `?${qs}` : "";
+};
+
+export const auditKeys = {
+  all: (orgId: number) => ["orgs", orgId, "audits"] as const,
+  list: (orgId: number, f: Record<string, string | undefined>) => [...auditKeys.all(orgId), "list", f] as const,
+  detail: (orgId: number, id: number) => [...auditKeys.all(orgId), "detail", id] as const,
+  dashboard: (orgId: number, f: Record<string, string | undefined>) => [...auditKeys.all(orgId), "dashboard", f] as const,
+  laboratories: (orgId: number) => [...auditKeys.all(orgId), "laboratories"] as const,
+  priceList: (orgId: number) => [...auditKeys.all(orgId), "price-list"] as const,
+};
+
+export const ordersQuery = (orgId: number, f: Record<string, string | undefined>) =>
+  queryOptions({ queryKey: auditKeys.list(orgId, f), queryFn: () => api<AuditOrderSummary[]>(`${base(orgId)}/audit-orders${query(f)}`) });
+export const orderQuery = (orgId: number, id: number) => queryOptions({ queryKey: auditKeys.detail(orgId, id), queryFn: () => api<AuditOrderDetail>(`${base(orgId)}/audit-orders/${id}`) });
+export const dashboardQuery = (orgId: number, f: Record<string, string | undefined>) =>
+  queryOptions({ queryKey: auditKeys.dashboard(orgId, f), queryFn: () => api<FinanceDashboard>(`${base(orgId)}/audit-dashboard${query(f)}`) });
+export const laboratoriesQuery = (orgId: number) => queryOptions({ queryKey: auditKeys.laboratories(orgId), queryFn: () => api<LaboratoryOffer[]>(`${base(orgId)}/laboratories`) });
+export const priceListQuery = (orgId: number) => queryOptions({ queryKey: auditKeys.priceList(orgId), queryFn: () => api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`) });
+
+export const invoiceUrl = (orgId: number, id: number) => `${base(orgId)}/audit-orders/${id}/invoice.pdf`;
+export const conformityUrl = (orgId: number, lotId: number) => `${base(orgId)}/lots/${lotId}/conformity.pdf`;
+
+function useInvalidate(orgId: number) {
+  const qc = useQueryClient();
+  return () => {
+    void qc.invalidateQueries({ queryKey: auditKeys.all(orgId) });
+    void qc.invalidateQueries({ queryKey: ["orgs", orgId, "lots"] });
+    void qc.invalidateQueries({ queryKey: ["orgs", orgId, "deviations"] });
+  };
+}
+
+export function useCreateOrder(orgId: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({ mutationFn: (o: NewAuditOrder) => api<{ id: number; reference: string; amountCents: number }>(`${base(orgId)}/audit-orders`, { method: "POST", body: o }), onSuccess: invalidate });
+}
+export function useCheckout(orgId: number, id: number) {
+  return useMutation({ mutationFn: () => api<{ url: string }>(`${base(orgId)}/audit-orders/${id}/checkout`, { method: "POST" }) });
+}
+export function useRefund(orgId: number, id: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({ mutationFn: (reason: string) => api<{ refundId: string; amountCents: number }>(`${base(orgId)}/audit-orders/${id}/refund`, { method: "POST", body: { reason } }), onSuccess: invalidate });
+}
+export function useSubmitLabResults(orgId: number, id: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({
+    mutationFn: (input: LabResultsInput) => api<{ discrepancies: { lotId: number; parameters: string[] }[]; failing: { lotCode: string; parameters: string[] }[]; deviationIds: number[] }>(`${base(orgId)}/audit-orders/${id}/results`, { method: "POST", body: input }),
+    onSuccess: invalidate,
+  });
+}
+export function useSavePriceList(orgId: number) {
+  const invalidate = useInvalidate(orgId);
+  return useMutation({ mutationFn: (input: PriceListInput) => api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`, { method: "PUT", body: input }), onSuccess: invalidate });
+}

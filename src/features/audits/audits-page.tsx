@@ -1,0 +1,80 @@
+import { useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { Link } from "react-router-dom";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { useFilterParams } from "../../lib/use-filter-params.ts";
+import { ordersQuery } from "./api/audits.ts";
+import { FinanceSummary } from "./finance-summary.tsx";
+import { NewAuditForm } from "./new-audit-form.tsx";
+import { OrderStatusBadge } from "./order-status-badge.tsx";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { SelectField, TextField } from "../../components/ui/field.tsx";
+import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { formatMoney, ORDER_STATUSES, ORDER_STATUS_LABELS } from "../../../shared/audits/vocabulary.ts";
+import { findParameter } from "../../../shared/engine/index.ts";
+
+const LEADS = {
+  buyer_finance: "Independent compliance audits: order them from a laboratory's price list, pay them, and follow what they cost.",
+  lab_analyst: "Paid orders from buyers. Analyse the lots and send your results; the producer's declared values stay hidden until you do.",
+  other: "Independent audits of lots, and how the laboratory's results compare with the declared ones.",
+};
+
+export function AuditsPage() {
+  const { membership } = useShellContext();
+  const orgId = membership?.organisationId ?? 0;
+  const role = membership?.role;
+  const [params, set] = useFilterParams();
+  const f = { status: params.get("status") ?? undefined, from: params.get("from") ?? undefined, to: params.get("to") ?? undefined };
+  const [ordering, setOrdering] = useState(false);
+  const list = useQuery({ ...ordersQuery(orgId, f), enabled: !!membership });
+  const finance = role === "buyer_finance";
+  const lab = role === "lab_analyst";
+  return (
+    <>
+      <PageHeader
+        title="Audits"
+        lead={finance ? LEADS.buyer_finance : lab ? LEADS.lab_analyst : LEADS.other}
+        actions={finance && !ordering ? <Button onClick={() => setOrdering(true)}>Order an audit</Button> : undefined}
+      />
+      <div className="flex flex-col gap-6">
+        {finance && ordering && (
+          <Card title="Order an independent audit">
+            <NewAuditForm orgId={orgId} />
+            <Button variant="quiet" className="mt-2" onClick={() => setOrdering(false)}>Cancel</Button>
+          </Card>
+        )}
+        {finance && <FinanceSummary orgId={orgId} from={f.from} to={f.to} />}
+        <Card title="Orders">
+          <div className="mb-4 grid gap-3 md:grid-cols-3">
+            <SelectField label="Status" value={f.status ?? ""} onChange={(e) => set("status", e.target.value)} options={[{ value: "", label: "Any status" }, ...ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))]} />
+            <TextField label="Ordered from" type="date" value={f.from ?? ""} onChange={(e) => set("from", e.target.value)} />
+            <TextField label="Ordered until" type="date" value={f.to ?? ""} onChange={(e) => set("to", e.target.value)} />
+          </div>
+          {list.isPending && <LoadingState />}
+          {list.isError && <ErrorState error={list.error} onRetry={() => list.refetch()} />}
+          {list.data?.length === 0 && <EmptyState title="No audit order matches." />}
+          {list.data && list.data.length > 0 && (
+            <table className="w-full text-left text-sm">
+              <thead className="border-b border-line text-ink-500">
+                <tr>{["Order", "Wine and lots", "Parameters", "Laboratory", finance ? "Amount" : "Ordered", "Status"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+              </thead>
+              <tbody>
+                {list.data.map((o) => (
+                  <tr key={o.id} className="border-b border-line/60 align-top">
+                    <td className="py-2 pr-3"><Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">{o.reference}</Link><span className="block text-xs text-ink-500">{o.createdAt.slice(0, 10)}</span></td>
+                    <td className="py-2 pr-3">{o.wineName}<span className="block text-xs text-ink-500">{o.producerName} · {o.lotCodes.join(", ")}</span></td>
+                    <td className="py-2 pr-3">{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</td>
+                    <td className="py-2 pr-3">{o.laboratoryName}</td>
+                    <td className="py-2 pr-3 tabular-nums">{finance ? formatMoney(o.amountCents, o.currency) : o.createdAt.slice(0, 10)}</td>
+                    <td className="py-2 pr-3"><OrderStatusBadge status={o.status} /></td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+        </Card>
+      </div>
+    </>
+  );
+}

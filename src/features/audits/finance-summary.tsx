@@ -1,0 +1,69 @@
+/** The finance view of audits: totals, spend per producer and per month, what is still unpaid. */
+import { useQuery } from "@tanstack/react-query";
+import { Link } from "react-router-dom";
+import { dashboardQuery } from "./api/audits.ts";
+import { Card } from "../../components/ui/page.tsx";
+import { ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { formatMoney } from "../../../shared/audits/vocabulary.ts";
+
+function Figure({ label, cents, currency }: { label: string; cents: number; currency: string }) {
+  return (
+    <div className="rounded-md border border-line bg-white p-3">
+      <p className="text-sm text-ink-500">{label}</p>
+      <p className="text-2xl font-semibold tabular-nums">{formatMoney(cents, currency)}</p>
+    </div>
+  );
+}
+
+function SpendTable({ caption, head, rows, currency }: { caption: string; head: string; rows: { key: string; orders: number; paidCents: number; refundedCents: number }[]; currency: string }) {
+  return (
+    <table className="w-full text-left text-sm">
+      <caption className="mb-1 text-left font-semibold">{caption}</caption>
+      <thead className="border-b border-line text-ink-500">
+        <tr>{[head, "Orders", "Paid", "Refunded", "Net"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
+      </thead>
+      <tbody>
+        {rows.map((r) => (
+          <tr key={r.key} className="border-b border-line/60">
+            <th scope="row" className="py-1 pr-3 font-normal">{r.key}</th>
+            <td className="py-1 pr-3 tabular-nums">{r.orders}</td>
+            <td className="py-1 pr-3 tabular-nums">{formatMoney(r.paidCents, currency)}</td>
+            <td className="py-1 pr-3 tabular-nums">{formatMoney(r.refundedCents, currency)}</td>
+            <td className="py-1 pr-3 tabular-nums">{formatMoney(r.paidCents - r.refundedCents, currency)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+export function FinanceSummary({ orgId, from, to }: { orgId: number; from?: string; to?: string }) {
+  const d = useQuery(dashboardQuery(orgId, { from, to }));
+  if (d.isPending) return <LoadingState />;
+  if (d.isError) return <ErrorState error={d.error} onRetry={() => d.refetch()} />;
+  const { totals, currency } = d.data;
+  return (
+    <Card title="Spend on audits">
+      <div className="grid gap-3 md:grid-cols-4">
+        <Figure label={`Paid (${totals.orders} order${totals.orders === 1 ? "" : "s"})`} cents={totals.paidCents} currency={currency} />
+        <Figure label="Outstanding" cents={totals.outstandingCents} currency={currency} />
+        <Figure label="Refunded" cents={totals.refundedCents} currency={currency} />
+        <Figure label="Net spend" cents={totals.paidCents - totals.refundedCents} currency={currency} />
+      </div>
+      <div className="mt-4 grid gap-6 md:grid-cols-2">
+        <SpendTable caption="Per producer" head="Producer" currency={currency} rows={d.data.byProducer.map((p) => ({ key: p.producerName, ...p }))} />
+        <SpendTable caption="Per month (month paid)" head="Month" currency={currency} rows={d.data.byMonth.map((m) => ({ key: m.month, ...m }))} />
+      </div>
+      {d.data.outstanding.length > 0 && (
+        <p className="mt-4 text-sm">
+          Unpaid: {d.data.outstanding.map((o, i) => (
+            <span key={o.id}>
+              {i > 0 && ", "}
+              <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">{o.reference}</Link> ({formatMoney(o.amountCents, o.currency)})
+            </span>
+          ))}
+        </p>
+      )}
+    </Card>
+  );
+}

@@ -1,0 +1,136 @@
+/**
+ * The laboratory's results for a paid order: one line per lot and ordered parameter, typed or filled
+ * from the laboratory's CSV export (same column mapping as the producers' import).
+ */
+import { useState } from "react";
+import Papa from "papaparse";
+import { useSubmitLabResults } from "./api/audits.ts";
+import { Button } from "../../components/ui/button.tsx";
+import { TextField } from "../../components/ui/field.tsx";
+import { Notice } from "../../components/ui/states.tsx";
+import { ApiError, errorMessage } from "../../lib/api-client.ts";
+import { labResultsSchema } from "../../../shared/audits/schemas.ts";
+import { cellKey, cellsFromSamples, type FormCell } from "../../../shared/audits/lab-csv.ts";
+import { buildSamples, guessMapping } from "../../../shared/lots/csv.ts";
+import { findParameter, UNITS, type UnitId } from "../../../shared/engine/index.ts";
+import type { AuditOrderDetail } from "../../../shared/audits/views.ts";
+
+const today = () => new Date().toISOString().slice(0, 10);
+
+export function LabResultsForm({ orgId, order }: { orgId: number; order: AuditOrderDetail }) {
+  const submit = useSubmitLabResults(orgId, order.id);
+  const [sampleDate, setSampleDate] = useState(today());
+  const [accreditation, setAccreditation] = useState("");
+  const [reportReference, setReportReference] = useState("");
+  const [cells, setCells] = useState<Record<string, FormCell>>(() =>
+    Object.fromEntries(order.lots.flatMap((l) => order.parameters.map((p) => [cellKey(l.lotId, p), { raw: "", unit: findParameter(p)?.unit ?? "", u: "" }]))),
+  );
+  const [key] = useState(() => crypto.randomUUID());
+  const [errors, setErrors] = useState<string[]>([]);
+  const [fileNote, setFileNote] = useState<string | null>(null);
+  const set = (k: string, patch: Partial<FormCell>) => setCells((c) => ({ ...c, [k]: { ...c[k]!, ...patch } }));
+
+  const readCsv = (file: File) =>
+    Papa.parse<string[]>(file, {
+      skipEmptyLines: "greedy",
+      complete: (res) => {
+        const [headers = [], ...rows] = res.data;
+        const clean = headers.map((h) => h.replace(/^\uFEFF/, "").trim());
+        const built = buildSamples(clean, rows, guessMapping(clean), { sampleDate });
+        const { cells: found, skipped } = cellsFromSamples(built.samples, order.lots, order.parameters);
+        setCells((c) => ({ ...c, ...found }));
+        const problems = [...built.errors.slice(0, 5).map((e) => `row ${e.row}${e.column ? `, ${e.column}` : ""}: ${e.message}`), ...skipped.slice(0, 5)];
+        setFileNote(`${Object.keys(found).length} result(s) filled from ${file.name}.${problems.length ? ` Not used: ${problems.join("; ")}.` : ""}`);
+      },
+      error: (err) => setFileNote(`The file could not be read: ${err.message}`),
+    });
+
+  const onSubmit = () => {
+    const body = {
+      idempotencyKey: key,
+      sampleDate,
+      accreditation: accreditation.trim() || null,
+      reportReference: reportReference.trim() || null,
+      lots: order.lots.map((l) => ({
+        lotId: l.lotId,
+        results: order.parameters
+          .map((p) => ({ p, c: cells[cellKey(l.lotId, p)]! }))
+          .filter(({ c }) => c.raw.trim())
+          .map(({ p, c }) => ({ parameter: p, raw: c.raw.trim(), unit: c.unit as UnitId, uncertainty: c.u.trim() ? { kind: "expanded" as const, value: Number(c.u.replace(",", ".")), k: 2 } : null })),
+      })),
+    };
+    const sent = body.lots.map((l) => l.results.map((r) => r.parameter));
+    const parsed = labResultsSchema.safeParse(body);
+    if (!parsed.success) {
+      setErrors(parsed.error.issues.map((i) => describe(i.path, i.message, order, sent)));
+      return;
+    }
+    setErrors([]);
+    submit.mutate(parsed.data, { onError: (err) => err instanceof ApiError && setErrors(err.errors.map((e) => describe(e.path.split("."), e.message, order, sent))) });
+  };
+
+  if (submit.isSuccess) {
+    const r = submit.data;
+    return <Notice tone="success">Results sent. {r.discrepancies.length ? `${r.discrepancies.length} lot(s) disagree with the declared results; a deviation was opened for each.` : "No discrepancy with the declared results."}</Notice>;
+  }
+
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="grid gap-3 md:grid-cols-4">
+        <TextField label="Sample date" type="date" value={sampleDate} onChange={(e) => setSampleDate(e.target.value)} />
+        <TextField label="Accreditation" value={accreditation} onChange={(e) => setAccreditation(e.target.value)} hint="e.g. your ISO/IEC 17025 number" />
+        <TextField label="Report reference" value={reportReference} onChange={(e) => setReportReference(e.target.value)} />
+        <div className="flex flex-col gap-1">
+          <label htmlFor="lab-csv" className="text-sm font-semibold">Fill from a CSV export</label>
+          <input id="lab-csv" type="file" accept=".csv,text/csv" onChange={(e) => e.target.files?.[0] && readCsv(e.target.files[0])} className="text-sm" />
+        </div>
+      </div>
+      {fileNote && <Notice>{fileNote}</Notice>}
+      <div className="overflow-x-auto">
+        <table className="w-full text-left text-sm">
+          <thead className="border-b border-line text-ink-500">
+            <tr>{["Lot", "Parameter", "Result", "Unit", "U (k = 2)"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+          </thead>
+          <tbody>
+            {order.lots.flatMap((l) =>
+              order.parameters.map((p) => {
+                const k = cellKey(l.lotId, p);
+                const def = findParameter(p);
+                const name = def?.name ?? p;
+                return (
+                  <tr key={k} className="border-b border-line/60">
+                    <td className="py-1 pr-3">{l.lotCode}</td>
+                    <th scope="row" className="py-1 pr-3 font-normal">{name}</th>
+                    <td className="py-1 pr-3"><input aria-label={`${name}, lot ${l.lotCode}`} className="w-28 rounded-md border border-line px-2 py-1" value={cells[k]!.raw} onChange={(e) => set(k, { raw: e.target.value })} /></td>
+                    <td className="py-1 pr-3">
+                      <select aria-label={`Unit of ${name}, lot ${l.lotCode}`} className="rounded-md border border-line bg-white px-2 py-1" value={cells[k]!.unit} onChange={(e) => set(k, { unit: e.target.value })}>
+                        {(def?.units ?? []).map((u) => <option key={u} value={u}>{UNITS[u]?.label ?? u}</option>)}
+                      </select>
+                    </td>
+                    <td className="py-1 pr-3"><input aria-label={`Uncertainty of ${name}, lot ${l.lotCode}`} className="w-20 rounded-md border border-line px-2 py-1" value={cells[k]!.u} onChange={(e) => set(k, { u: e.target.value })} /></td>
+                  </tr>
+                );
+              }),
+            )}
+          </tbody>
+        </table>
+      </div>
+      {errors.length > 0 && (
+        <Notice tone="error">
+          <ul className="list-disc pl-5">{errors.map((e) => <li key={e}>{e}</li>)}</ul>
+        </Notice>
+      )}
+      {submit.isError && !(submit.error instanceof ApiError && submit.error.errors.length) && <Notice tone="error">{errorMessage(submit.error)}</Notice>}
+      <Button className="self-start" onClick={onSubmit} disabled={submit.isPending}>Send the results</Button>
+    </div>
+  );
+}
+
+/** "lots.0.results.2.raw" → "Lot SB-25-11, Free SO2: …" */
+function describe(path: readonly PropertyKey[], message: string, order: AuditOrderDetail, sent: string[][]): string {
+  const lotIndex = path[0] === "lots" && typeof path[1] !== "undefined" ? Number(path[1]) : -1;
+  const lot = order.lots[lotIndex];
+  if (!lot) return message;
+  const parameter = path[2] === "results" && typeof path[3] !== "undefined" ? sent[lotIndex]?.[Number(path[3])] : undefined;
+  return `Lot ${lot.lotCode}${parameter ? `, ${findParameter(parameter)?.name ?? parameter}` : ""}: ${message}`;
+}

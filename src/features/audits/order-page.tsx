@@ -1,0 +1,80 @@
+import { useQuery } from "@tanstack/react-query";
+import { Link, useParams, useSearchParams } from "react-router-dom";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { conformityUrl, orderQuery } from "./api/audits.ts";
+import { OrderStatusBadge } from "./order-status-badge.tsx";
+import { PaymentPanel } from "./payment-panel.tsx";
+import { ComparisonTable } from "./comparison-table.tsx";
+import { LabResultsForm } from "./lab-results-form.tsx";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { LegalCaution } from "../specs/legal-caution.tsx";
+import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
+import { findParameter } from "../../../shared/engine/index.ts";
+
+export function OrderPage() {
+  const { membership } = useShellContext();
+  const orgId = membership?.organisationId ?? 0;
+  const id = Number(useParams().orderId);
+  const [search] = useSearchParams();
+  const returning = search.get("paid") === "1";
+  const q = useQuery({
+    ...orderQuery(orgId, id),
+    enabled: !!membership,
+    // Back from the payment page, the webhook may not have landed yet: look again until it has.
+    refetchInterval: (query) => (returning && ["awaiting_payment", "payment_failed"].includes(query.state.data?.status ?? "") ? 1000 : false),
+  });
+  if (q.isPending) return <LoadingState />;
+  if (q.isError) return <ErrorState error={q.error} onRetry={() => q.refetch()} />;
+  const o = q.data;
+  const lab = membership?.role === "lab_analyst";
+  const party = !lab;
+  const waiting = returning && (o.status === "awaiting_payment" || o.status === "payment_failed");
+  return (
+    <>
+      <PageHeader title={`Audit ${o.reference}`} lead={`${o.wineName} from ${o.producerName}, analysed by ${o.laboratoryName}`} actions={<OrderStatusBadge status={o.status} />} />
+      <div className="flex flex-col gap-6">
+        {waiting && <Notice>Back from the payment page. Waiting for the payment service to confirm… {o.status === "payment_failed" && "The last attempt was declined."}</Notice>}
+        {returning && o.status === "paid" && <Notice tone="success">Payment confirmed. The laboratory has been told; a receipt is on its way by e-mail.</Notice>}
+        <Card title="Order">
+          <dl className="grid gap-x-6 gap-y-2 text-sm md:grid-cols-2">
+            <div><dt className="text-ink-500">Lots</dt><dd>{o.lots.map((l) => (party ? <Link key={l.lotId} to={`/lots/${l.lotId}`} className="mr-2 font-semibold text-must-700 underline">{l.lotCode}</Link> : <span key={l.lotId} className="mr-2">{l.lotCode} ({l.vintage})</span>))}</dd></div>
+            <div><dt className="text-ink-500">Parameters</dt><dd>{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</dd></div>
+            <div><dt className="text-ink-500">Compared with the producer's results at</dt><dd>{ANALYSIS_STAGE_LABELS[o.stage]}</dd></div>
+            <div><dt className="text-ink-500">Ordered</dt><dd>{o.createdAt.slice(0, 10)} by {o.orderedBy} for {o.buyerName}</dd></div>
+            {o.note && <div className="md:col-span-2"><dt className="text-ink-500">Note</dt><dd>{o.note}</dd></div>}
+          </dl>
+        </Card>
+        {o.lines.length > 0 && <PaymentPanel orgId={orgId} order={o} />}
+        {lab && o.actions.submitResults && (
+          <Card title="Your results">
+            <LabResultsForm orgId={orgId} order={o} />
+          </Card>
+        )}
+        {o.resultsSubmittedAt && (
+          <Card title="Independent results">
+            <p className="mb-3 text-sm">
+              Sent {o.resultsSubmittedAt.slice(0, 16).replace("T", " ")} UTC{o.reportReference ? `, report ${o.reportReference}` : ""}.
+              {o.deviationIds.length > 0 && (
+                <>
+                  {" "}Deviations opened:{" "}
+                  {o.deviationIds.map((d) => <Link key={d} to={`/deviations/${d}`} className="mr-2 font-semibold text-must-700 underline">#{d}</Link>)}
+                </>
+              )}
+            </p>
+            {party &&
+              o.lots.map((l) => (
+                <div key={l.lotId} className="mb-6">
+                  <h3 className="mb-2 font-semibold">
+                    Lot {l.lotCode} · <a className="text-must-700 underline" href={conformityUrl(orgId, l.lotId)}>Certificate of conformity (PDF)</a>
+                  </h3>
+                  <ComparisonTable comparisons={l.comparisons} caption={`Declared results against ${o.laboratoryName}'s (the reference). En uses both expanded uncertainties; z uses the catalogue's standard uncertainty as σ_pt.`} />
+                </div>
+              ))}
+            <LegalCaution />
+          </Card>
+        )}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,76 @@
+/** A laboratory's admin sets what it offers and at what price per lot; empty means not offered. */
+import { useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { useShellContext } from "../../app/use-shell-context.ts";
+import { priceListQuery, useSavePriceList } from "./api/audits.ts";
+import { Card, PageHeader } from "../../components/ui/page.tsx";
+import { Button } from "../../components/ui/button.tsx";
+import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { errorMessage } from "../../lib/api-client.ts";
+import { parseMoney } from "../../../shared/audits/vocabulary.ts";
+import { priceListSchema } from "../../../shared/audits/schemas.ts";
+import { PARAMETERS } from "../../../shared/engine/index.ts";
+
+const MEASURED = PARAMETERS.filter((p) => !("derivedFrom" in p && p.derivedFrom));
+
+export function PriceListPage() {
+  const { membership } = useShellContext();
+  const orgId = membership?.organisationId ?? 0;
+  const list = useQuery({ ...priceListQuery(orgId), enabled: !!membership });
+  return (
+    <>
+      <PageHeader title="Price list" lead="What your laboratory analyses for buyers' audits, and the price per lot in euro. Orders keep the price they were placed at." />
+      {list.isPending && <LoadingState />}
+      {list.isError && <ErrorState error={list.error} onRetry={() => list.refetch()} />}
+      {list.data && <PriceListEditor orgId={orgId} items={list.data.items} />}
+    </>
+  );
+}
+
+function PriceListEditor({ orgId, items: saved }: { orgId: number; items: { parameter: string; priceCents: number }[] }) {
+  const save = useSavePriceList(orgId);
+  const [texts, setTexts] = useState<Record<string, string>>(() => Object.fromEntries(saved.map((i) => [i.parameter, (i.priceCents / 100).toFixed(2)])));
+  const [errors, setErrors] = useState<Record<string, string>>({});
+
+  const onSave = () => {
+    const bad: Record<string, string> = {};
+    const items = MEASURED.flatMap((p) => {
+      const text = texts[p.id]?.trim() ?? "";
+      if (!text) return [];
+      const cents = parseMoney(text);
+      if (cents === null) bad[p.id] = "Use a price like 14.50.";
+      return cents === null ? [] : [{ parameter: p.id, priceCents: cents }];
+    });
+    const parsed = priceListSchema.safeParse({ items });
+    if (!parsed.success) for (const i of parsed.error.issues) bad[items[Number(i.path[1])]?.parameter ?? "_"] = i.message;
+    setErrors(bad);
+    if (Object.keys(bad).length === 0 && parsed.success) save.mutate(parsed.data);
+  };
+
+  return (
+    <Card>
+        <table className="w-full text-left text-sm">
+          <thead className="border-b border-line text-ink-500">
+            <tr>{["Parameter", "Group", "Price per lot (EUR)"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+          </thead>
+          <tbody>
+            {MEASURED.map((p) => (
+              <tr key={p.id} className="border-b border-line/60">
+                <th scope="row" className="py-1 pr-3 font-normal">{p.name}</th>
+                <td className="py-1 pr-3 text-ink-500">{p.group}</td>
+                <td className="py-1 pr-3">
+                  <input aria-label={`Price of ${p.name}`} aria-invalid={errors[p.id] ? true : undefined} inputMode="decimal" placeholder="not offered" className="w-32 rounded-md border border-line px-2 py-1 aria-[invalid=true]:border-alarm-700" value={texts[p.id] ?? ""} onChange={(e) => setTexts({ ...texts, [p.id]: e.target.value })} />
+                  {errors[p.id] && <span role="alert" className="ml-2 text-xs font-semibold text-alarm-700">{errors[p.id]}</span>}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        <div className="mt-4 flex items-center gap-3">
+          <Button onClick={onSave} disabled={save.isPending}>Save the price list</Button>
+          {save.isSuccess && <span className="text-sm text-verjus-700">Saved.</span>}
+        </div>
+        {save.isError && <Notice tone="error">{errorMessage(save.error)}</Notice>}
+    </Card>
+  );
+}
