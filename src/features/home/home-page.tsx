@@ -13,6 +13,15 @@ const ROLE_PURPOSE: Record<Role, string> = {
   org_admin: "You manage who from your organisation works on Cellarpact and in which role.",
 };
 
+/** Where each role's daily work starts. */
+const ROLE_START: Record<Role, { to: string; label: string }> = {
+  buyer_technologist: { to: "/specs", label: "Specifications" },
+  buyer_finance: { to: "/audits", label: "Order and pay for audits" },
+  producer_quality: { to: "/readiness", label: "Lots due for filling or shipment" },
+  lab_analyst: { to: "/audits?status=paid", label: "Paid orders awaiting your results" },
+  org_admin: { to: "/members", label: "Manage members" },
+};
+
 export function HomePage() {
   const { user, membership } = useShellContext();
   return (
@@ -28,11 +37,9 @@ export function HomePage() {
               <dd>{ROLE_LABELS[membership.role]}</dd>
             </dl>
             <p className="mt-4 text-sm text-ink-700">{ROLE_PURPOSE[membership.role]}</p>
-            {membership.role === "org_admin" && (
-              <Link to="/members" className="mt-4 inline-block text-sm font-semibold text-must-700 underline">
-                Manage members
-              </Link>
-            )}
+            <Link to={ROLE_START[membership.role].to} className="mt-4 inline-block text-sm font-semibold text-must-700 underline">
+              {ROLE_START[membership.role].label}
+            </Link>
           </Card>
         ) : (
           <EmptyState title="You do not belong to an organisation yet.">
