@@ -9,6 +9,7 @@ import { verdictText } from "../../shared/lots/verdict-text.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, StoredVerdict } from "../../shared/lots/views.ts";
 import { registerPdfFonts } from "./fonts.ts";
+import { PageFooter } from "./page-footer.tsx";
 import { base, stamp } from "./styles.ts";
 
 const s = {
@@ -147,12 +148,7 @@ function Certificate({ d, generatedAt }: { d: ConformityData; generatedAt: Date 
             limits and the sulphite allergen statement follow the law of the market of sale; confirm them with the competent authority before release.
           </Text>
         </View>
-        <View style={s.footer} fixed>
-          <Text>
-            {d.number} · generated {stamp(generatedAt)}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <PageFooter label={`${d.number} · generated ${stamp(generatedAt)}`} />
       </Page>
     </Document>
   );

@@ -4,7 +4,8 @@ import { findParameter } from "../../shared/engine/index.ts";
 import { CONDITION_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../shared/deviations/vocabulary.ts";
 import type { DeviationDetail } from "../../shared/deviations/views.ts";
 import { registerPdfFonts } from "./fonts.ts";
-import { base } from "./styles.ts";
+import { PageFooter } from "./page-footer.tsx";
+import { base, stamp } from "./styles.ts";
 
 const s = {
   ...base,
@@ -74,10 +75,7 @@ function Record({ d, generatedAt }: { d: DeviationDetail; generatedAt: Date }) {
         ) : (
           <Text style={s.small}>Not decided yet.</Text>
         )}
-        <View style={s.footer} fixed>
-          <Text>Deviation #{d.id} · generated {generatedAt.toISOString().slice(0, 16).replace("T", " ")} UTC</Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <PageFooter label={`Deviation #${d.id} · generated ${stamp(generatedAt)}`} />
       </Page>
     </Document>
   );

@@ -3,6 +3,7 @@ import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-p
 import { formatMoney, ORDER_STATUS_LABELS } from "../../shared/audits/vocabulary.ts";
 import type { AuditOrderDetail } from "../../shared/audits/views.ts";
 import { registerPdfFonts } from "./fonts.ts";
+import { PageFooter } from "./page-footer.tsx";
 import { base, stamp } from "./styles.ts";
 
 const s = { ...base, ...StyleSheet.create({ wide: { width: "46%", paddingRight: 4 }, num: { width: "18%", textAlign: "right" } }) };
@@ -63,12 +64,7 @@ function InvoiceDocument({ o, generatedAt }: { o: AuditOrderDetail; generatedAt:
           </Text>
           <Text style={s.small}>Prices are the laboratory's list prices when the order was placed. Taxes, where they apply, are shown on the laboratory's own invoice.</Text>
         </View>
-        <View style={s.footer} fixed>
-          <Text>
-            {o.reference} · generated {stamp(generatedAt)}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <PageFooter label={`${o.reference} · generated ${stamp(generatedAt)}`} />
       </Page>
     </Document>
   );

@@ -5,6 +5,7 @@ import { SEVERITY_LABELS, SPEC_STATUS_LABELS, STAGE_LABELS } from "../../shared/
 import type { SpecVersionDetail } from "../../shared/specs/views.ts";
 import { wineProfile } from "../../shared/specs/profile.ts";
 import { PDF_FONT, registerPdfFonts } from "./fonts.ts";
+import { PageFooter } from "./page-footer.tsx";
 
 export type SpecSheetData = Pick<SpecVersionDetail, "number" | "status" | "title" | "vintageFrom" | "vintageTo" | "stages" | "contract" | "requirements"> & { generatedAt: Date };
 
@@ -28,7 +29,6 @@ const s = StyleSheet.create({
   cLaw: { width: "27%" },
   small: { fontSize: 7.5, color: "#384150" },
   caution: { marginTop: 14, padding: 8, borderWidth: 0.5, borderColor: line, fontSize: 8, color: "#384150" },
-  footer: { position: "absolute", bottom: 24, left: 36, right: 36, fontSize: 7.5, color: "#5c6470", flexDirection: "row", justifyContent: "space-between" },
 });
 
 const num = (x: number | null | undefined) => (x === null || x === undefined ? null : String(Number(x.toPrecision(6))));
@@ -135,12 +135,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           in force at the time of sale prevails, and conformity near a limit should be confirmed by an accredited laboratory. Sulphite labelling duties apply
           above 10 mg/L total SO2 in the EU and from 10 mg/L in the US.
         </Text>
-        <View style={s.footer} fixed>
-          <Text>
-            {d.contract.reference} · version {d.number} · {SPEC_STATUS_LABELS[d.status]}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <PageFooter label={`${d.contract.reference} · version ${d.number} · ${SPEC_STATUS_LABELS[d.status]}`} />
       </Page>
     </Document>
   );

@@ -81,7 +81,8 @@ describe("deviations", () => {
     expect(list.every((d) => d.contractId === 3)).toBe(true);
     const lab = await signInAs(t.app, DEMO.labAdmin);
     expect((await lab.agent.get(`/api/orgs/${ORG.lab}/deviations/${deviationId}`)).status).toBe(404);
-    expect((await lab.agent.get(`/api/orgs/${ORG.lab}/deviations`)).body).toEqual([]);
+    // The laboratory lists only what its paid audits opened (tests/api/audits.test.ts), never this one.
+    expect((await lab.agent.get(`/api/orgs/${ORG.lab}/deviations`)).body.map((d: { id: number }) => d.id)).not.toContain(deviationId);
   });
 
   it("when a producer attaches a PDF to a message and the record is printed, then the file is kept with its hash and the PDF holds the discussion", async () => {

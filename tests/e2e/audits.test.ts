@@ -107,7 +107,10 @@ describe("a paid independent audit", () => {
     await expectAccessible(page, "audit order (laboratory)");
     await screenshot(page, "audit-lab-results");
     await page.getByRole("button", { name: "Send the results" }).click();
-    await page.getByText(/1 lot\(s\) disagree with the declared results/).waitFor();
+    // Either the confirmation or an error message: say which, so a failure names its cause.
+    const outcome = page.getByText(/Results sent\./).or(page.getByRole("alert"));
+    await outcome.first().waitFor({ timeout: 20_000 });
+    expect(await outcome.first().textContent()).toMatch(/1 lot\(s\) disagree with the declared results/);
     await nav("Deviations");
     await page.getByRole("cell", { name: lotCode }).first().waitFor();
     await signOut(page);
