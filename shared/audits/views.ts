@@ -58,6 +58,8 @@ export interface AuditOrderDetail extends AuditOrderSummary {
   lots: AuditedLotView[];
   deviationIds: number[];
   reportReference: string | null;
+  /** The unit each parameter is asked in: the governing spec row's, else the catalogue's. */
+  units: Record<string, string>;
   /** What the caller may do now. */
   actions: { pay: boolean; refund: boolean; submitResults: boolean };
 }

@@ -6,7 +6,7 @@ const money = (cents: number, currency: string) => new Intl.NumberFormat("en-GB"
 
 export function paymentPage(s: CheckoutSession, error?: string): string {
   const lines = s.line_items_summary
-    .map((l) => `<tr><td>${escape(l.name)}</td><td class="n">${l.quantity}</td><td class="n">${money(l.amount * l.quantity, s.currency)}</td></tr>`)
+    .map((l) => `<tr><td>${escape(l.name)}</td><td class="n">${l.quantity} ×</td><td class="n">${money(l.amount * l.quantity, s.currency)}</td></tr>`)
     .join("");
   const body =
     s.status === "open"

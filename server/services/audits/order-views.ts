@@ -9,6 +9,8 @@ import { AnalysisEvaluation } from "../../models/evaluation.ts";
 import { Contract } from "../../models/contract.ts";
 import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { orderReference } from "../../../shared/audits/vocabulary.ts";
+import { findParameter } from "../../../shared/engine/index.ts";
+import { governingVersion } from "../lots/governing.ts";
 import type { AuditOrderDetail, AuditOrderSummary } from "../../../shared/audits/views.ts";
 import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import type { Role } from "../../../shared/auth/roles.ts";
@@ -56,6 +58,9 @@ export async function detailOf(id: number, side: OrderSide, role: Role): Promise
   const analysisIds = o.lots.map((l) => l.analysisId).filter((x): x is number => x !== null);
   const evaluations = new Map((await AnalysisEvaluation.findAll({ where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } } })).map((e) => [e.analysisId, e.verdicts as StoredVerdict[]]));
   const deviations = await Deviation.findAll({ where: { auditOrderId: id }, attributes: ["id"] });
+  // Results are asked for in the units the spec sheet speaks, the way both parties read them.
+  const governing = o.lots[0] ? await governingVersion(o.contractId, o.lots[0].lot.vintage) : null;
+  const specUnits = Object.fromEntries((governing?.requirements ?? []).filter((r) => o.parameters.includes(r.parameter)).map((r) => [r.parameter, r.unit]));
   // The laboratory works blind: the producer's declared values stay hidden from it.
   const showComparisons = side !== "laboratory";
   return {
@@ -76,6 +81,7 @@ export async function detailOf(id: number, side: OrderSide, role: Role): Promise
     })),
     deviationIds: deviations.map((d) => d.id),
     reportReference: o.reportReference,
+    units: Object.fromEntries(o.parameters.map((p) => [p, specUnits[p] ?? findParameter(p)?.unit ?? ""])),
     actions: {
       pay: side === "buyer" && role === "buyer_finance" && (o.status === "awaiting_payment" || o.status === "payment_failed"),
       refund: side === "buyer" && role === "buyer_finance" && o.status === "paid",

@@ -23,7 +23,7 @@ export function LabResultsForm({ orgId, order }: { orgId: number; order: AuditOr
   const [accreditation, setAccreditation] = useState("");
   const [reportReference, setReportReference] = useState("");
   const [cells, setCells] = useState<Record<string, FormCell>>(() =>
-    Object.fromEntries(order.lots.flatMap((l) => order.parameters.map((p) => [cellKey(l.lotId, p), { raw: "", unit: findParameter(p)?.unit ?? "", u: "" }]))),
+    Object.fromEntries(order.lots.flatMap((l) => order.parameters.map((p) => [cellKey(l.lotId, p), { raw: "", unit: order.units[p] ?? findParameter(p)?.unit ?? "", u: "" }]))),
   );
   const [key] = useState(() => crypto.randomUUID());
   const [errors, setErrors] = useState<string[]>([]);

@@ -28,7 +28,11 @@ export function DeviationPage() {
     <>
       <PageHeader
         title={`Deviation #${d.id}: lot ${d.lotCode}`}
-        lead={<>{d.wineName}, vintage {d.vintage} · <Link className="underline" to={`/lots/${d.lotId}`}>lot page</Link> · {d.producerName} · {d.summary}</>}
+        lead={
+          <>
+            {d.wineName}, vintage {d.vintage} · {d.side === "laboratory" ? `lot ${d.lotCode}` : <Link className="underline" to={`/lots/${d.lotId}`}>lot page</Link>} · {d.producerName} · {d.summary}
+          </>
+        }
         actions={
           <div className="flex items-center gap-2">
             <span className="rounded-full bg-must-50 px-3 py-1 text-sm font-semibold text-must-700">{DEVIATION_STATUS_LABELS[d.status]}</span>
@@ -61,7 +65,11 @@ export function DeviationPage() {
         </Card>
         {d.actions.decide && <DecisionCard orgId={orgId} d={d} />}
         {d.actions.close && <CloseCard orgId={orgId} d={d} />}
-        <HistoryPanel orgId={orgId} entityType="deviation" entityId={d.id} />
+        {d.side === "laboratory" ? (
+          <Notice>The laboratory reads this deviation because its audit opened it; the buyer and the producer discuss and decide it.</Notice>
+        ) : (
+          <HistoryPanel orgId={orgId} entityType="deviation" entityId={d.id} />
+        )}
       </div>
     </>
   );
