@@ -4,7 +4,8 @@ import type { RouteRegistry } from "../http/route-registry.ts";
 import { orgMember } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { listOrganisationAudit, verifyAuditChain } from "../services/audit-service.ts";
-import { HISTORY_ENTITY_TYPES, historyFor } from "../services/audit-access.ts";
+import { historyFor } from "../services/audit-access.ts";
+import { HISTORY_ENTITY_TYPES } from "../../shared/auth/history.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: "Use a date like 2026-03-31." });
@@ -40,7 +41,7 @@ export function registerAuditRoutes(r: RouteRegistry): void {
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/history/:entityType/:entityId", tag: "audit", summary: "The recorded history of a spec version, lot, deviation or contract you are party to", access: PARTIES, params: orgParams.extend({ entityType: z.enum(HISTORY_ENTITY_TYPES), entityId: idParam }) },
+    { method: "get", path: "/api/orgs/:orgId/history/:entityType/:entityId", tag: "audit", summary: "The recorded history of a spec version, lot, deviation, contract or audit order you are party to", access: PARTIES, params: orgParams.extend({ entityType: z.enum(HISTORY_ENTITY_TYPES), entityId: idParam }) },
     ({ params }) => historyFor(params.orgId, params.entityType, params.entityId),
   );
 

@@ -4,9 +4,9 @@ import { versionFor, contractFor } from "./specs/spec-access.ts";
 import { lotFor } from "./lots/lot-access.ts";
 import { Deviation } from "../models/deviation.ts";
 import { entityHistory } from "./audit-service.ts";
+import type { HistoryEntityType } from "../../shared/auth/history.ts";
+import { orderFor } from "./audits/order-access.ts";
 
-export const HISTORY_ENTITY_TYPES = ["spec_version", "lot", "deviation", "contract"] as const;
-export type HistoryEntityType = (typeof HISTORY_ENTITY_TYPES)[number];
 
 export async function historyFor(orgId: number, entityType: HistoryEntityType, entityId: number) {
   switch (entityType) {
@@ -19,6 +19,12 @@ export async function historyFor(orgId: number, entityType: HistoryEntityType, e
     case "contract":
       await contractFor(orgId, entityId);
       break;
+    case "audit_order": {
+      // An order's trail holds its payments: the buyer's business only.
+      const { side } = await orderFor(orgId, entityId);
+      if (side !== "buyer") throw notFound("The audit order");
+      break;
+    }
     case "deviation": {
       const d = await Deviation.findByPk(entityId);
       if (!d) throw notFound("The deviation");

@@ -166,6 +166,15 @@ describe("ordering and paying an audit", () => {
     expect(await countOf("SELECT COUNT(*) AS n FROM audit_events WHERE action IN ('payment.refunded', 'audit_order.refund_requested') AND entity_id = ?", [String(placed.id)])).toBe(2);
     const second = await finance.agent.post(B(`/audit-orders/${placed.id}/refund`)).set("x-csrf-token", finance.csrf).send({ reason: "again" });
     expect(second.status).toBe(409);
+
+    // The order's trail, in order, for the buyer only.
+    const history = await finance.agent.get(B(`/history/audit_order/${placed.id}`));
+    const actions = history.body.map((e: { action: string }) => e.action);
+    expect(actions.indexOf("payment.failed")).toBeLessThan(actions.indexOf("payment.succeeded"));
+    expect(actions.indexOf("payment.succeeded")).toBeLessThan(actions.indexOf("payment.refunded"));
+    expect(actions).toEqual(expect.arrayContaining(["audit_order.created", "audit_order.checkout_started", "audit_order.refund_requested"]));
+    const lab = await signInAs(t.app, DEMO.labAnalyst);
+    expect((await lab.agent.get(`/api/orgs/${ORG.lab}/history/audit_order/${placed.id}`)).status).toBe(404);
   });
 });
 

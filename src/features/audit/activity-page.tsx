@@ -81,7 +81,7 @@ export function ActivityPage() {
                 <tr key={e.seq} className="border-b border-line/60 align-top">
                   <td className="py-2 pr-4 tabular-nums">{e.seq}</td>
                   <td className="py-2 pr-4 tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</td>
-                  <td className="py-2 pr-4">{e.actorName ?? "—"}</td>
+                  <td className="py-2 pr-4">{e.actorName ?? "system"}</td>
                   <td className="py-2 pr-4">{ACTION_LABELS[e.action] ?? e.action}</td>
                   <td className="py-2 pr-4 text-ink-700">
                     {e.details ? Object.entries(e.details).map(([k, v]) => `${k}: ${String(v)}`).join(", ") : "—"}

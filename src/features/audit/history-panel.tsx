@@ -1,11 +1,12 @@
 /** The recorded history of one entity, with the hash chain's verification on demand. */
 import { useMutation, useQuery } from "@tanstack/react-query";
+import type { HistoryEntityType } from "../../../shared/auth/history.ts";
 import { historyQuery, verifyChain } from "../deviations/api/deviations.ts";
 import { Card } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
 
-export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; entityType: "deviation" | "lot" | "spec_version" | "contract"; entityId: number }) {
+export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; entityType: HistoryEntityType; entityId: number }) {
   const history = useQuery(historyQuery(orgId, entityType, entityId));
   const verify = useMutation({ mutationFn: () => verifyChain(orgId) });
   return (

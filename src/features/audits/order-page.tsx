@@ -9,6 +9,7 @@ import { LabResultsForm } from "./lab-results-form.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { LegalCaution } from "../specs/legal-caution.tsx";
+import { HistoryPanel } from "../audit/history-panel.tsx";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
@@ -74,6 +75,7 @@ export function OrderPage() {
             <LegalCaution />
           </Card>
         )}
+        {o.lines.length > 0 && <HistoryPanel orgId={orgId} entityType="audit_order" entityId={o.id} />}
       </div>
     </>
   );
