@@ -240,6 +240,10 @@ describe("webhooks", () => {
     const res = await fetch(url, { method: "POST", redirect: "manual", headers: { "content-type": "application/x-www-form-urlencoded" }, body: new URLSearchParams({ card: "4242424242424242", exp: "12/34", cvc: "123", name: "O P" }) });
     expect(res.status).toBe(303);
     await waitFor("a failed attempt", async () => fake.webhooks.attempts.some((a) => a.error !== null));
+    // Paid at Stripe but not yet confirmed here: pressing Pay again must not open a second payment.
+    const again = await finance.agent.post(B(`/audit-orders/${placed.id}/checkout`)).set("x-csrf-token", finance.csrf);
+    expect(again.status).toBe(409);
+    expect(again.body.detail).toMatch(/already paid/);
     fake.webhooks.point(`${base}/api/webhooks/stripe`);
     await waitFor("the retried payment", async () => (await order(placed.id)).status === "paid");
     expect(fake.webhooks.attempts.some((a) => a.attempt > 1 && a.status === 200)).toBe(true);

@@ -6,7 +6,9 @@
 import { describe, expect, it } from "vitest";
 import { compareWithReference, convert } from "../../shared/engine/index.ts";
 import { quoteAudit } from "../../shared/audits/pricing.ts";
-import { formatMoney, orderStatus } from "../../shared/audits/vocabulary.ts";
+import { formatMoney, orderStatus, parseMoney } from "../../shared/audits/vocabulary.ts";
+import { cellKey, cellsFromSamples } from "../../shared/audits/lab-csv.ts";
+import { buildSamples, guessMapping } from "../../shared/lots/csv.ts";
 
 const value = (v: number) => ({ kind: "value" as const, value: v });
 const U = (v: number) => ({ kind: "expanded" as const, value: v, k: 2 });
@@ -75,5 +77,27 @@ describe("pricing and the order's status", () => {
     expect(orderStatus({ ...base, paidCents: 4500, refundedCents: 4500 })).toBe("refunded");
     expect(orderStatus({ ...base, paidCents: 4500, refundedCents: 1000 })).toBe("paid");
     expect(orderStatus({ ...base, paidCents: 4500, resultsSubmittedAt: new Date() })).toBe("completed");
+  });
+});
+
+describe("money and the laboratory's CSV", () => {
+  it("reads prices as typed into whole cents and refuses what is not a price", () => {
+    expect(parseMoney("14")).toBe(1400);
+    expect(parseMoney("14,5")).toBe(1450);
+    expect(parseMoney(" 14.05 ")).toBe(1405);
+    for (const bad of ["14.005", "-3", "1e3", "€14", ""]) expect(parseMoney(bad)).toBeNull();
+  });
+
+  it("fills the ordered lots and parameters from a laboratory export and reports the rest", () => {
+    const headers = ["Sample", "Volatile acidity (g/L as acetic acid)", "Free SO2 (mg/L)", "pH"];
+    const rows = [
+      ["SB-25-11", "0,52 ± 0,03", "34 ± 3", "3.21"],
+      ["SB-99-99", "0,40", "30", "3.3"],
+    ];
+    const { samples } = buildSamples(headers, rows, guessMapping(headers), { sampleDate: "2026-11-28" });
+    const { cells, skipped } = cellsFromSamples(samples, [{ lotId: 7, lotCode: "SB-25-11" }], ["volatile_acidity", "free_so2"]);
+    expect(cells[cellKey(7, "volatile_acidity")]).toEqual({ raw: "0,52", unit: "g/L as acetic acid", u: "0.03" });
+    expect(cells[cellKey(7, "free_so2")]).toEqual({ raw: "34", unit: "mg/L", u: "3" });
+    expect(skipped).toEqual(["pH for SB-25-11 was not ordered", "lot SB-99-99 is not in this order"]);
   });
 });

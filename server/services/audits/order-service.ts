@@ -109,6 +109,8 @@ export async function startCheckout(buyerOrgId: number, id: number, user: Sessio
     if (order.checkoutSessionId) {
       const existing = await client.checkout.sessions.retrieve(order.checkoutSessionId);
       if (existing.status === "open" && existing.url) return { url: existing.url };
+      // Paid, but Stripe's event has not reached us yet: a second session would charge twice.
+      if (existing.status === "complete") throw conflict("This order is already paid; the confirmation from the payment service is on its way.");
     }
     const attempt = order.checkoutSessionId ? `${order.id}-${Date.now()}` : String(order.id);
     const session = await client.checkout.sessions.create(
