@@ -150,7 +150,12 @@ describe("the laboratory's side", () => {
     const lot = await producer.agent.get(P(`/lots/${lotId}`));
     expect(lot.body.audits[0].reference).toMatch(/^AUD-\d{5}$/);
     expect(lot.body.audits[0].comparisons).toHaveLength(3);
-    expect(lot.body.analyses.filter((a: { auditOrderId: number | null }) => a.auditOrderId === orderId)).toHaveLength(1);
+    const audited = lot.body.analyses.filter((a: { auditOrderId: number | null }) => a.auditOrderId === orderId);
+    expect(audited).toHaveLength(1);
+    // Judged on the ordered parameters only: the spec's other rows are not "missing" from an audit.
+    expect(audited[0].evaluation.verdicts.map((v: { parameter: string }) => v.parameter).sort()).toEqual(["alcohol", "free_so2", "volatile_acidity"]);
+    const upload = await producer.agent.post(P(`/analyses/${audited[0].id}/certificates`)).set("x-csrf-token", producer.csrf).attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "report.pdf");
+    expect(upload.status).toBe(403);
   });
 });
 

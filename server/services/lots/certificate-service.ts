@@ -6,7 +6,7 @@ import { Analysis } from "../../models/lot.ts";
 import { Certificate } from "../../models/evaluation.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
-import { notFound } from "../../http/problem.ts";
+import { forbidden, notFound } from "../../http/problem.ts";
 import { discardFile, readStoredFile, saveCheckedFile } from "../stored-files.ts";
 import { lotFor } from "./lot-access.ts";
 import type { SessionUser } from "../session-service.ts";
@@ -18,6 +18,8 @@ export async function storeCertificate(orgId: number, analysisId: number, user: 
     throw notFound("The analysis");
   });
   if (side !== "producer") throw notFound("The analysis");
+  // The independent laboratory's analysis is its own report, not the producer's to document.
+  if (analysis.auditOrderId) throw forbidden("This analysis came from an independent audit; its report belongs to the laboratory.");
   const saved = await saveCheckedFile(file);
   try {
     return await inTransaction(async (t) => {

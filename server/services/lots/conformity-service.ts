@@ -25,12 +25,7 @@ export async function conformityCertificate(orgId: number, lotId: number, role: 
   const lot = await getLot(orgId, lotId, role);
   const declared = [...lot.analyses].reverse().find((a) => a.auditOrderId === null && a.evaluation) ?? null;
   const latestAudit = lot.audits[0] ?? null;
-  const auditAnalysis = latestAudit ? lot.analyses.find((a) => a.id === latestAudit.analysisId) : undefined;
-  // The audit speaks only for the parameters ordered; the spec's other rows are the producer's to declare.
-  const ordered = new Set<string>(latestAudit?.comparisons.map((c) => c.parameter));
-  const audit = latestAudit
-    ? { ...latestAudit, analysis: auditAnalysis?.evaluation ? { ...auditAnalysis, evaluation: { ...auditAnalysis.evaluation, verdicts: auditAnalysis.evaluation.verdicts.filter((v) => ordered.has(v.parameter)) } } : null }
-    : null;
+  const audit = latestAudit ? { ...latestAudit, analysis: lot.analyses.find((a) => a.id === latestAudit.analysisId) ?? null } : null;
   if (!declared && !audit?.analysis) throw conflict("This lot has no evaluated results yet; a certificate needs at least one analysis.");
   const outcomes = [...(declared?.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])].map((v) => v.outcome);
   const discrepant = audit?.comparisons.some((c) => c.outcome === "discrepant") ?? false;

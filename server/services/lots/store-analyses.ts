@@ -87,7 +87,10 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
   const summary: StoredSummary = { analysisIds: analyses.map((a) => a.id), failing: [], deviationIds: [] };
   const evaluations = samples.map((s, i) => {
     const g = governingCache.get(s.lot.vintage);
-    const e = evaluateAnalysis(contract.wine, s.lot, header.stage, g?.requirements ?? null, s.results);
+    // An audit speaks only for the parameters ordered; the spec's other rows are not "missing" from it.
+    const reported = new Set(s.results.map((r) => r.parameter));
+    const requirements = header.auditOrderId ? (g?.requirements.filter((r) => reported.has(r.parameter)) ?? null) : (g?.requirements ?? null);
+    const e = evaluateAnalysis(contract.wine, s.lot, header.stage, requirements, s.results);
     const failing = e.verdicts.filter((v) => FAILING.has(v.outcome)).map((v) => v.parameter);
     if (failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: failing });
     return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts };

@@ -115,7 +115,7 @@ export function LotPage() {
                   Certificate: {c.originalName} ({Math.round(c.sizeBytes / 1024)} KB, SHA-256 {c.sha256.slice(0, 12)}…)
                 </a>
               ))}
-              {l.canSubmit && <CertificateUpload orgId={orgId} analysisId={a.id} />}
+              {l.canSubmit && !a.auditOrderId && <CertificateUpload orgId={orgId} analysisId={a.id} />}
             </div>
           </Card>
         ))}
