@@ -2,6 +2,7 @@
 import { z } from "zod";
 import { PARAMETERS } from "../engine/index.ts";
 import { ANALYSIS_STAGES } from "../lots/vocabulary.ts";
+import { ORDER_STATUSES } from "./vocabulary.ts";
 import { idempotencyKeySchema, isoDate, resultEntrySchema } from "../lots/schemas.ts";
 
 const parameterIds = PARAMETERS.filter((p) => !("derivedFrom" in p && p.derivedFrom)).map((p) => p.id) as [string, ...string[]];
@@ -53,7 +54,7 @@ export const labResultsSchema = z.object({
 export type LabResultsInput = z.infer<typeof labResultsSchema>;
 
 export const auditListQuerySchema = z.object({
-  status: z.enum(["awaiting_payment", "payment_failed", "paid", "completed", "refunded"]).optional(),
+  status: z.enum(ORDER_STATUSES).optional(),
   from: isoDate.optional(),
   to: isoDate.optional(),
 });

@@ -112,7 +112,8 @@ export async function startCheckout(buyerOrgId: number, id: number, user: Sessio
       // Paid, but Stripe's event has not reached us yet: a second session would charge twice.
       if (existing.status === "complete") throw conflict("This order is already paid; the confirmation from the payment service is on its way.");
     }
-    const attempt = order.checkoutSessionId ? `${order.id}-${Date.now()}` : String(order.id);
+    // After an expired session the key names the session it replaces, so concurrent retries still meet.
+    const attempt = order.checkoutSessionId ? `${order.id}-after-${order.checkoutSessionId}` : String(order.id);
     const session = await client.checkout.sessions.create(
       {
         mode: "payment",
