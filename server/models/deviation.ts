@@ -1,4 +1,4 @@
-import { storedFileAttributes } from "./stored-file-attributes.ts";
+import { StoredFileModel, storedFileAttributes } from "./stored-file-attributes.ts";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { DeviationDecision, DeviationKind, DeviationProposal, DeviationStatus, MessageKind, QuotedResult } from "../../shared/deviations/vocabulary.ts";
 
@@ -102,16 +102,8 @@ export class DeviationMessageEdit extends Model<InferAttributes<DeviationMessage
   }
 }
 
-export class DeviationAttachment extends Model<InferAttributes<DeviationAttachment>, InferCreationAttributes<DeviationAttachment>> {
-  declare id: CreationOptional<number>;
+export class DeviationAttachment extends StoredFileModel<DeviationAttachment> {
   declare messageId: number;
-  declare originalName: string;
-  declare storedName: string;
-  declare mime: string;
-  declare sizeBytes: number;
-  declare sha256: string;
-  declare uploadedBy: number;
-  declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     DeviationAttachment.init(

@@ -1,4 +1,4 @@
-import { storedFileAttributes } from "./stored-file-attributes.ts";
+import { StoredFileModel, storedFileAttributes } from "./stored-file-attributes.ts";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { StoredVerdict } from "../../shared/lots/views.ts";
 
@@ -29,16 +29,8 @@ export class AnalysisEvaluation extends Model<InferAttributes<AnalysisEvaluation
   }
 }
 
-export class Certificate extends Model<InferAttributes<Certificate>, InferCreationAttributes<Certificate>> {
-  declare id: CreationOptional<number>;
+export class Certificate extends StoredFileModel<Certificate> {
   declare analysisId: number;
-  declare originalName: string;
-  declare storedName: string;
-  declare mime: string;
-  declare sizeBytes: number;
-  declare sha256: string;
-  declare uploadedBy: number;
-  declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
     Certificate.init(
