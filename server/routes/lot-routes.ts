@@ -55,7 +55,7 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/analyses/:analysisId/certificates", tag: "lots", summary: "Upload the laboratory's certificate (PDF, PNG or JPEG, checked by content)", access: PRODUCER, params: orgParams.extend({ analysisId: idParam }), consumes: "multipart/form-data", before: upload, status: 201, errors: { 413: "file too large", 415: "not a PDF or image" } },
+    { method: "post", path: "/api/orgs/:orgId/analyses/:analysisId/certificates", tag: "lots", summary: "Upload the laboratory's certificate (PDF, PNG or JPEG, checked by content): the producer for its analyses, the audit laboratory for its own", access: orgMember("producer_quality", "lab_analyst"), params: orgParams.extend({ analysisId: idParam }), consumes: "multipart/form-data", before: upload, status: 201, errors: { 413: "file too large", 415: "not a PDF or image" } },
     ({ params, user, req }) => {
       if (!req.file) throw badRequest('Send the certificate as multipart/form-data in the field "file".');
       return storeCertificate(params.orgId, params.analysisId, user, req.file);
@@ -63,7 +63,7 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/certificates/:certificateId", tag: "lots", summary: "Download a certificate", access: PARTIES, params: orgParams.extend({ certificateId: idParam }), produces: "application/octet-stream" },
+    { method: "get", path: "/api/orgs/:orgId/certificates/:certificateId", tag: "lots", summary: "Download a certificate", access: orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin"), params: orgParams.extend({ certificateId: idParam }), produces: "application/octet-stream" },
     async ({ params, res }) => {
       const c = await readCertificate(params.orgId, params.certificateId);
       res.status(200).type(c.mime).attachment(c.filename).setHeader("X-Content-Type-Options", "nosniff");

@@ -156,6 +156,17 @@ describe("the laboratory's side", () => {
     expect(audited[0].evaluation.verdicts.map((v: { parameter: string }) => v.parameter).sort()).toEqual(["alcohol", "free_so2", "volatile_acidity"]);
     const upload = await producer.agent.post(P(`/analyses/${audited[0].id}/certificates`)).set("x-csrf-token", producer.csrf).attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "report.pdf");
     expect(upload.status).toBe(403);
+    // The laboratory attaches its own report to its analysis; both parties can then read it.
+    const report = await lab.agent.post(L(`/analyses/${audited[0].id}/certificates`)).set("x-csrf-token", lab.csrf).attach("file", Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n"), "NG-26-1187.pdf");
+    expect(report.status).toBe(201);
+    const withReport = await producer.agent.get(P(`/lots/${lotId}`));
+    const cert = withReport.body.analyses.find((a: { id: number }) => a.id === audited[0].id).certificates[0];
+    expect(cert.originalName).toBe("NG-26-1187.pdf");
+    expect((await tech.agent.get(B(`/certificates/${cert.id}`))).status).toBe(200);
+    expect((await lab.agent.get(L(`/certificates/${cert.id}`))).status).toBe(200);
+    // Not on the producer's own analyses, though.
+    const declaredId = withReport.body.analyses.find((a: { auditOrderId: number | null }) => a.auditOrderId === null).id;
+    expect((await lab.agent.post(L(`/analyses/${declaredId}/certificates`)).set("x-csrf-token", lab.csrf).attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "x.pdf")).status).toBe(404);
   });
 });
 

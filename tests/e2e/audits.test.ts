@@ -111,6 +111,12 @@ describe("a paid independent audit", () => {
     const outcome = page.getByText(/Results sent\./).or(page.getByRole("alert"));
     await outcome.first().waitFor({ timeout: 20_000 });
     expect(await outcome.first().textContent()).toMatch(/1 lot\(s\) disagree with the declared results/);
+    await page.getByLabel(`Attach your signed report for lot ${lotCode}`, { exact: false }).setInputFiles({
+      name: "NG-26-2041.pdf",
+      mimeType: "application/pdf",
+      buffer: Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n"),
+    });
+    await page.getByText(/Attached\. SHA-256/).waitFor();
     await nav("Deviations");
     await page.getByRole("cell", { name: lotCode }).first().waitFor();
     await signOut(page);

@@ -1,6 +1,7 @@
 /**
  * Laboratory certificates: type decided by the file's content (PDF, PNG, JPEG), stored under a random
- * name outside the web root, its SHA-256 in the audit log, downloadable by both parties.
+ * name outside the web root, its SHA-256 in the audit log, downloadable by both parties. The producer
+ * documents its own analyses; an independent audit's report is attached by the laboratory that wrote it.
  */
 import { Analysis } from "../../models/lot.ts";
 import { Certificate } from "../../models/evaluation.ts";
@@ -9,17 +10,28 @@ import { recordAudit } from "../audit-service.ts";
 import { forbidden, notFound } from "../../http/problem.ts";
 import { discardFile, readStoredFile, saveCheckedFile } from "../stored-files.ts";
 import { lotFor } from "./lot-access.ts";
+import { orderFor } from "../audits/order-access.ts";
 import type { SessionUser } from "../session-service.ts";
 
-export async function storeCertificate(orgId: number, analysisId: number, user: SessionUser, file: { buffer: Buffer; originalname: string }) {
-  const analysis = await Analysis.findByPk(analysisId);
-  if (!analysis) throw notFound("The analysis");
+/** The laboratory of the audit that produced this analysis, if the caller is it. */
+async function isAuditLaboratory(orgId: number, analysis: Analysis): Promise<boolean> {
+  if (!analysis.auditOrderId) return false;
+  return (await orderFor(orgId, analysis.auditOrderId).catch(() => null))?.side === "laboratory";
+}
+
+async function mayAttach(orgId: number, analysis: Analysis): Promise<void> {
+  if (await isAuditLaboratory(orgId, analysis)) return;
   const { side } = await lotFor(orgId, analysis.lotId).catch(() => {
     throw notFound("The analysis");
   });
   if (side !== "producer") throw notFound("The analysis");
-  // The independent laboratory's analysis is its own report, not the producer's to document.
   if (analysis.auditOrderId) throw forbidden("This analysis came from an independent audit; its report belongs to the laboratory.");
+}
+
+export async function storeCertificate(orgId: number, analysisId: number, user: SessionUser, file: { buffer: Buffer; originalname: string }) {
+  const analysis = await Analysis.findByPk(analysisId);
+  if (!analysis) throw notFound("The analysis");
+  await mayAttach(orgId, analysis);
   const saved = await saveCheckedFile(file);
   try {
     return await inTransaction(async (t) => {
@@ -36,9 +48,11 @@ export async function storeCertificate(orgId: number, analysisId: number, user: 
 export async function readCertificate(orgId: number, certificateId: number) {
   const cert = await Certificate.findByPk(certificateId);
   if (!cert) throw notFound("The certificate");
-  const analysis = await Analysis.findByPk(cert.analysisId);
-  await lotFor(orgId, analysis!.lotId).catch(() => {
-    throw notFound("The certificate");
-  });
+  const analysis = (await Analysis.findByPk(cert.analysisId))!;
+  if (!(await isAuditLaboratory(orgId, analysis))) {
+    await lotFor(orgId, analysis.lotId).catch(() => {
+      throw notFound("The certificate");
+    });
+  }
   return { body: await readStoredFile(cert.storedName), mime: cert.mime, filename: cert.originalName };
 }

@@ -10,6 +10,7 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { LegalCaution } from "../specs/legal-caution.tsx";
 import { HistoryPanel } from "../audit/history-panel.tsx";
+import { CertificateUpload } from "../lots/certificate-upload.tsx";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
@@ -63,6 +64,14 @@ export function OrderPage() {
                 </>
               )}
             </p>
+            {lab &&
+              o.lots.map((l) =>
+                l.analysisId ? (
+                  <div key={l.lotId} className="mb-4">
+                    <CertificateUpload orgId={orgId} analysisId={l.analysisId} label={`Attach your signed report for lot ${l.lotCode}`} />
+                  </div>
+                ) : null,
+              )}
             {party &&
               o.lots.map((l) => (
                 <div key={l.lotId} className="mb-6">

@@ -4,14 +4,14 @@ import { lotKeys, uploadCertificate } from "./api/lots.ts";
 import { Notice } from "../../components/ui/states.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
 
-export function CertificateUpload({ orgId, analysisId }: { orgId: number; analysisId: number }) {
+export function CertificateUpload({ orgId, analysisId, label = "Attach the laboratory's certificate" }: { orgId: number; analysisId: number; label?: string }) {
   const qc = useQueryClient();
   const [state, setState] = useState<{ tone: "success" | "error"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
   const id = `certificate-${analysisId}`;
   return (
     <div className="flex flex-col gap-1 text-sm">
-      <label htmlFor={id} className="font-semibold">Attach the laboratory's certificate (PDF, PNG or JPEG, at most 10 MB)</label>
+      <label htmlFor={id} className="font-semibold">{label} (PDF, PNG or JPEG, at most 10 MB)</label>
       <input
         id={id}
         type="file"
