@@ -17,7 +17,8 @@ import type { AuditOrderDetail } from "../../../shared/audits/views.ts";
 
 const today = () => new Date().toISOString().slice(0, 10);
 
-export function LabResultsForm({ orgId, order }: { orgId: number; order: AuditOrderDetail }) {
+/** onSent receives the confirmation: the page keeps it, since the form itself goes once the order is complete. */
+export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order: AuditOrderDetail; onSent: (message: string) => void }) {
   const submit = useSubmitLabResults(orgId, order.id);
   const [sampleDate, setSampleDate] = useState(today());
   const [accreditation, setAccreditation] = useState("");
@@ -66,13 +67,11 @@ export function LabResultsForm({ orgId, order }: { orgId: number; order: AuditOr
       return;
     }
     setErrors([]);
-    submit.mutate(parsed.data, { onError: (err) => err instanceof ApiError && setErrors(err.errors.map((e) => describe(e.path.split("."), e.message, order, sent))) });
+    submit.mutate(parsed.data, {
+      onSuccess: (r) => onSent(`Results sent. ${r.discrepancies.length ? `${r.discrepancies.length} lot(s) disagree with the declared results; a deviation was opened for each.` : "No discrepancy with the declared results."}`),
+      onError: (err) => err instanceof ApiError && setErrors(err.errors.map((e) => describe(e.path.split("."), e.message, order, sent))),
+    });
   };
-
-  if (submit.isSuccess) {
-    const r = submit.data;
-    return <Notice tone="success">Results sent. {r.discrepancies.length ? `${r.discrepancies.length} lot(s) disagree with the declared results; a deviation was opened for each.` : "No discrepancy with the declared results."}</Notice>;
-  }
 
   return (
     <div className="flex flex-col gap-4">
@@ -121,7 +120,7 @@ export function LabResultsForm({ orgId, order }: { orgId: number; order: AuditOr
         </Notice>
       )}
       {submit.isError && !(submit.error instanceof ApiError && submit.error.errors.length) && <Notice tone="error">{errorMessage(submit.error)}</Notice>}
-      <Button className="self-start" onClick={onSubmit} disabled={submit.isPending}>Send the results</Button>
+      <Button className="self-start" onClick={onSubmit} disabled={submit.isPending || submit.isSuccess}>Send the results</Button>
     </div>
   );
 }

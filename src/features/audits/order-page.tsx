@@ -1,3 +1,4 @@
+import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { Link, useParams, useSearchParams } from "react-router-dom";
 import { useShellContext } from "../../app/use-shell-context.ts";
@@ -19,6 +20,7 @@ export function OrderPage() {
   const orgId = membership?.organisationId ?? 0;
   const id = Number(useParams().orderId);
   const [search] = useSearchParams();
+  const [sent, setSent] = useState<string | null>(null);
   const returning = search.get("paid") === "1";
   const q = useQuery({
     ...orderQuery(orgId, id),
@@ -50,9 +52,10 @@ export function OrderPage() {
         {o.lines.length > 0 && <PaymentPanel orgId={orgId} order={o} />}
         {lab && o.actions.submitResults && (
           <Card title="Your results">
-            <LabResultsForm orgId={orgId} order={o} />
+            <LabResultsForm orgId={orgId} order={o} onSent={setSent} />
           </Card>
         )}
+        {sent && <Notice tone="success">{sent}</Notice>}
         {o.resultsSubmittedAt && (
           <Card title="Independent results">
             <p className="mb-3 text-sm">
