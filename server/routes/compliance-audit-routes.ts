@@ -1,5 +1,6 @@
 import { z } from "zod";
 import type { RouteRegistry } from "../http/route-registry.ts";
+import { idempotentAnswer } from "../http/idempotent-answer.ts";
 import { orgMember } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { auditListQuerySchema, labResultsSchema, newAuditOrderSchema, priceListSchema } from "../../shared/audits/schemas.ts";
@@ -26,11 +27,7 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
 
   r.add(
     { method: "post", path: "/api/orgs/:orgId/audit-orders", tag: "audits", summary: "Order an independent audit of lots (priced from the laboratory's list; idempotent by key)", access: FINANCE, params: orgParams, body: newAuditOrderSchema, status: 201, errors: { 409: "idempotency key reused with another body" } },
-    async ({ params, user, body, res }) => {
-      const { replayed, response } = await orders.createOrder(params.orgId, user, body);
-      if (replayed) res.locals.status = 200;
-      return response;
-    },
+    async ({ params, user, body, res }) => idempotentAnswer(res, await orders.createOrder(params.orgId, user, body)),
   );
   r.add({ method: "get", path: "/api/orgs/:orgId/audit-orders", tag: "audits", summary: "Audit orders you placed, carry out, or whose lots are yours", access: READERS, params: orgParams, query: auditListQuerySchema }, ({ params, query }) =>
     orders.listOrders(params.orgId, query),
@@ -52,11 +49,7 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
   });
   r.add(
     { method: "post", path: "/api/orgs/:orgId/audit-orders/:orderId/results", tag: "audits", summary: "The laboratory submits its results for a paid order (idempotent by key)", access: orgMember("lab_analyst"), params: orderParams, body: labResultsSchema, status: 201, errors: { 409: "not awaiting results, or key reused" } },
-    async ({ params, user, body, res }) => {
-      const { replayed, response } = await submitLabResults(params.orgId, params.orderId, user, body);
-      if (replayed) res.locals.status = 200;
-      return response;
-    },
+    async ({ params, user, body, res }) => idempotentAnswer(res, await submitLabResults(params.orgId, params.orderId, user, body)),
   );
   r.add({ method: "get", path: "/api/orgs/:orgId/audit-dashboard", tag: "audits", summary: "Spend per producer and month, outstanding and refunded", access: FINANCE, params: orgParams, query: auditListQuerySchema.pick({ from: true, to: true }) }, ({ params, query }) =>
     financeDashboard(params.orgId, query),

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import multer from "multer";
 import type { RouteRegistry } from "../http/route-registry.ts";
+import { idempotentAnswer } from "../http/idempotent-answer.ts";
 import { orgMember } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { PARAMETERS } from "../../shared/engine/index.ts";
@@ -38,20 +39,12 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
 
   r.add(
     { method: "post", path: "/api/orgs/:orgId/lots/:lotId/analyses", tag: "lots", summary: "Submit one analysis; evaluated and stored at once (idempotent by key)", access: PRODUCER, params: orgParams.extend({ lotId: idParam }), body: analysisSubmissionSchema, status: 201, errors: { 409: "idempotency key reused with another body" } },
-    async ({ params, user, body, res }) => {
-      const { replayed, response } = await submissions.submitAnalysis(params.orgId, params.lotId, user, body);
-      if (replayed) res.locals.status = 200;
-      return response;
-    },
+    async ({ params, user, body, res }) => idempotentAnswer(res, await submissions.submitAnalysis(params.orgId, params.lotId, user, body)),
   );
 
   r.add(
     { method: "post", path: "/api/orgs/:orgId/contracts/:contractId/imports", tag: "lots", summary: "Import a batch of analyses from a CSV (idempotent by key)", access: PRODUCER, params: orgParams.extend({ contractId: idParam }), body: importBatchSchema, status: 201, errors: { 409: "idempotency key reused, or a lot's vintage differs" } },
-    async ({ params, user, body, res }) => {
-      const { replayed, response } = await submissions.importAnalyses(params.orgId, params.contractId, user, body);
-      if (replayed) res.locals.status = 200;
-      return response;
-    },
+    async ({ params, user, body, res }) => idempotentAnswer(res, await submissions.importAnalyses(params.orgId, params.contractId, user, body)),
   );
 
   r.add(

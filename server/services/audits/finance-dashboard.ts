@@ -34,6 +34,6 @@ export async function financeDashboard(buyerOrgId: number, f: { from?: string; t
     },
     byProducer: [...producers.values()].sort((a, b) => b.paidCents - a.paidCents),
     byMonth: [...months.values()].sort((a, b) => b.month.localeCompare(a.month)),
-    outstanding: outstanding.map(summaryOf),
+    outstanding: outstanding.map((o) => summaryOf(o, true)),
   };
 }

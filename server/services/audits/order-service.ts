@@ -84,10 +84,7 @@ export async function listOrders(orgId: number, f: OrderFilters = {}) {
     ...(f.status ? { status: f.status } : {}),
     ...(f.from || f.to ? { createdAt: created } : {}),
   });
-  return orders.map((o) => {
-    const s = summaryOf(o);
-    return o.buyerOrgId === orgId ? s : { ...s, amountCents: 0, paidCents: 0, refundedCents: 0 };
-  });
+  return orders.map((o) => summaryOf(o, o.buyerOrgId === orgId));
 }
 
 export async function getOrder(orgId: number, id: number, membership: SessionMembership) {

@@ -25,7 +25,8 @@ export const orderInclude = [
   { model: Contract, as: "contract", include: contractInclude },
 ];
 
-export function summaryOf(o: Loaded): AuditOrderSummary {
+/** Amounts are the paying buyer's business: others see zeros. */
+export function summaryOf(o: Loaded, forBuyer: boolean): AuditOrderSummary {
   return {
     id: o.id,
     reference: orderReference(o.id),
@@ -37,9 +38,9 @@ export function summaryOf(o: Loaded): AuditOrderSummary {
     laboratoryName: o.laboratory.name,
     lotCodes: o.lots.map((l) => l.lot.lotCode),
     parameters: o.parameters,
-    amountCents: o.amountCents,
-    paidCents: o.paidCents,
-    refundedCents: o.refundedCents,
+    amountCents: forBuyer ? o.amountCents : 0,
+    paidCents: forBuyer ? o.paidCents : 0,
+    refundedCents: forBuyer ? o.refundedCents : 0,
     currency: o.currency,
     orderedBy: o.orderer.name,
     createdAt: o.createdAt.toISOString(),
@@ -64,8 +65,7 @@ export async function detailOf(id: number, side: OrderSide, role: Role): Promise
   // The laboratory works blind: the producer's declared values stay hidden from it.
   const showComparisons = side !== "laboratory";
   return {
-    ...summaryOf(o),
-    ...(side === "buyer" ? {} : { amountCents: 0, paidCents: 0, refundedCents: 0 }),
+    ...summaryOf(o, side === "buyer"),
     stage: o.stage,
     note: o.note,
     lines: side === "buyer" ? o.lines : [],
