@@ -59,6 +59,8 @@ describe("a user who forgot the password", () => {
     const { page, baseUrl } = s;
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByRole("link", { name: "Forgot your password?" }).click();
+    // The page is a lazy chunk: until it arrives the sign-in form (with its own e-mail field) is still shown.
+    await page.getByRole("heading", { name: "Reset your password" }).waitFor();
     await page.getByLabel("E-mail address").fill(DEMO.bulkProducerQuality);
     await expectAccessible(page, "forgot password");
     const answer = page.waitForResponse((r) => r.url().endsWith("/api/auth/password-reset/request"));
