@@ -1,10 +1,13 @@
 /**
- * Demo wines, contracts, spec versions and past lots with results (all fictional). "Sentier Rouge"
+ * Demo wines, contracts, spec versions and past lots with results (all fictional); the results are
+ * submitted through the same service producers use. "Sentier Rouge"
  * has two vintages of results but no spec yet, so a buyer can draft one and backtest it.
  */
 import type { QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
 import { SPEC_TEMPLATES } from "../shared/specs/templates.ts";
+import type { AnalysisStage } from "../shared/lots/vocabulary.ts";
+import { submitDemoAnalyses } from "./support/submit-demo-analysis.ts";
 
 const now = new Date("2026-11-20T09:00:00Z");
 const stamps = { created_at: now, updated_at: now };
@@ -84,14 +87,17 @@ interface LotSeed {
   litres: number;
   container: "bottles" | "flexitank";
   date: string;
-  analyses: { stage: string; lab: string; accreditation: string | null; date: string; version: number | null; results: ResultSpec[] }[];
+  analyses: { stage: AnalysisStage; lab: string; accreditation: string | null; date: string; results: ResultSpec[] }[];
 }
+
+/** Who sends each contract's results: the producer's quality member. */
+const PRODUCER_QUALITY: Record<number, string> = { 1: "elise.carbonnel@troissentes.test", 2: "elise.carbonnel@troissentes.test", 3: "priya.anand@kestrelflats.test" };
 
 const OWN_LAB = "Domaine des Trois Sentes cellar laboratory";
 const LOTS: LotSeed[] = [
-  ...[0.48, 0.5, 0.53].map((va, i) => ({ contract: 2, vintage: 2023, code: `SR-23-${i + 1}`, litres: 9000, container: "bottles" as const, date: `2024-0${i + 3}-15`, analyses: [{ stage: "pre_filling", lab: OWN_LAB, accreditation: null, date: `2024-0${i + 3}-02`, version: null, results: redResults(va) }] })),
-  ...[0.58, 0.61, 0.63, 0.52].map((va, i) => ({ contract: 2, vintage: 2024, code: `SR-24-${i + 1}`, litres: 9000, container: "bottles" as const, date: `2025-0${i + 3}-15`, analyses: [{ stage: "pre_filling", lab: OWN_LAB, accreditation: null, date: `2025-0${i + 3}-03`, version: null, results: redResults(va) }] })),
-  ...[2023, 2023, 2024, 2024, 2024].map((vintage, i) => ({ contract: 1, vintage, code: `SB-${vintage % 100}-${i + 1}`, litres: 12000, container: "bottles" as const, date: `${vintage + 1}-0${(i % 5) + 2}-20`, analyses: [{ stage: "pre_filling", lab: OWN_LAB, accreditation: null, date: `${vintage + 1}-0${(i % 5) + 2}-05`, version: 1, results: whiteResults() }] })),
+  ...[0.48, 0.5, 0.53].map((va, i) => ({ contract: 2, vintage: 2023, code: `SR-23-${i + 1}`, litres: 9000, container: "bottles" as const, date: `2024-0${i + 3}-15`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `2024-0${i + 3}-02`, results: redResults(va) }] })),
+  ...[0.58, 0.61, 0.63, 0.52].map((va, i) => ({ contract: 2, vintage: 2024, code: `SR-24-${i + 1}`, litres: 9000, container: "bottles" as const, date: `2025-0${i + 3}-15`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `2025-0${i + 3}-03`, results: redResults(va) }] })),
+  ...[2023, 2023, 2024, 2024, 2024].map((vintage, i) => ({ contract: 1, vintage, code: `SB-${vintage % 100}-${i + 1}`, litres: 12000, container: "bottles" as const, date: `${vintage + 1}-0${(i % 5) + 2}-20`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `${vintage + 1}-0${(i % 5) + 2}-05`, results: whiteResults() }] })),
   ...[1, 2].map((n) => {
     const before = redResults(around(0.5, 0.08, 2));
     const after = before.map(([p, u, v]): ResultSpec => [p, u, p === "free_so2" ? v - (n === 1 ? 6 : 14) : p === "volatile_acidity" ? Number((v + 0.03).toFixed(2)) : v]);
@@ -103,8 +109,8 @@ const LOTS: LotSeed[] = [
       container: "flexitank" as const,
       date: `2025-0${n + 4}-10`,
       analyses: [
-        { stage: "pre_shipment", lab: "Riverland Wine Analysis Services", accreditation: "NATA 18844", date: `2025-0${n + 2}-20`, version: 2, results: before },
-        { stage: "on_arrival", lab: "Northgate Oenology Laboratory", accreditation: "UKAS 4412", date: `2025-0${n + 4}-12`, version: 2, results: after },
+        { stage: "pre_shipment" as const, lab: "Riverland Wine Analysis Services", accreditation: "NATA 18844", date: `2025-0${n + 2}-20`, results: before },
+        { stage: "on_arrival" as const, lab: "Northgate Oenology Laboratory", accreditation: "UKAS 4412", date: `2025-0${n + 4}-12`, results: after },
       ],
     };
   }),
@@ -152,27 +158,25 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
     ),
   );
   let lotId = 0;
-  let analysisId = 0;
   for (const lot of LOTS) {
     lotId += 1;
     await qi.bulkInsert("lots", [{ id: lotId, contract_id: lot.contract, vintage: lot.vintage, lot_code: lot.code, volume_litres: lot.litres, container: lot.container, planned_date: lot.date, market: "EU", ...stamps }]);
-    for (const a of lot.analyses) {
-      analysisId += 1;
-      await qi.bulkInsert("analyses", [{ id: analysisId, lot_id: lotId, stage: a.stage, laboratory_name: a.lab, accreditation: a.accreditation, sample_date: a.date, spec_version_id: a.version, submitted_by: null, ...stamps }]);
-      await qi.bulkInsert(
-        "analysis_results",
-        a.results.map(([parameter, unit, value]) => ({
-          analysis_id: analysisId,
-          parameter,
-          raw_text: String(value),
-          reading: JSON.stringify({ kind: "value", value }),
-          unit,
-          uncertainty: null,
-          method: null,
-        })),
-      );
-    }
   }
+  await submitDemoAnalyses(
+    qi,
+    LOTS.flatMap((lot) =>
+      lot.analyses.map((a) => ({
+        lotCode: lot.code,
+        contractId: lot.contract,
+        by: PRODUCER_QUALITY[lot.contract]!,
+        stage: a.stage,
+        lab: a.lab,
+        accreditation: a.accreditation,
+        sampleDate: a.date,
+        results: a.results.map(([parameter, unit, value]): [string, string, string] => [parameter, String(value), unit]),
+      })),
+    ),
+  );
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {

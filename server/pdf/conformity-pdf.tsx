@@ -1,12 +1,14 @@
 /**
- * Certificate of conformity for one lot: the parties, the wine, the governing spec version, every result
- * with its uncertainty and verdict, the decision rule applied, the independent audit's outcome, and the
- * caution that it does not replace an accredited laboratory's report or the market's own controls.
+ * A lot's document: a certificate of conformity, or an analysis statement when the lot's status does
+ * not allow one. Both give the parties, the wine, the spec version each analysis was judged against,
+ * every result with its uncertainty and verdict, the decision rule, the independent audit's outcome,
+ * and the caution that it does not replace an accredited laboratory's report or the market's controls.
  */
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
 import { convert, findParameter, UNITS, type ResultComparison } from "../../shared/engine/index.ts";
 import { verdictText } from "../../shared/lots/verdict-text.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../shared/lots/vocabulary.ts";
+import { CONDITION_LABELS } from "../../shared/deviations/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, StoredVerdict } from "../../shared/lots/views.ts";
 import { registerPdfFonts } from "./fonts.ts";
 import { PageFooter } from "./page-footer.tsx";
@@ -24,12 +26,16 @@ const s = {
   }),
 };
 
-export interface ConformityData {
+export interface LotDocumentData {
+  /** "certificate" only for a lot whose status allows one; otherwise an analysis statement. */
+  kind: "certificate" | "statement";
   number: string;
   lot: LotDetail;
-  declared: AnalysisView | null;
+  /** The producer's analyses the status rests on, oldest first. */
+  declared: AnalysisView[];
   audit: (LotAuditView & { analysis: AnalysisView | null }) | null;
-  statement: string;
+  issuedBy: { name: string; role: string; organisation: string };
+  issuedAt: Date;
 }
 
 const name = (p: string) => findParameter(p)?.name ?? p;
@@ -60,38 +66,86 @@ function Results({ verdicts }: { verdicts: StoredVerdict[] }) {
   );
 }
 
-function Certificate({ d, generatedAt }: { d: ConformityData; generatedAt: Date }) {
+const TITLES = { certificate: "Certificate of conformity", statement: "Analysis statement" } as const;
+
+function versionText(a: AnalysisView) {
+  return a.evaluation?.specVersion ? `judged against spec version ${a.evaluation.specVersion.number}` : "not judged: no agreed spec version";
+}
+
+/**
+ * Laid out after what ISO/IEC 17050-1:2004 (corrected 2007-06-15), clause 6.1, asks of a declaration
+ * of conformity: its identification, the issuer, the object, the statement, the requirements it
+ * refers to, date and place of issue, who validates it, and any limitation on its validity.
+ */
+function LotDocument({ d }: { d: LotDocumentData }) {
   const { lot, declared, audit } = d;
-  const rules = [...new Set([...(declared?.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])].map((v) => v.ruleText))];
+  const title = TITLES[d.kind];
+  const status = lot.status;
+  const rules = [...new Set([...declared.flatMap((a) => a.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])].map((v) => v.ruleText))];
+  const markets = [...new Set([...declared, ...(audit?.analysis ? [audit.analysis] : [])].flatMap((a) => Object.entries(a.evaluation?.marketVersions ?? {})).map(([m, v]) => `${m} (rule pack ${v})`))];
   return (
-    <Document title={`Certificate of conformity ${d.number}`} author="Cellarpact">
+    <Document title={`${title} ${d.number}`} author="Cellarpact">
       <Page size="A4" style={s.page}>
-        <Text style={s.brand}>Cellarpact · Certificate of conformity</Text>
+        <Text style={s.brand}>Cellarpact · {title}</Text>
         <Text style={s.h1}>
           Lot {lot.lotCode} · {lot.wineName} {lot.vintage}
         </Text>
-        <Text>Certificate {d.number}</Text>
+
+        <Text style={s.h2}>Identification</Text>
+        <Text>{title} {d.number}</Text>
         <Text>
-          Buyer: {lot.contract.retailer.name} · Producer: {lot.producerName} · Contract {lot.contractReference}
+          Issued on {stamp(d.issuedAt)}, electronically through Cellarpact, by {d.issuedBy.name} ({d.issuedBy.role}, {d.issuedBy.organisation}).
         </Text>
         <Text>
-          Destination market: {lot.market} · Volume: {lot.volumeLitres.toLocaleString("en-GB")} L
+          Supplier: {lot.producerName} · Buyer: {lot.contract.retailer.name} · Contract {lot.contractReference}
         </Text>
-        <Text>{lot.governing ? `Specification: version ${lot.governing.number} (agreed), vintages ${lot.governing.vintageFrom}${lot.governing.vintageTo ? `–${lot.governing.vintageTo}` : " onwards"}` : "No agreed specification governs this lot; results are judged against legal limits only."}</Text>
+
+        <Text style={s.h2}>Object</Text>
+        <Text>
+          Lot {lot.lotCode} of {lot.wineName}, vintage {lot.vintage}, {lot.contract.wine.colour} {lot.contract.wine.category} wine from {lot.contract.wine.region} · {lot.volumeLitres.toLocaleString("en-GB")} L · for {lot.market}
+        </Text>
 
         <View style={s.box}>
-          <Text style={s.statement}>{d.statement}</Text>
+          <Text style={s.statement}>Status: {status.label}</Text>
+          <Text>{status.reason}</Text>
+          {status.concession && (
+            <>
+              <Text style={{ marginTop: 4 }}>
+                Concession: deviation #{status.concession.deviationId}, decided with the reason "{status.concession.reason}".
+              </Text>
+              {status.concession.conditions.length ? (
+                status.concession.conditions.map((c, i) => (
+                  <Text key={i}>
+                    · Condition, {CONDITION_LABELS[c.kind].toLowerCase()}: {c.detail}
+                  </Text>
+                ))
+              ) : (
+                <Text>· No conditions attached.</Text>
+              )}
+            </>
+          )}
+          {d.kind === "statement" && <Text style={{ marginTop: 4 }}>This is not a certificate of conformity: the lot's status does not allow one.</Text>}
         </View>
 
+        <Text style={s.h2}>Requirements referred to</Text>
+        <Text>
+          {lot.governing
+            ? `Specification of contract ${lot.contractReference}, version ${lot.governing.number} (agreed${lot.governing.decidedAt ? ` ${lot.governing.decidedAt.slice(0, 10)}` : ""}), vintages ${lot.governing.vintageFrom}${lot.governing.vintageTo ? `–${lot.governing.vintageTo}` : " onwards"}.`
+            : "No agreed specification governs this vintage."}
+        </Text>
+        <Text>Legal limits of the destination market: {markets.join(", ") || lot.market}. Each rule's citation is printed beside the limit it sets in the results below.</Text>
+
         <Text style={s.h2}>Results declared by the producer</Text>
-        {declared ? (
-          <>
-            <Text style={s.small}>
-              {ANALYSIS_STAGE_LABELS[declared.stage]} · {declared.laboratoryName}
-              {declared.accreditation ? ` (accreditation ${declared.accreditation})` : ""} · sampled {declared.sampleDate} · engine {declared.evaluation?.engineVersion}
-            </Text>
-            <Results verdicts={declared.evaluation?.verdicts ?? []} />
-          </>
+        {declared.length ? (
+          declared.map((a) => (
+            <View key={a.id}>
+              <Text style={s.small}>
+                {ANALYSIS_STAGE_LABELS[a.stage]} · {a.laboratoryName}
+                {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · sampled {a.sampleDate} · {versionText(a)} · engine {a.evaluation?.engineVersion}
+              </Text>
+              <Results verdicts={a.evaluation?.verdicts ?? []} />
+            </View>
+          ))
         ) : (
           <Text style={s.small}>No declared analysis.</Text>
         )}
@@ -131,7 +185,7 @@ function Certificate({ d, generatedAt }: { d: ConformityData; generatedAt: Date 
 
         <Text style={s.h2}>Decision rule</Text>
         <Text>
-          The statement above covers only the results listed, on the samples analysed. Each result is held against its governing limit, the stricter of the buyer's agreed limit and the destination
+          The status above covers only the results listed, on the samples analysed. Each result is held against its governing limit, the stricter of the buyer's agreed limit and the destination
           market's legal limit, under the decision rule agreed in the specification. The rule decides how measurement uncertainty counts: with a guard band a result passes only when it stays inside the
           limit by the band; a "conditional" verdict (ILAC-G8) means the limit lies within the result's uncertainty interval, so conformity is likely but not shown.
         </Text>
@@ -144,17 +198,22 @@ function Certificate({ d, generatedAt }: { d: ConformityData; generatedAt: Date 
         <View style={s.box} wrap={false}>
           <Text style={{ fontWeight: 600 }}>Caution</Text>
           <Text>
-            This certificate summarises results recorded in Cellarpact. It does not replace the test report of an accredited laboratory, nor the checks of the destination market's authorities. Legal
+            This document summarises results recorded in Cellarpact. It does not replace the test report of an accredited laboratory, nor the checks of the destination market's authorities. Legal
             limits and the sulphite allergen statement follow the law of the market of sale; confirm them with the competent authority before release.
           </Text>
         </View>
-        <PageFooter label={`${d.number} · generated ${stamp(generatedAt)}`} />
+        <Text style={s.h2}>Limitations</Text>
+        <Text>
+          Valid for the lot named above and the samples analysed, on the results listed, as they stood on the date of issue. A later analysis, a later spec version or a decision on a deviation
+          may change the lot's status; the status shown in Cellarpact is the current one.
+        </Text>
+        <PageFooter label={`${d.number} · issued ${stamp(d.issuedAt)}`} />
       </Page>
     </Document>
   );
 }
 
-export async function renderConformityCertificate(d: ConformityData): Promise<Buffer> {
+export async function renderLotDocument(d: LotDocumentData): Promise<Buffer> {
   registerPdfFonts();
-  return renderToBuffer(<Certificate d={d} generatedAt={new Date()} />);
+  return renderToBuffer(<LotDocument d={d} />);
 }

@@ -10,7 +10,7 @@ import * as submissions from "../services/lots/submission-service.ts";
 import * as queries from "../services/lots/lot-queries.ts";
 import { readCertificate, storeCertificate } from "../services/lots/certificate-service.ts";
 import { badRequest } from "../http/problem.ts";
-import { conformityCertificate } from "../services/lots/conformity-service.ts";
+import { lotDocument } from "../services/lots/conformity-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const PRODUCER = orgMember("producer_quality");
@@ -65,9 +65,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/lots/:lotId/conformity.pdf", tag: "lots", summary: "Certificate of conformity for the lot (results, verdicts, decision rule, audit outcome)", access: PARTIES, params: orgParams.extend({ lotId: idParam }), produces: "application/pdf", errors: { 409: "no evaluated results yet" } },
-    async ({ params, membership, res }) => {
-      const { filename, pdf } = await conformityCertificate(params.orgId, params.lotId, membership!.role);
+    { method: "get", path: "/api/orgs/:orgId/lots/:lotId/conformity.pdf", tag: "lots", summary: "The lot's certificate of conformity, or its analysis statement when the lot's status allows no certificate", access: PARTIES, params: orgParams.extend({ lotId: idParam }), produces: "application/pdf", errors: { 409: "no results judged yet" } },
+    async ({ params, user, membership, res }) => {
+      const { filename, pdf } = await lotDocument(params.orgId, params.lotId, user!, membership!.role);
       res.status(200).type("application/pdf").attachment(filename).send(pdf);
     },
   );

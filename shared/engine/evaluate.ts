@@ -7,9 +7,10 @@ import { conformanceProbability, describeRule, guardWidth, statementForSide, wor
 import { parameter, type ParameterId } from "./parameters.ts";
 import { formatReading, type Reading } from "./parse.ts";
 import { convert, UNITS, type UnitId } from "./units.ts";
+import { displayValue } from "./display.ts";
 import type { GoverningBound, GoverningRequirement } from "./requirement.ts";
 
-export const ENGINE_VERSION = "1.0.0";
+export const ENGINE_VERSION = "1.1.0";
 
 export type Outcome = Statement | "missing" | "not required" | "inconclusive";
 
@@ -53,12 +54,10 @@ export interface Verdict {
   informativeOutcome?: Outcome;
 }
 
-function boundText(b: GoverningBound, unit: string, factor: number): string {
+function boundText(parameterId: string, b: GoverningBound, unitId: UnitId, factor: number): string {
   const where = b.source.kind === "buyer" ? "the buyer's specification" : `${b.source.limit.marketName}: ${b.source.limit.citation.document}, ${b.source.limit.citation.article}`;
-  return `${trim(b.value * factor)} ${unit} (${where})`;
+  return `${displayValue(parameterId, b.value * factor, unitId)} ${UNITS[unitId].label} (${where})`;
 }
-
-const trim = (x: number) => String(Number(x.toPrecision(6)));
 
 interface Wording {
   limitsText: string;
@@ -67,6 +66,7 @@ interface Wording {
   ruleText: string;
   /** Unit the explanation speaks in, and the factor from the canonical unit to it. */
   unitLabel: string;
+  unitId: UnitId;
   factor: number;
 }
 
@@ -79,10 +79,10 @@ function textsFor(req: GoverningRequirement, displayUnit: UnitId): Wording {
   if (!t) {
     const factor = convert(1, req.unit, displayUnit);
     const unitLabel = UNITS[displayUnit].label;
-    const lowerText = req.lower ? boundText(req.lower, unitLabel, factor) : "";
-    const upperText = req.upper ? boundText(req.upper, unitLabel, factor) : "";
+    const lowerText = req.lower ? boundText(req.parameter, req.lower, displayUnit, factor) : "";
+    const upperText = req.upper ? boundText(req.parameter, req.upper, displayUnit, factor) : "";
     const limitsText = [lowerText && `at least ${lowerText}`, upperText && `at most ${upperText}`].filter(Boolean).join(" and ");
-    t = { limitsText, lowerText, upperText, ruleText: describeRule(req.rule), unitLabel, factor };
+    t = { limitsText, lowerText, upperText, ruleText: describeRule(req.rule), unitLabel, unitId: displayUnit, factor };
     byUnit.set(displayUnit, t);
   }
   return t;
@@ -175,7 +175,8 @@ function decided(outcome: Outcome, explanation: string, resultText: string | nul
 function decide(req: GoverningRequirement, input: ResultInput, texts: Wording): Decided {
   const r = input.reading;
   const factor = convert(1, input.unit, req.unit, { densityGPerMl: input.densityGPerMl });
-  const { limitsText, lowerText, upperText, unitLabel, factor: show } = texts;
+  const { limitsText, lowerText, upperText, unitLabel, unitId, factor: show } = texts;
+  const trim = (x: number) => displayValue(req.parameter, x, unitId);
 
   if (r.kind === "presence") {
     const name = parameter(req.parameter).name;

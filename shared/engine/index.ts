@@ -16,9 +16,15 @@ export type { UnitId, Dimension, Quantity, MgPerL, GPerL, MeqPerL, PercentVol, P
 export { parseReading, parseDecimal, formatReading } from "./parse.ts";
 export type { Reading, ParseResult } from "./parse.ts";
 
+/** Display rounding: every value shown to its parameter's precision in the unit shown. */
+export { displayDigits, displayValue, unitLabel } from "./display.ts";
+
 /** The parameter catalogue. */
 export { PARAMETERS, parameter, findParameter, isParameterId, acceptsUnit } from "./parameters.ts";
 export type { ParameterDef, ParameterId, ParameterGroup, MethodRef, DefaultUncertainty, BoundSides } from "./parameters.ts";
+
+/** Plausible ranges: results that almost certainly mean a wrong unit. */
+export { PLAUSIBLE_RANGES, implausibility } from "./plausibility.ts";
 
 /** Derived values. */
 export { DEFAULT_SO2_PKA, boundSo2, molecularSo2, freeSo2ForMolecular, sugarFreeExtract, reducedExtract, fixedAcidity } from "./derived.ts";

@@ -3,7 +3,8 @@
  * headers or from their own column, "value ± U" cells, and row-by-row errors. Parsing the file
  * itself is papaparse's job; this module only sees rows of strings.
  */
-import { findParameter, isUnit, parseDecimal, PARAMETERS, type UnitId } from "../engine/index.ts";
+import { acceptsUnit, findParameter, implausibility, isUnit, parseDecimal, parseReading, PARAMETERS, type UnitId } from "../engine/index.ts";
+import { foldHeader, parameterForHeaderName } from "./header-synonyms.ts";
 import { resultEntrySchema, type ResultEntry } from "./schemas.ts";
 
 export type ColumnRole =
@@ -11,8 +12,8 @@ export type ColumnRole =
   | { kind: "lot" }
   | { kind: "vintage" }
   | { kind: "date" }
-  /** Wide layout: the column holds one parameter, in this unit. */
-  | { kind: "parameter"; parameter: string; unit: UnitId }
+  /** Wide layout: the column holds one parameter, in this unit; null until the file or the user says which. */
+  | { kind: "parameter"; parameter: string; unit: UnitId | null; headerUnit?: string | null }
   /** Long layout: one result per row, in these columns. */
   | { kind: "parameter-name" }
   | { kind: "value" }
@@ -35,55 +36,78 @@ export interface RowError {
   message: string;
 }
 
-const ALIASES: Record<string, string> = {
-  "free so2": "free_so2", "so2 free": "free_so2", "so2 libre": "free_so2", "free sulphur dioxide": "free_so2", "free sulfur dioxide": "free_so2", fso2: "free_so2",
-  "total so2": "total_so2", "so2 total": "total_so2", "total sulphur dioxide": "total_so2", "total sulfur dioxide": "total_so2", tso2: "total_so2",
-  va: "volatile_acidity", "volatile acidity": "volatile_acidity", "volatile acid": "volatile_acidity",
-  ta: "total_acidity", "total acidity": "total_acidity", "titratable acidity": "total_acidity",
-  alcohol: "alcohol", abv: "alcohol", "alcoholic strength": "alcohol", "actual alcohol": "alcohol",
-  "residual sugar": "residual_sugar", rs: "residual_sugar", "glucose+fructose": "residual_sugar", "glucose + fructose": "residual_sugar",
-  ph: "ph", malic: "malic_acid", "malic acid": "malic_acid", lactic: "lactic_acid", "lactic acid": "lactic_acid", citric: "citric_acid", sorbic: "sorbic_acid",
-  do: "dissolved_oxygen", "dissolved oxygen": "dissolved_oxygen", co2: "carbon_dioxide", "carbon dioxide": "carbon_dioxide",
-  turbidity: "turbidity", cu: "copper", copper: "copper", fe: "iron", iron: "iron", pb: "lead", lead: "lead", tca: "tca",
-  "heat test": "heat_test_haze", "heat stability": "heat_test_haze", "protein stability": "heat_test_haze",
-  "4-ep": "ethylphenol_4", "4-eg": "ethylguaiacol_4", methanol: "methanol", ota: "ochratoxin_a", density: "density",
-};
-
 const UNIT_ALIASES: Record<string, UnitId> = {
-  "mg/l": "mg/L", "g/l": "g/L", "ug/l": "µg/L", "µg/l": "µg/L", "ng/l": "ng/L", ppm: "ppm", "mg/kg": "mg/kg", "µg/kg": "µg/kg", "ug/kg": "µg/kg",
-  "%vol": "% vol", "% vol": "% vol", "%v/v": "% vol", "% v/v": "% vol", "%abv": "% vol", "meq/l": "meq/L",
-  "g/l tartaric": "g/L as tartaric acid", "g/l as tartaric": "g/L as tartaric acid", "g/l tartaric acid": "g/L as tartaric acid",
-  "g/l acetic": "g/L as acetic acid", "g/l as acetic": "g/L as acetic acid", "g/l acetic acid": "g/L as acetic acid",
-  "g/l sulfuric": "g/L as sulfuric acid", "g/l sulphuric": "g/L as sulfuric acid", "g/l h2so4": "g/L as sulfuric acid",
-  ntu: "NTU", "cfu/ml": "CFU/mL", "cfu/100ml": "CFU/100 mL", "cfu/100 ml": "CFU/100 mL", "cfu/l": "CFU/L", ph: "pH", "g/ml": "g/mL", "%": "%",
+  "mg/l": "mg/L", "mg/dm3": "mg/L", "g/l": "g/L", "g/dm3": "g/L", "ug/l": "µg/L", "µg/l": "µg/L", "mcg/l": "µg/L", "ng/l": "ng/L", ppm: "ppm", "mg/kg": "mg/kg", "µg/kg": "µg/kg", "ug/kg": "µg/kg",
+  "%vol": "% vol", "% vol": "% vol", "% vol.": "% vol", "%v/v": "% vol", "% v/v": "% vol", "vol%": "% vol", "vol.%": "% vol", "% vol%": "% vol", "%abv": "% vol", "% abv": "% vol", "meq/l": "meq/L", "mequiv/l": "meq/L",
+  ntu: "NTU", "cfu/ml": "CFU/mL", "ufc/ml": "CFU/mL", "kbe/ml": "CFU/mL", "cfu/100ml": "CFU/100 mL", "cfu/100 ml": "CFU/100 mL", "ufc/100ml": "CFU/100 mL", "cfu/l": "CFU/L", ph: "pH", "g/ml": "g/mL", "g/cm3": "g/mL", "kg/m3": "kg/m³", "%": "%",
+  "g/l ethanol": "g/L ethanol",
 };
 
-const squash = (s: string) => s.toLowerCase().replace(/\s+/g, " ").trim();
+/** Words for the acid an acidity is expressed as, in the usual spellings of the six languages. */
+const ACID_EXPRESSIONS: [RegExp, "tartaric" | "sulfuric" | "acetic"][] = [
+  [/h2so4|sul(f|ph)ur|sulfuri|solforic|schwefel/, "sulfuric"],
+  [/tartar|tartri|wein/, "tartaric"],
+  [/acet|essig/, "acetic"],
+];
 
+const squash = (s: string) => foldHeader(s).replace(/\s*\/\s*/g, "/");
+
+/**
+ * The unit a laboratory wrote, in its usual spellings ("g/L H2SO4", "g/l as sulfuric", "g/L tartaric",
+ * "meq/L", "mg/l", "ppm", "% vol", "% v/v"); null when it cannot be read. An acid expression is
+ * read only when the text names the acid: "g/L" alone stays plain g/L.
+ */
 export function normaliseUnit(text: string): UnitId | null {
   const t = text.trim();
   if (isUnit(t)) return t;
-  return UNIT_ALIASES[squash(t).replace(/\s*\/\s*/g, "/").replace(/\(|\)/g, "")] ?? UNIT_ALIASES[squash(t)] ?? null;
+  const plain = squash(t).replace(/[()[\]]/g, "").trim();
+  if (UNIT_ALIASES[plain]) return UNIT_ALIASES[plain];
+  const acid = ACID_EXPRESSIONS.find(([re]) => re.test(plain))?.[1];
+  if (acid) {
+    if (/^g\/100 ?ml/.test(plain)) return acid === "acetic" ? "g/100 mL as acetic acid" : null;
+    if (/^g\/(l|dm3)\b/.test(plain)) return `g/L as ${acid} acid` as UnitId;
+  }
+  return null;
 }
 
 export function findParameterByName(text: string): string | null {
-  const t = squash(text);
+  const t = foldHeader(text);
   const byId = findParameter(t.replace(/[ -]/g, "_"));
   if (byId) return byId.id;
-  const byName = PARAMETERS.find((p) => squash(p.name) === t);
-  return byName?.id ?? ALIASES[t] ?? null;
+  const byName = PARAMETERS.find((p) => foldHeader(p.name) === t);
+  return byName?.id ?? parameterForHeaderName(t);
 }
 
-/** "Free SO2 (mg/L)" or "VA [g/L acetic]" → parameter and unit. */
-export function parseHeader(header: string): { parameter: string | null; unit: UnitId | null } {
-  const m = header.match(/^(.*?)\s*[([]\s*([^)\]]+)\s*[)\]]\s*$/);
-  const name = (m ? m[1]! : header).trim();
-  return { parameter: findParameterByName(name), unit: m ? normaliseUnit(m[2]!) : null };
+/**
+ * "Free SO2 (mg/L)", "VA [g/L acetic]", "Acidité volatile (g/L H2SO4)", "SO2 libre, mg/l" →
+ * parameter and unit. `unitText` is what the header said about the unit, read or not.
+ */
+export function parseHeader(header: string): { parameter: string | null; unit: UnitId | null; unitText: string | null } {
+  const bracket = header.match(/^(.*?)\s*[([]\s*([^)\]]+)\s*[)\]]\s*$/);
+  const comma = bracket ? null : header.match(/^(.*?)\s*(?:,|;| - | in | en )\s*(\S.*)$/i);
+  const m = bracket ?? comma;
+  if (m) {
+    const parameter = findParameterByName(m[1]!);
+    if (parameter || bracket) return { parameter, unit: normaliseUnit(m[2]!), unitText: m[2]!.trim() };
+  }
+  return { parameter: findParameterByName(header), unit: null, unitText: null };
+}
+
+/**
+ * The unit a parameter's values are read in: the one the file states, if the parameter can be
+ * reported in it; the parameter's only unit when it has just one (pH, NTU); otherwise null, and
+ * the mapping step asks. Never a guess.
+ */
+export function statedUnit(parameterId: string, unit: UnitId | null): UnitId | null {
+  const p = findParameter(parameterId);
+  if (!p) return null;
+  if (unit) return acceptsUnit(p, unit) ? unit : null;
+  return p.units.length === 1 ? (p.units[0] as UnitId) : null;
 }
 
 export function guessMapping(headers: readonly string[]): ColumnRole[] {
   const roles = headers.map((h): ColumnRole => {
-    const t = squash(h);
+    const t = foldHeader(h);
     if (/^(lot|lot code|lot no\.?|lot number|batch|sample id|sample)$/.test(t)) return { kind: "lot" };
     if (/^(vintage|harvest|harvest year)$/.test(t)) return { kind: "vintage" };
     if (/^(date|sample date|sampling date|sampled)$/.test(t)) return { kind: "date" };
@@ -92,8 +116,8 @@ export function guessMapping(headers: readonly string[]): ColumnRole[] {
     if (/^(unit|units)$/.test(t)) return { kind: "unit" };
     if (/^(uncertainty|u|expanded uncertainty|±|\+\/-)$/.test(t)) return { kind: "uncertainty" };
     if (/^(method|method ref(erence)?)$/.test(t)) return { kind: "method" };
-    const { parameter, unit } = parseHeader(h);
-    if (parameter) return { kind: "parameter", parameter, unit: unit ?? (findParameter(parameter)!.unit as UnitId) };
+    const { parameter, unit, unitText } = parseHeader(h);
+    if (parameter) return { kind: "parameter", parameter, unit: statedUnit(parameter, unit), headerUnit: unitText };
     return { kind: "ignore" };
   });
   return roles;
@@ -135,20 +159,47 @@ function entry(parameter: string, cell: string, unit: UnitId, extra: { uncertain
  * Rows (without the header) → samples, plus every problem with its row number (1-based, as a
  * spreadsheet shows data rows) and column. Rows with errors are left out, never half-imported.
  */
-export function buildSamples(headers: readonly string[], rows: readonly (readonly string[])[], mapping: readonly ColumnRole[], defaults: { sampleDate: string }): { samples: ImportSample[]; errors: RowError[] } {
+export function buildSamples(
+  headers: readonly string[],
+  rows: readonly (readonly string[])[],
+  mapping: readonly ColumnRole[],
+  defaults: { sampleDate: string },
+): { samples: ImportSample[]; errors: RowError[]; implausible: RowError[] } {
   const errors: RowError[] = [];
+  // Values read fine but outside what wine can be: held back until someone confirms them.
+  const implausible: RowError[] = [];
+  let rowFlags: RowError[] = [];
+  const check = (r: ResultEntry, rowNo: number, column: string | null) => {
+    const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" });
+    const why = parsed.ok ? implausibility(r.parameter, parsed.reading, r.unit) : null;
+    if (why) rowFlags.push({ row: rowNo, column, message: why });
+  };
   const col = (kind: ColumnRole["kind"]) => mapping.findIndex((m) => m.kind === kind);
   const lotCol = col("lot");
-  if (lotCol < 0) return { samples: [], errors: [{ row: 0, column: null, message: "Map one column to the lot code." }] };
+  if (lotCol < 0) return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map one column to the lot code." }] };
   const long = col("parameter-name") >= 0;
-  if (long && col("value") < 0) return { samples: [], errors: [{ row: 0, column: null, message: "Map one column to the result value." }] };
-  if (!long && !mapping.some((m) => m.kind === "parameter")) return { samples: [], errors: [{ row: 0, column: null, message: "Map at least one column to a parameter." }] };
+  if (long && col("value") < 0) return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map one column to the result value." }] };
+  if (!long && !mapping.some((m) => m.kind === "parameter")) return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map at least one column to a parameter." }] };
+  const unitless = mapping.flatMap((m, c) => (m.kind === "parameter" && m.unit === null ? [c] : []));
+  if (unitless.length) {
+    return {
+      samples: [],
+      implausible,
+      errors: unitless.map((c) => {
+        const m = mapping[c] as Extract<ColumnRole, { kind: "parameter" }>;
+        const said = m.headerUnit ? `the header says "${m.headerUnit}", which is not a unit ${findParameter(m.parameter)!.name} can be read in` : "the header does not say";
+        return { row: 0, column: headers[c] ?? null, message: `Choose the unit of column "${headers[c]}": ${said}. Cellarpact never guesses a unit.` };
+      }),
+    };
+  }
+
   const vintageCol = col("vintage");
   const dateCol = col("date");
   const byKey = new Map<string, ImportSample>();
 
   rows.forEach((cells, i) => {
     const rowNo = i + 1;
+    rowFlags = [];
     if (cells.every((c) => !c || !c.trim())) return;
     const lotCode = (cells[lotCol] ?? "").trim();
     if (!lotCode) return errors.push({ row: rowNo, column: headers[lotCol] ?? null, message: "The lot code is empty." });
@@ -165,17 +216,20 @@ export function buildSamples(headers: readonly string[], rows: readonly (readonl
       const name = (cells[col("parameter-name")] ?? "").trim();
       const parameter = findParameterByName(name);
       const unitText = col("unit") >= 0 ? (cells[col("unit")] ?? "").trim() : "";
-      const unit = unitText ? normaliseUnit(unitText) : parameter ? (findParameter(parameter)!.unit as UnitId) : null;
+      const unit = parameter ? statedUnit(parameter, unitText ? normaliseUnit(unitText) : null) : null;
       if (!parameter) {
         errors.push({ row: rowNo, column: headers[col("parameter-name")] ?? null, message: `"${name}" is not a parameter Cellarpact knows.` });
         bad = true;
       } else if (!unit) {
-        errors.push({ row: rowNo, column: headers[col("unit")] ?? null, message: `"${unitText}" is not a unit Cellarpact knows.` });
+        const name = findParameter(parameter)!.name;
+        errors.push({ row: rowNo, column: headers[col("unit")] ?? null, message: unitText ? `"${unitText}" is not a unit ${name} can be read in.` : `No unit for ${name}: map the column that holds each result's unit.` });
         bad = true;
       } else {
         const r = entry(parameter, cells[col("value")] ?? "", unit, { uncertainty: col("uncertainty") >= 0 ? cells[col("uncertainty")] : undefined, method: col("method") >= 0 ? cells[col("method")] : undefined });
-        if (r.ok) results.push(r.value);
-        else {
+        if (r.ok) {
+          results.push(r.value);
+          check(r.value, rowNo, headers[col("value")] ?? null);
+        } else {
           errors.push({ row: rowNo, column: headers[col("value")] ?? null, message: r.message });
           bad = true;
         }
@@ -185,9 +239,11 @@ export function buildSamples(headers: readonly string[], rows: readonly (readonl
         if (m.kind !== "parameter") return;
         const cell = (cells[c] ?? "").trim();
         if (!cell) return;
-        const r = entry(m.parameter, cell, m.unit, {});
-        if (r.ok) results.push(r.value);
-        else {
+        const r = entry(m.parameter, cell, m.unit!, {});
+        if (r.ok) {
+          results.push(r.value);
+          check(r.value, rowNo, headers[c] ?? null);
+        } else {
           errors.push({ row: rowNo, column: headers[c] ?? null, message: r.message });
           bad = true;
         }
@@ -208,8 +264,9 @@ export function buildSamples(headers: readonly string[], rows: readonly (readonl
     }
     sample.results.push(...results);
     sample.rows.push(rowNo);
+    implausible.push(...rowFlags);
     sample.vintage ??= vintage;
     byKey.set(key, sample);
   });
-  return { samples: [...byKey.values()], errors };
+  return { samples: [...byKey.values()], errors, implausible };
 }

@@ -5,6 +5,9 @@ import type { OrderStatus } from "../audits/vocabulary.ts";
 import type { Severity, Stage } from "../specs/vocabulary.ts";
 import type { ContractView, VersionSummary, RequirementView } from "../specs/views.ts";
 import type { AnalysisStage, Container } from "./vocabulary.ts";
+import type { LotStatus } from "./lot-status.ts";
+import type { OutcomeCounts } from "./judge.ts";
+import type { DeviationDecision } from "../deviations/vocabulary.ts";
 
 export interface StoredBound {
   value: number;
@@ -50,8 +53,10 @@ export interface LotSummary {
   plannedDate: string | null;
   market: MarketId;
   latestStage: AnalysisStage | null;
-  worstOutcome: Outcome | null;
-  openDeviations: number;
+  /** The one status of the lot, from `lotStatus`; every screen and document shows this. */
+  status: LotStatus;
+  /** Deviations decided or closed, with the buyer's outcome. */
+  decidedDeviations: { id: number; outcome: DeviationDecision["outcome"] }[];
 }
 
 export interface ResultView {
@@ -82,7 +87,15 @@ export interface AnalysisView {
   sampleDate: string;
   createdAt: string;
   results: ResultView[];
-  evaluation: { specVersionId: number | null; engineVersion: string; marketVersions: Record<string, string>; worstOutcome: Outcome; verdicts: StoredVerdict[] } | null;
+  evaluation: {
+    specVersionId: number | null;
+    /** The version the analysis was judged against, by number, for people. */
+    specVersion: { id: number; number: number } | null;
+    engineVersion: string;
+    marketVersions: Record<string, string>;
+    worstOutcome: Outcome;
+    verdicts: StoredVerdict[];
+  } | null;
   certificates: CertificateView[];
 }
 
@@ -93,6 +106,7 @@ export interface DeviationSummary {
   parameters: string[];
   summary: string;
   analysisId: number | null;
+  decision: DeviationDecision | null;
   createdAt: string;
 }
 
@@ -141,4 +155,21 @@ export interface TrendData {
   lower: number | null;
   upper: number | null;
   points: TrendPoint[];
+}
+
+/** What one submitted analysis stored: its verdicts counted by outcome, the failing parameters and any deviation opened. */
+export interface SubmissionResult {
+  analysisId: number;
+  counts: OutcomeCounts;
+  failing: string[];
+  deviationIds: number[];
+}
+
+/** What one import batch stored, sample by sample. */
+export interface ImportResult {
+  analyses: number;
+  lotsCreated: number;
+  samples: { analysisId: number; lotCode: string; counts: OutcomeCounts }[];
+  failing: { analysisId: number; lotCode: string; parameters: string[] }[];
+  deviationIds: number[];
 }

@@ -8,6 +8,7 @@ import { Contract } from "../../models/contract.ts";
 import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
 import { AnalysisEvaluation, Certificate } from "../../models/evaluation.ts";
 import { Deviation } from "../../models/deviation.ts";
+import { SpecVersion } from "../../models/spec-version.ts";
 import { contractFor, contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { contractView, versionSummary } from "../specs/spec-view.ts";
 import { lotFor } from "./lot-access.ts";
@@ -15,7 +16,10 @@ import { AuditOrder, AuditOrderLot } from "../../models/audit-order.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { orderReference } from "../../../shared/audits/vocabulary.ts";
 import { governingVersion } from "./governing.ts";
-import { transitValues } from "./store-analyses.ts";
+import { isFailing, transitValues } from "../../../shared/lots/judge.ts";
+import { lotStatus, type StatusAnalysis } from "../../../shared/lots/lot-status.ts";
+
+const parameterName = (p: string) => findParameter(p)?.name ?? p;
 
 type LoadedAnalysis = Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null; certificates: Certificate[] };
 
@@ -26,13 +30,19 @@ async function partyContracts(orgId: number) {
 async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties>): Promise<LotSummary[]> {
   const ids = lots.map((l) => l.id);
   const [analyses, deviations] = await Promise.all([
-    Analysis.findAll({ where: { lotId: ids }, include: [{ model: AnalysisEvaluation, as: "evaluation", attributes: ["worstOutcome"] }], attributes: ["id", "lotId", "stage", "sampleDate"], order: [["sampleDate", "ASC"], ["id", "ASC"]] }),
-    Deviation.findAll({ where: { lotId: ids, status: { [Op.ne]: "closed" } }, attributes: ["lotId"] }),
+    Analysis.findAll({
+      where: { lotId: ids },
+      include: [{ model: AnalysisEvaluation, as: "evaluation", attributes: ["specVersionId", "verdicts"] }],
+      attributes: ["id", "lotId", "stage", "sampleDate", "auditOrderId"],
+      order: [["sampleDate", "ASC"], ["id", "ASC"]],
+    }),
+    Deviation.findAll({ where: { lotId: ids }, attributes: ["id", "lotId", "kind", "status", "parameters", "decision"] }),
   ]);
   return lots.map((l) => {
     const c = contracts.get(l.contractId)!;
-    const mine = analyses.filter((a) => a.lotId === l.id) as (Analysis & { evaluation: AnalysisEvaluation | null })[];
+    const mine = analyses.filter((a) => a.lotId === l.id) as (Analysis & StatusAnalysis)[];
     const last = mine.at(-1);
+    const ofLot = deviations.filter((d) => d.lotId === l.id);
     return {
       id: l.id,
       contractId: l.contractId,
@@ -46,8 +56,8 @@ async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties
       plannedDate: l.plannedDate,
       market: l.market as MarketId,
       latestStage: (last?.stage as AnalysisStage) ?? null,
-      worstOutcome: (last?.evaluation?.worstOutcome as Outcome) ?? null,
-      openDeviations: deviations.filter((d) => d.lotId === l.id).length,
+      status: lotStatus(mine, ofLot, parameterName),
+      decidedDeviations: ofLot.filter((d) => d.decision).map((d) => ({ id: d.id, outcome: d.decision!.outcome })),
     };
   });
 }
@@ -63,7 +73,7 @@ export async function listLots(orgId: number, f: { contract?: number; q?: string
   return summaries(lots, byId);
 }
 
-function analysisView(a: LoadedAnalysis): AnalysisView {
+function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>): AnalysisView {
   return {
     id: a.id,
     stage: a.stage,
@@ -74,7 +84,10 @@ function analysisView(a: LoadedAnalysis): AnalysisView {
     createdAt: a.createdAt.toISOString(),
     results: a.results.map((r) => ({ parameter: r.parameter, rawText: r.rawText, reading: r.reading, unit: r.unit, uncertainty: r.uncertainty, method: r.method })),
     evaluation: a.evaluation
-      ? { specVersionId: a.evaluation.specVersionId, engineVersion: a.evaluation.engineVersion, marketVersions: a.evaluation.marketVersions, worstOutcome: a.evaluation.worstOutcome as Outcome, verdicts: a.evaluation.verdicts }
+      ? {
+          specVersionId: a.evaluation.specVersionId,
+          specVersion: a.evaluation.specVersionId ? { id: a.evaluation.specVersionId, number: versionNumbers.get(a.evaluation.specVersionId) ?? 0 } : null,
+          engineVersion: a.evaluation.engineVersion, marketVersions: a.evaluation.marketVersions, worstOutcome: a.evaluation.worstOutcome as Outcome, verdicts: a.evaluation.verdicts }
       : null,
     certificates: a.certificates.map((c) => ({ id: c.id, originalName: c.originalName, mime: c.mime, sizeBytes: c.sizeBytes, sha256: c.sha256, createdAt: c.createdAt.toISOString() })),
   };
@@ -89,6 +102,8 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
     order: [["sampleDate", "ASC"], ["id", "ASC"]],
   })) as LoadedAnalysis[];
   const governing = await governingVersion(contract.id, lot.vintage);
+  const judgedIds = [...new Set(analyses.map((a) => a.evaluation?.specVersionId).filter((id): id is number => !!id))];
+  const versionNumbers = new Map((await SpecVersion.findAll({ where: { id: judgedIds }, attributes: ["id", "number"] })).map((v) => [v.id, v.number]));
   const pre = [...analyses].reverse().find((a) => a.stage === "pre_shipment");
   const arrival = [...analyses].reverse().find((a) => a.stage === "on_arrival");
   const deviations = await Deviation.findAll({ where: { lotId }, order: [["createdAt", "DESC"]] });
@@ -99,9 +114,9 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
     canSubmit: side === "producer" && role === "producer_quality",
     contract: contractView(contract),
     governing: governing ? { ...versionSummary(governing.version), requirements: governing.requirements } : null,
-    analyses: analyses.map(analysisView),
+    analyses: analyses.map((a) => analysisView(a, versionNumbers)),
     transit: isBulk(lot.container) && pre && arrival ? compareTransit(transitValues(pre.results), transitValues(arrival.results)) : null,
-    deviations: deviations.map((d) => ({ id: d.id, kind: d.kind, status: d.status, parameters: d.parameters, summary: d.summary, analysisId: d.analysisId, createdAt: d.createdAt.toISOString() })),
+    deviations: deviations.map((d) => ({ id: d.id, kind: d.kind, status: d.status, parameters: d.parameters, summary: d.summary, analysisId: d.analysisId, decision: d.decision ?? null, createdAt: d.createdAt.toISOString() })),
     audits,
   };
 }
@@ -154,7 +169,7 @@ export async function readiness(orgId: number, horizonDays = 120): Promise<Readi
         stage,
         analysed: atStage.length > 0,
         missing: required.filter((p) => !measured.has(p)),
-        failing: latest.filter((v) => v.outcome === "fail" || v.outcome === "conditional fail").map((v) => v.parameter),
+        failing: latest.filter((v) => isFailing(v.outcome)).map((v) => v.parameter),
       };
     });
     rows.push({ ...base[i]!, stages, hasAgreedSpec: g !== null });

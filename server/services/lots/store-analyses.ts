@@ -4,14 +4,14 @@
  */
 import { Op, type QueryInterface, type Transaction } from "sequelize";
 import { database } from "../../db/database.ts";
-import { compareTransit, findParameter, parseReading, convert, type ParameterId, type TransitValue, type UnitId } from "../../../shared/engine/index.ts";
+import { compareTransit, findParameter } from "../../../shared/engine/index.ts";
+import { judgeAnalysis, judgeFor, readResult, transitValues, type Judge, type OutcomeCounts, type ReadResult } from "../../../shared/lots/judge.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { ResultEntry } from "../../../shared/lots/schemas.ts";
 import { Analysis, AnalysisResult, type Lot } from "../../models/lot.ts";
 import { openDeviations, type NewDeviation } from "../deviations/open-deviations.ts";
 import type { ContractWithParties } from "../specs/spec-access.ts";
 import { governingVersion } from "./governing.ts";
-import { evaluateAnalysis } from "./evaluate-analysis.ts";
 
 async function insertInChunks(qi: QueryInterface, t: Transaction, table: string, rows: object[], size = 2000) {
   for (let i = 0; i < rows.length; i += size) await qi.bulkInsert(table, rows.slice(i, i + size), { transaction: t });
@@ -35,11 +35,11 @@ export interface SampleToStore {
 
 export interface StoredSummary {
   analysisIds: number[];
+  /** What was stored for each sample, counted by outcome, in the order given. */
+  samples: { analysisId: number; lotCode: string; counts: OutcomeCounts }[];
   failing: { analysisId: number; lotCode: string; parameters: string[] }[];
   deviationIds: number[];
 }
-
-const FAILING = new Set(["fail", "conditional fail"]);
 
 export async function storeAnalyses(t: Transaction, contract: ContractWithParties, userId: number, header: AnalysisHeader, samples: SampleToStore[]): Promise<StoredSummary> {
   const governingCache = new Map<number, Awaited<ReturnType<typeof governingVersion>>>();
@@ -48,6 +48,8 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     return governingCache.get(vintage)!;
   };
   for (const s of samples) await governing(s.lot.vintage);
+  // Each result is read once: the stored reading and the verdict come from the same parse.
+  const read: ReadResult[][] = samples.map((s) => s.results.map(readResult));
 
   const analyses = await Analysis.bulkCreate(
     samples.map((s) => ({
@@ -69,30 +71,31 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     t,
     "analysis_results",
     samples.flatMap((s, i) =>
-      s.results.map((r) => {
-        const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" });
-        return {
-          analysis_id: analyses[i]!.id,
-          parameter: r.parameter,
-          raw_text: r.raw,
-          reading: JSON.stringify(parsed.ok ? parsed.reading : { kind: "below", limit: null }),
-          unit: r.unit,
-          uncertainty: r.uncertainty ? JSON.stringify(r.uncertainty) : null,
-          method: r.method ?? null,
-        };
-      }),
+      s.results.map((r, j) => ({
+        analysis_id: analyses[i]!.id,
+        parameter: r.parameter,
+        raw_text: r.raw,
+        // The schema refuses unreadable text before this point; "not detected" is the safe reading if one slips through.
+        reading: JSON.stringify(read[i]![j]!.reading ?? { kind: "below", limit: null }),
+        unit: r.unit,
+        uncertainty: r.uncertainty ? JSON.stringify(r.uncertainty) : null,
+        method: r.method ?? null,
+      })),
     ),
   );
 
-  const summary: StoredSummary = { analysisIds: analyses.map((a) => a.id), failing: [], deviationIds: [] };
+  const summary: StoredSummary = { analysisIds: analyses.map((a) => a.id), samples: [], failing: [], deviationIds: [] };
+  const judges = new Map<string, Judge>();
+  const judgeOf = (lot: Lot) => {
+    const key = `${lot.vintage}|${lot.market}`;
+    if (!judges.has(key)) judges.set(key, judgeFor({ wine: contract.wine, lot, requirements: governingCache.get(lot.vintage)?.requirements ?? null }));
+    return judges.get(key)!;
+  };
   const evaluations = samples.map((s, i) => {
     const g = governingCache.get(s.lot.vintage);
-    // An audit speaks only for the parameters ordered; the spec's other rows are not "missing" from it.
-    const reported = new Set(s.results.map((r) => r.parameter));
-    const requirements = header.auditOrderId ? (g?.requirements.filter((r) => reported.has(r.parameter)) ?? null) : (g?.requirements ?? null);
-    const e = evaluateAnalysis(contract.wine, s.lot, header.stage, requirements, s.results);
-    const failing = e.verdicts.filter((v) => FAILING.has(v.outcome)).map((v) => v.parameter);
-    if (failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: failing });
+    const e = judgeAnalysis(judgeOf(s.lot), header.stage, read[i]!, { onlyReported: !!header.auditOrderId });
+    summary.samples.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, counts: e.counts });
+    if (e.failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: e.failing });
     return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts };
   });
   const now = new Date();
@@ -120,26 +123,13 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification at ${header.stage.replace("_", " ")}${header.auditOrderId ? ", by the independent laboratory" : ""}.`,
     auditOrderId: header.auditOrderId ?? null,
   }));
-  if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analyses)));
+  if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analyses, read)));
   summary.deviationIds = await openDeviations(t, contract, { userId, organisationId: header.actingOrgId ?? contract.producerOrgId }, deviations);
   return summary;
 }
 
-/** The pre-shipment and arrival values of one lot, in canonical units, for the transit check. */
-export function transitValues(results: { parameter: string; reading: { kind: string; value?: number }; unit: string; uncertainty?: { kind: string; value: number; k?: number } | null }[]) {
-  const out: Partial<Record<ParameterId, TransitValue>> = {};
-  for (const r of results) {
-    const p = findParameter(r.parameter);
-    if (!p || r.reading.kind !== "value" || typeof r.reading.value !== "number") continue;
-    const value = convert(r.reading.value, r.unit as UnitId, p.unit);
-    const u = r.uncertainty ? convert(r.uncertainty.value, r.unit as UnitId, p.unit) / (r.uncertainty.kind === "expanded" ? (r.uncertainty.k ?? 2) : 1) : undefined;
-    out[p.id as ParameterId] = u === undefined ? { value } : { value, u };
-  }
-  return out;
-}
-
-async function transitDeviations(t: Transaction, samples: SampleToStore[], analyses: Analysis[]): Promise<NewDeviation[]> {
-  const bulk = samples.map((s, i) => ({ s, analysis: analyses[i]! })).filter((x) => isBulk(x.s.lot.container));
+async function transitDeviations(t: Transaction, samples: SampleToStore[], analyses: Analysis[], read: ReadResult[][]): Promise<NewDeviation[]> {
+  const bulk = samples.map((s, i) => ({ s, analysis: analyses[i]!, arrival: read[i]! })).filter((x) => isBulk(x.s.lot.container));
   if (!bulk.length) return [];
   const before = await Analysis.findAll({
     where: { lotId: bulk.map((b) => b.s.lot.id), stage: "pre_shipment", id: { [Op.notIn]: analyses.map((a) => a.id) } },
@@ -148,13 +138,9 @@ async function transitDeviations(t: Transaction, samples: SampleToStore[], analy
     transaction: t,
   });
   const found: NewDeviation[] = [];
-  for (const { s, analysis } of bulk) {
+  for (const { s, analysis, arrival } of bulk) {
     const pre = before.find((a) => a.lotId === s.lot.id) as (Analysis & { results: AnalysisResult[] }) | undefined;
     if (!pre) continue;
-    const arrival = s.results.map((r) => {
-      const parsed = parseReading(r.raw);
-      return { parameter: r.parameter, reading: parsed.ok ? (parsed.reading as { kind: string; value?: number }) : { kind: "none" }, unit: r.unit, uncertainty: r.uncertainty ?? null };
-    });
     const exceeded = compareTransit(transitValues(pre.results), transitValues(arrival)).filter((f) => f.exceeded);
     if (exceeded.length) {
       found.push({

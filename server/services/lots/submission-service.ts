@@ -48,7 +48,7 @@ export async function submitAnalysis(orgId: number, lotId: number, user: Session
       after: body,
       details: { lotId, stage: body.stage, results: body.results.length, failing: stored.failing[0]?.parameters ?? [], deviations: stored.deviationIds },
     });
-    return { analysisId: stored.analysisIds[0]!, failing: stored.failing[0]?.parameters ?? [], deviationIds: stored.deviationIds };
+    return { analysisId: stored.analysisIds[0]!, counts: stored.samples[0]!.counts, failing: stored.failing[0]?.parameters ?? [], deviationIds: stored.deviationIds };
   });
 }
 
@@ -93,6 +93,6 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
       after: batch,
       details: { stage: header.stage, analyses: stored.analysisIds.length, lotsCreated: missing.length, failing: stored.failing.length, deviations: stored.deviationIds.length },
     });
-    return { analyses: stored.analysisIds.length, lotsCreated: missing.length, failing: stored.failing, deviationIds: stored.deviationIds };
+    return { analyses: stored.analysisIds.length, lotsCreated: missing.length, samples: stored.samples, failing: stored.failing, deviationIds: stored.deviationIds };
   });
 }

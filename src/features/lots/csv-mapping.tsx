@@ -1,6 +1,6 @@
 /** The column-mapping step of the CSV import: what each column of the file means. */
 import { PARAMETERS, UNITS, findParameter, type UnitId } from "../../../shared/engine/index.ts";
-import type { ColumnRole } from "../../../shared/lots/csv.ts";
+import { parseHeader, statedUnit, type ColumnRole } from "../../../shared/lots/csv.ts";
 
 const ROLE_OPTIONS: { value: string; label: string }[] = [
   { value: "ignore", label: "Ignore this column" },
@@ -17,10 +17,12 @@ const ROLE_OPTIONS: { value: string; label: string }[] = [
 
 const roleValue = (r: ColumnRole) => (r.kind === "parameter" ? `parameter:${r.parameter}` : r.kind);
 
-function roleFrom(value: string): ColumnRole {
+/** A column newly mapped to a parameter keeps the unit its header states; with none, the user is asked. */
+function roleFrom(value: string, header: string): ColumnRole {
   if (value.startsWith("parameter:")) {
     const p = findParameter(value.slice("parameter:".length))!;
-    return { kind: "parameter", parameter: p.id, unit: p.unit as UnitId };
+    const said = parseHeader(header);
+    return { kind: "parameter", parameter: p.id, unit: statedUnit(p.id, said.unit), headerUnit: said.unitText };
   }
   return { kind: value } as ColumnRole;
 }
@@ -43,7 +45,7 @@ export function CsvMapping({ headers, sample, mapping, onChange }: { headers: st
                 <td className="py-2 pr-3 text-ink-500">{sample.slice(0, 3).map((r) => r[i]).filter(Boolean).join(" · ")}</td>
                 <td className="py-2 pr-3">
                   <label className="sr-only" htmlFor={`map-${i}`}>Meaning of column {h}</label>
-                  <select id={`map-${i}`} className="w-72 rounded border border-line px-2 py-1" value={roleValue(role)} onChange={(e) => set(i, roleFrom(e.target.value))}>
+                  <select id={`map-${i}`} className="w-72 rounded border border-line px-2 py-1" value={roleValue(role)} onChange={(e) => set(i, roleFrom(e.target.value, h))}>
                     {ROLE_OPTIONS.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
                   </select>
                 </td>
@@ -51,9 +53,21 @@ export function CsvMapping({ headers, sample, mapping, onChange }: { headers: st
                   {role.kind === "parameter" && p && (
                     <>
                       <label className="sr-only" htmlFor={`unit-${i}`}>Unit of column {h}</label>
-                      <select id={`unit-${i}`} className="rounded border border-line px-2 py-1" value={role.unit} onChange={(e) => set(i, { ...role, unit: e.target.value as UnitId })}>
+                      <select
+                        id={`unit-${i}`}
+                        className="rounded border border-line px-2 py-1"
+                        value={role.unit ?? ""}
+                        aria-invalid={role.unit === null ? true : undefined}
+                        onChange={(e) => set(i, { ...role, unit: (e.target.value || null) as UnitId | null })}
+                      >
+                        {role.unit === null && <option value="">Choose the unit…</option>}
                         {p.units.map((u) => <option key={u} value={u}>{UNITS[u as UnitId].label}</option>)}
                       </select>
+                      {role.unit === null && (
+                        <span role="alert" className="block text-xs font-semibold text-alarm-700">
+                          {role.headerUnit ? `"${role.headerUnit}" is not a unit for ${p.name}; choose one.` : "The header does not say; choose the unit."}
+                        </span>
+                      )}
                     </>
                   )}
                 </td>

@@ -18,6 +18,8 @@ import { buildSamples, guessMapping, type ColumnRole } from "../../../shared/lot
 import { IMPORT_BATCH_MAX } from "../../../shared/lots/schemas.ts";
 import { ANALYSIS_STAGES, ANALYSIS_STAGE_LABELS, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
+import type { ImportResult } from "../../../shared/lots/views.ts";
+import { ImportSummary } from "./import-summary.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
 
 interface Parsed {
@@ -26,7 +28,7 @@ interface Parsed {
   rows: string[][];
 }
 
-type Outcome = { analyses: number; lotsCreated: number; failing: { lotCode: string; parameters: string[] }[] };
+type Outcome = { analyses: number; lotsCreated: number; samples: ImportResult["samples"]; failing: ImportResult["failing"] };
 
 export function ImportPage() {
   const { membership } = useShellContext();
@@ -44,12 +46,14 @@ export function ImportPage() {
   const [sent, setSent] = useState<{ done: number; total: number } | null>(null);
   const [outcome, setOutcome] = useState<Outcome | null>(null);
   const [error, setError] = useState<string | null>(null);
+  const [confirmed, setConfirmed] = useState(false);
 
   const preview = useMemo(() => (parsed ? buildSamples(parsed.headers, parsed.rows, mapping, { sampleDate }) : null), [parsed, mapping, sampleDate]);
 
   const readFile = (file: File) => {
     setParsed(null);
     setOutcome(null);
+    setConfirmed(false);
     setError(null);
     setReadProgress(0);
     const rows: string[][] = [];
@@ -76,7 +80,7 @@ export function ImportPage() {
     setError(null);
     const importId = crypto.randomUUID();
     const total = preview.samples.length;
-    const summary: Outcome = { analyses: 0, lotsCreated: 0, failing: [] };
+    const summary: Outcome = { analyses: 0, lotsCreated: 0, samples: [], failing: [] };
     setSent({ done: 0, total });
     try {
       for (let i = 0; i < total; i += IMPORT_BATCH_MAX) {
@@ -84,6 +88,7 @@ export function ImportPage() {
         const r = await importBatch(orgId, Number(contractId), { idempotencyKey: `${importId}-${i}`, stage, laboratoryName: lab, accreditation: accreditation || null, samples: batch });
         summary.analyses += r.analyses;
         summary.lotsCreated += r.lotsCreated;
+        summary.samples.push(...r.samples);
         summary.failing.push(...r.failing);
         setSent({ done: Math.min(total, i + batch.length), total });
       }
@@ -157,7 +162,20 @@ export function ImportPage() {
                 </tbody>
               </table>
             )}
-            <Button onClick={() => void send()} disabled={busy || preview.samples.length === 0 || lab.trim().length < 2}>
+            {preview.implausible.length > 0 && (
+              <div className="mb-4 flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 p-3 text-sm">
+                <p className="font-semibold text-ochre-700">{preview.implausible.length === 1 ? "1 value looks implausible" : `${preview.implausible.length} values look implausible`}: check the unit of each column before sending.</p>
+                <ul className="max-h-40 overflow-y-auto">
+                  {preview.implausible.slice(0, 100).map((f, i) => (
+                    <li key={i}>Row {f.row}, {f.column}: {f.message}</li>
+                  ))}
+                </ul>
+                <label className="flex items-center gap-2 font-semibold">
+                  <input type="checkbox" checked={confirmed} onChange={(e) => setConfirmed(e.target.checked)} /> I have checked these values and their units; send them as they are.
+                </label>
+              </div>
+            )}
+            <Button onClick={() => void send()} disabled={busy || preview.samples.length === 0 || lab.trim().length < 2 || (preview.implausible.length > 0 && !confirmed)}>
               {busy ? "Importing…" : `Import ${preview.samples.length} samples`}
             </Button>
             {lab.trim().length < 2 && <p className="mt-1 text-xs text-ink-500">Name the laboratory first.</p>}
@@ -169,14 +187,7 @@ export function ImportPage() {
             )}
             {outcome && (
               <div className="mt-4 flex flex-col gap-2">
-                <Notice tone={outcome.failing.length ? "error" : "success"}>
-                  {outcome.analyses} analyses stored{outcome.lotsCreated ? `, ${outcome.lotsCreated} new lots registered` : ""}. {outcome.failing.length ? `${outcome.failing.length} sample(s) outside the specification; deviations were opened.` : "Every sample conforms."}
-                </Notice>
-                {outcome.failing.slice(0, 50).map((f, i) => (
-                  <p key={`${f.lotCode}-${i}`} className="text-sm">
-                    <strong>{f.lotCode}</strong>: {f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} failing
-                  </p>
-                ))}
+                <ImportSummary outcome={outcome} />
                 <Link to={`/lots?contract=${contractId}`} className="text-sm font-semibold text-must-700 underline">See the lots</Link>
               </div>
             )}

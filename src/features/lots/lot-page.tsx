@@ -5,6 +5,9 @@ import { certificateUrl, lotQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { OutcomeBadge } from "./outcome-badge.tsx";
+import { LotStatusBadge } from "./lot-status-badge.tsx";
+import { LotStatusCard } from "./lot-status-card.tsx";
+import { CERTIFIABLE } from "../../../shared/lots/lot-status.ts";
 import { VerdictTable } from "./verdict-table.tsx";
 import { ResultEntryForm } from "./result-entry-form.tsx";
 import { CertificateUpload } from "./certificate-upload.tsx";
@@ -39,16 +42,19 @@ export function LotPage() {
         }
         actions={
           <div className="flex items-center gap-3">
-            {l.worstOutcome && <OutcomeBadge outcome={l.worstOutcome} />}
+            <LotStatusBadge status={l.status} />
             <Link to={`/contracts/${l.contractId}/trends`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Trends</Link>
-            {l.analyses.some((a) => a.evaluation) && (
-              <a href={conformityUrl(orgId, l.id)} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Certificate of conformity (PDF)</a>
+            {l.status.code !== "awaiting_results" && (
+              <a href={conformityUrl(orgId, l.id)} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">
+                {CERTIFIABLE.includes(l.status.code) ? "Certificate of conformity (PDF)" : "Analysis statement (PDF)"}
+              </a>
             )}
           </div>
         }
       />
       <div className="flex flex-col gap-6">
         <LegalCaution />
+        <LotStatusCard lot={l} />
         <Card title="Specification in force">
           {l.governing ? (
             <p className="text-sm">
@@ -106,7 +112,7 @@ export function LotPage() {
             <p className="mb-3 text-sm text-ink-700">
               {a.laboratoryName}
               {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · submitted {new Date(a.createdAt).toLocaleString("en-GB")}
-              {a.evaluation && ` · judged with engine ${a.evaluation.engineVersion}, spec version id ${a.evaluation.specVersionId ?? "none"}, market packs ${Object.entries(a.evaluation.marketVersions).map(([m, v]) => `${m} ${v}`).join(", ")}`}
+              {a.evaluation && ` · judged with engine ${a.evaluation.engineVersion}, ${a.evaluation.specVersion ? `against spec version ${a.evaluation.specVersion.number}` : "with no agreed spec version"}, market packs ${Object.entries(a.evaluation.marketVersions).map(([m, v]) => `${m} ${v}`).join(", ")}`}
             </p>
             {a.evaluation ? <VerdictTable verdicts={a.evaluation.verdicts} /> : <p className="text-sm">{a.results.map((r) => `${findParameter(r.parameter)?.name}: ${r.rawText} ${r.unit}`).join(" · ")}</p>}
             <div className="mt-4 flex flex-col gap-2">

@@ -11,7 +11,7 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
-import { OutcomeBadge } from "./outcome-badge.tsx";
+import { LotStatusBadge } from "./lot-status-badge.tsx";
 import { lotSchema, type LotInput } from "../../../shared/lots/schemas.ts";
 import { ANALYSIS_STAGE_LABELS, CONTAINERS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
@@ -61,7 +61,7 @@ function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: num
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm">
         <thead className="border-b border-line text-ink-500">
-          <tr>{["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Verdict", "Open deviations"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+          <tr>{["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
         </thead>
         <tbody>
           {lots.data.map((l) => (
@@ -72,8 +72,8 @@ function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: num
               <td className="py-2 pr-3">{CONTAINER_LABELS[l.container]}</td>
               <td className="py-2 pr-3 tabular-nums">{l.plannedDate ?? "—"}</td>
               <td className="py-2 pr-3">{l.latestStage ? ANALYSIS_STAGE_LABELS[l.latestStage] : "—"}</td>
-              <td className="py-2 pr-3">{l.worstOutcome ? <OutcomeBadge outcome={l.worstOutcome} /> : "—"}</td>
-              <td className="py-2 pr-3 tabular-nums">{l.openDeviations || "—"}</td>
+              <td className="py-2 pr-3"><LotStatusBadge status={l.status} /></td>
+              <td className="py-2 pr-3 tabular-nums">{l.status.openDeviations || "—"}</td>
             </tr>
           ))}
         </tbody>

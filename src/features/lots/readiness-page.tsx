@@ -4,7 +4,8 @@ import { useShellContext } from "../../app/use-shell-context.ts";
 import { readinessQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
-import { OutcomeBadge } from "./outcome-badge.tsx";
+import { LotStatusBadge } from "./lot-status-badge.tsx";
+import { DEVIATION_OUTCOME_LABELS } from "../../../shared/deviations/vocabulary.ts";
 import { STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
@@ -26,7 +27,7 @@ export function ReadinessPage() {
           <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">
               <thead className="border-b border-line text-ink-500">
-                <tr>{["Lot", "Wine", "Due", "Verdict", "Stages"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+                <tr>{["Lot", "Wine", "Due", "Status", "Stages"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
               </thead>
               <tbody>
                 {rows.data.map((r) => (
@@ -37,7 +38,11 @@ export function ReadinessPage() {
                     </td>
                     <td className="py-2 pr-3">{r.wineName}<span className="block text-xs text-ink-500">{r.producerName} · {r.vintage}</span></td>
                     <td className="py-2 pr-3 tabular-nums">{r.plannedDate ?? "not planned"}</td>
-                    <td className="py-2 pr-3">{r.worstOutcome ? <OutcomeBadge outcome={r.worstOutcome} /> : "—"}{r.openDeviations > 0 && <span className="block text-xs text-alarm-700">{r.openDeviations} open deviation(s)</span>}</td>
+                    <td className="py-2 pr-3">
+                      <LotStatusBadge status={r.status} />
+                      {r.status.openDeviations > 0 && <span className="block text-xs text-alarm-700">{r.status.openDeviations === 1 ? "1 open deviation" : `${r.status.openDeviations} open deviations`}</span>}
+                      {r.decidedDeviations.map((d) => <span key={d.id} className="block text-xs text-ink-500">Deviation #{d.id}: {DEVIATION_OUTCOME_LABELS[d.outcome]}</span>)}
+                    </td>
                     <td className="py-2 pr-3 text-xs">
                       {!r.hasAgreedSpec && <span className="text-ochre-700">No agreed specification for this vintage.</span>}
                       <ul className="flex flex-col gap-1">

@@ -2,24 +2,19 @@
  * Entering one analysis by hand: one line per requirement of the governing version, with the
  * verdict computed by the engine in the browser as the user types.
  */
-import { useState } from "react";
-import { buildRequirement, evaluate, findParameter, parseReading, UNITS, type MarketId, type UnitId } from "../../../shared/engine/index.ts";
-import { analysisSubmissionSchema, type ResultEntry } from "../../../shared/lots/schemas.ts";
+import { useMemo, useState } from "react";
+import { findParameter, implausibility, parseReading, UNITS, type UnitId } from "../../../shared/engine/index.ts";
+import { analysisSubmissionSchema } from "../../../shared/lots/schemas.ts";
+import { countsText } from "../../../shared/lots/judge.ts";
 import { ANALYSIS_STAGES, ANALYSIS_STAGE_LABELS, specStageFor, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
-import { wineProfile } from "../../../shared/specs/profile.ts";
 import type { LotDetail } from "../../../shared/lots/views.ts";
+import { entryResults, judgeForLot, previewJudgement, type EntryLine } from "./entry-preview.ts";
 import { useSubmitAnalysis } from "./api/lots.ts";
 import { OutcomeBadge } from "./outcome-badge.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { errorMessage, ApiError } from "../../lib/api-client.ts";
-
-interface Line {
-  raw: string;
-  unit: string;
-  u: string;
-}
 
 export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail }) {
   const submit = useSubmitAnalysis(orgId, lot.id);
@@ -28,22 +23,14 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
   const [lab, setLab] = useState("");
   const [accreditation, setAccreditation] = useState("");
   const [sampleDate, setSampleDate] = useState(new Date().toISOString().slice(0, 10));
-  const [lines, setLines] = useState<Record<string, Line>>(() => Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])));
+  const [lines, setLines] = useState<Record<string, EntryLine>>(() => Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])));
   const [key, setKey] = useState(() => crypto.randomUUID());
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [done, setDone] = useState<string | null>(null);
-  const markets = (lot.market ? [lot.market] : lot.contract.wine.markets) as MarketId[];
-  const profile = wineProfile(lot.contract.wine, lot.vintage);
-  const built = new Map(requirements.map((r) => [r.parameter, buildRequirement(r, markets, profile)]));
+  const judge = useMemo(() => judgeForLot(lot), [lot]);
   const visible = requirements.filter((r) => r.stages.includes(specStageFor(stage)) || lines[r.parameter]?.raw);
-
-  const results: ResultEntry[] = requirements
-    .filter((r) => lines[r.parameter]?.raw.trim())
-    .map((r) => {
-      const l = lines[r.parameter]!;
-      const u = l.u.trim() ? Number(l.u.replace(",", ".")) : null;
-      return { parameter: r.parameter, raw: l.raw.trim(), unit: l.unit as UnitId, uncertainty: u === null ? null : { kind: "expanded", value: u, k: 2 }, method: r.method };
-    });
+  const results = entryResults(requirements, lines);
+  const verdictOf = new Map(previewJudgement(judge, stage, results).verdicts.map((v) => [v.parameter, v]));
 
   const onSubmit = () => {
     setDone(null);
@@ -56,7 +43,8 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
     setErrors({});
     submit.mutate(parsed.data, {
       onSuccess: (r) => {
-        setDone(r.failing.length ? `Saved. ${r.failing.length} parameter(s) outside the specification: ${r.failing.map((p) => findParameter(p)?.name).join(", ")}. A deviation was opened.` : "Saved. Every required result conforms.");
+        const stored = `Saved: ${countsText(r.counts)}.`;
+        setDone(r.failing.length ? `${stored} Outside the specification: ${r.failing.map((p) => findParameter(p)?.name).join(", ")}. A deviation was opened.` : stored);
         setKey(crypto.randomUUID());
         setLines(Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])));
       },
@@ -69,7 +57,7 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
   if (!lot.governing) return <Notice>No agreed specification covers vintage {lot.vintage} yet, so results cannot be judged. The buyer must send a version and you must agree to it first.</Notice>;
   return (
     <div className="flex flex-col gap-4">
-      {done && <Notice tone={done.includes("outside") ? "error" : "success"}>{done}</Notice>}
+      {done && <Notice tone={done.includes("Outside") ? "error" : "success"}>{done}</Notice>}
       {submit.isError && <Notice tone="error">{errorMessage(submit.error)}</Notice>}
       <div className="grid gap-3 md:grid-cols-4">
         <SelectField label="Stage" value={stage} onChange={(e) => setStage(e.target.value as AnalysisStage)} options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))} />
@@ -91,9 +79,9 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
             const l = lines[r.parameter]!;
             const i = results.findIndex((x) => x.parameter === r.parameter);
             const parsed = l.raw.trim() ? parseReading(l.raw, { presence: p?.kind === "presence" }) : null;
-            const u = l.u.trim() ? Number(l.u.replace(",", ".")) : null;
-            const verdict = parsed?.ok ? evaluate(built.get(r.parameter)!, { reading: parsed.reading, unit: l.unit as UnitId, uncertainty: u === null || Number.isNaN(u) ? null : { kind: "expanded", value: u, k: 2 } }) : null;
-            const set = (patch: Partial<Line>) => setLines((all) => ({ ...all, [r.parameter]: { ...l, ...patch } }));
+            const verdict = parsed?.ok ? verdictOf.get(r.parameter) : null;
+            const odd = parsed?.ok ? implausibility(r.parameter, parsed.reading, l.unit as UnitId) : null;
+            const set = (patch: Partial<EntryLine>) => setLines((all) => ({ ...all, [r.parameter]: { ...l, ...patch } }));
             const error = (parsed && !parsed.ok ? parsed.error : undefined) ?? errors[`results.${i}.raw`] ?? errors[`results.${i}.unit`];
             return (
               <tr key={r.parameter} className="border-b border-line/60 align-top">
@@ -116,7 +104,10 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
                   <label className="sr-only" htmlFor={`u-${r.parameter}`}>Expanded uncertainty of {p?.name}</label>
                   <input id={`u-${r.parameter}`} inputMode="decimal" className="w-20 rounded border border-line px-2 py-1" value={l.u} onChange={(e) => set({ u: e.target.value })} />
                 </td>
-                <td className="py-2 pr-3 text-xs">{verdict ? <><OutcomeBadge outcome={verdict.outcome} /> <span className="text-ink-500">{verdict.uncertainty?.source === "default" ? "default uncertainty" : ""}</span></> : <span className="text-ink-500">—</span>}</td>
+                <td className="py-2 pr-3 text-xs">
+                  {verdict ? <><OutcomeBadge outcome={verdict.outcome} /> <span className="text-ink-500">{verdict.uncertainty?.source === "default" ? "default uncertainty" : ""}</span></> : <span className="text-ink-500">—</span>}
+                  {odd && <span className="block font-semibold text-ochre-700">{odd}</span>}
+                </td>
               </tr>
             );
           })}

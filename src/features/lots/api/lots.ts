@@ -2,7 +2,7 @@ import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query
 import { api } from "../../../lib/api-client.ts";
 import { uploadFile } from "../../../lib/upload.ts";
 import type { AnalysisSubmission, ImportBatch, LotInput } from "../../../../shared/lots/schemas.ts";
-import type { LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../../shared/lots/views.ts";
+import type { ImportResult, LotDetail, LotSummary, ReadinessRow, SubmissionResult, TrendData } from "../../../../shared/lots/views.ts";
 
 const base = (orgId: number) => `/api/orgs/${orgId}`;
 
@@ -41,12 +41,12 @@ export function useRegisterLot(orgId: number) {
 export function useSubmitAnalysis(orgId: number, lotId: number) {
   const invalidate = useInvalidateLots(orgId);
   return useMutation({
-    mutationFn: (input: AnalysisSubmission) => api<{ analysisId: number; failing: string[]; deviationIds: number[] }>(`${base(orgId)}/lots/${lotId}/analyses`, { method: "POST", body: input }),
+    mutationFn: (input: AnalysisSubmission) => api<SubmissionResult>(`${base(orgId)}/lots/${lotId}/analyses`, { method: "POST", body: input }),
     onSuccess: invalidate,
   });
 }
 
 export const importBatch = (orgId: number, contractId: number, batch: ImportBatch) =>
-  api<{ analyses: number; lotsCreated: number; failing: { analysisId: number; lotCode: string; parameters: string[] }[]; deviationIds: number[] }>(`${base(orgId)}/contracts/${contractId}/imports`, { method: "POST", body: batch });
+  api<ImportResult>(`${base(orgId)}/contracts/${contractId}/imports`, { method: "POST", body: batch });
 
 export const uploadCertificate = (orgId: number, analysisId: number, file: File) => uploadFile<{ id: number; sha256: string }>(`${base(orgId)}/analyses/${analysisId}/certificates`, file);
