@@ -20,7 +20,7 @@ import { registerDeviationRoutes } from "./routes/deviation-routes.ts";
 import { registerAuditRoutes } from "./routes/audit-routes.ts";
 import { registerComplianceAuditRoutes } from "./routes/compliance-audit-routes.ts";
 import { registerPaymentWebhookRoutes, STRIPE_WEBHOOK_PATH } from "./routes/payment-webhook-routes.ts";
-import { useServiceSettings } from "./services/settings.ts";
+import { settingsFrom, useServiceSettings } from "./services/settings.ts";
 
 export const APP_VERSION = "0.1.0";
 export const BODY_LIMIT = "100kb";
@@ -28,12 +28,7 @@ export const BODY_LIMIT = "100kb";
 export const IMPORT_BODY_LIMIT = "8mb";
 
 export function createApp(config: Config, logger: Logger): { app: Express; registry: RouteRegistry } {
-  useServiceSettings({
-    appUrl: config.APP_URL,
-    bcryptCost: config.BCRYPT_COST,
-    certificateDir: path.resolve(config.CERTIFICATE_DIR),
-    stripe: { secretKey: config.STRIPE_SECRET_KEY, webhookSecret: config.STRIPE_WEBHOOK_SECRET, host: config.STRIPE_API_HOST, port: config.STRIPE_API_PORT, protocol: config.STRIPE_API_PROTOCOL },
-  });
+  useServiceSettings(settingsFrom(config));
   const production = config.NODE_ENV === "production";
   const cookies: CookieSettings = { secret: config.JWT_SECRET, hours: config.SESSION_HOURS, secure: config.COOKIE_SECURE };
   const limits = { perIp: config.LOGIN_LIMIT_PER_IP, perAccount: config.LOGIN_LIMIT_PER_ACCOUNT, windowMinutes: config.LOGIN_WINDOW_MINUTES };

@@ -4,6 +4,8 @@
  */
 import type { QueryInterface } from "sequelize";
 import { useDatabase } from "../../server/db/database.ts";
+import { loadConfig } from "../../server/config.ts";
+import { settingsFrom, useServiceSettings } from "../../server/services/settings.ts";
 import { User } from "../../server/models/user.ts";
 import { Lot } from "../../server/models/lot.ts";
 import { submitAnalysis } from "../../server/services/lots/submission-service.ts";
@@ -25,6 +27,7 @@ export interface DemoAnalysis {
 
 export async function submitDemoAnalyses(qi: QueryInterface, analyses: DemoAnalysis[]): Promise<void> {
   useDatabase(qi.sequelize);
+  useServiceSettings(settingsFrom(loadConfig()));
   for (const a of analyses) {
     const user = await toSessionUser((await User.findOne({ where: { email: a.by } }))!);
     const orgId = user.memberships.find((m) => m.role === "producer_quality")!.organisationId;

@@ -159,6 +159,11 @@ function LotDocument({ d }: { d: LotDocumentData }) {
               {audit.reportReference ? ` · report ${audit.reportReference}` : ""} · sampled {audit.analysis.sampleDate}
             </Text>
             <Results verdicts={audit.analysis.evaluation?.verdicts ?? []} />
+            {audit.comparisons.some((c) => c.outcome === "discrepant") && (
+              <Text style={{ marginTop: 4, fontWeight: 600 }}>
+                The independent audit disagrees with the declared results on {audit.comparisons.filter((c) => c.outcome === "discrepant").map((c) => name(c.parameter)).join(", ")}; see the deviation opened for it.
+              </Text>
+            )}
             <Text style={[s.small, { marginTop: 6 }]}>Agreement with the declared results (ISO 13528 scores, the independent laboratory as reference):</Text>
             <View style={s.head}>
               <Text style={s.c}>Parameter</Text>

@@ -1,4 +1,7 @@
-/** The few config values that services need, set once when the app is built. */
+/** The few config values that services need, set once when the app is built (or a seeder runs). */
+import path from "node:path";
+import type { Config } from "../config.ts";
+
 export interface ServiceSettings {
   appUrl: string;
   bcryptCost: number;
@@ -8,6 +11,15 @@ export interface ServiceSettings {
 }
 
 let current: ServiceSettings | null = null;
+
+export function settingsFrom(config: Config): ServiceSettings {
+  return {
+    appUrl: config.APP_URL,
+    bcryptCost: config.BCRYPT_COST,
+    certificateDir: path.resolve(config.CERTIFICATE_DIR),
+    stripe: { secretKey: config.STRIPE_SECRET_KEY, webhookSecret: config.STRIPE_WEBHOOK_SECRET, host: config.STRIPE_API_HOST, port: config.STRIPE_API_PORT, protocol: config.STRIPE_API_PROTOCOL },
+  };
+}
 
 export function useServiceSettings(s: ServiceSettings): void {
   current = s;

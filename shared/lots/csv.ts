@@ -108,14 +108,15 @@ export function statedUnit(parameterId: string, unit: UnitId | null): UnitId | n
 export function guessMapping(headers: readonly string[]): ColumnRole[] {
   const roles = headers.map((h): ColumnRole => {
     const t = foldHeader(h);
-    if (/^(lot|lot code|lot no\.?|lot number|batch|sample id|sample)$/.test(t)) return { kind: "lot" };
-    if (/^(vintage|harvest|harvest year)$/.test(t)) return { kind: "vintage" };
-    if (/^(date|sample date|sampling date|sampled)$/.test(t)) return { kind: "date" };
-    if (/^(parameter|analyte|determinand|test)$/.test(t)) return { kind: "parameter-name" };
-    if (/^(value|result)$/.test(t)) return { kind: "value" };
-    if (/^(unit|units)$/.test(t)) return { kind: "unit" };
-    if (/^(uncertainty|u|expanded uncertainty|±|\+\/-)$/.test(t)) return { kind: "uncertainty" };
-    if (/^(method|method ref(erence)?)$/.test(t)) return { kind: "method" };
+    // The usual column names in English, French, Italian, Spanish, German and Portuguese (folded: no accents).
+    if (/^(lot|lot code|lot no\.?|lot number|batch|sample id|sample|lotto|lote|partie|charge|numero de lot|n° lot)$/.test(t)) return { kind: "lot" };
+    if (/^(vintage|harvest|harvest year|millesime|annata|vendemmia|cosecha|anada|jahrgang|colheita)$/.test(t)) return { kind: "vintage" };
+    if (/^(date|sample date|sampling date|sampled|date de prelevement|date d'analyse|data|data prelievo|data di campionamento|fecha|fecha de muestreo|datum|probenahmedatum|data de amostragem|data da colheita da amostra)$/.test(t)) return { kind: "date" };
+    if (/^(parameter|analyte|determinand|test|parametre|parametro|parameter name|analyse|analisi|analisis|analise)$/.test(t)) return { kind: "parameter-name" };
+    if (/^(value|result|valeur|resultat|valore|risultato|valor|resultado|wert|ergebnis)$/.test(t)) return { kind: "value" };
+    if (/^(unit|units|unite|unita|unidad|einheit|unidade)$/.test(t)) return { kind: "unit" };
+    if (/^(uncertainty|u|expanded uncertainty|±|\+\/-|incertitude|incertezza|incertidumbre|messunsicherheit|incerteza)$/.test(t)) return { kind: "uncertainty" };
+    if (/^(method|method ref(erence)?|methode|metodo|methode ref)$/.test(t)) return { kind: "method" };
     const { parameter, unit, unitText } = parseHeader(h);
     if (parameter) return { kind: "parameter", parameter, unit: statedUnit(parameter, unit), headerUnit: unitText };
     return { kind: "ignore" };

@@ -170,20 +170,28 @@ describe("the laboratory's side", () => {
   });
 });
 
-describe("certificate of conformity", () => {
-  it("states parties, spec version, results with uncertainty and verdicts, the decision rule, the audit and the caution", async () => {
+describe("the lot's document", () => {
+  it("when required results are missing, then the document is an analysis statement with the lot's status, parties, results, the audit and the caution", async () => {
+    const lot = await tech.agent.get(B(`/lots/${lotId}`));
+    // The declared pre-filling analysis has 3 of the spec's rows, so the lot cannot be certified.
+    expect(lot.body.status).toMatchObject({ code: "incomplete", label: "Results incomplete" });
     const { status, type, text } = await getPdf(tech.agent, B(`/lots/${lotId}/conformity.pdf`));
     expect(status).toBe(200);
     expect(type).toBe("application/pdf");
+    expect(text).not.toContain("Certificate of conformity");
     for (const needle of [
-      "Certificate of conformity",
+      "Analysis statement",
+      "Status: Results incomplete",
+      "Required results are missing",
+      "This is not a certificate of conformity",
       `Lot ${lotCode}`,
       "Harbourline Grocers",
       "Domaine des Trois Sentes",
-      "Specification: version 1 (agreed)",
+      "version 1 (agreed",
+      "judged against spec version 1",
       "Volatile acidity",
-      "0.4 ± 0.03 g/L as acetic acid",
-      "max 0.6 g/L as acetic acid (buyer)",
+      "0.40 ± 0.03 g/L as acetic acid",
+      "max 0.60 g/L as acetic acid (buyer)",
       "Northgate Oenology Laboratory",
       "report NG-26-1187",
       "discrepant",
@@ -198,11 +206,11 @@ describe("certificate of conformity", () => {
     expect((await valsorda.agent.get(`/api/orgs/${ORG.valsorda}/lots/${lotId}/conformity.pdf`)).status).toBe(404);
   });
 
-  it("refuses a lot with no evaluated results", async () => {
+  it("when a lot has no judged results, then no document is issued", async () => {
     const empty = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode: `SB-EMPTY-${randomUUID().slice(0, 6)}`, volumeLitres: 100, container: "bottles", market: "EU" });
     const res = await producer.agent.get(P(`/lots/${empty.body.id}/conformity.pdf`));
     expect(res.status).toBe(409);
-    expect(res.body.detail).toMatch(/no evaluated results/);
+    expect(res.body.detail).toMatch(/no results judged against an agreed specification/);
   });
 });
 

@@ -1,0 +1,105 @@
+/**
+ * One status per lot, from its analyses and the decisions on its deviations, read the same on the
+ * lots list, the lot, the readiness board and the lot's document (read back with pdftotext).
+ * The document follows ISO/IEC 17050-1:2004 (corrected 2007-06-15), clause 6.1, for what a
+ * declaration of conformity contains (the clause's list is from memory).
+ */
+import { beforeAll, describe, expect, it } from "vitest";
+import { randomUUID } from "node:crypto";
+import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { passingResults } from "../support/passing-results.ts";
+import type { LotDetail, LotSummary, ReadinessRow } from "../../shared/lots/views.ts";
+
+let t: TestApp;
+let producer: SignedInAgent;
+let tech: SignedInAgent;
+const P = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
+const B = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
+const tag = randomUUID().slice(0, 5);
+const lots: Record<"good" | "bad" | "conceded", { id: number; code: string }> = {} as never;
+
+async function registerAndSubmit(code: string, overrides: Record<string, string>) {
+  const lot = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode: code, volumeLitres: 9000, container: "bottles", plannedDate: new Date(Date.now() + 20 * 86_400_000).toISOString().slice(0, 10), market: "EU" });
+  expect(lot.status).toBe(201);
+  const detail = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
+  const res = await producer.agent
+    .post(P(`/lots/${lot.body.id}/analyses`))
+    .set("x-csrf-token", producer.csrf)
+    .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Domaine des Trois Sentes cellar laboratory", sampleDate: "2026-11-25", results: passingResults(detail.governing!.requirements, "pre_filling", overrides) });
+  expect(res.status).toBe(201);
+  return { id: lot.body.id as number, code, submitted: res.body };
+}
+
+beforeAll(async () => {
+  t = buildTestApp();
+  [producer, tech] = await Promise.all([signInAs(t.app, DEMO.producerQuality), signInAs(t.app, DEMO.buyerTechnologist)]);
+  const good = await registerAndSubmit(`ST-OK-${tag}`, {});
+  const bad = await registerAndSubmit(`ST-NO-${tag}`, { volatile_acidity: "0.95" });
+  const conceded = await registerAndSubmit(`ST-CC-${tag}`, { volatile_acidity: "0.95" });
+  Object.assign(lots, { good, bad, conceded });
+  expect(good.submitted.failing).toEqual([]);
+  expect(bad.submitted.failing).toEqual(["volatile_acidity"]);
+  const deviation = conceded.submitted.deviationIds[0];
+  const decided = await tech.agent
+    .post(B(`/deviations/${deviation}/decision`))
+    .set("x-csrf-token", tech.csrf)
+    .send({ outcome: "concession", conditions: [{ kind: "price_adjustment", detail: "4 % off the invoice for this lot" }], reason: "Sound on tasting; VA stable over four weeks." });
+  expect(decided.status).toBe(200);
+});
+
+describe("one status per lot", () => {
+  it("when a lot conforms, fails, or is accepted under concession, then the list, the lot and the readiness board use the same words", async () => {
+    const expected = { good: ["conforms", "Conforms"], bad: ["does_not_conform", "Does not conform"], conceded: ["concession", "Accepted under concession"] } as const;
+    const list = (await tech.agent.get(B("/lots"))).body as LotSummary[];
+    const board = (await tech.agent.get(B("/readiness"))).body as ReadinessRow[];
+    for (const [key, [code, label]] of Object.entries(expected)) {
+      const lot = lots[key as keyof typeof lots];
+      const detail = (await tech.agent.get(B(`/lots/${lot.id}`))).body as LotDetail;
+      expect([key, detail.status.code, detail.status.label]).toEqual([key, code, label]);
+      expect(list.find((l) => l.id === lot.id)?.status.label).toBe(label);
+      expect(board.find((l) => l.id === lot.id)?.status.label).toBe(label);
+    }
+    const conceded = board.find((l) => l.id === lots.conceded.id)!;
+    // A decided deviation is not counted as open; its outcome is shown instead.
+    expect(conceded.status.openDeviations).toBe(0);
+    expect(conceded.decidedDeviations).toEqual([{ id: expect.any(Number), outcome: "concession" }]);
+    expect(conceded.status.concession).toMatchObject({ conditions: [{ kind: "price_adjustment", detail: "4 % off the invoice for this lot" }] });
+    expect(board.find((l) => l.id === lots.bad.id)!.status.openDeviations).toBe(1);
+    expect((await tech.agent.get(B(`/lots/${lots.bad.id}`))).body.status.reason).toBe("Volatile acidity falls outside the governing limits.");
+  });
+
+  it("when the lot conforms or was conceded, then its document is a certificate of conformity that names the concession and its conditions", async () => {
+    const good = await getPdf(tech.agent, B(`/lots/${lots.good.id}/conformity.pdf`));
+    expect(good.status).toBe(200);
+    for (const needle of ["Certificate of conformity", "Status: Conforms", "Identification", "Object", "Requirements referred to", "Limitations", "Issued on", "Tessa Marlow", "judged against spec version 1"]) expect(good.text).toContain(needle);
+    const conceded = await getPdf(tech.agent, B(`/lots/${lots.conceded.id}/conformity.pdf`));
+    for (const needle of ["Certificate of conformity", "Status: Accepted under concession", "Concession: deviation #", "Sound on tasting; VA stable over four weeks.", "Condition, price adjustment: 4 % off the invoice for this lot"]) {
+      expect(conceded.text).toContain(needle);
+    }
+  });
+
+  it("when the lot does not conform, then the same button gives an analysis statement that says why", async () => {
+    const bad = await getPdf(tech.agent, B(`/lots/${lots.bad.id}/conformity.pdf`));
+    expect(bad.status).toBe(200);
+    expect(bad.text).not.toContain("Certificate of conformity");
+    for (const needle of ["Analysis statement", "Status: Does not conform", "Volatile acidity falls outside the governing limits.", "This is not a certificate of conformity"]) expect(bad.text).toContain(needle);
+  });
+
+  it("when an analysis is stored, then the answer counts its verdicts by outcome exactly as stored", async () => {
+    const detail = (await producer.agent.get(P(`/lots/${lots.bad.id}`))).body as LotDetail;
+    const stored = detail.analyses.at(-1)!.evaluation!.verdicts.filter((v) => v.outcome !== "not required");
+    expect(stored.filter((v) => v.outcome === "fail")).toHaveLength(1);
+    const submitted = await producer.agent
+      .post(P(`/lots/${lots.bad.id}/analyses`))
+      .set("x-csrf-token", producer.csrf)
+      .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Domaine des Trois Sentes cellar laboratory", sampleDate: "2026-11-26", results: [{ parameter: "volatile_acidity", raw: "0.40", unit: "g/L as acetic acid", uncertainty: null }] });
+    const after = (await producer.agent.get(P(`/lots/${lots.bad.id}`))).body as LotDetail;
+    const verdicts = after.analyses.at(-1)!.evaluation!.verdicts.filter((v) => v.outcome !== "not required");
+    const counted: Record<string, number> = {};
+    for (const v of verdicts) counted[v.outcome] = (counted[v.outcome] ?? 0) + 1;
+    expect(submitted.body.counts).toEqual(counted);
+    expect(submitted.body.counts.missing).toBe(verdicts.length - 1);
+    // The latest pre-filling analysis now speaks for the lot: one pass, the rest missing.
+    expect(after.status.code).toBe("incomplete");
+  });
+});
