@@ -50,7 +50,7 @@ beforeAll(async () => {
 describe("one status per lot", () => {
   it("when a lot conforms, fails, or is accepted under concession, then the list, the lot and the readiness board use the same words", async () => {
     const expected = { good: ["conforms", "Conforms"], bad: ["does_not_conform", "Does not conform"], conceded: ["concession", "Accepted under concession"] } as const;
-    const list = (await tech.agent.get(B("/lots"))).body as LotSummary[];
+    const list = (await tech.agent.get(B(`/lots?q=${tag}`))).body as LotSummary[];
     const board = (await tech.agent.get(B("/readiness"))).body as ReadinessRow[];
     for (const [key, [code, label]] of Object.entries(expected)) {
       const lot = lots[key as keyof typeof lots];

@@ -122,7 +122,7 @@ describe("a paid independent audit", () => {
     await signOut(page);
   });
 
-  it("when the buyer opens the order, then it sees the comparison and downloads the certificate of conformity", async () => {
+  it("when the buyer opens the order, then it sees the comparison and downloads the lot's document, an analysis statement while results are missing", async () => {
     const { page, baseUrl } = s;
     await signInThroughForm(page, baseUrl, DEMO.buyerTechnologist);
     await nav("Audits");
@@ -133,10 +133,12 @@ describe("a paid independent audit", () => {
     await page.getByRole("row").filter({ has: page.getByRole("rowheader", { name: "Free SO2" }) }).getByText("agrees", { exact: true }).waitFor();
     await expectAccessible(page, "audit order (buyer)");
     await screenshot(page, "audit-comparison");
-    const download = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Certificate of conformity (PDF)" }).first().click()]).then(([d]) => d);
-    expect(download.suggestedFilename()).toBe(`conformity-${lotCode}.pdf`);
+    const download = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Conformity document (PDF)" }).first().click()]).then(([d]) => d);
+    // The declared analysis gives two of the spec's rows, so the lot's status is "Results incomplete".
+    expect(download.suggestedFilename()).toBe(`analysis-statement-${lotCode}.pdf`);
     const text = execFileSync("pdftotext", [await download.path(), "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
-    expect(text).toContain("Certificate of conformity");
+    expect(text).toContain("Analysis statement");
+    expect(text).toContain("Status: Results incomplete");
     expect(text).toContain("Northgate Oenology Laboratory");
     expect(text).toContain("report NG-26-2041");
     expect(text).toContain("does not replace the test report of an accredited laboratory");

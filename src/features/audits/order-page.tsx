@@ -79,7 +79,8 @@ export function OrderPage() {
               o.lots.map((l) => (
                 <div key={l.lotId} className="mb-6">
                   <h3 className="mb-2 font-semibold">
-                    Lot {l.lotCode} · <a className="text-must-700 underline" href={conformityUrl(orgId, l.lotId)}>Certificate of conformity (PDF)</a>
+                    Lot {l.lotCode} · <a className="text-must-700 underline" href={conformityUrl(orgId, l.lotId)}>Conformity document (PDF)</a>
+                    <span className="block text-xs font-normal text-ink-500">A certificate of conformity when the lot's status allows one, otherwise an analysis statement saying why not.</span>
                   </h3>
                   <ComparisonTable comparisons={l.comparisons} caption={`Declared results against ${o.laboratoryName}'s (the reference). En uses both expanded uncertainties; z uses the catalogue's standard uncertainty as σ_pt.`} />
                 </div>

@@ -16,7 +16,7 @@ export function ImportSummary({ outcome }: { outcome: { analyses: number; lotsCr
       <Notice tone={outcome.failing.length ? "error" : clean === outcome.samples.length ? "success" : "info"}>
         {outcome.analyses} analyses stored{outcome.lotsCreated ? `, ${outcome.lotsCreated} new lots registered` : ""}. Results: {countsText(total)}.{" "}
         {clean} of {outcome.samples.length} samples pass on every required parameter
-        {outcome.failing.length ? `; ${outcome.failing.length} fall outside the specification and deviations were opened.` : "."}
+        {outcome.failing.length ? `; ${outcome.failing.length} ${outcome.failing.length === 1 ? "falls" : "fall"} outside the specification and deviations were opened.` : "."}
       </Notice>
       <table className="w-full text-left text-sm">
         <caption className="sr-only">What was stored for each sample</caption>
