@@ -7,7 +7,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
-import { passingResults } from "../support/passing-results.ts";
+import { setUpThreeLots, THREE_LOT_STATUSES, type ThreeLots } from "../support/three-lots.ts";
 import type { LotDetail, LotSummary, ReadinessRow } from "../../shared/lots/views.ts";
 
 let t: TestApp;
@@ -16,40 +16,19 @@ let tech: SignedInAgent;
 const P = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
 const B = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
 const tag = randomUUID().slice(0, 5);
-const lots: Record<"good" | "bad" | "conceded", { id: number; code: string }> = {} as never;
-
-async function registerAndSubmit(code: string, overrides: Record<string, string>) {
-  const lot = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode: code, volumeLitres: 9000, container: "bottles", plannedDate: new Date(Date.now() + 20 * 86_400_000).toISOString().slice(0, 10), market: "EU" });
-  expect(lot.status).toBe(201);
-  const detail = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
-  const res = await producer.agent
-    .post(P(`/lots/${lot.body.id}/analyses`))
-    .set("x-csrf-token", producer.csrf)
-    .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Domaine des Trois Sentes cellar laboratory", sampleDate: "2026-11-25", results: passingResults(detail.governing!.requirements, "pre_filling", overrides) });
-  expect(res.status).toBe(201);
-  return { id: lot.body.id as number, code, submitted: res.body };
-}
+let lots: ThreeLots;
 
 beforeAll(async () => {
   t = buildTestApp();
   [producer, tech] = await Promise.all([signInAs(t.app, DEMO.producerQuality), signInAs(t.app, DEMO.buyerTechnologist)]);
-  const good = await registerAndSubmit(`ST-OK-${tag}`, {});
-  const bad = await registerAndSubmit(`ST-NO-${tag}`, { volatile_acidity: "0.95" });
-  const conceded = await registerAndSubmit(`ST-CC-${tag}`, { volatile_acidity: "0.95" });
-  Object.assign(lots, { good, bad, conceded });
-  expect(good.submitted.failing).toEqual([]);
-  expect(bad.submitted.failing).toEqual(["volatile_acidity"]);
-  const deviation = conceded.submitted.deviationIds[0];
-  const decided = await tech.agent
-    .post(B(`/deviations/${deviation}/decision`))
-    .set("x-csrf-token", tech.csrf)
-    .send({ outcome: "concession", conditions: [{ kind: "price_adjustment", detail: "4 % off the invoice for this lot" }], reason: "Sound on tasting; VA stable over four weeks." });
-  expect(decided.status).toBe(200);
+  lots = await setUpThreeLots(producer, tech, tag);
+  expect(lots.good.submitted.failing).toEqual([]);
+  expect(lots.bad.submitted.failing).toEqual(["volatile_acidity"]);
 });
 
 describe("one status per lot", () => {
   it("when a lot conforms, fails, or is accepted under concession, then the list, the lot and the readiness board use the same words", async () => {
-    const expected = { good: ["conforms", "Conforms"], bad: ["does_not_conform", "Does not conform"], conceded: ["concession", "Accepted under concession"] } as const;
+    const expected = THREE_LOT_STATUSES;
     const list = (await tech.agent.get(B(`/lots?q=${tag}`))).body as LotSummary[];
     const board = (await tech.agent.get(B("/readiness"))).body as ReadinessRow[];
     for (const [key, [code, label]] of Object.entries(expected)) {

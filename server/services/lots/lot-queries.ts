@@ -1,5 +1,5 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
-import { Op } from "sequelize";
+import { literal, Op } from "sequelize";
 import { compareTransit, convert, findParameter, formatReading, type MarketId, type Outcome, type UnitId } from "../../../shared/engine/index.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
@@ -148,7 +148,8 @@ export async function readiness(orgId: number, horizonDays = 120): Promise<Readi
   const horizon = new Date(Date.now() + horizonDays * 86_400_000).toISOString().slice(0, 10);
   const lots = await Lot.findAll({
     where: { contractId: [...byId.keys()], [Op.or]: [{ plannedDate: null }, { plannedDate: { [Op.between]: [today, horizon] } }] },
-    order: [["plannedDate", "ASC"], ["lotCode", "ASC"]],
+    // Dated lots first, soonest first; undated ones after them (MariaDB sorts NULL first otherwise).
+    order: [[literal("planned_date IS NULL"), "ASC"], ["plannedDate", "ASC"], ["lotCode", "ASC"]],
     limit: 300,
   });
   const base = await summaries(lots, byId);
