@@ -58,33 +58,3 @@ export function organisationWelcomeMail(p: { to: string; organisationName: strin
   };
 }
 
-export function specSentMail(p: { to: string; wine: string; reference: string; number: number; buyer: string; link: string }): OutgoingMail {
-  return {
-    to: p.to,
-    subject: `Spec ${p.reference} v${p.number} for ${p.wine} is waiting for your review`,
-    text: [
-      `Hello,`,
-      ``,
-      `${p.buyer} has sent version ${p.number} of the technical specification for ${p.wine} (contract ${p.reference}).`,
-      `Review it, comment on any row, and agree or ask for changes here:`,
-      p.link,
-    ].join("\n"),
-  };
-}
-
-export function specDecidedMail(p: { to: string; wine: string; reference: string; number: number; producer: string; agreed: boolean; reason?: string; link: string }): OutgoingMail {
-  return {
-    to: p.to,
-    subject: `${p.producer} ${p.agreed ? "agreed to" : "asked for changes to"} spec ${p.reference} v${p.number}`,
-    text: [
-      `Hello,`,
-      ``,
-      p.agreed
-        ? `${p.producer} has agreed to version ${p.number} of the specification for ${p.wine}. It now governs the lots of the vintages it covers.`
-        : `${p.producer} has asked for changes to version ${p.number} of the specification for ${p.wine}:`,
-      ...(p.reason ? ["", p.reason] : []),
-      ``,
-      p.link,
-    ].join("\n"),
-  };
-}

@@ -66,8 +66,10 @@ export interface AuditOrderDetail extends AuditOrderSummary {
 
 export interface FinanceDashboard {
   currency: string;
-  totals: { orders: number; paidCents: number; outstandingCents: number; refundedCents: number };
-  byProducer: { producerName: string; orders: number; paidCents: number; refundedCents: number }[];
-  byMonth: { month: string; orders: number; paidCents: number; refundedCents: number }[];
+  /** orders: every order placed in the period; paidOrders: those paid. Spend counts paid orders only. */
+  totals: { orders: number; paidOrders: number; paidCents: number; outstandingCents: number; refundedCents: number };
+  byProducer: { producerName: string; paidOrders: number; paidCents: number; refundedCents: number }[];
+  /** By the month each order was paid. */
+  byMonth: { month: string; paidOrders: number; paidCents: number; refundedCents: number }[];
   outstanding: AuditOrderSummary[];
 }

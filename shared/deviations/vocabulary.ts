@@ -1,11 +1,15 @@
 /** Words of the deviation workflow. */
 
-/** A deviation is open, then discussed, then decided by the buyer, then closed once its conditions are met. */
-export const DEVIATION_STATUSES = ["open", "in_discussion", "decided", "closed"] as const;
+/**
+ * A deviation is open, then discussed; once one side accepts the other's proposal it is agreed and
+ * waits for the buyer's recorded decision; then it is decided, then closed once its conditions are met.
+ */
+export const DEVIATION_STATUSES = ["open", "in_discussion", "agreed", "decided", "closed"] as const;
 export type DeviationStatus = (typeof DEVIATION_STATUSES)[number];
 export const DEVIATION_STATUS_LABELS: Record<DeviationStatus, string> = {
   open: "Open",
   in_discussion: "In discussion",
+  agreed: "Proposal agreed, awaiting the decision",
   decided: "Decided",
   closed: "Closed",
 };
@@ -43,6 +47,12 @@ export interface DeviationProposal {
   conditions: DeviationCondition[];
 }
 
+/** A proposal in words, with every condition: "Concession for this lot, on condition of: re-test: …". */
+export function proposalText(p: DeviationProposal): string {
+  const label = DEVIATION_OUTCOME_LABELS[p.outcome];
+  return p.conditions.length ? `${label}, on condition of: ${p.conditions.map((c) => `${CONDITION_LABELS[c.kind].toLowerCase()}: ${c.detail}`).join("; ")}` : label;
+}
+
 export interface DeviationDecision extends DeviationProposal {
   reason: string;
   /** Draft spec version started when the outcome is a spec change. */
@@ -60,7 +70,7 @@ export interface QuotedResult {
   outcome: string;
 }
 
-export const NOTIFICATION_KINDS = ["deviation_opened", "comment", "mention", "decision", "deadline", "audit"] as const;
+export const NOTIFICATION_KINDS = ["deviation_opened", "comment", "mention", "decision", "deadline", "audit", "spec"] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
   deviation_opened: "A new deviation",
@@ -69,6 +79,7 @@ export const NOTIFICATION_KIND_LABELS: Record<NotificationKind, string> = {
   decision: "A decision",
   deadline: "A response deadline draws near",
   audit: "An independent audit is paid or its results arrive",
+  spec: "A spec version is sent, agreed, sent back, or commented on",
 };
 
 /** Days each side has to respond before a deviation is marked overdue (common practice). */

@@ -60,7 +60,8 @@ export interface LotStatus {
 }
 
 const isDecided = (d: StatusDeviation) => (d.status === "decided" || d.status === "closed") && d.decision !== null;
-export const isOpenDeviation = (d: { status: DeviationStatus }) => d.status === "open" || d.status === "in_discussion";
+/** Not yet decided: open, in discussion, or agreed between the parties but not yet recorded by the buyer. */
+export const isOpenDeviation = (d: { status: DeviationStatus }) => d.status === "open" || d.status === "in_discussion" || d.status === "agreed";
 
 /**
  * The analyses a status rests on: the latest judged analysis of each spec stage (a re-test stands

@@ -7,7 +7,7 @@ import type { ContractView, VersionSummary, RequirementView } from "../specs/vie
 import type { AnalysisStage, Container } from "./vocabulary.ts";
 import type { LotStatus } from "./lot-status.ts";
 import type { OutcomeCounts } from "./judge.ts";
-import type { DeviationDecision } from "../deviations/vocabulary.ts";
+import type { DeviationDecision, DeviationStatus } from "../deviations/vocabulary.ts";
 
 export interface StoredBound {
   value: number;
@@ -102,7 +102,7 @@ export interface AnalysisView {
 export interface DeviationSummary {
   id: number;
   kind: DeviationKind;
-  status: string;
+  status: DeviationStatus;
   parameters: string[];
   summary: string;
   analysisId: number | null;

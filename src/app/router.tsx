@@ -1,5 +1,6 @@
 import { createBrowserRouter, RouterProvider } from "react-router-dom";
 import { AppShell } from "./app-shell.tsx";
+import { ROUTES } from "../../shared/paths.ts";
 import { RouteError } from "./route-error.tsx";
 
 // Every page is its own chunk; the shell and sign-in guard load first.
@@ -18,18 +19,18 @@ const router = createBrowserRouter([
       { path: "members", lazy: () => import("../features/members/members-page.tsx").then((m) => ({ Component: m.MembersPage })) },
       { path: "activity", lazy: () => import("../features/audit/activity-page.tsx").then((m) => ({ Component: m.ActivityPage })) },
       { path: "specs", lazy: () => import("../features/specs/specs-list-page.tsx").then((m) => ({ Component: m.SpecsListPage })) },
-      { path: "specs/:specId", lazy: () => import("../features/specs/spec-page.tsx").then((m) => ({ Component: m.SpecPage })) },
+      { path: ROUTES.spec.slice(1), lazy: () => import("../features/specs/spec-page.tsx").then((m) => ({ Component: m.SpecPage })) },
       { path: "specs/:specId/compare", lazy: () => import("../features/specs/compare-page.tsx").then((m) => ({ Component: m.ComparePage })) },
       { path: "contracts/:contractId", lazy: () => import("../features/specs/contract-page.tsx").then((m) => ({ Component: m.ContractPage })) },
       { path: "lots", lazy: () => import("../features/lots/lots-page.tsx").then((m) => ({ Component: m.LotsPage })) },
-      { path: "lots/:lotId", lazy: () => import("../features/lots/lot-page.tsx").then((m) => ({ Component: m.LotPage })) },
+      { path: ROUTES.lot.slice(1), lazy: () => import("../features/lots/lot-page.tsx").then((m) => ({ Component: m.LotPage })) },
       { path: "readiness", lazy: () => import("../features/lots/readiness-page.tsx").then((m) => ({ Component: m.ReadinessPage })) },
       { path: "contracts/:contractId/import", lazy: () => import("../features/lots/import-page.tsx").then((m) => ({ Component: m.ImportPage })) },
       { path: "contracts/:contractId/trends", lazy: () => import("../features/lots/trends-page.tsx").then((m) => ({ Component: m.TrendsPage })) },
       { path: "deviations", lazy: () => import("../features/deviations/deviations-page.tsx").then((m) => ({ Component: m.DeviationsPage })) },
-      { path: "deviations/:deviationId", lazy: () => import("../features/deviations/deviation-page.tsx").then((m) => ({ Component: m.DeviationPage })) },
+      { path: ROUTES.deviation.slice(1), lazy: () => import("../features/deviations/deviation-page.tsx").then((m) => ({ Component: m.DeviationPage })) },
       { path: "audits", lazy: () => import("../features/audits/audits-page.tsx").then((m) => ({ Component: m.AuditsPage })) },
-      { path: "audits/:orderId", lazy: () => import("../features/audits/order-page.tsx").then((m) => ({ Component: m.OrderPage })) },
+      { path: ROUTES.order.slice(1), lazy: () => import("../features/audits/order-page.tsx").then((m) => ({ Component: m.OrderPage })) },
       { path: "price-list", lazy: () => import("../features/audits/price-list-page.tsx").then((m) => ({ Component: m.PriceListPage })) },
       { path: "notifications", lazy: () => import("../features/notifications/notifications-page.tsx").then((m) => ({ Component: m.NotificationsPage })) },
       { path: "profile", lazy: () => import("../features/profile/profile-page.tsx").then((m) => ({ Component: m.ProfilePage })) },

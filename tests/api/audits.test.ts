@@ -9,6 +9,8 @@ import request from "supertest";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
 import { signed, succeededEvent, TEST_WEBHOOK_SECRET } from "../support/stripe-events.ts";
+import { matchPath } from "react-router-dom";
+import { ROUTES } from "../../shared/paths.ts";
 
 let t: TestApp;
 let producer: SignedInAgent;
@@ -71,6 +73,10 @@ describe("the laboratory's side", () => {
   it("sees the order only once it is paid, and works blind to the producer's values", async () => {
     expect((await lab.agent.get(L(`/audit-orders/${orderId}`))).status).toBe(404);
     await pay();
+    // Regression: the laboratory's in-app notification (and so its e-mail) points at the order page the client serves.
+    const notes = (await lab.agent.get("/api/me/notifications")).body.items as { title: string; link: string }[];
+    const note = notes.find((n) => n.title.startsWith("New paid audit"))!;
+    expect(matchPath(ROUTES.order, note.link)?.params.orderId).toBe(String(orderId));
     const list = await lab.agent.get(L("/audit-orders"));
     expect(list.body.map((o: { id: number }) => o.id)).toContain(orderId);
     const detail = await lab.agent.get(L(`/audit-orders/${orderId}`));
@@ -226,6 +232,10 @@ describe("finance dashboard and price lists", () => {
     expect(d.totals.paidCents).toBe(d.byMonth.reduce((s: number, m: { paidCents: number }) => s + m.paidCents, 0));
     expect(d.totals.outstandingCents).toBe(d.outstanding.reduce((s: number, o: { amountCents: number }) => s + o.amountCents, 0));
     expect(d.outstanding.some((o: { producerName: string }) => o.producerName === "Kestrel Flats Estate")).toBe(true);
+    // Regression: the demo's unpaid Kestrel Flats order is outstanding, not spend: it counts in no month and in no paid total.
+    expect(d.byProducer.some((p: { producerName: string }) => p.producerName === "Kestrel Flats Estate")).toBe(false);
+    expect(d.totals.paidOrders).toBe(d.byMonth.reduce((s: number, m: { paidOrders: number }) => s + m.paidOrders, 0));
+    expect(d.totals.paidOrders).toBe(d.totals.orders - d.outstanding.length);
     expect((await tech.agent.get(B("/audit-dashboard"))).status).toBe(403);
   });
 

@@ -50,6 +50,13 @@ describe("deviations", () => {
     // Nobody accepts their own proposal.
     expect((await buyer.agent.post(B(`/deviations/${deviationId}/messages`)).set("x-csrf-token", buyer.csrf).send({ kind: "acceptance", parentId: counter.body.id, body: "ok" })).status).toBe(400);
     expect((await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "acceptance", parentId: counter.body.id, body: "We accept the re-test condition." })).status).toBe(201);
+    // Regression: an accepted proposal settles the discussion; nobody can accept again, and the acceptance states the conditions.
+    const agreed = (await buyer.agent.get(B(`/deviations/${deviationId}`))).body;
+    expect(agreed.status).toBe("agreed");
+    expect(agreed.actions.accept).toBe(false);
+    expect(agreed.actions.decide).toBe(true);
+    expect(agreed.messages.at(-1).body).toBe("Accepted: Concession for this lot, on condition of: re-test: Accredited re-test below 0.8 g/L as acetic acid. We accept the re-test condition.");
+    expect((await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "acceptance", parentId: counter.body.id, body: "Again." })).status).toBe(409);
     // Producers propose; only the buyer's technologist decides, and a decision needs a reason.
     expect((await producer.agent.post(P(`/deviations/${deviationId}/decision`)).set("x-csrf-token", producer.csrf).send({ outcome: "concession", conditions: [], reason: "We decide ourselves." })).status).toBe(403);
     const noReason = await buyer.agent.post(B(`/deviations/${deviationId}/decision`)).set("x-csrf-token", buyer.csrf).send({ outcome: "concession", conditions: [] });

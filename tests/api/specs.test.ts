@@ -188,3 +188,30 @@ describe("contracts", () => {
     expect(ends.body.errors).toEqual([{ path: "endsOn", message: "The contract cannot end before it starts." }]);
   });
 });
+
+describe("regressions found by using the spec sheets", () => {
+  it("when the buyer starts a new version from an agreed one, then the copy is valid as it opens, so autosave can run", async () => {
+    // Sentier Blanc's version 1 has rows that also require the on-arrival stage, which the version did not list.
+    const res = await buyer.agent.post(buyerUrl("/contracts/1/specs")).set("x-csrf-token", buyer.csrf).send({ from: "version", versionId: 1 });
+    expect(res.status).toBe(201);
+    const v = (await buyer.agent.get(buyerUrl(`/specs/${res.body.id}`))).body;
+    const parsed = specDraftSchema.safeParse(draftBody(v));
+    expect(parsed.success ? [] : parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`)).toEqual([]);
+  });
+
+  it("when a version is sent, commented on, sent back or agreed, then the other side is notified in the app", async () => {
+    const titles = async (who: SignedInAgent) => ((await who.agent.get("/api/me/notifications")).body.items as { title: string; link: string }[]).map((n) => `${n.title} → ${n.link}`);
+    const v = await newDraft();
+    expect((await buyer.agent.post(buyerUrl(`/specs/${v.id}/send`)).set("x-csrf-token", buyer.csrf)).status).toBe(204);
+    expect(await titles(valsorda)).toContain(`Spec HG-C-2025-030 v${v.number} for Valsorda Rosato Frizzante is waiting for your review → /specs/${v.id}`);
+    const row = v.requirements[0];
+    expect((await valsorda.agent.post(valsordaUrl(`/specs/${v.id}/comments`)).set("x-csrf-token", valsorda.csrf).send({ requirementId: row.id, body: "Could this be 0.5?" })).status).toBe(201);
+    expect((await titles(buyer)).some((t) => t.startsWith(`Giulia Ferrante commented on spec HG-C-2025-030 v${v.number} (${findParameter(row.parameter)!.name})`))).toBe(true);
+    expect((await valsorda.agent.post(valsordaUrl(`/specs/${v.id}/request-changes`)).set("x-csrf-token", valsorda.csrf).send({ reason: "Alcohol range too narrow for our 2025." })).status).toBe(204);
+    expect(await titles(buyer)).toContain(`Cantina Valsorda asked for changes to spec HG-C-2025-030 v${v.number} → /specs/${v.id}`);
+    const again = await newDraft();
+    expect((await buyer.agent.post(buyerUrl(`/specs/${again.id}/send`)).set("x-csrf-token", buyer.csrf)).status).toBe(204);
+    expect((await valsorda.agent.post(valsordaUrl(`/specs/${again.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
+    expect(await titles(buyer)).toContain(`Cantina Valsorda agreed to spec HG-C-2025-030 v${again.number} → /specs/${again.id}`);
+  });
+});

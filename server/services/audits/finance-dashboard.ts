@@ -9,16 +9,17 @@ export async function financeDashboard(buyerOrgId: number, f: { from?: string; t
   const orders = (await loadOrders({ buyerOrgId })).filter((o) => o.createdAt.getTime() >= from && o.createdAt.getTime() < to);
   const producers = new Map<string, FinanceDashboard["byProducer"][number]>();
   const months = new Map<string, FinanceDashboard["byMonth"][number]>();
-  for (const o of orders) {
-    const p = producers.get(o.contract.producer.name) ?? { producerName: o.contract.producer.name, orders: 0, paidCents: 0, refundedCents: 0 };
-    p.orders += 1;
+  // Spend is what was paid, in the month it was paid: an unpaid order is outstanding, never spend.
+  const paid = orders.filter((o) => o.paidAt !== null);
+  for (const o of paid) {
+    const p = producers.get(o.contract.producer.name) ?? { producerName: o.contract.producer.name, paidOrders: 0, paidCents: 0, refundedCents: 0 };
+    p.paidOrders += 1;
     p.paidCents += o.paidCents;
     p.refundedCents += o.refundedCents;
     producers.set(p.producerName, p);
-    // Spend counts in the month it was paid; unpaid orders in the month they were placed.
-    const month = (o.paidAt ?? o.createdAt).toISOString().slice(0, 7);
-    const m = months.get(month) ?? { month, orders: 0, paidCents: 0, refundedCents: 0 };
-    m.orders += 1;
+    const month = o.paidAt!.toISOString().slice(0, 7);
+    const m = months.get(month) ?? { month, paidOrders: 0, paidCents: 0, refundedCents: 0 };
+    m.paidOrders += 1;
     m.paidCents += o.paidCents;
     m.refundedCents += o.refundedCents;
     months.set(month, m);
@@ -28,6 +29,7 @@ export async function financeDashboard(buyerOrgId: number, f: { from?: string; t
     currency: CURRENCY,
     totals: {
       orders: orders.length,
+      paidOrders: paid.length,
       paidCents: orders.reduce((s, o) => s + o.paidCents, 0),
       outstandingCents: outstanding.reduce((s, o) => s + o.amountCents, 0),
       refundedCents: orders.reduce((s, o) => s + o.refundedCents, 0),

@@ -4,6 +4,7 @@
  * A discrepancy, like a failing result, opens a deviation that names the audit.
  */
 import { Op, type Transaction } from "sequelize";
+import { orderPath } from "../../../shared/paths.ts";
 import { type AuditOrder, AuditOrderLot } from "../../models/audit-order.ts";
 import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
 import { Organisation } from "../../models/organisation.ts";
@@ -120,7 +121,7 @@ export async function submitLabResults(labOrgId: number, orderId: number, user: 
       kind: "audit",
       title: `Independent results in for ${orderReference(order.id)}: ${contract.wine.name}`,
       body: discrepancies.length || stored.failing.length ? `${discrepancies.length} lot(s) disagree with the declared results; ${stored.failing.length} lot(s) fail the spec.` : "The independent results agree with the declared ones and meet the spec.",
-      link: `/audits/${order.id}`,
+      link: orderPath(order.id),
     });
     return { analysisIds: stored.analysisIds, failing: stored.failing, discrepancies: discrepancies.map((d) => ({ lotId: d.lotId, parameters: d.parameters })), deviationIds };
   });

@@ -3,6 +3,7 @@
  * edit history) in which producers propose and only the buyer's technologist decides, with a reason.
  */
 import { Op, type Transaction } from "sequelize";
+import { deviationPath } from "../../../shared/paths.ts";
 import { Deviation, DeviationAttachment, DeviationMessage, DeviationMessageEdit } from "../../models/deviation.ts";
 import { Analysis, Lot } from "../../models/lot.ts";
 import { AnalysisEvaluation } from "../../models/evaluation.ts";
@@ -19,7 +20,7 @@ import { createVersion } from "../specs/spec-lifecycle.ts";
 import { governingVersion } from "../lots/governing.ts";
 import { openDeviations, responseDeadline } from "./open-deviations.ts";
 import { discardFile, readStoredFile, saveCheckedFile } from "../stored-files.ts";
-import { DEVIATION_OUTCOME_LABELS, type DeviationStatus } from "../../../shared/deviations/vocabulary.ts";
+import { DEVIATION_OUTCOME_LABELS, proposalText, type DeviationStatus } from "../../../shared/deviations/vocabulary.ts";
 import type { DecisionInput, MessageInput } from "../../../shared/deviations/schemas.ts";
 import type { DeviationDetail, DeviationSummaryView, MessageView } from "../../../shared/deviations/views.ts";
 import type { StoredVerdict } from "../../../shared/lots/views.ts";
@@ -136,7 +137,7 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
     actions: {
       comment: open && ["buyer_technologist", "producer_quality"].includes(role),
       propose: open && ["buyer_technologist", "producer_quality"].includes(role),
-      accept: open && ["buyer_technologist", "producer_quality"].includes(role),
+      accept: open && deviation.status !== "agreed" && ["buyer_technologist", "producer_quality"].includes(role),
       decide: open && side === "buyer" && role === "buyer_technologist",
       close: deviation.status === "decided" && side === "buyer" && role === "buyer_technologist",
     },
@@ -170,17 +171,22 @@ export async function postMessage(orgId: number, id: number, user: SessionUser, 
     const people = await participants(contract, t);
     const handles = [...input.body.matchAll(/@([a-z0-9._-]+)/gi)].map((m) => m[1]!.toLowerCase());
     const mentioned = people.filter((p) => handles.includes(p.handle)).map((p) => p.userId);
+    if (input.kind === "acceptance" && deviation.status === "agreed") throw conflict("A proposal has already been accepted; the buyer records the decision next.");
+    // An acceptance states in full what was accepted, conditions included, whatever the note says.
+    const body = input.kind === "acceptance" && parent?.proposal ? `Accepted: ${proposalText(parent.proposal)}.${input.body.trim() && !input.body.startsWith("Accepted:") ? ` ${input.body}` : ""}` : input.body;
     const message = await DeviationMessage.create(
-      { deviationId: id, parentId: input.parentId ?? null, authorUserId: user.id, organisationId: orgId, kind: input.kind, body: input.body, proposal: input.kind === "proposal" ? input.proposal : null, quote, mentions: mentioned },
+      { deviationId: id, parentId: input.parentId ?? null, authorUserId: user.id, organisationId: orgId, kind: input.kind, body, proposal: input.kind === "proposal" ? input.proposal : null, quote, mentions: mentioned },
       { transaction: t },
     );
-    // Each message hands the turn to the other side, with a fresh response deadline.
-    await deviation.update({ status: "in_discussion", respondBy: responseDeadline(), deadlineWarnedAt: null }, { transaction: t });
-    await audit(t, user, orgId, `deviation.${input.kind === "comment" ? "commented" : input.kind === "proposal" ? "proposed" : "accepted"}`, deviation, { messageId: message.id, ...(input.kind === "proposal" ? { outcome: input.proposal.outcome } : {}) }, { body: input.body });
+    // Each message hands the turn to the other side, with a fresh response deadline; an acceptance
+    // settles the discussion until the buyer records the decision (a new proposal reopens it).
+    const status = input.kind === "acceptance" ? "agreed" : input.kind === "proposal" || deviation.status !== "agreed" ? "in_discussion" : "agreed";
+    await deviation.update({ status, respondBy: responseDeadline(), deadlineWarnedAt: null }, { transaction: t });
+    await audit(t, user, orgId, `deviation.${input.kind === "comment" ? "commented" : input.kind === "proposal" ? "proposed" : "accepted"}`, deviation, { messageId: message.id, ...(input.kind === "proposal" ? { outcome: input.proposal.outcome } : {}) }, { body });
     const parties = await usersWithRoles([contract.retailerOrgId, contract.producerOrgId], ["buyer_technologist", "producer_quality"], t);
     const what = input.kind === "proposal" ? `proposes: ${DEVIATION_OUTCOME_LABELS[input.proposal.outcome]}` : input.kind === "acceptance" ? "accepts the proposal" : "comments";
-    await notify(t, parties.filter((p) => !mentioned.includes(p)), { kind: "comment", title: `Deviation #${id} (${contract.wine.name}): ${user.name} ${what}`, body: input.body, link: `/deviations/${id}` }, user.id);
-    await notify(t, mentioned, { kind: "mention", title: `${user.name} mentioned you on deviation #${id}`, body: input.body, link: `/deviations/${id}` }, user.id);
+    await notify(t, parties.filter((p) => !mentioned.includes(p)), { kind: "comment", title: `Deviation #${id} (${contract.wine.name}): ${user.name} ${what}`, body, link: deviationPath(id) }, user.id);
+    await notify(t, mentioned, { kind: "mention", title: `${user.name} mentioned you on deviation #${id}`, body: input.body, link: deviationPath(id) }, user.id);
     return { id: message.id };
   });
 }
@@ -210,7 +216,7 @@ export async function decide(orgId: number, id: number, user: SessionUser, input
     await audit(t, user, orgId, "deviation.decided", deviation, { outcome: input.outcome, conditions: input.conditions.length }, decision);
     const parties = await usersWithRoles([contract.retailerOrgId, contract.producerOrgId], ["buyer_technologist", "producer_quality"], t);
     const conditions = input.conditions.length ? ` Conditions: ${input.conditions.map((c) => c.detail).join("; ")}.` : "";
-    await notify(t, parties, { kind: "decision", title: `Deviation #${id} decided: ${DEVIATION_OUTCOME_LABELS[input.outcome]}`, body: `${input.reason}${conditions}`, link: `/deviations/${id}` }, user.id);
+    await notify(t, parties, { kind: "decision", title: `Deviation #${id} decided: ${DEVIATION_OUTCOME_LABELS[input.outcome]}`, body: `${input.reason}${conditions}`, link: deviationPath(id) }, user.id);
     return contract.id;
   });
   if (input.outcome !== "spec_change") return { specVersionId: null };
@@ -276,12 +282,12 @@ export async function readAttachment(orgId: number, attachmentId: number) {
 /** Warns both parties once when a response deadline is less than a day away. */
 export async function warnApproachingDeadlines(now = new Date()): Promise<number> {
   const soon = new Date(now.getTime() + 86_400_000);
-  const due = await Deviation.findAll({ where: { status: ["open", "in_discussion"], deadlineWarnedAt: null, respondBy: { [Op.between]: [now, soon] } }, include: [{ model: Lot, as: "lot" }] });
+  const due = await Deviation.findAll({ where: { status: ["open", "in_discussion", "agreed"], deadlineWarnedAt: null, respondBy: { [Op.between]: [now, soon] } }, include: [{ model: Lot, as: "lot" }] });
   for (const d of due) {
     await inTransaction(async (t) => {
       const c = (await Contract.findByPk(d.contractId, { include: contractInclude, transaction: t })) as ContractWithParties;
       const parties = await usersWithRoles([c.retailerOrgId, c.producerOrgId], ["buyer_technologist", "producer_quality"], t);
-      await notify(t, parties, { kind: "deadline", title: `Deviation #${d.id} needs a response by ${d.respondBy!.toISOString().slice(0, 16).replace("T", " ")} UTC`, body: d.summary, link: `/deviations/${d.id}` });
+      await notify(t, parties, { kind: "deadline", title: `Deviation #${d.id} needs a response by ${d.respondBy!.toISOString().slice(0, 16).replace("T", " ")} UTC`, body: d.summary, link: deviationPath(d.id) });
       await d.update({ deadlineWarnedAt: now }, { transaction: t });
     });
   }

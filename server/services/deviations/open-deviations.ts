@@ -1,5 +1,6 @@
 /** Opening deviations (from failing results, transit drift, or by hand): deadline, audit entry, notifications. */
 import type { DeviationKind } from "../../../shared/deviations/vocabulary.ts";
+import { deviationPath } from "../../../shared/paths.ts";
 import type { Transaction } from "sequelize";
 import { Deviation } from "../../models/deviation.ts";
 import { recordAudit } from "../audit-service.ts";
@@ -33,7 +34,7 @@ export async function openDeviations(t: Transaction, contract: ContractWithParti
     t,
     parties,
     created.length === 1
-      ? { kind: "deviation_opened", title: `New deviation #${created[0]!.id}: ${contract.wine.name}`, body: created[0]!.summary, link: `/deviations/${created[0]!.id}` }
+      ? { kind: "deviation_opened", title: `New deviation #${created[0]!.id}: ${contract.wine.name}`, body: created[0]!.summary, link: deviationPath(created[0]!.id) }
       : { kind: "deviation_opened", title: `${created.length} new deviations: ${contract.wine.name}`, body: created.slice(0, 20).map((d) => d.summary).join("\n"), link: `/deviations?contract=${contract.id}` },
     actor.userId,
   );

@@ -5,15 +5,24 @@ import { idempotent } from "../idempotency.ts";
 import { conflict, notFound, validationFailed } from "../../http/problem.ts";
 import { inTransaction } from "../../db/database.ts";
 import type { AnalysisSubmission, ImportBatch, LotInput, LotUpdate } from "../../../shared/lots/schemas.ts";
-import { contractFor } from "../specs/spec-access.ts";
+import { contractFor, type ContractWithParties } from "../specs/spec-access.ts";
+import type { MarketId } from "../../../shared/engine/index.ts";
 import { lotFor } from "./lot-access.ts";
 import { storeAnalyses } from "./store-analyses.ts";
 import type { SessionUser } from "../session-service.ts";
+
+/** A lot goes only to a market its contract names: the spec and the law were agreed for those. */
+function assertContractMarket(contract: ContractWithParties, market: string) {
+  if (!contract.wine.markets.includes(market as MarketId)) {
+    throw validationFailed([{ path: "market", message: `Contract ${contract.reference} covers ${contract.wine.markets.join(", ")}; choose one of those markets.` }]);
+  }
+}
 
 export async function registerLot(orgId: number, user: SessionUser, input: LotInput): Promise<{ id: number }> {
   return inTransaction(async (t) => {
     const { contract, side } = await contractFor(orgId, input.contractId, t);
     if (side !== "producer") throw notFound("The contract");
+    assertContractMarket(contract, input.market);
     if (await Lot.findOne({ where: { contractId: contract.id, lotCode: input.lotCode }, transaction: t })) {
       throw validationFailed([{ path: "lotCode", message: `Lot ${input.lotCode} is already registered under this contract.` }]);
     }
@@ -25,8 +34,9 @@ export async function registerLot(orgId: number, user: SessionUser, input: LotIn
 
 export async function updateLot(orgId: number, lotId: number, user: SessionUser, input: LotUpdate): Promise<void> {
   await inTransaction(async (t) => {
-    const { lot, side } = await lotFor(orgId, lotId, t);
+    const { lot, contract, side } = await lotFor(orgId, lotId, t);
     if (side !== "producer") throw notFound("The lot");
+    assertContractMarket(contract, input.market);
     const before = { volumeLitres: Number(lot.volumeLitres), container: lot.container, plannedDate: lot.plannedDate, market: lot.market };
     await lot.update({ volumeLitres: String(input.volumeLitres), container: input.container, plannedDate: input.plannedDate ?? null, market: input.market }, { transaction: t });
     await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.updated", entityType: "lot", entityId: lot.id, before, after: input, details: { lotCode: lot.lotCode } });
@@ -58,6 +68,7 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
   return idempotent(orgId, idempotencyKey, { contractId, ...batch, idempotencyKey: undefined }, async (t) => {
     const { contract, side } = await contractFor(orgId, contractId, t);
     if (side !== "producer") throw notFound("The contract");
+    if (market) assertContractMarket(contract, market);
     const codes = [...new Set(samples.map((s) => s.lotCode))];
     const existing = new Map((await Lot.findAll({ where: { contractId, lotCode: codes }, transaction: t })).map((l) => [l.lotCode, l]));
     const missing = codes.filter((c) => !existing.has(c));

@@ -5,6 +5,7 @@
  * decline is stored once per Stripe object; and the order's status is derived from those facts.
  */
 import { UniqueConstraintError, type Transaction } from "sequelize";
+import { orderPath } from "../../../shared/paths.ts";
 import type Stripe from "stripe";
 import { AuditOrder, AuditPayment, StripeEvent } from "../../models/audit-order.ts";
 import { Contract } from "../../models/contract.ts";
@@ -113,7 +114,7 @@ async function mailFacts(t: Transaction, order: AuditOrder) {
       wine: contract.wine.name,
       laboratory: lab?.name ?? "the laboratory",
       currency: order.currency,
-      link: `${appUrl}/audits/${order.id}`,
+      link: `${appUrl}${orderPath(order.id)}`,
       pdfLink: `${appUrl}/api/orgs/${order.buyerOrgId}/audit-orders/${order.id}/invoice.pdf`,
     },
   };
@@ -130,7 +131,7 @@ async function recordPayment(t: Transaction, order: AuditOrder, paymentIntent: s
   const { contract, facts } = await mailFacts(t, order);
   await enqueueMail(t, receiptMail({ ...facts, amountCents, paymentRef: paymentIntent }));
   const analysts = await usersWithRoles([order.laboratoryOrgId], ["lab_analyst"], t);
-  await notify(t, analysts, { kind: "audit", title: `New paid audit ${orderReference(order.id)}: ${contract.wine.name}`, body: `${order.lines.map((l) => l.name).join(", ")} on ${order.lines[0]?.lots ?? 0} lot(s) for ${contract.retailer.name}.`, link: `/lab-orders/${order.id}` });
+  await notify(t, analysts, { kind: "audit", title: `New paid audit ${orderReference(order.id)}: ${contract.wine.name}`, body: `${order.lines.map((l) => l.name).join(", ")} on ${order.lines[0]?.lots ?? 0} lot(s) for ${contract.retailer.name}.`, link: orderPath(order.id) });
   return "payment recorded";
 }
 

@@ -3,7 +3,8 @@
  * withdrawal, new versions and row comments. Every change is in the audit log.
  */
 import { Op, type Transaction } from "sequelize";
-import { buildRequirement, type MarketId } from "../../../shared/engine/index.ts";
+import { buildRequirement, findParameter, type MarketId } from "../../../shared/engine/index.ts";
+import { specPath } from "../../../shared/paths.ts";
 import { SPEC_TEMPLATES } from "../../../shared/specs/templates.ts";
 import { wineProfile } from "../../../shared/specs/profile.ts";
 import { STAGES, type Stage } from "../../../shared/specs/vocabulary.ts";
@@ -11,13 +12,9 @@ import type { CommentInput, NewVersionInput, SpecDraftInput, SpecRowInput } from
 import { SpecVersion } from "../../models/spec-version.ts";
 import { SpecRequirement } from "../../models/spec-requirement.ts";
 import { SpecComment } from "../../models/spec-comment.ts";
-import { Membership } from "../../models/membership.ts";
-import { User } from "../../models/user.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
-import { enqueueMail } from "../outbox-service.ts";
-import { specDecidedMail, specSentMail } from "../../mail/templates.ts";
-import { serviceSettings } from "../settings.ts";
+import { notify, usersWithRoles } from "../notification-service.ts";
 import { conflict, notFound, validationFailed } from "../../http/problem.ts";
 import { contractFor, versionFor, type ContractWithParties } from "./spec-access.ts";
 import { requirementsOf } from "./spec-queries.ts";
@@ -70,7 +67,9 @@ export async function createVersion(orgId: number, contractId: number, user: Ses
       const source = await SpecVersion.findOne({ where: { id: input.versionId, contractId }, transaction: t });
       if (!source) throw validationFailed([{ path: "versionId", message: "That version does not belong to this contract." }]);
       rows = (await requirementsOf(source.id, t)).map(({ id: _id, ...r }) => ({ ...r, unit: r.unit as SpecRowInput["unit"] }));
-      ({ stages, vintageFrom, vintageTo, title } = source);
+      ({ vintageFrom, vintageTo, title } = source);
+      // Cover every stage a copied row requires, so the copy opens valid and autosave can run.
+      stages = STAGES.filter((s) => source.stages.includes(s) || rows.some((r) => r.stages.includes(s)));
       basedOn = source.id;
     }
     const version = await SpecVersion.create(
@@ -104,11 +103,6 @@ export async function saveDraft(orgId: number, specId: number, user: SessionUser
   });
 }
 
-async function mailMembers(t: Transaction, organisationId: number, role: string, build: (to: string) => Parameters<typeof enqueueMail>[1]) {
-  const members = await Membership.findAll({ where: { organisationId, role }, include: [{ model: User, as: "user" }], transaction: t });
-  for (const m of members) await enqueueMail(t, build((m as Membership & { user: User }).user.email));
-}
-
 /** Checks the whole version against the engine before it leaves the buyer: no impossible row. */
 function assertSendable(contract: ContractWithParties, version: SpecVersion, rows: Awaited<ReturnType<typeof requirementsOf>>) {
   if (rows.length === 0) throw validationFailed([{ path: "rows", message: "Add at least one requirement before sending." }]);
@@ -129,9 +123,12 @@ export async function sendToProducer(orgId: number, specId: number, user: Sessio
     assertSendable(contract, version, await requirementsOf(specId, t));
     await version.update({ status: "with_producer", sentAt: new Date(), lockVersion: version.lockVersion + 1 }, { transaction: t });
     await audit(t, user, orgId, "spec.sent", version);
-    await mailMembers(t, contract.producerOrgId, "producer_quality", (to) =>
-      specSentMail({ to, wine: contract.wine.name, reference: contract.reference, number: version.number, buyer: contract.retailer.name, link: `${serviceSettings().appUrl}/specs/${version.id}` }),
-    );
+    await notify(t, await usersWithRoles([contract.producerOrgId], ["producer_quality"], t), {
+      kind: "spec",
+      title: `Spec ${contract.reference} v${version.number} for ${contract.wine.name} is waiting for your review`,
+      body: `${contract.retailer.name} has sent version ${version.number} of the technical specification for ${contract.wine.name}. Review it, comment on any row, and agree or ask for changes.`,
+      link: specPath(version.id),
+    });
   });
 }
 
@@ -148,9 +145,12 @@ export async function agree(orgId: number, specId: number, user: SessionUser) {
     }
     await version.update({ status: "agreed", decidedAt: new Date(), decidedBy: user.id }, { transaction: t });
     await audit(t, user, orgId, "spec.agreed", version);
-    await mailMembers(t, contract.retailerOrgId, "buyer_technologist", (to) =>
-      specDecidedMail({ to, wine: contract.wine.name, reference: contract.reference, number: version.number, producer: contract.producer.name, agreed: true, link: `${serviceSettings().appUrl}/specs/${version.id}` }),
-    );
+    await notify(t, await usersWithRoles([contract.retailerOrgId], ["buyer_technologist"], t), {
+      kind: "spec",
+      title: `${contract.producer.name} agreed to spec ${contract.reference} v${version.number}`,
+      body: `${contract.producer.name} has agreed to version ${version.number} of the specification for ${contract.wine.name}. It now governs the lots of the vintages it covers.`,
+      link: specPath(version.id),
+    });
   });
 }
 
@@ -162,9 +162,12 @@ export async function requestChanges(orgId: number, specId: number, user: Sessio
     await version.update({ status: "changes_requested", decidedAt: new Date(), decidedBy: user.id }, { transaction: t });
     await SpecComment.create({ specVersionId: specId, requirementId: null, authorUserId: user.id, organisationId: orgId, body: `Changes requested: ${reason}` }, { transaction: t });
     await audit(t, user, orgId, "spec.changes_requested", version, { details: { reason } });
-    await mailMembers(t, contract.retailerOrgId, "buyer_technologist", (to) =>
-      specDecidedMail({ to, wine: contract.wine.name, reference: contract.reference, number: version.number, producer: contract.producer.name, agreed: false, reason, link: `${serviceSettings().appUrl}/specs/${version.id}` }),
-    );
+    await notify(t, await usersWithRoles([contract.retailerOrgId], ["buyer_technologist"], t), {
+      kind: "spec",
+      title: `${contract.producer.name} asked for changes to spec ${contract.reference} v${version.number}`,
+      body: `${contract.producer.name} has asked for changes to version ${version.number} of the specification for ${contract.wine.name}: ${reason}`,
+      link: specPath(version.id),
+    });
   });
 }
 
@@ -180,13 +183,22 @@ export async function withdraw(orgId: number, specId: number, user: SessionUser)
 
 export async function addComment(orgId: number, specId: number, user: SessionUser, input: CommentInput) {
   return inTransaction(async (t) => {
-    const { version } = await versionFor(orgId, specId, t);
+    const { version, contract, side } = await versionFor(orgId, specId, t);
     if (version.status === "draft" || version.status === "withdrawn") throw conflict("Comments open once a version is sent, and close when it is withdrawn.");
     if (input.requirementId && !(await SpecRequirement.count({ where: { id: input.requirementId, specVersionId: specId }, transaction: t }))) {
       throw validationFailed([{ path: "requirementId", message: "That row is not part of this version." }]);
     }
     const comment = await SpecComment.create({ specVersionId: specId, requirementId: input.requirementId ?? null, authorUserId: user.id, organisationId: orgId, body: input.body }, { transaction: t });
     await audit(t, user, orgId, "spec.commented", version, { after: { body: input.body }, details: { requirementId: input.requirementId ?? null } });
+    // The other side hears of it: the producer's quality staff, or the buyer's technologists.
+    const other = side === "buyer" ? usersWithRoles([contract.producerOrgId], ["producer_quality"], t) : usersWithRoles([contract.retailerOrgId], ["buyer_technologist"], t);
+    const row = input.requirementId ? await SpecRequirement.findByPk(input.requirementId, { attributes: ["parameter"], transaction: t }) : null;
+    await notify(t, await other, {
+      kind: "spec",
+      title: `${user.name} commented on spec ${contract.reference} v${version.number}${row ? ` (${findParameter(row.parameter)?.name ?? row.parameter})` : ""}`,
+      body: input.body,
+      link: specPath(version.id),
+    }, user.id);
     return { id: comment.id };
   });
 }

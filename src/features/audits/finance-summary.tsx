@@ -15,18 +15,18 @@ function Figure({ label, cents, currency }: { label: string; cents: number; curr
   );
 }
 
-function SpendTable({ caption, head, rows, currency }: { caption: string; head: string; rows: { key: string; orders: number; paidCents: number; refundedCents: number }[]; currency: string }) {
+function SpendTable({ caption, head, rows, currency }: { caption: string; head: string; rows: { key: string; paidOrders: number; paidCents: number; refundedCents: number }[]; currency: string }) {
   return (
     <table className="w-full text-left text-sm">
       <caption className="mb-1 text-left font-semibold">{caption}</caption>
       <thead className="border-b border-line text-ink-500">
-        <tr>{[head, "Orders", "Paid", "Refunded", "Net"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
+        <tr>{[head, "Paid orders", "Paid", "Refunded", "Net"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
       </thead>
       <tbody>
         {rows.map((r) => (
           <tr key={r.key} className="border-b border-line/60">
             <th scope="row" className="py-1 pr-3 font-normal">{r.key}</th>
-            <td className="py-1 pr-3 tabular-nums">{r.orders}</td>
+            <td className="py-1 pr-3 tabular-nums">{r.paidOrders}</td>
             <td className="py-1 pr-3 tabular-nums">{formatMoney(r.paidCents, currency)}</td>
             <td className="py-1 pr-3 tabular-nums">{formatMoney(r.refundedCents, currency)}</td>
             <td className="py-1 pr-3 tabular-nums">{formatMoney(r.paidCents - r.refundedCents, currency)}</td>
@@ -45,8 +45,8 @@ export function FinanceSummary({ orgId, from, to }: { orgId: number; from?: stri
   return (
     <Card title="Spend on audits">
       <div className="grid gap-3 md:grid-cols-4">
-        <Figure label={`Paid (${totals.orders} order${totals.orders === 1 ? "" : "s"})`} cents={totals.paidCents} currency={currency} />
-        <Figure label="Outstanding" cents={totals.outstandingCents} currency={currency} />
+        <Figure label={`Paid (${totals.paidOrders} order${totals.paidOrders === 1 ? "" : "s"})`} cents={totals.paidCents} currency={currency} />
+        <Figure label={`Outstanding (${d.data.outstanding.length} unpaid)`} cents={totals.outstandingCents} currency={currency} />
         <Figure label="Refunded" cents={totals.refundedCents} currency={currency} />
         <Figure label="Net spend" cents={totals.paidCents - totals.refundedCents} currency={currency} />
       </div>

@@ -3,7 +3,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { lotUpdateSchema, type LotUpdate } from "../../../shared/lots/schemas.ts";
 import { CONTAINERS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
-import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
+import { MARKET_PACKS } from "../../../shared/engine/index.ts";
 import type { LotDetail } from "../../../shared/lots/views.ts";
 import { api, errorMessage } from "../../lib/api-client.ts";
 import { lotKeys } from "./api/lots.ts";
@@ -27,7 +27,7 @@ export function LotEditForm({ orgId, lot }: { orgId: number; lot: LotDetail }) {
       <TextField label="Volume (litres)" inputMode="decimal" error={e.volumeLitres?.message} {...form.register("volumeLitres", { setValueAs: (v) => (v === "" ? undefined : Number(String(v).replace(",", "."))) })} />
       <SelectField label="Container" options={CONTAINERS.map((c) => ({ value: c, label: CONTAINER_LABELS[c] }))} {...form.register("container")} />
       <TextField label="Planned filling or shipping" type="date" {...form.register("plannedDate", { setValueAs: (v) => (v === "" ? null : v) })} />
-      <SelectField label="Destination market" options={MARKET_IDS.map((m) => ({ value: m, label: MARKET_PACKS[m].name }))} {...form.register("market")} />
+      <SelectField label="Destination market" options={lot.contract.wine.markets.map((m) => ({ value: m, label: MARKET_PACKS[m].name }))} {...form.register("market")} />
       <Button type="submit" disabled={save.isPending}>Save the lot</Button>
     </form>
   );

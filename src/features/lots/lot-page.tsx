@@ -19,7 +19,7 @@ import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vo
 import { findParameter } from "../../../shared/engine/index.ts";
 import { ComparisonTable } from "../audits/comparison-table.tsx";
 import { conformityUrl } from "../audits/api/audits.ts";
-import { DEVIATION_KIND_LABELS } from "../../../shared/deviations/vocabulary.ts";
+import { DEVIATION_KIND_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
 
 export function LotPage() {
   const { membership } = useShellContext();
@@ -69,8 +69,10 @@ export function LotPage() {
           <Card title="Deviations">
             <ul className="flex flex-col gap-2 text-sm">
               {l.deviations.map((d) => (
-                <li key={d.id} className="rounded-md border border-alarm-700/30 bg-alarm-50 px-3 py-2">
-                  <Link to={`/deviations/${d.id}`} className="font-semibold text-alarm-700 underline">{DEVIATION_KIND_LABELS[d.kind]} deviation #{d.id}</Link> · {d.status.replace("_", " ")} · {d.summary}
+                <li key={d.id} className={`rounded-md border px-3 py-2 ${d.decision ? "border-line bg-card" : "border-alarm-700/30 bg-alarm-50"}`}>
+                  <Link to={`/deviations/${d.id}`} className={`font-semibold underline ${d.decision ? "text-must-700" : "text-alarm-700"}`}>{DEVIATION_KIND_LABELS[d.kind]} deviation #{d.id}</Link> ·{" "}
+                  {DEVIATION_STATUS_LABELS[d.status]}
+                  {d.decision ? `: ${DEVIATION_OUTCOME_LABELS[d.decision.outcome]}` : ""} · {d.summary}
                 </li>
               ))}
             </ul>
@@ -114,7 +116,7 @@ export function LotPage() {
               {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · submitted {new Date(a.createdAt).toLocaleString("en-GB")}
               {a.evaluation && ` · judged with engine ${a.evaluation.engineVersion}, ${a.evaluation.specVersion ? `against spec version ${a.evaluation.specVersion.number}` : "with no agreed spec version"}, market packs ${Object.entries(a.evaluation.marketVersions).map(([m, v]) => `${m} ${v}`).join(", ")}`}
             </p>
-            {a.evaluation ? <VerdictTable verdicts={a.evaluation.verdicts} /> : <p className="text-sm">{a.results.map((r) => `${findParameter(r.parameter)?.name}: ${r.rawText} ${r.unit}`).join(" · ")}</p>}
+            {a.evaluation ? <VerdictTable verdicts={a.evaluation.verdicts} reported={a.results} /> : <p className="text-sm">{a.results.map((r) => `${findParameter(r.parameter)?.name}: ${r.rawText} ${r.unit}`).join(" · ")}</p>}
             <div className="mt-4 flex flex-col gap-2">
               {a.certificates.map((c) => (
                 <a key={c.id} href={certificateUrl(orgId, c.id)} className="text-sm font-semibold text-must-700 underline">

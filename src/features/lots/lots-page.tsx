@@ -1,9 +1,9 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link, useNavigate } from "react-router-dom";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { lotsQuery, useRegisterLot } from "./api/lots.ts";
 import { contractsQuery } from "../specs/api/specs.ts";
@@ -14,7 +14,7 @@ import { Button } from "../../components/ui/button.tsx";
 import { LotStatusBadge } from "./lot-status-badge.tsx";
 import { lotSchema, type LotInput } from "../../../shared/lots/schemas.ts";
 import { ANALYSIS_STAGE_LABELS, CONTAINERS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
-import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
+import { MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 
 export function LotsPage() {
@@ -90,11 +90,17 @@ function RegisterLotForm({ orgId }: { orgId: number }) {
   const form = useForm<LotInput>({ resolver: zodResolver(lotSchema), defaultValues: { vintage: new Date().getUTCFullYear() - 1, container: "bottles", market: "EU", plannedDate: null } });
   const e = form.formState.errors;
   const num = (v: unknown) => (v === "" ? undefined : Number(String(v).replace(",", ".")));
+  const contractId = useWatch({ control: form.control, name: "contractId" });
+  const chosen = contracts.data?.find((c) => c.id === contractId);
+  // The market list follows the contract: keep the choice only while the contract covers it.
+  useEffect(() => {
+    if (chosen && !chosen.wine.markets.includes(form.getValues("market"))) form.setValue("market", chosen.wine.markets[0]!);
+  }, [chosen, form]);
   return (
     <form
       noValidate
       className="grid gap-3 md:grid-cols-4"
-      onSubmit={form.handleSubmit((v) => register.mutate(v, { onSuccess: ({ id }) => navigate(`/lots/${id}`), onError: (err) => setError(applyServerErrors(err, form.setError, ["lotCode", "contractId", "vintage"])) }))}
+      onSubmit={form.handleSubmit((v) => register.mutate(v, { onSuccess: ({ id }) => navigate(`/lots/${id}`), onError: (err) => setError(applyServerErrors(err, form.setError, ["lotCode", "contractId", "vintage", "market"])) }))}
     >
       {error && <div className="md:col-span-4"><Notice tone="error">{error}</Notice></div>}
       <SelectField label="Contract" error={e.contractId?.message} options={[{ value: "", label: "Choose…" }, ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.reference} · ${c.wine.name}` }))]} {...form.register("contractId", { setValueAs: num })} />
@@ -103,7 +109,13 @@ function RegisterLotForm({ orgId }: { orgId: number }) {
       <TextField label="Volume (litres)" inputMode="decimal" error={e.volumeLitres?.message} {...form.register("volumeLitres", { setValueAs: num })} />
       <SelectField label="Container" options={CONTAINERS.map((c) => ({ value: c, label: CONTAINER_LABELS[c] }))} {...form.register("container")} />
       <TextField label="Planned filling or shipping" type="date" {...form.register("plannedDate", { setValueAs: (v) => (v === "" ? null : v) })} />
-      <SelectField label="Destination market" options={MARKET_IDS.map((m) => ({ value: m, label: MARKET_PACKS[m].name }))} {...form.register("market")} />
+      <SelectField
+        label="Destination market"
+        error={e.market?.message}
+        hint={chosen ? undefined : "Choose the contract first: a lot goes to one of its markets."}
+        options={(chosen?.wine.markets ?? []).map((m) => ({ value: m, label: MARKET_PACKS[m].name }))}
+        {...form.register("market")}
+      />
       <div className="flex items-end"><Button type="submit" disabled={register.isPending}>Register the lot</Button></div>
     </form>
   );

@@ -1,15 +1,13 @@
 /** Verdicts with the bound that governed each one and where that bound comes from. */
-import { convert, findParameter, UNITS, type UnitId } from "../../../shared/engine/index.ts";
-import type { StoredBound, StoredVerdict } from "../../../shared/lots/views.ts";
+import { convert, displayValue, findParameter, unitLabel, type UnitId } from "../../../shared/engine/index.ts";
+import type { ResultView, StoredBound, StoredVerdict } from "../../../shared/lots/views.ts";
 import { OutcomeBadge } from "./outcome-badge.tsx";
 
-const n = (x: number) => String(Number(x.toPrecision(5)));
-
-function Bound({ label, b, unit, factor }: { label: string; b: StoredBound | null; unit: string; factor: number }) {
+function Bound({ label, b, unit, factor, show }: { label: string; b: StoredBound | null; unit: string; factor: number; show: (x: number) => string }) {
   if (!b) return null;
   return (
     <span className="block">
-      {label} {n(b.value * factor)} {unit}{" "}
+      {label} {show(b.value * factor)} {unit}{" "}
       <span className="text-ink-500">
         {b.source === "buyer" ? "(buyer's spec)" : `(${b.market}: ${b.citation?.document}, ${b.citation?.article})`}
       </span>
@@ -17,7 +15,8 @@ function Bound({ label, b, unit, factor }: { label: string; b: StoredBound | nul
   );
 }
 
-export function VerdictTable({ verdicts }: { verdicts: StoredVerdict[] }) {
+/** `reported`: the results as the laboratory wrote them, shown beside a value converted to the spec's unit. */
+export function VerdictTable({ verdicts, reported = [] }: { verdicts: StoredVerdict[]; reported?: ResultView[] }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm">
@@ -32,29 +31,36 @@ export function VerdictTable({ verdicts }: { verdicts: StoredVerdict[] }) {
           {verdicts.map((v) => {
             // Everything is shown in the unit of the spec row, as the buyer wrote it.
             const display = (v.displayUnit ?? v.unit) as UnitId;
-            const unit = UNITS[display]?.label ?? display;
+            const unit = unitLabel(display);
             const factor = convert(1, v.unit as UnitId, display);
+            const show = (x: number) => displayValue(v.parameter, x, display);
+            const shown = v.value === null ? v.resultText : show(v.value * factor);
+            const asReported = reported.find((r) => r.parameter === v.parameter);
+            const differs = asReported && (asReported.unit !== display || asReported.rawText.trim() !== shown);
             return (
               <tr key={v.parameter} className="border-b border-line/60 align-top" aria-label={findParameter(v.parameter)?.name ?? v.parameter}>
                 <td className="py-2 pr-3 font-semibold">{findParameter(v.parameter)?.name ?? v.parameter}</td>
-                <td className="py-2 pr-3 tabular-nums">{v.resultText === null ? "—" : `${v.resultText} ${v.unit === "presence" ? "" : unit}`}</td>
+                <td className="py-2 pr-3 tabular-nums">
+                  {shown === null ? "—" : `${shown} ${v.unit === "presence" ? "" : unit}`}
+                  {differs && <span className="block text-xs text-ink-500">reported: {asReported.rawText} {asReported.unit === "presence" ? "" : unitLabel(asReported.unit)}</span>}
+                </td>
                 <td className="py-2 pr-3">
                   <OutcomeBadge outcome={v.outcome} />
                   {v.informativeOutcome && <span className="block text-xs text-ink-500">would be {v.informativeOutcome}</span>}
                   {v.conformanceProbability !== null && <span className="block text-xs text-ink-500">P(conform) {(v.conformanceProbability * 100).toFixed(1)} %</span>}
                 </td>
                 <td className="py-2 pr-3 text-xs">
-                  <Bound label="min" b={v.lower} unit={unit} factor={factor} />
-                  <Bound label="max" b={v.upper} unit={unit} factor={factor} />
+                  <Bound label="min" b={v.lower} unit={unit} factor={factor} show={show} />
+                  <Bound label="max" b={v.upper} unit={unit} factor={factor} show={show} />
                   {!v.lower && !v.upper && <span className="text-ink-500">—</span>}
                   {v.legalLimits.map((l) => (
                     <span key={`${l.market}-${l.side}`} className="mt-1 block text-ink-500">
-                      Law, {l.market}: {l.side} {n(l.value * factor)} {unit} ({l.citation.document}, {l.citation.article})
+                      Law, {l.market}: {l.side} {show(l.value * factor)} {unit} ({l.citation.document}, {l.citation.article})
                     </span>
                   ))}
                 </td>
                 <td className="py-2 pr-3 text-xs text-ink-700">
-                  {v.uncertainty && v.uncertainty.source !== "none" ? `u = ${n(v.uncertainty.u * factor)} ${unit} (${v.uncertainty.source === "laboratory" ? "laboratory" : "default"})` : "no uncertainty"}
+                  {v.uncertainty && v.uncertainty.source !== "none" ? `U = ${show(2 * v.uncertainty.u * factor)} ${unit}, k = 2 (${v.uncertainty.source === "laboratory" ? "laboratory" : "default"})` : "no uncertainty"}
                   <span className="block text-ink-500">{v.explanation}</span>
                 </td>
               </tr>
