@@ -1,5 +1,7 @@
 /** A deviation record: the lot, the results that opened it, the discussion and the decision. */
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
+import { verdictText } from "../../shared/lots/verdict-text.ts";
+import type { LotStatus } from "../../shared/lots/lot-status.ts";
 import { findParameter } from "../../shared/engine/index.ts";
 import { CONDITION_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../shared/deviations/vocabulary.ts";
 import type { DeviationDetail } from "../../shared/deviations/views.ts";
@@ -15,7 +17,7 @@ const s = {
   }),
 };
 
-function Record({ d, generatedAt }: { d: DeviationDetail; generatedAt: Date }) {
+function Record({ d, lotStatus, generatedAt }: { d: DeviationDetail; lotStatus: LotStatus; generatedAt: Date }) {
   return (
     <Document title={`Deviation ${d.id}`} author="Cellarpact">
       <Page size="A4" style={s.page}>
@@ -27,6 +29,9 @@ function Record({ d, generatedAt }: { d: DeviationDetail; generatedAt: Date }) {
           {d.wineName}, vintage {d.vintage} · contract {d.contractReference} · producer {d.producerName}
         </Text>
         <Text>Opened {d.createdAt.slice(0, 16).replace("T", " ")} UTC ({d.kind}): {d.summary}</Text>
+        <Text style={{ marginTop: 4, fontWeight: 600 }}>
+          Lot status: {lotStatus.label}. {lotStatus.reason}
+        </Text>
         <Text style={s.h2}>Results that opened it</Text>
         {d.verdicts.length === 0 ? (
           <Text style={s.small}>Opened by hand or from a transit comparison; see the summary above.</Text>
@@ -34,7 +39,7 @@ function Record({ d, generatedAt }: { d: DeviationDetail; generatedAt: Date }) {
           d.verdicts.map((v) => (
             <View key={v.parameter} style={s.row} wrap={false}>
               <Text style={s.cell}>{findParameter(v.parameter)?.name ?? v.parameter}</Text>
-              <Text style={s.cell}>{v.resultText ?? "—"} {v.displayUnit}</Text>
+              <Text style={s.cell}>{verdictText(v).result}</Text>
               <Text style={s.cell}>{v.outcome}</Text>
               <Text style={[s.cell, s.small]}>{v.explanation}</Text>
             </View>
@@ -81,7 +86,7 @@ function Record({ d, generatedAt }: { d: DeviationDetail; generatedAt: Date }) {
   );
 }
 
-export async function renderDeviationRecord(d: DeviationDetail): Promise<Buffer> {
+export async function renderDeviationRecord(d: DeviationDetail, lotStatus: LotStatus): Promise<Buffer> {
   registerPdfFonts();
-  return renderToBuffer(<Record d={d} generatedAt={new Date()} />);
+  return renderToBuffer(<Record d={d} lotStatus={lotStatus} generatedAt={new Date()} />);
 }

@@ -36,7 +36,6 @@ const num = (x: number | null | undefined) => (x === null || x === undefined ? n
 function limitsText(r: BuyerRequirement): string {
   const lo = num(r.lower);
   const hi = num(r.upper);
-  // Source Sans 3's web subsets have no ≤/≥, so the PDF says "max"/"min".
   const range = lo && hi ? `${lo} – ${hi}` : hi ? `max ${hi}` : lo ? `min ${lo}` : "absent";
   const target = num(r.target);
   return `${range}${target ? ` (target ${target})` : ""} ${r.unit === "presence" ? "" : r.unit}`.trim();

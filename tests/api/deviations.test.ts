@@ -111,6 +111,10 @@ describe("deviations", () => {
     const text = execFileSync("pdftotext", ["-", "-"], { input: record.body as Buffer, encoding: "utf8" });
     expect(text).toContain(`Deviation #${deviationId}`);
     expect(text).toContain("Our lab report is attached.");
+    // The record states the lot's status in the words every screen uses.
+    const lot = (await buyer.agent.get(B(`/deviations/${deviationId}`))).body.lotId;
+    const status = (await buyer.agent.get(B(`/lots/${lot}`))).body.status;
+    expect(text.replace(/\s+/g, " ")).toContain(`Lot status: ${status.label}. ${status.reason}`);
   });
 
   it("when a message is edited, then its earlier wording is kept; only its author may edit", async () => {

@@ -27,8 +27,8 @@ async function partyContracts(orgId: number) {
   return (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] }, include: contractInclude })) as ContractWithParties[];
 }
 
-async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties>): Promise<LotSummary[]> {
-  const ids = lots.map((l) => l.id);
+/** What a lot's status rests on, for many lots at once: their analyses (oldest first) and deviations. */
+async function statusInputs(ids: number[]) {
   const [analyses, deviations] = await Promise.all([
     Analysis.findAll({
       where: { lotId: ids },
@@ -38,11 +38,21 @@ async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties
     }),
     Deviation.findAll({ where: { lotId: ids }, attributes: ["id", "lotId", "kind", "status", "parameters", "decision"] }),
   ]);
+  return (lotId: number) => ({ analyses: analyses.filter((a) => a.lotId === lotId) as (Analysis & StatusAnalysis)[], deviations: deviations.filter((d) => d.lotId === lotId) });
+}
+
+/** One lot's status, for a caller that has already checked who may see the lot (a deviation's record, for instance). */
+export async function statusOfLot(lotId: number) {
+  const { analyses, deviations } = (await statusInputs([lotId]))(lotId);
+  return lotStatus(analyses, deviations, parameterName);
+}
+
+async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties>): Promise<LotSummary[]> {
+  const inputsOf = await statusInputs(lots.map((l) => l.id));
   return lots.map((l) => {
     const c = contracts.get(l.contractId)!;
-    const mine = analyses.filter((a) => a.lotId === l.id) as (Analysis & StatusAnalysis)[];
+    const { analyses: mine, deviations: ofLot } = inputsOf(l.id);
     const last = mine.at(-1);
-    const ofLot = deviations.filter((d) => d.lotId === l.id);
     return {
       id: l.id,
       contractId: l.contractId,
