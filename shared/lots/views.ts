@@ -144,14 +144,17 @@ export interface TrendPoint {
   vintage: number;
   stage: AnalysisStage;
   sampleDate: string;
-  /** Canonical unit; null for a censored result, which is then described in text. */
+  /** In the trend's unit; null for a censored result, which is then described in text. */
   value: number | null;
   text: string;
 }
 
 export interface TrendData {
   parameter: string;
+  /** The governing spec row's unit (the canonical one when no row names the parameter); limits and values are in it. */
   unit: string;
+  /** Decimal places the parameter is shown to in that unit. */
+  digits: number;
   lower: number | null;
   upper: number | null;
   points: TrendPoint[];

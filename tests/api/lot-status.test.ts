@@ -8,7 +8,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
 import { setUpThreeLots, THREE_LOT_STATUSES, type ThreeLots } from "../support/three-lots.ts";
-import type { LotDetail, LotSummary, ReadinessRow } from "../../shared/lots/views.ts";
+import type { LotDetail, LotSummary, ReadinessRow, TrendData } from "../../shared/lots/views.ts";
+import { chartDomain } from "../../src/features/lots/chart-domain.ts";
 
 let t: TestApp;
 let producer: SignedInAgent;
@@ -91,5 +92,28 @@ describe("a lot's market", () => {
     const fix = await producer.agent.patch(P(`/lots/${lots.good.id}`)).set("x-csrf-token", producer.csrf).send({ volumeLitres: 9000, container: "bottles", plannedDate: null, market: "CN" });
     expect(fix.status).toBe(400);
     expect((await producer.agent.get(P(`/lots/${lots.good.id}`))).body.market).toBe("EU");
+  });
+});
+
+describe("trends", () => {
+  it("when a parameter is charted, then it is in the spec row's unit with the row's limits, and every value is rounded to the parameter's precision (regression)", async () => {
+    const res = await tech.agent.get(B("/contracts/1/trend?parameter=volatile_acidity"));
+    expect(res.status).toBe(200);
+    const d = res.body as TrendData;
+    // Sentier Blanc's version 1 writes volatile acidity in g/L as acetic acid with a maximum of 0.6 (the still-white template).
+    expect([d.unit, d.upper, d.digits]).toEqual(["g/L as acetic acid", 0.6, 2]);
+    expect(d.points.length).toBeGreaterThan(3);
+    for (const p of d.points.filter((x) => x.value !== null)) {
+      expect(p.value!).toBeLessThan(2);
+      expect(p.text).toMatch(/^\d+\.\d{2}$/);
+    }
+  });
+
+  it("when results and limits are drawn, then the chart's range holds both", () => {
+    expect(chartDomain([0.41, 0.45], null, 0.6)[1]).toBeGreaterThan(0.6);
+    expect(chartDomain([3.2, 3.3], 3.1, 3.4)).toEqual([expect.closeTo(3.076, 3), expect.closeTo(3.424, 3)]);
+    const [lo, hi] = chartDomain([12, 14.9], 11, 13.5);
+    expect(lo).toBeLessThan(11);
+    expect(hi).toBeGreaterThan(14.9);
   });
 });

@@ -1,6 +1,6 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
 import { literal, Op } from "sequelize";
-import { compareTransit, convert, findParameter, formatReading, type MarketId, type Outcome, type UnitId } from "../../../shared/engine/index.ts";
+import { compareTransit, convert, displayDigits, displayValue, findParameter, formatReading, type MarketId, type Outcome, type Reading, type UnitId } from "../../../shared/engine/index.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
 import type { Stage } from "../../../shared/specs/vocabulary.ts";
@@ -188,7 +188,10 @@ export async function readiness(orgId: number, horizonDays = 120): Promise<Readi
   return rows;
 }
 
-/** One parameter across the contract's lots and vintages, in the parameter's canonical unit. */
+/**
+ * One parameter across the contract's lots and vintages, in the unit the governing spec row uses
+ * (the parameter's canonical unit when no row names it), rounded to the parameter's precision.
+ */
 export async function trend(orgId: number, contractId: number, parameterId: string): Promise<TrendData> {
   const { contract } = await contractFor(orgId, contractId);
   const p = findParameter(parameterId)!;
@@ -201,15 +204,15 @@ export async function trend(orgId: number, contractId: number, parameterId: stri
   const latestVintage = Math.max(0, ...lots.map((l) => l.vintage));
   const governing = latestVintage ? await governingVersion(contract.id, latestVintage) : null;
   const row = governing?.requirements.find((r) => r.parameter === parameterId);
-  const toCanonical = (x: number | null) => (x === null || !row ? null : convert(x, row.unit as UnitId, p.unit));
+  const unit = (row?.unit ?? p.unit) as UnitId;
   const points = results
     .map((r) => {
       const lot = lotById.get(r.analysis.lotId)!;
-      const value = r.reading.kind === "value" ? convert(r.reading.value, r.unit as UnitId, p.unit) : null;
-      const text = r.reading.kind === "value" ? String(Number(value!.toPrecision(6))) : formatReading(r.reading, p.digits);
+      const value = r.reading.kind === "value" ? convert(r.reading.value, r.unit as UnitId, unit) : null;
+      const censored = r.reading.kind === "below" || r.reading.kind === "above" ? { ...r.reading, limit: r.reading.limit === null ? null : convert(r.reading.limit, r.unit as UnitId, unit) } : r.reading;
+      const text = value !== null ? displayValue(parameterId, value, unit) : formatReading(censored as Reading, displayDigits(parameterId, unit));
       return { lotId: lot.id, lotCode: lot.lotCode, vintage: lot.vintage, stage: r.analysis.stage, sampleDate: r.analysis.sampleDate, value, text };
     })
     .sort((a, b) => (a.sampleDate < b.sampleDate ? -1 : a.sampleDate > b.sampleDate ? 1 : a.lotCode.localeCompare(b.lotCode)));
-  return { parameter: parameterId, unit: p.unit, lower: toCanonical(row?.lower ?? null), upper: toCanonical(row?.upper ?? null), points };
+  return { parameter: parameterId, unit, digits: displayDigits(parameterId, unit), lower: row?.lower ?? null, upper: row?.upper ?? null, points };
 }
-

@@ -5,7 +5,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link, useParams, useSearchParams } from "react-router-dom";
 import { useRef } from "react";
-import { CartesianGrid, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis, Legend } from "recharts";
+import { CartesianGrid, ComposedChart, Line, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis, Legend } from "recharts";
 import { useVirtualizer } from "@tanstack/react-virtual";
 import Papa from "papaparse";
 import { useShellContext } from "../../app/use-shell-context.ts";
@@ -18,8 +18,10 @@ import { Button } from "../../components/ui/button.tsx";
 import { capability, driftWarning, ewmaChart, findParameter, individualsChart, PARAMETERS, UNITS, westernElectricSignals, type UnitId } from "../../../shared/engine/index.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import type { TrendData } from "../../../shared/lots/views.ts";
+import { chartDomain } from "./chart-domain.ts";
 
-const n = (x: number | null | undefined, d = 3) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : String(Number(x.toPrecision(d + 1))));
+/** A number to `digits` decimal places; "—" for none. */
+const fixed = (x: number | null | undefined, digits: number) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(digits));
 
 export function TrendsPage() {
   const { membership } = useShellContext();
@@ -49,6 +51,9 @@ export function TrendsPage() {
 
 function TrendView({ data }: { data: TrendData }) {
   const unit = UNITS[data.unit as UnitId]?.label ?? data.unit;
+  const show = (x: number | null | undefined) => fixed(x, data.digits);
+  // Statistics carry one more decimal than the results they summarise.
+  const stat = (x: number | null | undefined) => fixed(x, data.digits + 1);
   const numeric = data.points.filter((p) => p.value !== null);
   const values = numeric.map((p) => p.value!);
   const stats = (() => {
@@ -62,36 +67,53 @@ function TrendView({ data }: { data: TrendData }) {
   })();
   if (data.points.length === 0) return <EmptyState title="No result for this parameter yet." />;
   const flagged = new Set(stats?.signals.map((s) => s.index));
-  const series = numeric.map((p, i) => ({ i: i + 1, label: `${p.lotCode} (${p.vintage})`, value: p.value, ewma: stats?.ewma[i]?.ewma, flagged: flagged.has(i) ? p.value : null }));
+  const outside = (v: number) => (data.upper !== null && v > data.upper) || (data.lower !== null && v < data.lower);
+  const series = numeric.map((p, i) => ({
+    i: i + 1,
+    label: `${p.lotCode} (${p.vintage})`,
+    value: p.value,
+    ewma: stats?.ewma[i]?.ewma,
+    flagged: flagged.has(i) ? p.value : null,
+    out: outside(p.value!) ? p.value : null,
+    specMax: data.upper,
+    specMin: data.lower,
+    ucl: stats?.ewma[0]?.ucl,
+    lcl: stats?.ewma[0]?.lcl,
+  }));
+  const outCount = series.filter((x) => x.out !== null).length;
+  const domain = chartDomain(values, data.lower, data.upper);
   return (
     <>
       <Card title={`${findParameter(data.parameter)?.name} (${unit})`}>
+        {outCount > 0 && <p className="mb-3 text-sm font-semibold text-alarm-700">{outCount === 1 ? "1 result lies" : `${outCount} results lie`} outside the spec limits (red diamonds).</p>}
         {stats?.drift && <p className="mb-3 rounded-md bg-ochre-50 px-3 py-2 text-sm font-semibold text-ochre-700" role="status">{stats.drift.message}</p>}
         <div className="h-80" role="img" aria-label={`Chart of ${findParameter(data.parameter)?.name} by lot with spec limits and EWMA`}>
           <ResponsiveContainer width="100%" height="100%">
             <ComposedChart data={series} margin={{ top: 10, right: 20, bottom: 10, left: 10 }}>
               <CartesianGrid stroke="#ddd6ca" strokeDasharray="3 3" />
               <XAxis dataKey="i" tick={{ fontSize: 12 }} label={{ value: "sample, oldest first", position: "insideBottom", offset: -4, fontSize: 12 }} />
-              <YAxis tick={{ fontSize: 12 }} domain={["auto", "auto"]} />
-              <Tooltip formatter={(v: unknown) => n(v as number)} labelFormatter={(i: unknown) => series[Number(i) - 1]?.label ?? ""} />
+              <YAxis tick={{ fontSize: 12 }} domain={domain} allowDataOverflow={false} tickFormatter={(v: number) => show(v)} width={64} />
+              <Tooltip formatter={(v: unknown) => `${show(v as number)} ${unit}`} labelFormatter={(i: unknown) => series[Number(i) - 1]?.label ?? ""} />
               <Legend />
-              {data.upper !== null && <ReferenceLine y={data.upper} stroke="#a3261d" strokeDasharray="6 3" label={{ value: "spec max", fontSize: 11, fill: "#a3261d" }} />}
-              {data.lower !== null && <ReferenceLine y={data.lower} stroke="#a3261d" strokeDasharray="6 3" label={{ value: "spec min", fontSize: 11, fill: "#a3261d" }} />}
-              {stats && <ReferenceLine y={stats.ewma[0]!.ucl} stroke="#7a5200" strokeDasharray="2 4" />}
-              {stats && <ReferenceLine y={stats.ewma[0]!.lcl} stroke="#7a5200" strokeDasharray="2 4" />}
+              {/* Limits are drawn as lines rather than reference marks, so each has its own legend entry. */}
+              {data.upper !== null && <Line type="linear" dataKey="specMax" name={`Spec max ${show(data.upper)}`} stroke="#a3261d" strokeDasharray="6 3" dot={false} isAnimationActive={false} />}
+              {data.lower !== null && <Line type="linear" dataKey="specMin" name={`Spec min ${show(data.lower)}`} stroke="#a3261d" strokeDasharray="2 2" dot={false} isAnimationActive={false} />}
+              {stats && <Line type="linear" dataKey="ucl" name="EWMA upper control limit" stroke="#7a5200" strokeDasharray="2 4" dot={false} isAnimationActive={false} />}
+              {stats && <Line type="linear" dataKey="lcl" name="EWMA lower control limit" stroke="#7a5200" strokeDasharray="1 5" dot={false} isAnimationActive={false} />}
               <Line type="linear" dataKey="value" name="Result" stroke="#5b1f3c" dot={{ r: 3 }} isAnimationActive={false} />
-              <Line type="monotone" dataKey="ewma" name="EWMA (λ = 0.3)" stroke="#7a5200" dot={false} isAnimationActive={false} />
-              <Scatter dataKey="flagged" name="Run-rule signal" fill="#a3261d" isAnimationActive={false} />
+              {stats && <Line type="monotone" dataKey="ewma" name="EWMA (λ = 0.3)" stroke="#7a5200" dot={false} isAnimationActive={false} />}
+              <Scatter dataKey="out" name="Outside the spec limits" fill="#a3261d" shape="diamond" isAnimationActive={false} />
+              <Scatter dataKey="flagged" name="Run-rule signal" fill="#1b2230" isAnimationActive={false} />
             </ComposedChart>
           </ResponsiveContainer>
         </div>
         {stats && (
           <dl className="mt-4 grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4">
-            <dt className="text-ink-500">Mean</dt><dd className="tabular-nums">{n(stats.chart.centre)} {unit}</dd>
-            <dt className="text-ink-500">σ (moving range)</dt><dd className="tabular-nums">{n(stats.chart.sigma)} {unit}</dd>
-            <dt className="text-ink-500">Cp</dt><dd className="tabular-nums">{n(stats.cap?.cp, 2)}</dd>
-            <dt className="text-ink-500">Cpk</dt><dd className="tabular-nums">{n(stats.cap?.cpk, 2)}</dd>
-            <dt className="text-ink-500">Control limits (I chart)</dt><dd className="tabular-nums">{n(stats.chart.lcl)} – {n(stats.chart.ucl)}</dd>
+            <dt className="text-ink-500">Mean</dt><dd className="tabular-nums">{stat(stats.chart.centre)} {unit}</dd>
+            <dt className="text-ink-500">σ (moving range)</dt><dd className="tabular-nums">{stat(stats.chart.sigma)} {unit}</dd>
+            <dt className="text-ink-500">Cp</dt><dd className="tabular-nums">{fixed(stats.cap?.cp, 2)}</dd>
+            <dt className="text-ink-500">Cpk</dt><dd className="tabular-nums">{fixed(stats.cap?.cpk, 2)}</dd>
+            <dt className="text-ink-500">Control limits (I chart)</dt><dd className="tabular-nums">{stat(stats.chart.lcl)} – {stat(stats.chart.ucl)} {unit}</dd>
             <dt className="text-ink-500">Run-rule signals</dt><dd>{stats.signals.length ? stats.signals.map((s) => `#${s.index + 1} rule ${s.rule}`).join(", ") : "none"}</dd>
           </dl>
         )}
