@@ -107,6 +107,7 @@ describe("a paid independent audit", () => {
     await expectAccessible(page, "audit order (laboratory)");
     await screenshot(page, "audit-lab-results");
     await page.getByRole("button", { name: "Send the results" }).click();
+    await page.getByRole("dialog", { name: /^Send the results for AUD-\d{5}\?$/ }).getByRole("button", { name: "Send the results" }).click();
     // Either the confirmation or an error message: say which, so a failure names its cause.
     const outcome = page.getByText(/Results sent\./).or(page.getByRole("alert"));
     await outcome.first().waitFor({ timeout: 20_000 });

@@ -61,6 +61,9 @@ describe("a deviation negotiated to a recorded decision", () => {
     await signInThroughForm(page, baseUrl, DEMO.producerQuality);
     await page.goto(deviationUrl);
     await page.getByRole("article", { name: /proposal by Tessa Marlow/ }).getByRole("button", { name: "Accept this proposal" }).click();
+    const accepting = page.getByRole("dialog", { name: "Accept Tessa Marlow's proposal?" });
+    await accepting.getByText("Concession for this lot, on condition of: re-test: Accredited re-test confirms VA below 0.8 g/L as acetic acid.").waitFor();
+    await accepting.getByRole("button", { name: "Accept the proposal" }).click();
     await page.getByRole("article", { name: /acceptance by Élise Carbonnel/ }).waitFor();
     await signOut(page);
 
@@ -68,6 +71,7 @@ describe("a deviation negotiated to a recorded decision", () => {
     await page.goto(deviationUrl);
     await page.getByLabel("Reason").fill("Sound wine, VA under the legal limit; concession with the agreed accredited re-test.");
     await page.getByRole("button", { name: "Record the decision" }).click();
+    await page.getByRole("dialog", { name: /^Record the decision on deviation #\d+\?$/ }).getByRole("button", { name: "Record the decision" }).click();
     await page.getByRole("heading", { name: "Decision" }).waitFor();
     await page.getByText("Re-test: Accredited re-test confirms VA below 0.8 g/L as acetic acid").first().waitFor();
     await expectAccessible(page, "deviation decided");

@@ -51,6 +51,25 @@ describe("an admin invites a colleague by e-mail", () => {
 
     await signInThroughForm(page, baseUrl, email, "Vendanges-2027");
     await signOut(page);
+
+    // A role change asks first, in the page, and Cancel changes nothing; confirming changes the role.
+    await signInThroughForm(page, baseUrl, DEMO.producerAdmin);
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Members" }).click();
+    const role = page.getByLabel("Role of Inès Fauvel");
+    await role.selectOption("org_admin");
+    const ask = page.getByRole("dialog", { name: "Make Inès Fauvel organisation admin?" });
+    await ask.getByText(/signed out everywhere/).waitFor();
+    await expectAccessible(page, "role change confirmation");
+    await ask.getByRole("button", { name: "Cancel" }).click();
+    await page.reload();
+    expect(await page.getByLabel("Role of Inès Fauvel").inputValue()).toBe("producer_quality");
+    await page.getByLabel("Role of Inès Fauvel").selectOption("org_admin");
+    const changed = page.waitForResponse((r) => r.url().includes("/members/") && r.request().method() === "PATCH");
+    await page.getByRole("dialog", { name: "Make Inès Fauvel organisation admin?" }).getByRole("button", { name: "Change the role" }).click();
+    expect((await changed).status()).toBe(200);
+    await page.reload();
+    expect(await page.getByLabel("Role of Inès Fauvel").inputValue()).toBe("org_admin");
+    await signOut(page);
   });
 });
 

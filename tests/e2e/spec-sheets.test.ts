@@ -48,8 +48,12 @@ describe.sequential("spec sheets from draft to agreed version, then a tightened 
     await expectAccessible(page, "spec editor");
     await screenshot(page, "spec-editor");
 
-    page.once("dialog", (d) => void d.accept());
     await page.getByRole("button", { name: "Send to producer" }).click();
+    // A binding action asks first, in the page, and says what will happen.
+    const ask = page.getByRole("dialog", { name: /^Send version \d+ to Domaine des Trois Sentes\?$/ });
+    await ask.getByText(/cannot change/).waitFor();
+    await expectAccessible(page, "send confirmation");
+    await ask.getByRole("button", { name: "Send to the producer" }).click();
     await page.getByText(/it can no longer change/).waitFor();
     await signOut(page);
   });
@@ -66,6 +70,7 @@ describe.sequential("spec sheets from draft to agreed version, then a tightened 
     await expectAccessible(page, "spec review");
     await screenshot(page, "spec-review-producer");
     await page.getByRole("button", { name: "Agree to this version" }).click();
+    await page.getByRole("dialog", { name: /^Agree to version \d+\?$/ }).getByRole("button", { name: "Agree to this version" }).click();
     await page.getByText(/this version governs the lots/).waitFor();
     await signOut(page);
   });

@@ -3,6 +3,7 @@
  * from the laboratory's CSV export (same column mapping as the producers' import).
  */
 import { useState } from "react";
+import { useConfirm } from "../../components/ui/confirm-dialog.tsx";
 import Papa from "papaparse";
 import { useSubmitLabResults } from "./api/audits.ts";
 import { Button } from "../../components/ui/button.tsx";
@@ -20,6 +21,7 @@ const today = () => new Date().toISOString().slice(0, 10);
 /** onSent receives the confirmation: the page keeps it, since the form itself goes once the order is complete. */
 export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order: AuditOrderDetail; onSent: (message: string) => void }) {
   const submit = useSubmitLabResults(orgId, order.id);
+  const confirm = useConfirm();
   const [sampleDate, setSampleDate] = useState(today());
   const [accreditation, setAccreditation] = useState("");
   const [reportReference, setReportReference] = useState("");
@@ -67,7 +69,16 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
       return;
     }
     setErrors([]);
-    submit.mutate(parsed.data, {
+    confirm.ask({
+      title: `Send the results for ${order.reference}?`,
+      consequence: `They are stored as your laboratory's analysis, compared with the producer's declared results, and any disagreement opens a deviation. Results can be sent once per order.`,
+      confirmLabel: "Send the results",
+      onConfirm: () => send(parsed.data, sent),
+    });
+  };
+
+  const send = (data: Parameters<typeof submit.mutate>[0], sent: string[][]) => {
+    submit.mutate(data, {
       onSuccess: (r) => onSent(`Results sent. ${r.discrepancies.length ? `${r.discrepancies.length} lot(s) disagree with the declared results; a deviation was opened for each.` : "No discrepancy with the declared results."}`),
       onError: (err) => err instanceof ApiError && setErrors(err.errors.map((e) => describe(e.path.split("."), e.message, order, sent))),
     });
@@ -121,6 +132,7 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
       )}
       {submit.isError && !(submit.error instanceof ApiError && submit.error.errors.length) && <Notice tone="error">{errorMessage(submit.error)}</Notice>}
       <Button className="self-start" onClick={onSubmit} disabled={submit.isPending || submit.isSuccess}>Send the results</Button>
+      {confirm.dialog}
     </div>
   );
 }

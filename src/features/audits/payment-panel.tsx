@@ -1,5 +1,6 @@
 /** The buyer's side of an order: the lines, what Stripe confirmed, and Pay / Refund / the invoice. */
 import { useState } from "react";
+import { ConfirmButton } from "../../components/ui/confirm-dialog.tsx";
 import { invoiceUrl, useCheckout, useRefund } from "./api/audits.ts";
 import { Card } from "../../components/ui/page.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -65,9 +66,19 @@ export function PaymentPanel({ orgId, order }: { orgId: number; order: AuditOrde
       {order.actions.refund && (
         <div className="mt-4 flex flex-wrap items-end gap-3 border-t border-line pt-4">
           <TextField label="Reason for a refund" value={reason} onChange={(e) => setReason(e.target.value)} hint="Possible until the laboratory sends its results." />
-          <Button variant="danger" disabled={refund.isPending || reason.trim().length < 3} onClick={() => refund.mutate(reason)}>
+          <ConfirmButton
+            variant="danger"
+            disabled={refund.isPending || reason.trim().length < 3}
+            request={{
+              title: `Refund ${money(order.paidCents - order.refundedCents)}?`,
+              consequence: `The payment for ${order.reference} is returned to the card it came from and the laboratory stops work on the order. This cannot be undone; a new audit needs a new order.`,
+              confirmLabel: "Refund the payment",
+              tone: "danger",
+              onConfirm: () => refund.mutate(reason),
+            }}
+          >
             Refund {money(order.paidCents - order.refundedCents)}
-          </Button>
+          </ConfirmButton>
         </div>
       )}
       {refund.isSuccess && <Notice tone="success">Refund requested; it shows here once the payment service confirms it.</Notice>}

@@ -1,5 +1,6 @@
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { uploadFile } from "../../lib/upload.ts";
+import { ConfirmButton, useConfirm } from "../../components/ui/confirm-dialog.tsx";
 import { Link, useNavigate, useParams } from "react-router-dom";
 import { useState } from "react";
 import { useShellContext } from "../../app/use-shell-context.ts";
@@ -11,7 +12,7 @@ import { VerdictTable } from "../lots/verdict-table.tsx";
 import { HistoryPanel } from "../audit/history-panel.tsx";
 import { MessageComposer } from "./message-composer.tsx";
 import { ProposalFields } from "./proposal-fields.tsx";
-import { CONDITION_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS, type DeviationCondition, type DeviationOutcome } from "../../../shared/deviations/vocabulary.ts";
+import { CONDITION_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS, proposalText, type DeviationCondition, type DeviationOutcome } from "../../../shared/deviations/vocabulary.ts";
 import type { DeviationDetail, MessageView } from "../../../shared/deviations/views.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 import { errorMessage } from "../../lib/api-client.ts";
@@ -97,6 +98,7 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
   const [showHistory, setShowHistory] = useState(false);
   const edit = useEditMessage(orgId, d.id);
   const accept = usePostMessage(orgId, d.id);
+  const confirm = useConfirm();
   const tone = m.kind === "decision" ? "border-must-700 bg-must-50" : m.side === "buyer" ? "border-line bg-card" : "border-verjus-700/30 bg-verjus-50";
   return (
     <article className={`rounded-md border px-3 py-2 text-sm ${tone}`} aria-label={`${m.kind} by ${m.author}`}>
@@ -139,10 +141,27 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
         {d.actions.comment && <button type="button" className="text-must-700 underline" onClick={() => setReplying((v) => !v)}>Reply<span className="sr-only"> to {m.author}</span></button>}
         {m.mine && d.actions.comment && m.kind !== "decision" && <button type="button" className="text-must-700 underline" onClick={() => setEditing(true)}>Edit</button>}
         {m.kind === "proposal" && !m.mine && m.side !== d.side && d.actions.accept && (
-          <button type="button" className="text-verjus-700 underline" onClick={() => accept.mutate({ kind: "acceptance", parentId: m.id, body: `Accepted: ${m.proposal ? DEVIATION_OUTCOME_LABELS[m.proposal.outcome] : "the proposal"}.` })}>
+          <button
+            type="button"
+            className="text-verjus-700 underline"
+            onClick={() =>
+              confirm.ask({
+                title: `Accept ${m.author}'s proposal?`,
+                consequence: (
+                  <>
+                    <p className="font-semibold">{m.proposal ? proposalText(m.proposal) : "The proposal"}.</p>
+                    <p className="mt-2">Both sides are then agreed; the discussion waits for the buyer's technologist to record the decision, and this acceptance cannot be taken back.</p>
+                  </>
+                ),
+                confirmLabel: "Accept the proposal",
+                onConfirm: () => accept.mutate({ kind: "acceptance", parentId: m.id, body: "Accepted." }),
+              })
+            }
+          >
             Accept this proposal
           </button>
         )}
+        {confirm.dialog}
       </div>
       {replying && <div className="mt-2"><MessageComposer orgId={orgId} deviation={d} parentId={m.id} onDone={() => setReplying(false)} /></div>}
     </article>
@@ -193,9 +212,24 @@ function DecisionCard({ orgId, d }: { orgId: number; d: DeviationDetail }) {
       <ProposalFields idPrefix="decision" outcome={outcome} conditions={conditions} onChange={(o, c) => { setOutcome(o); setConditions(c); }} />
       <label htmlFor="decision-reason" className="mt-3 block text-sm font-semibold">Reason</label>
       <textarea id="decision-reason" rows={3} className="w-full rounded-md border border-line px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
-      <Button className="mt-3" disabled={decide.isPending || reason.trim().length < 10} onClick={() => decide.mutate({ outcome, conditions, reason }, { onSuccess: (r) => r.specVersionId && navigate(`/specs/${r.specVersionId}`) })}>
-        Record the decision
-      </Button>
+      <div className="mt-3">
+        <ConfirmButton
+          disabled={decide.isPending || reason.trim().length < 10}
+          request={{
+            title: `Record the decision on deviation #${d.id}?`,
+            consequence: (
+              <>
+                <p className="font-semibold">{proposalText({ outcome, conditions })}.</p>
+                <p className="mt-2">The decision is final: it ends the discussion, both parties are notified, and lot {d.lotCode}'s status follows it.</p>
+              </>
+            ),
+            confirmLabel: "Record the decision",
+            onConfirm: () => decide.mutate({ outcome, conditions, reason }, { onSuccess: (r) => r.specVersionId && navigate(`/specs/${r.specVersionId}`) }),
+          }}
+        >
+          Record the decision
+        </ConfirmButton>
+      </div>
     </Card>
   );
 }

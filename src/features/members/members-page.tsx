@@ -1,5 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
+import { useConfirm } from "../../components/ui/confirm-dialog.tsx";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { ROLE_LABELS, ROLES_BY_KIND, type Role } from "../../../shared/auth/roles.ts";
 import { invitationsQueryOptions, membersQueryOptions, useChangeRole, useRemoveMember, useRevokeInvitation } from "./api/members.ts";
@@ -35,6 +36,7 @@ function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeo
   const members = useQuery(membersQueryOptions(orgId));
   const changeRole = useChangeRole(orgId);
   const remove = useRemoveMember(orgId);
+  const confirm = useConfirm();
   const [error, setError] = useState<string | null>(null);
   const onError = (err: unknown) => setError(errorMessage(err));
 
@@ -68,8 +70,14 @@ function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeo
                     value={m.role}
                     disabled={changeRole.isPending}
                     onChange={(e) => {
+                      const role = e.target.value as Role;
                       setError(null);
-                      changeRole.mutate({ membershipId: m.membershipId, role: e.target.value as Role }, { onError });
+                      confirm.ask({
+                        title: `Make ${m.name} ${ROLE_LABELS[role].toLowerCase()}?`,
+                        consequence: `${m.name} is signed out everywhere and, at the next sign-in, can do what a ${ROLE_LABELS[role].toLowerCase()} does, and no longer what a ${ROLE_LABELS[m.role].toLowerCase()} does.`,
+                        confirmLabel: "Change the role",
+                        onConfirm: () => changeRole.mutate({ membershipId: m.membershipId, role }, { onError }),
+                      });
                     }}
                   >
                     {ROLES_BY_KIND[kind].map((r) => (
@@ -83,9 +91,14 @@ function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeo
                     variant="danger"
                     disabled={remove.isPending}
                     onClick={() => {
-                      if (!window.confirm(`Remove ${m.name} from the organisation?`)) return;
                       setError(null);
-                      remove.mutate(m.membershipId, { onError });
+                      confirm.ask({
+                        title: `Remove ${m.name} from the organisation?`,
+                        consequence: `${m.name} is signed out and loses access to everything the organisation holds. What they did stays in the trail.`,
+                        confirmLabel: `Remove ${m.name}`,
+                        tone: "danger",
+                        onConfirm: () => remove.mutate(m.membershipId, { onError }),
+                      });
                     }}
                   >
                     Remove
@@ -96,6 +109,7 @@ function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeo
           </tbody>
         </table>
       )}
+      {confirm.dialog}
     </Card>
   );
 }

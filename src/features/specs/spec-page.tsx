@@ -1,5 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link, useNavigate, useParams } from "react-router-dom";
+import { ConfirmButton } from "../../components/ui/confirm-dialog.tsx";
 import { useState } from "react";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { specPdfUrl, specQuery, useCreateVersion, useSpecAction } from "./api/specs.ts";
@@ -67,13 +68,31 @@ function Actions({ orgId, version: v, saved }: { orgId: number; version: SpecVer
       {v.status === "agreed" && <Notice tone="success">Agreed by {v.contract.producer.name}: this version governs the lots of the vintages it covers.</Notice>}
       <div className="flex flex-wrap gap-2">
         {v.actions.send && (
-          <Button disabled={!saved || send.isPending} onClick={() => confirm("Send this version to the producer? It cannot change afterwards.") && send.mutate(undefined)}>
+          <ConfirmButton
+            disabled={!saved || send.isPending}
+            request={{
+              title: `Send version ${v.number} to ${v.contract.producer.name}?`,
+              consequence: "The producer is notified and can agree to it or ask for changes. From now on this version cannot change; any change needs a new version.",
+              confirmLabel: "Send to the producer",
+              onConfirm: () => send.mutate(undefined),
+            }}
+          >
             Send to producer
-          </Button>
+          </ConfirmButton>
         )}
         {v.actions.decide && (
           <>
-            <Button disabled={agree.isPending} onClick={() => agree.mutate(undefined)}>Agree to this version</Button>
+            <ConfirmButton
+              disabled={agree.isPending}
+              request={{
+                title: `Agree to version ${v.number}?`,
+                consequence: `It becomes binding: from now on it governs every lot of vintage ${v.vintageFrom}${v.vintageTo ? `–${v.vintageTo}` : " onwards"} under contract ${v.contract.reference}, and replaces any version agreed before.`,
+                confirmLabel: "Agree to this version",
+                onConfirm: () => agree.mutate(undefined),
+              }}
+            >
+              Agree to this version
+            </ConfirmButton>
             <Button variant="secondary" onClick={() => setAsking(true)}>Ask for changes</Button>
           </>
         )}
@@ -91,9 +110,13 @@ function Actions({ orgId, version: v, saved }: { orgId: number; version: SpecVer
           Download PDF
         </a>
         {v.actions.withdraw && (
-          <Button variant="danger" disabled={withdraw.isPending} onClick={() => confirm("Withdraw this version? It will no longer govern any lot.") && withdraw.mutate(undefined)}>
+          <ConfirmButton
+            variant="danger"
+            disabled={withdraw.isPending}
+            request={{ title: `Withdraw version ${v.number}?`, consequence: "It will no longer govern any lot. Lots already judged against it keep their verdicts.", confirmLabel: "Withdraw this version", tone: "danger", onConfirm: () => withdraw.mutate(undefined) }}
+          >
             Withdraw
-          </Button>
+          </ConfirmButton>
         )}
       </div>
       {asking && (
