@@ -47,7 +47,10 @@ export interface AuditedLotView {
   analysisId: number | null;
   declaredAnalysisId: number | null;
   comparisons: ResultComparison[];
+  /** The laboratory's own results as judged against the spec: the values it sent. */
   verdicts: StoredVerdict[];
+  /** The laboratory's signed reports for this lot. */
+  reports: { id: number; originalName: string }[];
 }
 
 export interface AuditOrderDetail extends AuditOrderSummary {

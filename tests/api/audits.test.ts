@@ -170,6 +170,12 @@ describe("the laboratory's side", () => {
     expect(cert.originalName).toBe("NG-26-1187.pdf");
     expect((await tech.agent.get(B(`/certificates/${cert.id}`))).status).toBe(200);
     expect((await lab.agent.get(L(`/certificates/${cert.id}`))).status).toBe(200);
+    // Regression: the laboratory reads back the values it sent, and the buyer's order links its signed report.
+    const labView = (await lab.agent.get(L(`/audit-orders/${orderId}`))).body;
+    const sentValues = Object.fromEntries(labView.lots[0].verdicts.map((v: { parameter: string; resultText: string }) => [v.parameter, v.resultText]));
+    expect(sentValues).toEqual({ free_so2: "31", volatile_acidity: "0.48", alcohol: "12.55" });
+    const buyerView = (await tech.agent.get(B(`/audit-orders/${orderId}`))).body;
+    expect(buyerView.lots[0].reports).toEqual([{ id: cert.id, originalName: "NG-26-1187.pdf" }]);
     // Not on the producer's own analyses, though.
     const declaredId = withReport.body.analyses.find((a: { auditOrderId: number | null }) => a.auditOrderId === null).id;
     expect((await lab.agent.post(L(`/analyses/${declaredId}/certificates`)).set("x-csrf-token", lab.csrf).attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "x.pdf")).status).toBe(404);

@@ -5,7 +5,7 @@ import { Organisation } from "../../models/organisation.ts";
 import { User } from "../../models/user.ts";
 import { Lot } from "../../models/lot.ts";
 import { Deviation } from "../../models/deviation.ts";
-import { AnalysisEvaluation } from "../../models/evaluation.ts";
+import { AnalysisEvaluation, Certificate } from "../../models/evaluation.ts";
 import { Contract } from "../../models/contract.ts";
 import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { orderReference } from "../../../shared/audits/vocabulary.ts";
@@ -59,6 +59,8 @@ export async function detailOf(id: number, side: OrderSide, role: Role): Promise
   const analysisIds = o.lots.map((l) => l.analysisId).filter((x): x is number => x !== null);
   const evaluations = new Map((await AnalysisEvaluation.findAll({ where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } } })).map((e) => [e.analysisId, e.verdicts as StoredVerdict[]]));
   const deviations = await Deviation.findAll({ where: { auditOrderId: id }, attributes: ["id"] });
+  // The laboratory's signed reports, attached to its own analyses.
+  const reports = await Certificate.findAll({ where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } }, attributes: ["id", "analysisId", "originalName"], order: [["id", "ASC"]] });
   // Results are asked for in the units the spec sheet speaks, the way both parties read them.
   const governing = o.lots[0] ? await governingVersion(o.contractId, o.lots[0].lot.vintage) : null;
   const specUnits = Object.fromEntries((governing?.requirements ?? []).filter((r) => o.parameters.includes(r.parameter)).map((r) => [r.parameter, r.unit]));
@@ -78,6 +80,7 @@ export async function detailOf(id: number, side: OrderSide, role: Role): Promise
       declaredAnalysisId: showComparisons ? l.declaredAnalysisId : null,
       comparisons: showComparisons ? (l.comparisons ?? []) : [],
       verdicts: l.analysisId ? (evaluations.get(l.analysisId) ?? []) : [],
+      reports: reports.filter((r) => r.analysisId === l.analysisId).map((r) => ({ id: r.id, originalName: r.originalName })),
     })),
     deviationIds: deviations.map((d) => d.id),
     reportReference: o.reportReference,

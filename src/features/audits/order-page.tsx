@@ -1,5 +1,9 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { certificateUrl } from "../lots/api/lots.ts";
+import { OutcomeBadge } from "../lots/outcome-badge.tsx";
+import { verdictText } from "../../../shared/lots/verdict-text.ts";
+import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import { Link, useParams, useSearchParams } from "react-router-dom";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { conformityUrl, orderQuery } from "./api/audits.ts";
@@ -70,7 +74,10 @@ export function OrderPage() {
             {lab &&
               o.lots.map((l) =>
                 l.analysisId ? (
-                  <div key={l.lotId} className="mb-4">
+                  <div key={l.lotId} className="mb-4 flex flex-col gap-2">
+                    <h3 className="font-semibold">Lot {l.lotCode}: the values you sent</h3>
+                    <SentValues verdicts={l.verdicts} />
+                    <ReportLinks orgId={orgId} reports={l.reports} />
                     <CertificateUpload orgId={orgId} analysisId={l.analysisId} label={`Attach your signed report for lot ${l.lotCode}`} />
                   </div>
                 ) : null,
@@ -82,6 +89,7 @@ export function OrderPage() {
                     Lot {l.lotCode} · <a className="text-must-700 underline" href={conformityUrl(orgId, l.lotId)}>Conformity document (PDF)</a>
                     <span className="block text-xs font-normal text-ink-500">A certificate of conformity when the lot's status allows one, otherwise an analysis statement saying why not.</span>
                   </h3>
+                  <ReportLinks orgId={orgId} reports={l.reports} />
                   <ComparisonTable comparisons={l.comparisons} caption={`Declared results against ${o.laboratoryName}'s (the reference). En uses both expanded uncertainties; z uses the catalogue's standard uncertainty as σ_pt.`} />
                 </div>
               ))}
@@ -91,5 +99,38 @@ export function OrderPage() {
         {o.lines.length > 0 && <HistoryPanel orgId={orgId} entityType="audit_order" entityId={o.id} />}
       </div>
     </>
+  );
+}
+
+/** What the laboratory sent for one lot, in the spec's units, as the engine judged it. */
+function SentValues({ verdicts }: { verdicts: StoredVerdict[] }) {
+  return (
+    <table className="w-full text-left text-sm">
+      <caption className="sr-only">Values sent by the laboratory</caption>
+      <thead className="border-b border-line text-ink-500">
+        <tr>{["Parameter", "Result ± U (k = 2)", "Against the spec"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
+      </thead>
+      <tbody>
+        {verdicts.map((v) => (
+          <tr key={v.parameter} className="border-b border-line/60">
+            <th scope="row" className="py-1 pr-3 font-normal">{findParameter(v.parameter)?.name ?? v.parameter}</th>
+            <td className="py-1 pr-3 tabular-nums">{verdictText(v).result}</td>
+            <td className="py-1 pr-3"><OutcomeBadge outcome={v.outcome} /></td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+function ReportLinks({ orgId, reports }: { orgId: number; reports: { id: number; originalName: string }[] }) {
+  if (!reports.length) return <p className="text-xs text-ink-500">No signed report attached yet.</p>;
+  return (
+    <p className="text-sm">
+      Signed report:{" "}
+      {reports.map((r) => (
+        <a key={r.id} href={certificateUrl(orgId, r.id)} className="mr-2 font-semibold text-must-700 underline">{r.originalName}</a>
+      ))}
+    </p>
   );
 }
