@@ -1,5 +1,6 @@
 import { z } from "zod";
 import Papa from "papaparse";
+import { actionLabel, detailsText } from "../../shared/auth/trail-vocabulary.ts";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { orgMember } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
@@ -28,7 +29,7 @@ export function registerAuditRoutes(r: RouteRegistry): void {
     async ({ params, query, res }) => {
       const rows = await listOrganisationAudit(params.orgId, { action: query.action, entityType: query.entityType, entityId: query.entityId, actorUserId: query.actor, from: query.from, to: query.to, limit: query.limit });
       if (query.format === "csv") {
-        const csv = Papa.unparse(rows.map((e) => ({ seq: e.seq, occurred_at: e.occurredAt, actor: e.actorName ?? "", action: e.action, entity_type: e.entityType, entity_id: e.entityId ?? "", details: e.details ? JSON.stringify(e.details) : "", hash: e.hash })));
+        const csv = Papa.unparse(rows.map((e) => ({ seq: e.seq, occurred_at: e.occurredAt, actor: e.actorName ?? "", action: e.action, what: actionLabel(e.action), entity_type: e.entityType, entity_id: e.entityId ?? "", details: detailsText(e.details), hash: e.hash })));
         res.status(200).type("text/csv").attachment(`audit-${params.orgId}.csv`).send(`\uFEFF${csv}`);
         return;
       }

@@ -3,6 +3,7 @@
  * the audit_head row serialises appends and acts as the checkpoint for the tail.
  */
 import type { Transaction } from "sequelize";
+import type { AuditAction } from "../../shared/auth/trail-vocabulary.ts";
 import { Op, type WhereOptions } from "sequelize";
 import { AuditEvent, AuditHead } from "../models/audit-event.ts";
 import { User } from "../models/user.ts";
@@ -14,7 +15,8 @@ export const GENESIS_HASH = "0".repeat(64);
 export interface AuditInput {
   actorUserId: number | null;
   organisationId: number | null;
-  action: string;
+  /** Only actions with a label in shared/auth/trail-vocabulary.ts can be recorded. */
+  action: AuditAction;
   entityType: string;
   entityId: string | number | null;
   before?: unknown;

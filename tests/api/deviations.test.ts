@@ -144,6 +144,8 @@ describe("deviations", () => {
     expect(csv.headers["content-type"]).toMatch(/text\/csv/);
     expect(csv.text.split("\n")[0]).toContain("seq,occurred_at,actor,action");
     expect(csv.text).toContain("deviation.decided");
+    // Each row also says what happened in words.
+    expect(csv.text).toContain("Deviation decided");
     const json = await admin.agent.get(B("/audit?format=json&entityType=deviation")).buffer(true);
     expect(JSON.parse(json.text).every((e: { entityType: string }) => e.entityType === "deviation")).toBe(true);
   });

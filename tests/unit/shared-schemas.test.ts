@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { actionLabel, detailsText } from "../../shared/auth/trail-vocabulary.ts";
 import { newPasswordSchema, signInSchema, inviteSchema } from "../../shared/auth/schemas.ts";
 import { roleFitsKind } from "../../shared/auth/roles.ts";
 
@@ -17,5 +18,14 @@ describe("shared schemas used by both the forms and the API", () => {
     expect(roleFitsKind("buyer_technologist", "producer")).toBe(false);
     expect(roleFitsKind("org_admin", "laboratory")).toBe(true);
     expect(inviteSchema.safeParse({ email: "a@b.test", role: "sommelier" }).success).toBe(false);
+  });
+});
+
+describe("the trail in words", () => {
+  it("when an event's details hold money in cents, codes and lists, then they read as words (regression: raw field names were shown)", () => {
+    expect(actionLabel("payment.succeeded")).toBe("Payment received");
+    expect(detailsText({ paymentIntent: "pi_123", amountCents: 4500, currency: "eur" })).toBe("Payment reference: pi_123 · Amount: €45.00");
+    expect(detailsText({ lotCode: "SB-25-11", failing: ["volatile_acidity"], deviations: [] })).toBe("Lot: SB-25-11 · Failing: Volatile acidity · Deviations opened: none");
+    expect(detailsText({ someNewField: 3 })).toBe("Some New Field: 3");
   });
 });

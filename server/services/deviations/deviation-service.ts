@@ -3,6 +3,7 @@
  * edit history) in which producers propose and only the buyer's technologist decides, with a reason.
  */
 import { Op, type Transaction } from "sequelize";
+import type { AuditAction } from "../../../shared/auth/trail-vocabulary.ts";
 import { deviationPath } from "../../../shared/paths.ts";
 import { Deviation, DeviationAttachment, DeviationMessage, DeviationMessageEdit } from "../../models/deviation.ts";
 import { Analysis, Lot } from "../../models/lot.ts";
@@ -144,7 +145,7 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
   };
 }
 
-const audit = (t: Transaction, user: SessionUser, orgId: number, action: string, d: Deviation, details: Record<string, unknown>, after?: unknown) =>
+const audit = (t: Transaction, user: SessionUser, orgId: number, action: AuditAction, d: Deviation, details: Record<string, unknown>, after?: unknown) =>
   recordAudit(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "deviation", entityId: d.id, after, details });
 
 export async function postMessage(orgId: number, id: number, user: SessionUser, input: MessageInput) {

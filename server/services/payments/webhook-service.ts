@@ -5,6 +5,7 @@
  * decline is stored once per Stripe object; and the order's status is derived from those facts.
  */
 import { UniqueConstraintError, type Transaction } from "sequelize";
+import type { AuditAction } from "../../../shared/auth/trail-vocabulary.ts";
 import { orderPath } from "../../../shared/paths.ts";
 import type Stripe from "stripe";
 import { AuditOrder, AuditPayment, StripeEvent } from "../../models/audit-order.ts";
@@ -120,7 +121,7 @@ async function mailFacts(t: Transaction, order: AuditOrder) {
   };
 }
 
-const audit = (t: Transaction, order: AuditOrder, action: string, details: Record<string, unknown>) =>
+const audit = (t: Transaction, order: AuditOrder, action: AuditAction, details: Record<string, unknown>) =>
   recordAudit(t, { actorUserId: null, organisationId: order.buyerOrgId, action, entityType: "audit_order", entityId: order.id, details: { reference: orderReference(order.id), ...details } });
 
 async function recordPayment(t: Transaction, order: AuditOrder, paymentIntent: string, amountCents: number): Promise<string> {

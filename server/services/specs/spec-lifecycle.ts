@@ -3,6 +3,7 @@
  * withdrawal, new versions and row comments. Every change is in the audit log.
  */
 import { Op, type Transaction } from "sequelize";
+import type { AuditAction } from "../../../shared/auth/trail-vocabulary.ts";
 import { buildRequirement, findParameter, type MarketId } from "../../../shared/engine/index.ts";
 import { specPath } from "../../../shared/paths.ts";
 import { SPEC_TEMPLATES } from "../../../shared/specs/templates.ts";
@@ -42,7 +43,7 @@ async function writeRows(t: Transaction, specVersionId: number, rows: readonly S
   );
 }
 
-const audit = (t: Transaction, user: SessionUser, orgId: number, action: string, version: SpecVersion, extra: { before?: unknown; after?: unknown; details?: Record<string, unknown> } = {}) =>
+const audit = (t: Transaction, user: SessionUser, orgId: number, action: AuditAction, version: SpecVersion, extra: { before?: unknown; after?: unknown; details?: Record<string, unknown> } = {}) =>
   recordAudit(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "spec_version", entityId: version.id, ...extra, details: { contractId: version.contractId, number: version.number, ...extra.details } });
 
 /** A new draft: blank, from a template, or copied from an earlier version of the same contract. */

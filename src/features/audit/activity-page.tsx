@@ -9,27 +9,8 @@ import type { AuditEntryView as AuditEntry } from "../../../shared/auth/views.ts
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { actionLabel, detailsText } from "../../../shared/auth/trail-vocabulary.ts";
 
-const ACTION_LABELS: Record<string, string> = {
-  "auth.sign_in": "Signed in",
-  "invitation.created": "Invitation sent",
-  "invitation.accepted": "Invitation accepted",
-  "invitation.revoked": "Invitation revoked",
-  "membership.role_changed": "Role changed",
-  "membership.removed": "Member removed",
-  "organisation.created": "Organisation opened",
-  "deviation.opened": "Deviation opened",
-  "deviation.proposed": "Outcome proposed",
-  "deviation.accepted": "Proposal accepted",
-  "deviation.commented": "Deviation comment",
-  "deviation.decided": "Deviation decided",
-  "deviation.closed": "Deviation closed",
-  "spec.sent": "Spec sent",
-  "spec.agreed": "Spec agreed",
-  "analysis.submitted": "Analysis submitted",
-  "analysis.imported": "Analyses imported",
-  "certificate.uploaded": "Certificate uploaded",
-};
 
 export function ActivityPage() {
   const { membership } = useShellContext();
@@ -82,9 +63,9 @@ export function ActivityPage() {
                   <td className="py-2 pr-4 tabular-nums">{e.seq}</td>
                   <td className="py-2 pr-4 tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</td>
                   <td className="py-2 pr-4">{e.actorName ?? "system"}</td>
-                  <td className="py-2 pr-4">{ACTION_LABELS[e.action] ?? e.action}</td>
+                  <td className="py-2 pr-4">{actionLabel(e.action)}<span className="block font-mono text-xs text-ink-500">{e.action}</span></td>
                   <td className="py-2 pr-4 text-ink-700">
-                    {e.details ? Object.entries(e.details).map(([k, v]) => `${k}: ${String(v)}`).join(", ") : "—"}
+                    {detailsText(e.details) || "—"}
                   </td>
                   <td className="py-2 font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</td>
                 </tr>

@@ -5,6 +5,7 @@ import { historyQuery, verifyChain } from "../deviations/api/deviations.ts";
 import { Card } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
+import { actionLabel } from "../../../shared/auth/trail-vocabulary.ts";
 
 export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; entityType: HistoryEntityType; entityId: number }) {
   const history = useQuery(historyQuery(orgId, entityType, entityId));
@@ -18,7 +19,7 @@ export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; e
           {history.data.map((e) => (
             <li key={e.seq} className="flex flex-wrap gap-x-3">
               <span className="tabular-nums text-ink-500">#{e.seq} · {e.occurredAt.replace("T", " ").slice(0, 19)} UTC</span>
-              <span className="font-semibold">{e.action}</span>
+              <span className="font-semibold">{actionLabel(e.action)}</span>
               <span>{e.actorName ?? "system"}</span>
               <span className="font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</span>
             </li>
