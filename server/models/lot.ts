@@ -10,6 +10,8 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
   declare container: "bottles" | "iso_tank" | "flexitank";
   declare plannedDate: string | null;
   declare market: string;
+  /** As the label states it, in % vol; decimals come back from MariaDB as strings. */
+  declare labelledAlcoholPercentVol: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -24,6 +26,7 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
         container: { type: DataTypes.ENUM("bottles", "iso_tank", "flexitank"), allowNull: false },
         plannedDate: { type: DataTypes.DATEONLY, allowNull: true },
         market: { type: DataTypes.STRING(10), allowNull: false },
+        labelledAlcoholPercentVol: { type: DataTypes.DECIMAL(4, 1), allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

@@ -16,6 +16,8 @@ export const lotSchema = z.object({
   container: z.enum(CONTAINERS, { error: "Choose the container." }),
   plannedDate: isoDate.nullish(),
   market: z.enum(MARKET_IDS as [MarketId, ...MarketId[]], { error: "Choose the destination market." }),
+  // The label states whole or half units in the EU; the label check says so rather than refusing other values here.
+  labelledAlcoholPercentVol: z.number({ error: "Enter the labelled alcohol as a number." }).min(0.5, { error: "Enter the labelled alcohol in % vol." }).max(25, { error: "A wine's label states at most 25 % vol." }).nullish(),
 });
 export type LotInput = z.infer<typeof lotSchema>;
 
@@ -78,5 +80,5 @@ export const importBatchSchema = z.object({
 export type ImportBatch = z.infer<typeof importBatchSchema>;
 
 /** What a producer may correct on a registered lot; contract, vintage and code stay fixed. */
-export const lotUpdateSchema = lotSchema.pick({ volumeLitres: true, container: true, plannedDate: true, market: true });
+export const lotUpdateSchema = lotSchema.pick({ volumeLitres: true, container: true, plannedDate: true, market: true, labelledAlcoholPercentVol: true });
 export type LotUpdate = z.infer<typeof lotUpdateSchema>;

@@ -52,6 +52,8 @@ export interface LotSummary {
   container: Container;
   plannedDate: string | null;
   market: MarketId;
+  /** The alcoholic strength the label states, % vol; null until the producer enters it. */
+  labelledAlcoholPercentVol: number | null;
   latestStage: AnalysisStage | null;
   /** The one status of the lot, from `lotStatus`; every screen and document shows this. */
   status: LotStatus;

@@ -65,6 +65,7 @@ async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties
       container: l.container,
       plannedDate: l.plannedDate,
       market: l.market as MarketId,
+      labelledAlcoholPercentVol: l.labelledAlcoholPercentVol === null || l.labelledAlcoholPercentVol === undefined ? null : Number(l.labelledAlcoholPercentVol),
       latestStage: (last?.stage as AnalysisStage) ?? null,
       status: lotStatus(mine, ofLot, parameterName),
       decidedDeviations: ofLot.filter((d) => d.decision).map((d) => ({ id: d.id, outcome: d.decision!.outcome })),

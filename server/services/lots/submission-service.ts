@@ -26,7 +26,7 @@ export async function registerLot(orgId: number, user: SessionUser, input: LotIn
     if (await Lot.findOne({ where: { contractId: contract.id, lotCode: input.lotCode }, transaction: t })) {
       throw validationFailed([{ path: "lotCode", message: `Lot ${input.lotCode} is already registered under this contract.` }]);
     }
-    const lot = await Lot.create({ ...input, volumeLitres: String(input.volumeLitres), plannedDate: input.plannedDate ?? null }, { transaction: t });
+    const lot = await Lot.create({ ...input, volumeLitres: String(input.volumeLitres), plannedDate: input.plannedDate ?? null, labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol) }, { transaction: t });
     await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.registered", entityType: "lot", entityId: lot.id, after: input, details: { lotCode: input.lotCode, contractId: contract.id } });
     return { id: lot.id };
   });
@@ -37,8 +37,11 @@ export async function updateLot(orgId: number, lotId: number, user: SessionUser,
     const { lot, contract, side } = await lotFor(orgId, lotId, t);
     if (side !== "producer") throw notFound("The lot");
     assertContractMarket(contract, input.market);
-    const before = { volumeLitres: Number(lot.volumeLitres), container: lot.container, plannedDate: lot.plannedDate, market: lot.market };
-    await lot.update({ volumeLitres: String(input.volumeLitres), container: input.container, plannedDate: input.plannedDate ?? null, market: input.market }, { transaction: t });
+    const before = { volumeLitres: Number(lot.volumeLitres), container: lot.container, plannedDate: lot.plannedDate, market: lot.market, labelledAlcoholPercentVol: lot.labelledAlcoholPercentVol === null ? null : Number(lot.labelledAlcoholPercentVol) };
+    await lot.update(
+      { volumeLitres: String(input.volumeLitres), container: input.container, plannedDate: input.plannedDate ?? null, market: input.market, labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol) },
+      { transaction: t },
+    );
     await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.updated", entityType: "lot", entityId: lot.id, before, after: input, details: { lotCode: lot.lotCode } });
   });
 }

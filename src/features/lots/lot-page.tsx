@@ -7,6 +7,7 @@ import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states
 import { OutcomeBadge } from "./outcome-badge.tsx";
 import { LotStatusBadge } from "./lot-status-badge.tsx";
 import { LotStatusCard } from "./lot-status-card.tsx";
+import { LabelCheckCard } from "./label-check-card.tsx";
 import { CERTIFIABLE } from "../../../shared/lots/lot-status.ts";
 import { VerdictTable } from "./verdict-table.tsx";
 import { ResultEntryForm } from "./result-entry-form.tsx";
@@ -55,6 +56,7 @@ export function LotPage() {
       <div className="flex flex-col gap-6">
         <LegalCaution />
         <LotStatusCard lot={l} />
+        <LabelCheckCard lot={l} />
         <Card title="Specification in force">
           {l.governing ? (
             <p className="text-sm">

@@ -1,0 +1,11 @@
+import { DataTypes, type QueryInterface } from "sequelize";
+import type { MigrationParams } from "umzug";
+
+/** The alcoholic strength the lot's label states, for the label check against the analysis. */
+export async function up({ context: qi }: MigrationParams<QueryInterface>) {
+  await qi.addColumn("lots", "labelled_alcohol_percent_vol", { type: DataTypes.DECIMAL(4, 1), allowNull: true });
+}
+
+export async function down({ context: qi }: MigrationParams<QueryInterface>) {
+  await qi.removeColumn("lots", "labelled_alcohol_percent_vol");
+}
