@@ -7,5 +7,6 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {
-  await qi.removeColumn("lots", "labelled_alcohol_percent_vol");
+  // Sequelize's removeColumn trips over MariaDB's result shape; plain SQL does the same.
+  await qi.sequelize.query("ALTER TABLE lots DROP COLUMN labelled_alcohol_percent_vol");
 }

@@ -38,7 +38,8 @@ rm -f "$REPORT"
 NO_COLOR=1 node node_modules/vitest/vitest.mjs run --reporter=default --reporter=json --outputFile="$REPORT"
 STATUS=$?
 if [ -f "$REPORT" ]; then
-  node -e 'const r=require("./'"$REPORT"'");console.log(`${r.numPassedTests + '"$STATIC_PASSED"'} passed, ${r.numFailedTests + '"$STATIC_FAILED"'} failed`)'
+  # A run that failed without a failing test (a broken global setup, no test files) still counts as one failure.
+  node -e 'const r=require("./'"$REPORT"'");const broken='"$STATUS"'!==0&&r.numFailedTests===0?1:0;console.log(`${r.numPassedTests + '"$STATIC_PASSED"'} passed, ${r.numFailedTests + broken + '"$STATIC_FAILED"'} failed`)'
 else
   echo "$STATIC_PASSED passed, $((STATIC_FAILED + 1)) failed"
   STATUS=1
