@@ -85,7 +85,7 @@ describe("a deviation negotiated to a recorded decision", () => {
     // The trail speaks in words, not action codes.
     for (const action of ["Deviation opened", "Outcome proposed", "Proposal accepted", "Deviation decided"]) await trail.getByText(action, { exact: true }).first().waitFor();
     expect(await trail.getByText("deviation.decided").count()).toBe(0);
-    expect(await trail.getByText("deviation.proposed").count()).toBe(2);
+    expect(await trail.getByText("Outcome proposed", { exact: true }).count()).toBe(2);
     await page.getByRole("button", { name: "Verify the hash chain" }).click();
     await page.getByText(/The chain is intact/).waitFor();
     await screenshot(page, "deviation-trail");

@@ -56,7 +56,7 @@ describe("lots and results: import, certificate, verdicts and trends", () => {
     await page.getByRole("link", { name: "SB-25-E2" }).click();
     const va = page.getByRole("row", { name: "Volatile acidity", exact: true });
     await va.getByText("fail", { exact: true }).waitFor();
-    await va.getByText(/max 0\.6 g\/L as acetic acid \(buyer's spec\)/).waitFor();
+    await va.getByText(/max 0\.60 g\/L as acetic acid \(buyer's spec\)/).waitFor();
     // EU 18 meq/L, shown in the buyer's unit (Oxford Companion: 1 meq = 0.060 g acetic acid → 1.08 g/L).
     await va.getByText(/Law, EU: max 1\.08\d* g\/L as acetic acid \(Commission Delegated Regulation \(EU\) 2019\/934/).waitFor();
     await page.getByRole("row", { name: "Free SO2", exact: true }).getByText("fail", { exact: true }).waitFor();
@@ -66,8 +66,11 @@ describe("lots and results: import, certificate, verdicts and trends", () => {
 
     await page.getByRole("link", { name: "Trends" }).click();
     await page.getByRole("img", { name: /Chart of Volatile acidity/ }).waitFor();
-    await page.locator(".recharts-line").first().waitFor();
-    expect(await page.locator(".recharts-reference-line").count()).toBeGreaterThanOrEqual(1);
+    // In the spec row's unit, with a legend entry for every line, the limit among them (regression).
+    await page.getByRole("heading", { name: "Volatile acidity (g/L as acetic acid)" }).waitFor();
+    const legend = page.locator(".recharts-legend-wrapper");
+    for (const entry of ["Spec max 0.60", "Result", "Outside the spec limits"]) await legend.getByText(entry, { exact: true }).waitFor();
+    expect(await page.locator(".recharts-line").count()).toBeGreaterThanOrEqual(2);
     await page.getByRole("table", { name: "Results" }).waitFor();
     await expectAccessible(page, "trends");
     await screenshot(page, "trends");

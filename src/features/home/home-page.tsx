@@ -3,6 +3,7 @@ import { useShellContext } from "../../app/use-shell-context.ts";
 import { ORGANISATION_KIND_LABELS, ROLE_LABELS, type Role } from "../../../shared/auth/roles.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState } from "../../components/ui/states.tsx";
+import { DueLotsCard } from "./due-lots-card.tsx";
 
 /** What each role does on Cellarpact, in the trade's words. */
 const ROLE_PURPOSE: Record<Role, string> = {
@@ -46,6 +47,7 @@ export function HomePage() {
             {user.isPlatformAdmin ? "As platform admin you can open organisations." : "Ask an organisation admin to invite you."}
           </EmptyState>
         )}
+        {membership && ["buyer_technologist", "producer_quality"].includes(membership.role) && <DueLotsCard orgId={membership.organisationId} />}
         {user.isPlatformAdmin && (
           <Card title="Platform administration">
             <p className="text-sm text-ink-700">Open organisations for new retailers, producers and laboratories, and check the audit chain.</p>

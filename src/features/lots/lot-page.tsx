@@ -5,7 +5,7 @@ import { certificateUrl, lotQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { OutcomeBadge } from "./outcome-badge.tsx";
-import { LotStatusBadge } from "./lot-status-badge.tsx";
+import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
 import { LotStatusCard } from "./lot-status-card.tsx";
 import { LabelCheckCard } from "./label-check-card.tsx";
 import { CERTIFIABLE } from "../../../shared/lots/lot-status.ts";

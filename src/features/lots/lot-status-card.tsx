@@ -3,7 +3,7 @@ import { Link } from "react-router-dom";
 import type { LotDetail } from "../../../shared/lots/views.ts";
 import { CONDITION_LABELS } from "../../../shared/deviations/vocabulary.ts";
 import { Card } from "../../components/ui/page.tsx";
-import { LotStatusBadge } from "./lot-status-badge.tsx";
+import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
 
 export function LotStatusCard({ lot }: { lot: LotDetail }) {
   const s = lot.status;

@@ -11,7 +11,7 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
-import { LotStatusBadge } from "./lot-status-badge.tsx";
+import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
 import { lotSchema, type LotInput } from "../../../shared/lots/schemas.ts";
 import { ANALYSIS_STAGE_LABELS, CONTAINERS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { MARKET_PACKS } from "../../../shared/engine/index.ts";

@@ -4,7 +4,7 @@ import { useShellContext } from "../../app/use-shell-context.ts";
 import { readinessQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
-import { LotStatusBadge } from "./lot-status-badge.tsx";
+import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
 import { DEVIATION_OUTCOME_LABELS } from "../../../shared/deviations/vocabulary.ts";
 import { STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";

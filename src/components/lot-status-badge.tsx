@@ -1,4 +1,4 @@
-import type { LotStatus, LotStatusCode } from "../../../shared/lots/lot-status.ts";
+import type { LotStatus, LotStatusCode } from "../../shared/lots/lot-status.ts";
 
 const TONE: Record<LotStatusCode, string> = {
   awaiting_results: "bg-line/50 text-ink-700",
