@@ -157,8 +157,9 @@ export interface TrendData {
   unit: string;
   /** Decimal places the parameter is shown to in that unit. */
   digits: number;
-  lower: number | null;
-  upper: number | null;
+  /** The governing limits (the stricter of the buyer's and the law's), in `unit`, with where each comes from. */
+  lower: { value: number; source: string } | null;
+  upper: { value: number; source: string } | null;
   points: TrendPoint[];
 }
 

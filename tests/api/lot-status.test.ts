@@ -96,12 +96,13 @@ describe("a lot's market", () => {
 });
 
 describe("trends", () => {
-  it("when a parameter is charted, then it is in the spec row's unit with the row's limits, and every value is rounded to the parameter's precision (regression)", async () => {
+  it("when a parameter is charted, then it is in the spec row's unit with the governing limits, and every value is rounded to the parameter's precision (regression)", async () => {
     const res = await tech.agent.get(B("/contracts/1/trend?parameter=volatile_acidity"));
     expect(res.status).toBe(200);
     const d = res.body as TrendData;
-    // Sentier Blanc's version 1 writes volatile acidity in g/L as acetic acid with a maximum of 0.6 (the still-white template).
-    expect([d.unit, d.upper, d.digits]).toEqual(["g/L as acetic acid", 0.6, 2]);
+    // Sentier Blanc's version 1 writes volatile acidity in g/L as acetic acid with a maximum of 0.6 (the still-white template),
+    // stricter than the EU's 18 meq/L (2019/934 Annex I Part C), so the buyer's limit governs.
+    expect([d.unit, d.upper, d.lower, d.digits]).toEqual(["g/L as acetic acid", { value: expect.closeTo(0.6, 9), source: "buyer" }, null, 2]);
     expect(d.points.length).toBeGreaterThan(3);
     for (const p of d.points.filter((x) => x.value !== null)) {
       expect(p.value!).toBeLessThan(2);
@@ -115,5 +116,25 @@ describe("trends", () => {
     const [lo, hi] = chartDomain([12, 14.9], 11, 13.5);
     expect(lo).toBeLessThan(11);
     expect(hi).toBeGreaterThan(14.9);
+  });
+});
+
+describe("trends with the law governing", () => {
+  it("when the buyer's row is looser than the law, then the trend draws the law's limit and says which market sets it", async () => {
+    const valsorda = await signInAs(t.app, DEMO.valsordaQuality);
+    const V = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
+    const c = await tech.agent.post(B("/contracts")).set("x-csrf-token", tech.csrf).send({ reference: `HG-LAW-${tag}`, producerOrgId: ORG.valsorda, startsOn: "2026-01-01", endsOn: null, wine: { name: "Valsorda Rosso", colour: "red", category: "still", region: "Veneto", markets: ["EU"], nominalSugarGPerL: 2, nominalAlcoholPercentVol: 13 } });
+    const draft = await tech.agent.post(B(`/contracts/${c.body.id}/specs`)).set("x-csrf-token", tech.csrf).send({ from: "blank" });
+    const v = (await tech.agent.get(B(`/specs/${draft.body.id}`))).body;
+    const row = { parameter: "volatile_acidity", unit: "g/L as acetic acid", lower: null, upper: 1.5, target: null, rule: { kind: "simple" }, severity: "major", stages: ["pre_filling"], method: null };
+    expect((await tech.agent.put(B(`/specs/${v.id}`)).set("x-csrf-token", tech.csrf).send({ lockVersion: v.lockVersion, title: "Loose VA", vintageFrom: 2025, vintageTo: null, stages: ["pre_filling"], rows: [row] })).status).toBe(200);
+    expect((await tech.agent.post(B(`/specs/${v.id}/send`)).set("x-csrf-token", tech.csrf)).status).toBe(204);
+    expect((await valsorda.agent.post(V(`/specs/${v.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
+    const lot = await valsorda.agent.post(V("/lots")).set("x-csrf-token", valsorda.csrf).send({ contractId: c.body.id, vintage: 2025, lotCode: `VR-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
+    await valsorda.agent.post(V(`/lots/${lot.body.id}/analyses`)).set("x-csrf-token", valsorda.csrf).send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Valsorda lab", sampleDate: "2026-11-20", results: [{ parameter: "volatile_acidity", raw: "0.62", unit: "g/L as acetic acid", uncertainty: null }] });
+    const d = (await tech.agent.get(B(`/contracts/${c.body.id}/trend?parameter=volatile_acidity`))).body as TrendData;
+    // EU: 20 meq/L for red wine, 18 for white and rosé (Delegated Reg. (EU) 2019/934, Annex I Part C); 20 × 60.05 / 1000 = 1.201 g/L as acetic acid.
+    expect(d.upper).toEqual({ value: expect.closeTo(1.201, 4), source: "law, EU" });
+    expect(d.points.map((p) => p.text)).toEqual(["0.62"]);
   });
 });

@@ -69,7 +69,7 @@ describe("lots and results: import, certificate, verdicts and trends", () => {
     // In the spec row's unit, with a legend entry for every line, the limit among them (regression).
     await page.getByRole("heading", { name: "Volatile acidity (g/L as acetic acid)" }).waitFor();
     const legend = page.locator(".recharts-legend-wrapper");
-    for (const entry of ["Spec max 0.60", "Result", "Outside the spec limits"]) await legend.getByText(entry, { exact: true }).waitFor();
+    for (const entry of ["Max 0.60 (buyer)", "Result", "Outside the limits"]) await legend.getByText(entry, { exact: true }).waitFor();
     expect(await page.locator(".recharts-line").count()).toBeGreaterThanOrEqual(2);
     await page.getByRole("table", { name: "Results" }).waitFor();
     await expectAccessible(page, "trends");

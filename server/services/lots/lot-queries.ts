@@ -1,6 +1,6 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
 import { literal, Op } from "sequelize";
-import { compareTransit, convert, displayDigits, displayValue, findParameter, formatReading, type MarketId, type Outcome, type Reading, type UnitId } from "../../../shared/engine/index.ts";
+import { compareTransit, convert, displayDigits, displayValue, findParameter, formatReading, type GoverningBound, type MarketId, type Outcome, type Reading, type UnitId } from "../../../shared/engine/index.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
 import type { Stage } from "../../../shared/specs/vocabulary.ts";
@@ -16,7 +16,7 @@ import { AuditOrder, AuditOrderLot } from "../../models/audit-order.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { orderReference } from "../../../shared/audits/vocabulary.ts";
 import { governingVersion } from "./governing.ts";
-import { isFailing, transitValues } from "../../../shared/lots/judge.ts";
+import { isFailing, judgeFor, transitValues } from "../../../shared/lots/judge.ts";
 import { lotStatus, type StatusAnalysis } from "../../../shared/lots/lot-status.ts";
 
 const parameterName = (p: string) => findParameter(p)?.name ?? p;
@@ -206,6 +206,9 @@ export async function trend(orgId: number, contractId: number, parameterId: stri
   const governing = latestVintage ? await governingVersion(contract.id, latestVintage) : null;
   const row = governing?.requirements.find((r) => r.parameter === parameterId);
   const unit = (row?.unit ?? p.unit) as UnitId;
+  // The limits drawn are the governing ones, buyer's and law's together, as the judge builds them.
+  const built = row ? judgeFor({ wine: contract.wine, lot: { vintage: latestVintage, market: null }, requirements: [row] }).built.get(parameterId) : undefined;
+  const bound = (b: GoverningBound | undefined) => (b ? { value: convert(b.value, built!.unit, unit), source: b.source.kind === "buyer" ? "buyer" : `law, ${b.source.limit.market}` } : null);
   const points = results
     .map((r) => {
       const lot = lotById.get(r.analysis.lotId)!;
@@ -215,5 +218,5 @@ export async function trend(orgId: number, contractId: number, parameterId: stri
       return { lotId: lot.id, lotCode: lot.lotCode, vintage: lot.vintage, stage: r.analysis.stage, sampleDate: r.analysis.sampleDate, value, text };
     })
     .sort((a, b) => (a.sampleDate < b.sampleDate ? -1 : a.sampleDate > b.sampleDate ? 1 : a.lotCode.localeCompare(b.lotCode)));
-  return { parameter: parameterId, unit, digits: displayDigits(parameterId, unit), lower: row?.lower ?? null, upper: row?.upper ?? null, points };
+  return { parameter: parameterId, unit, digits: displayDigits(parameterId, unit), lower: bound(built?.lower), upper: bound(built?.upper), points };
 }

@@ -49,7 +49,9 @@ export function TrendsPage() {
   );
 }
 
-function TrendView({ data }: { data: TrendData }) {
+function TrendView({ data: trend }: { data: TrendData }) {
+  // The chart works on plain numbers; the limits' sources go into the legend.
+  const data = { ...trend, lower: trend.lower?.value ?? null, upper: trend.upper?.value ?? null };
   const unit = UNITS[data.unit as UnitId]?.label ?? data.unit;
   const show = (x: number | null | undefined) => fixed(x, data.digits);
   // Statistics carry one more decimal than the results they summarise.
@@ -85,7 +87,7 @@ function TrendView({ data }: { data: TrendData }) {
   return (
     <>
       <Card title={`${findParameter(data.parameter)?.name} (${unit})`}>
-        {outCount > 0 && <p className="mb-3 text-sm font-semibold text-alarm-700">{outCount === 1 ? "1 result lies" : `${outCount} results lie`} outside the spec limits (red diamonds).</p>}
+        {outCount > 0 && <p className="mb-3 text-sm font-semibold text-alarm-700">{outCount === 1 ? "1 result lies" : `${outCount} results lie`} outside the governing limits (red diamonds).</p>}
         {stats?.drift && <p className="mb-3 rounded-md bg-ochre-50 px-3 py-2 text-sm font-semibold text-ochre-700" role="status">{stats.drift.message}</p>}
         <div className="h-80" role="img" aria-label={`Chart of ${findParameter(data.parameter)?.name} by lot with spec limits and EWMA`}>
           <ResponsiveContainer width="100%" height="100%">
@@ -96,13 +98,13 @@ function TrendView({ data }: { data: TrendData }) {
               <Tooltip formatter={(v: unknown) => `${show(v as number)} ${unit}`} labelFormatter={(i: unknown) => series[Number(i) - 1]?.label ?? ""} />
               <Legend />
               {/* Limits are drawn as lines rather than reference marks, so each has its own legend entry. */}
-              {data.upper !== null && <Line type="linear" dataKey="specMax" name={`Spec max ${show(data.upper)}`} stroke="#a3261d" strokeDasharray="6 3" dot={false} isAnimationActive={false} />}
-              {data.lower !== null && <Line type="linear" dataKey="specMin" name={`Spec min ${show(data.lower)}`} stroke="#a3261d" strokeDasharray="2 2" dot={false} isAnimationActive={false} />}
+              {data.upper !== null && <Line type="linear" dataKey="specMax" name={`Max ${show(data.upper)} (${trend.upper!.source})`} stroke="#a3261d" strokeDasharray="6 3" dot={false} isAnimationActive={false} />}
+              {data.lower !== null && <Line type="linear" dataKey="specMin" name={`Min ${show(data.lower)} (${trend.lower!.source})`} stroke="#a3261d" strokeDasharray="2 2" dot={false} isAnimationActive={false} />}
               {stats && <Line type="linear" dataKey="ucl" name="EWMA upper control limit" stroke="#7a5200" strokeDasharray="2 4" dot={false} isAnimationActive={false} />}
               {stats && <Line type="linear" dataKey="lcl" name="EWMA lower control limit" stroke="#7a5200" strokeDasharray="1 5" dot={false} isAnimationActive={false} />}
               <Line type="linear" dataKey="value" name="Result" stroke="#5b1f3c" dot={{ r: 3 }} isAnimationActive={false} />
               {stats && <Line type="monotone" dataKey="ewma" name="EWMA (λ = 0.3)" stroke="#7a5200" dot={false} isAnimationActive={false} />}
-              <Scatter dataKey="out" name="Outside the spec limits" fill="#a3261d" shape="diamond" isAnimationActive={false} />
+              <Scatter dataKey="out" name="Outside the limits" fill="#a3261d" shape="diamond" isAnimationActive={false} />
               <Scatter dataKey="flagged" name="Run-rule signal" fill="#1b2230" isAnimationActive={false} />
             </ComposedChart>
           </ResponsiveContainer>
@@ -119,7 +121,7 @@ function TrendView({ data }: { data: TrendData }) {
         )}
         {!stats && <p className="mt-3 text-sm text-ink-500">At least three numeric results are needed for control limits and capability.</p>}
       </Card>
-      <ResultsTable data={data} unit={unit} />
+      <ResultsTable data={trend} unit={unit} />
     </>
   );
 }
