@@ -46,6 +46,8 @@ export class Analysis extends Model<InferAttributes<Analysis>, InferCreationAttr
   declare submittedBy: number | null;
   /** Set when an independent laboratory submitted this analysis for a paid audit. */
   declare auditOrderId: CreationOptional<number | null>;
+  /** Set on a re-judgement: the analysis whose results it judges again against a later version. */
+  declare rejudgedFromId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -61,6 +63,7 @@ export class Analysis extends Model<InferAttributes<Analysis>, InferCreationAttr
         specVersionId: { type: DataTypes.INTEGER, allowNull: true },
         submittedBy: { type: DataTypes.INTEGER, allowNull: true },
         auditOrderId: { type: DataTypes.INTEGER, allowNull: true },
+        rejudgedFromId: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

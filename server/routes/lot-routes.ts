@@ -11,6 +11,7 @@ import * as queries from "../services/lots/lot-queries.ts";
 import { readCertificate, storeCertificate } from "../services/lots/certificate-service.ts";
 import { badRequest } from "../http/problem.ts";
 import { lotDocument } from "../services/lots/conformity-service.ts";
+import { rejudgeAnalysis } from "../services/lots/rejudge-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const PRODUCER = orgMember("producer_quality");
@@ -40,6 +41,20 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   r.add(
     { method: "post", path: "/api/orgs/:orgId/lots/:lotId/analyses", tag: "lots", summary: "Submit one analysis; evaluated and stored at once (idempotent by key)", access: PRODUCER, params: orgParams.extend({ lotId: idParam }), body: analysisSubmissionSchema, status: 201, errors: { 409: "idempotency key reused with another body" } },
     async ({ params, user, body, res }) => idempotentAnswer(res, await submissions.submitAnalysis(params.orgId, params.lotId, user, body)),
+  );
+
+  r.add(
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/lots/:lotId/analyses/:analysisId/rejudge",
+      tag: "lots",
+      summary: "Judge an analysis again against the spec version now in force (a new, recorded analysis; the first stays as it was)",
+      access: orgMember("buyer_technologist", "producer_quality"),
+      params: orgParams.extend({ lotId: idParam, analysisId: idParam }),
+      status: 201,
+      errors: { 409: "no later version governs, or already re-judged" },
+    },
+    ({ params, user }) => rejudgeAnalysis(params.orgId, params.lotId, params.analysisId, user),
   );
 
   r.add(

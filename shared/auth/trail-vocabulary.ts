@@ -35,6 +35,7 @@ export const ACTION_LABELS = {
   "lot.updated": "Lot corrected",
   "analysis.submitted": "Analysis submitted",
   "analysis.imported": "Analyses imported",
+  "analysis.rejudged": "Analysis re-judged against the version in force",
   "certificate.uploaded": "Certificate attached",
   "deviation.opened": "Deviation opened",
   "deviation.commented": "Deviation comment",
@@ -92,6 +93,10 @@ export const FIELD_LABELS: Record<string, string> = {
   kind: "Kind",
   summary: "Summary",
   items: "Prices",
+  rejudged: "Re-judged analysis",
+  analysis: "New analysis",
+  fromVersion: "First judged against version id",
+  version: "Now judged against version",
 };
 
 /** "Amount: €45.00 · Lot: SB-25-11"; money fields in cents are shown as money. */

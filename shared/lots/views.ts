@@ -86,6 +86,8 @@ export interface AnalysisView {
   accreditation: string | null;
   /** Set when an independent laboratory reported this analysis for a paid audit. */
   auditOrderId: number | null;
+  /** Set on a re-judgement: the analysis whose results it judges again. */
+  rejudgedFromId: number | null;
   sampleDate: string;
   createdAt: string;
   results: ResultView[];

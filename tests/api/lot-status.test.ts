@@ -138,3 +138,49 @@ describe("trends with the law governing", () => {
     expect(d.points.map((p) => p.text)).toEqual(["0.62"]);
   });
 });
+
+describe("a later version and a recorded re-judgement", () => {
+  it("when a stricter version is agreed, then nothing is re-judged silently; a re-judgement is a new recorded analysis and the first verdict stays reproducible", async () => {
+    const valsorda = await signInAs(t.app, DEMO.valsordaQuality);
+    const V = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
+    const c = await tech.agent.post(B("/contracts")).set("x-csrf-token", tech.csrf).send({ reference: `HG-RJ-${tag}`, producerOrgId: ORG.valsorda, startsOn: "2026-01-01", endsOn: null, wine: { name: "Valsorda Bianco", colour: "white", category: "still", region: "Veneto", markets: ["EU"], nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12 } });
+    const agreeVersion = async (from: object, upper: number) => {
+      const draft = await tech.agent.post(B(`/contracts/${c.body.id}/specs`)).set("x-csrf-token", tech.csrf).send(from);
+      const v = (await tech.agent.get(B(`/specs/${draft.body.id}`))).body;
+      const row = { parameter: "volatile_acidity", unit: "g/L as acetic acid", lower: null, upper, target: null, rule: { kind: "simple" }, severity: "major", stages: ["pre_filling"], method: null };
+      expect((await tech.agent.put(B(`/specs/${v.id}`)).set("x-csrf-token", tech.csrf).send({ lockVersion: v.lockVersion, title: `VA ≤ ${upper}`, vintageFrom: 2025, vintageTo: null, stages: ["pre_filling"], rows: [row] })).status).toBe(200);
+      expect((await tech.agent.post(B(`/specs/${v.id}/send`)).set("x-csrf-token", tech.csrf)).status).toBe(204);
+      expect((await valsorda.agent.post(V(`/specs/${v.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
+      return v;
+    };
+    const v1 = await agreeVersion({ from: "blank" }, 0.9);
+    const lot = await valsorda.agent.post(V("/lots")).set("x-csrf-token", valsorda.csrf).send({ contractId: c.body.id, vintage: 2025, lotCode: `VB-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
+    await valsorda.agent.post(V(`/lots/${lot.body.id}/analyses`)).set("x-csrf-token", valsorda.csrf).send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Valsorda lab", sampleDate: "2026-11-20", results: [{ parameter: "volatile_acidity", raw: "0.70", unit: "g/L as acetic acid", uncertainty: null }] });
+    const first = (await tech.agent.get(B(`/lots/${lot.body.id}`))).body as LotDetail;
+    expect(first.status.label).toBe("Conforms");
+    const v2 = await agreeVersion({ from: "version", versionId: v1.id }, 0.6);
+
+    const before = (await tech.agent.get(B(`/lots/${lot.body.id}`))).body as LotDetail;
+    expect(before.governing!.id).toBe(v2.id);
+    // Not re-judged silently: the analysis still speaks, judged against version 1.
+    expect(before.status.label).toBe("Conforms");
+    expect(before.analyses[0]!.evaluation!.specVersion).toEqual({ id: v1.id, number: v1.number });
+
+    const re = await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf);
+    expect(re.status).toBe(201);
+    expect(re.body.failing).toEqual(["volatile_acidity"]);
+    const after = (await tech.agent.get(B(`/lots/${lot.body.id}`))).body as LotDetail;
+    expect(after.status.label).toBe("Does not conform");
+    expect(after.analyses).toHaveLength(2);
+    // The first verdict is kept exactly as stored.
+    expect(after.analyses[0]!.evaluation).toEqual(before.analyses[0]!.evaluation);
+    expect(after.analyses[1]).toMatchObject({ rejudgedFromId: before.analyses[0]!.id, evaluation: { specVersion: { id: v2.id, number: v2.number }, worstOutcome: "fail" } });
+    expect(after.deviations).toHaveLength(1);
+    expect((await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status).toBe(409);
+    expect((await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${after.analyses[1]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status).toBe(409);
+    const trail = (await tech.agent.get(B(`/history/lot/${lot.body.id}`))).body as { action: string }[];
+    expect(trail.map((e) => e.action)).toContain("analysis.rejudged");
+    // Another organisation cannot re-judge.
+    expect((await producer.agent.post(P(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", producer.csrf)).status).toBe(404);
+  });
+});

@@ -91,6 +91,7 @@ function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>): A
     laboratoryName: a.laboratoryName,
     accreditation: a.accreditation,
     auditOrderId: a.auditOrderId ?? null,
+    rejudgedFromId: a.rejudgedFromId ?? null,
     sampleDate: a.sampleDate,
     createdAt: a.createdAt.toISOString(),
     results: a.results.map((r) => ({ parameter: r.parameter, rawText: r.rawText, reading: r.reading, unit: r.unit, uncertainty: r.uncertainty, method: r.method })),

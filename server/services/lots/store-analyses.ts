@@ -25,6 +25,8 @@ export interface AnalysisHeader {
   auditOrderId?: number | null;
   /** The organisation acting, for the audit log; the producer unless a laboratory submits. */
   actingOrgId?: number;
+  /** Set when the results are those of an earlier analysis, judged again against the version now in force. */
+  rejudgedFromId?: number | null;
 }
 
 export interface SampleToStore {
@@ -61,6 +63,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
       specVersionId: governingCache.get(s.lot.vintage)?.version.id ?? null,
       submittedBy: userId,
       auditOrderId: header.auditOrderId ?? null,
+      rejudgedFromId: header.rejudgedFromId ?? null,
     })),
     { transaction: t },
   );

@@ -55,7 +55,7 @@ export function LotPage() {
       />
       <div className="flex flex-col gap-6">
         <LegalCaution />
-        <LotStatusCard lot={l} />
+        <LotStatusCard orgId={orgId} lot={l} canRejudge={["buyer_technologist", "producer_quality"].includes(membership?.role ?? "")} />
         <LabelCheckCard lot={l} />
         <Card title="Specification in force">
           {l.governing ? (
@@ -112,7 +112,7 @@ export function LotPage() {
         )}
         {l.analyses.length === 0 && <EmptyState title="No analysis yet.">{l.canSubmit ? "Enter results below or import a CSV from the contract page." : "The producer has not submitted results yet."}</EmptyState>}
         {[...l.analyses].reverse().map((a) => (
-          <Card key={a.id} title={`${ANALYSIS_STAGE_LABELS[a.stage]}${a.auditOrderId ? " · independent audit" : ""} · sampled ${a.sampleDate}`}>
+          <Card key={a.id} title={`${ANALYSIS_STAGE_LABELS[a.stage]}${a.auditOrderId ? " · independent audit" : ""}${a.rejudgedFromId ? " · re-judged" : ""} · sampled ${a.sampleDate}`}>
             <p className="mb-3 text-sm text-ink-700">
               {a.laboratoryName}
               {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · submitted {new Date(a.createdAt).toLocaleString("en-GB")}

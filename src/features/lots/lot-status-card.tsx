@@ -4,9 +4,16 @@ import type { LotDetail } from "../../../shared/lots/views.ts";
 import { CONDITION_LABELS } from "../../../shared/deviations/vocabulary.ts";
 import { Card } from "../../components/ui/page.tsx";
 import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
+import { ConfirmButton } from "../../components/ui/confirm-dialog.tsx";
+import { Notice } from "../../components/ui/states.tsx";
+import { errorMessage } from "../../lib/api-client.ts";
+import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
+import { countsText } from "../../../shared/lots/judge.ts";
+import { useRejudge } from "./api/lots.ts";
 
-export function LotStatusCard({ lot }: { lot: LotDetail }) {
+export function LotStatusCard({ orgId, lot, canRejudge }: { orgId: number; lot: LotDetail; canRejudge: boolean }) {
   const s = lot.status;
+  const rejudge = useRejudge(orgId, lot.id);
   const stale = lot.governing ? lot.analyses.filter((a) => s.analysisIds.includes(a.id) && a.evaluation?.specVersion && a.evaluation.specVersion.id !== lot.governing!.id) : [];
   return (
     <Card title="Status">
@@ -27,11 +34,31 @@ export function LotStatusCard({ lot }: { lot: LotDetail }) {
           </div>
         )}
         {s.rejection && <Link to={`/deviations/${s.rejection.deviationId}`} className="font-semibold text-alarm-700 underline">The decision on deviation #{s.rejection.deviationId}</Link>}
+        {rejudge.isError && <Notice tone="error">{errorMessage(rejudge.error)}</Notice>}
+        {rejudge.isSuccess && <Notice tone="success">Re-judged and recorded: {countsText(rejudge.data.counts)}.</Notice>}
         {s.openDeviations > 0 && <p className="text-alarm-700">{s.openDeviations === 1 ? "1 deviation is still open." : `${s.openDeviations} deviations are still open.`}</p>}
         {stale.map((a) => (
-          <p key={a.id} className="rounded-md border border-ochre-700/40 bg-ochre-50 px-3 py-2 text-ochre-700">
-            The {a.stage.replace("_", "-")} analysis of {a.sampleDate} was judged against version {a.evaluation!.specVersion!.number}; version {lot.governing!.number} now governs this vintage. Its verdict stands as judged until someone re-judges it.
-          </p>
+          <div key={a.id} className="flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 px-3 py-2 text-ochre-700">
+            <p>
+              The {ANALYSIS_STAGE_LABELS[a.stage].toLowerCase()} analysis of {a.sampleDate} was judged against version {a.evaluation!.specVersion!.number}; version {lot.governing!.number} now governs this vintage. Its verdict stands as judged until someone re-judges it.
+            </p>
+            {canRejudge && (
+              <div>
+                <ConfirmButton
+                  variant="secondary"
+                  disabled={rejudge.isPending}
+                  request={{
+                    title: `Re-judge against version ${lot.governing!.number}?`,
+                    consequence: `The results of ${a.sampleDate} are judged again against version ${lot.governing!.number} as a new, recorded analysis, which then speaks for the lot. The first verdict, against version ${a.evaluation!.specVersion!.number}, stays as it was; a failing result opens a deviation.`,
+                    confirmLabel: "Re-judge",
+                    onConfirm: () => rejudge.mutate(a.id),
+                  }}
+                >
+                  Re-judge against version {lot.governing!.number}
+                </ConfirmButton>
+              </div>
+            )}
+          </div>
         ))}
       </div>
     </Card>

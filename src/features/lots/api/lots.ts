@@ -50,3 +50,9 @@ export const importBatch = (orgId: number, contractId: number, batch: ImportBatc
   api<ImportResult>(`${base(orgId)}/contracts/${contractId}/imports`, { method: "POST", body: batch });
 
 export const uploadCertificate = (orgId: number, analysisId: number, file: File) => uploadFile<{ id: number; sha256: string }>(`${base(orgId)}/analyses/${analysisId}/certificates`, file);
+
+/** Judge an analysis again against the version now in force; recorded as a new analysis. */
+export function useRejudge(orgId: number, lotId: number) {
+  const invalidate = useInvalidateLots(orgId);
+  return useMutation({ mutationFn: (analysisId: number) => api<SubmissionResult>(`${base(orgId)}/lots/${lotId}/analyses/${analysisId}/rejudge`, { method: "POST" }), onSuccess: invalidate });
+}

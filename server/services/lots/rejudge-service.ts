@@ -1,0 +1,45 @@
+/**
+ * A recorded re-judgement: when a later spec version governs a lot, someone on either side may
+ * have an analysis judged again against it. The results are copied into a new analysis that names
+ * the one it re-judges; the first analysis and its stored evaluation stay exactly as they were,
+ * so the first verdict remains reproducible. Nothing is ever re-judged without this request.
+ */
+import { inTransaction } from "../../db/database.ts";
+import { Analysis, AnalysisResult } from "../../models/lot.ts";
+import { AnalysisEvaluation } from "../../models/evaluation.ts";
+import { conflict, notFound } from "../../http/problem.ts";
+import { recordAudit } from "../audit-service.ts";
+import { lotFor } from "./lot-access.ts";
+import { governingVersion } from "./governing.ts";
+import { storeAnalyses } from "./store-analyses.ts";
+import type { SubmissionResult } from "../../../shared/lots/views.ts";
+import type { ReportedUncertainty, UnitId } from "../../../shared/engine/index.ts";
+import type { SessionUser } from "../session-service.ts";
+
+export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: number, user: SessionUser): Promise<SubmissionResult> {
+  return inTransaction(async (t) => {
+    const { lot, contract } = await lotFor(orgId, lotId, t);
+    const analysis = (await Analysis.findOne({ where: { id: analysisId, lotId }, include: [{ model: AnalysisResult, as: "results" }, { model: AnalysisEvaluation, as: "evaluation" }], transaction: t })) as
+      | (Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null })
+      | null;
+    if (!analysis || analysis.auditOrderId !== null) throw notFound("The analysis");
+    const governing = await governingVersion(contract.id, lot.vintage, t);
+    if (!governing) throw conflict(`No agreed specification covers vintage ${lot.vintage}, so there is nothing to judge against.`);
+    if (analysis.evaluation?.specVersionId === governing.version.id) throw conflict(`This analysis was already judged against version ${governing.version.number}, the version in force.`);
+    if (await Analysis.count({ where: { rejudgedFromId: analysis.id }, transaction: t })) throw conflict("This analysis has already been re-judged; see the re-judgement on the lot.");
+    const results = analysis.results.map((r) => ({ parameter: r.parameter, raw: r.rawText, unit: r.unit as UnitId, uncertainty: (r.uncertainty as ReportedUncertainty | null) ?? null, method: r.method }));
+    const stored = await storeAnalyses(t, contract, user.id, { stage: analysis.stage, laboratoryName: analysis.laboratoryName, accreditation: analysis.accreditation, actingOrgId: orgId, rejudgedFromId: analysis.id }, [
+      { lot, sampleDate: analysis.sampleDate, results },
+    ]);
+    const id = stored.analysisIds[0]!;
+    await recordAudit(t, {
+      actorUserId: user.id,
+      organisationId: orgId,
+      action: "analysis.rejudged",
+      entityType: "lot",
+      entityId: lot.id,
+      details: { lotCode: lot.lotCode, rejudged: analysis.id, analysis: id, fromVersion: analysis.evaluation?.specVersionId ?? null, version: governing.version.number, failing: stored.failing[0]?.parameters ?? [] },
+    });
+    return { analysisId: id, counts: stored.samples[0]!.counts, failing: stored.failing[0]?.parameters ?? [], deviationIds: stored.deviationIds };
+  });
+}
