@@ -3,13 +3,9 @@
  * engine judges them, deviations open with their trail entries, and both parties are notified.
  */
 import type { QueryInterface } from "sequelize";
-import { useDatabase } from "../../server/db/database.ts";
-import { loadConfig } from "../../server/config.ts";
-import { settingsFrom, useServiceSettings } from "../../server/services/settings.ts";
-import { User } from "../../server/models/user.ts";
 import { Lot } from "../../server/models/lot.ts";
 import { submitAnalysis } from "../../server/services/lots/submission-service.ts";
-import { toSessionUser } from "../../server/services/session-service.ts";
+import { demoMember, useDemoServices } from "./demo-services.ts";
 import type { AnalysisStage } from "../../shared/lots/vocabulary.ts";
 import { analysisSubmissionSchema } from "../../shared/lots/schemas.ts";
 
@@ -26,11 +22,9 @@ export interface DemoAnalysis {
 }
 
 export async function submitDemoAnalyses(qi: QueryInterface, analyses: DemoAnalysis[]): Promise<void> {
-  useDatabase(qi.sequelize);
-  useServiceSettings(settingsFrom(loadConfig()));
+  useDemoServices(qi);
   for (const a of analyses) {
-    const user = await toSessionUser((await User.findOne({ where: { email: a.by } }))!);
-    const orgId = user.memberships.find((m) => m.role === "producer_quality")!.organisationId;
+    const { user, orgId } = await demoMember(a.by, "producer_quality");
     const lot = (await Lot.findOne({ where: { contractId: a.contractId, lotCode: a.lotCode } }))!;
     await submitAnalysis(orgId, lot.id, user, analysisSubmissionSchema.parse({
       idempotencyKey: `demo-${a.contractId}-${a.lotCode}-${a.stage}-${a.sampleDate}`,
