@@ -99,7 +99,8 @@ const LOTS: LotSeed[] = [
   ...[0.58, 0.61, 0.63, 0.52].map((va, i) => ({ contract: 2, vintage: 2024, code: `SR-24-${i + 1}`, litres: 9000, container: "bottles" as const, date: `2025-0${i + 3}-15`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `2025-0${i + 3}-03`, results: redResults(va) }] })),
   ...[2023, 2023, 2024, 2024, 2024].map((vintage, i) => ({ contract: 1, vintage, code: `SB-${vintage % 100}-${i + 1}`, litres: 12000, container: "bottles" as const, date: `${vintage + 1}-0${(i % 5) + 2}-20`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `${vintage + 1}-0${(i % 5) + 2}-05`, results: whiteResults() }] })),
   ...[1, 2].map((n) => {
-    const before = redResults(around(0.5, 0.08, 2));
+    // The bulk spec also asks, at both stages, for dissolved oxygen, 4-ethylphenol and a sterility count.
+    const before: ResultSpec[] = [...redResults(around(0.5, 0.08, 2)), ["dissolved_oxygen", "mg/L", around(0.8, 0.3, 2)], ["ethylphenol_4", "µg/L", around(120, 60, 0)], ["sterility_count", "CFU/100 mL", 0]];
     const after = before.map(([p, u, v]): ResultSpec => [p, u, p === "free_so2" ? v - (n === 1 ? 6 : 14) : p === "volatile_acidity" ? Number((v + 0.03).toFixed(2)) : v]);
     return {
       contract: 3,

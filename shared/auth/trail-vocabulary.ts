@@ -5,8 +5,10 @@
  */
 import { formatMoney } from "../audits/vocabulary.ts";
 import { findParameter } from "../engine/index.ts";
+import { ANALYSIS_STAGE_LABELS, type AnalysisStage } from "../lots/vocabulary.ts";
 
 const PARAMETER_FIELDS = new Set(["failing", "parameters"]);
+const ID_LIST_FIELDS = new Set(["deviations", "deviationIds"]);
 
 export const ACTION_LABELS = {
   "auth.sign_in": "Signed in",
@@ -107,8 +109,17 @@ export function detailsText(details: Record<string, unknown> | null | undefined)
     .filter(([k, v]) => v !== null && v !== undefined && k !== "currency")
     .map(([k, v]) => {
       const label = FIELD_LABELS[k] ?? k.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/_/g, " ").replace(/^./, (c) => c.toUpperCase());
-      const list = (xs: unknown[]) => xs.map((x) => (PARAMETER_FIELDS.has(k) && typeof x === "string" ? (findParameter(x)?.name ?? x) : String(x))).join(", ") || "none";
-      const value = k.endsWith("Cents") && typeof v === "number" ? formatMoney(v, currency) : Array.isArray(v) ? list(v) : typeof v === "object" ? JSON.stringify(v) : String(v);
+      const list = (xs: unknown[]) => xs.map((x) => (PARAMETER_FIELDS.has(k) && typeof x === "string" ? (findParameter(x)?.name ?? x) : ID_LIST_FIELDS.has(k) ? `#${x}` : String(x))).join(", ") || "none";
+      const value =
+        k.endsWith("Cents") && typeof v === "number"
+          ? formatMoney(v, currency)
+          : k === "stage" && typeof v === "string" && v in ANALYSIS_STAGE_LABELS
+            ? ANALYSIS_STAGE_LABELS[v as AnalysisStage]
+            : Array.isArray(v)
+              ? list(v)
+              : typeof v === "object"
+                ? JSON.stringify(v)
+                : String(v);
       return `${label}: ${value}`;
     })
     .join(" · ");

@@ -3,6 +3,7 @@
  * has an allowed drift in the direction transit harms it; a spec can replace any default.
  */
 import type { ParameterId } from "./parameters.ts";
+import { displayValue } from "./display.ts";
 import { parameter } from "./parameters.ts";
 
 export interface DriftAllowance {
@@ -77,10 +78,9 @@ export function compareTransit(
       allowance,
       exceeded,
       significance: combined && combined > 0 ? Math.abs(change) / combined : null,
-      message: `${p.name} ${change >= 0 ? "rose" : "fell"} by ${Math.abs(round(change))} ${p.unit} in transit; allowed ${allowance.direction === "either" ? "±" : allowance.direction === "increase" ? "+" : "−"}${allowance.allowed} ${p.unit}${exceeded ? ": exceeded" : ""}.`,
+      message: `${p.name} ${change >= 0 ? "rose" : "fell"} by ${displayValue(id, Math.abs(change), p.unit)} ${p.unit} in transit; allowed ${allowance.direction === "either" ? "±" : allowance.direction === "increase" ? "+" : "−"}${displayValue(id, allowance.allowed, p.unit)} ${p.unit}${exceeded ? ": exceeded" : ""}.`,
     });
   }
   return findings;
 }
 
-const round = (x: number) => Math.round(x * 1000) / 1000;

@@ -6,7 +6,7 @@ import { Op, type QueryInterface, type Transaction } from "sequelize";
 import { database } from "../../db/database.ts";
 import { compareTransit, findParameter } from "../../../shared/engine/index.ts";
 import { judgeAnalysis, judgeFor, readResult, transitValues, type Judge, type OutcomeCounts, type ReadResult } from "../../../shared/lots/judge.ts";
-import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
+import { ANALYSIS_STAGE_LABELS, isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { ResultEntry } from "../../../shared/lots/schemas.ts";
 import { Analysis, AnalysisResult, type Lot } from "../../models/lot.ts";
 import { openDeviations, type NewDeviation } from "../deviations/open-deviations.ts";
@@ -123,7 +123,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     analysisId: f.analysisId,
     kind: "result" as const,
     parameters: f.parameters,
-    summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification at ${header.stage.replace("_", " ")}${header.auditOrderId ? ", by the independent laboratory" : ""}.`,
+    summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification in the ${ANALYSIS_STAGE_LABELS[header.stage].toLowerCase()} analysis${header.auditOrderId ? ", by the independent laboratory" : ""}.`,
     auditOrderId: header.auditOrderId ?? null,
   }));
   if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analyses, read)));

@@ -17,7 +17,7 @@ import { HistoryPanel } from "../audit/history-panel.tsx";
 import { OpenDeviationForm } from "../deviations/open-deviation-form.tsx";
 import { LotEditForm } from "./lot-edit-form.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
-import { findParameter } from "../../../shared/engine/index.ts";
+import { displayValue, findParameter, unitLabel } from "../../../shared/engine/index.ts";
 import { ComparisonTable } from "../audits/comparison-table.tsx";
 import { conformityUrl } from "../audits/api/audits.ts";
 import { DEVIATION_KIND_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
@@ -96,16 +96,21 @@ export function LotPage() {
                 <tr>{["Parameter", "Pre-shipment", "On arrival", "Change", "Allowed", ""].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
               </thead>
               <tbody>
-                {l.transit.map((f) => (
-                  <tr key={f.parameter} className="border-b border-line/60">
-                    <td className="py-2 pr-3 font-semibold">{f.name}</td>
-                    <td className="py-2 pr-3 tabular-nums">{f.before}</td>
-                    <td className="py-2 pr-3 tabular-nums">{f.after}</td>
-                    <td className="py-2 pr-3 tabular-nums">{f.change > 0 ? "+" : ""}{Number(f.change.toPrecision(4))}</td>
-                    <td className="py-2 pr-3 text-xs">{f.allowance.direction === "either" ? "±" : f.allowance.direction === "increase" ? "+" : "−"}{f.allowance.allowed} <span className="block text-ink-500">{f.allowance.basis}</span></td>
-                    <td className="py-2 pr-3">{f.exceeded ? <OutcomeBadge outcome="fail" /> : <OutcomeBadge outcome="pass" />}</td>
-                  </tr>
-                ))}
+                {l.transit.map((f) => {
+                  // Transit values are in the parameter's canonical unit; shown rounded, with the unit.
+                  const unit = findParameter(f.parameter)!.unit;
+                  const show = (x: number) => `${displayValue(f.parameter, x, unit)} ${unitLabel(unit)}`;
+                  return (
+                    <tr key={f.parameter} className="border-b border-line/60">
+                      <td className="py-2 pr-3 font-semibold">{f.name}</td>
+                      <td className="py-2 pr-3 tabular-nums">{show(f.before)}</td>
+                      <td className="py-2 pr-3 tabular-nums">{show(f.after)}</td>
+                      <td className="py-2 pr-3 tabular-nums">{f.change > 0 ? "+" : ""}{show(f.change)}</td>
+                      <td className="py-2 pr-3 text-xs">{f.allowance.direction === "either" ? "±" : f.allowance.direction === "increase" ? "+" : "−"}{show(f.allowance.allowed)} <span className="block text-ink-500">{f.allowance.basis}</span></td>
+                      <td className="py-2 pr-3">{f.exceeded ? <OutcomeBadge outcome="fail" /> : <OutcomeBadge outcome="pass" />}</td>
+                    </tr>
+                  );
+                })}
               </tbody>
             </table>
           </Card>
