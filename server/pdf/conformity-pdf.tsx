@@ -212,6 +212,10 @@ function LotDocument({ d }: { d: LotDocumentData }) {
           Valid for the lot named above and the samples analysed, on the results listed, as they stood on the date of issue. A later analysis, a later spec version or a decision on a deviation
           may change the lot's status; the status shown in Cellarpact is the current one.
         </Text>
+        <Text style={[s.small, { marginTop: 8 }]}>
+          Laid out after ISO/IEC 17050-1:2004 (corrected version 2007-06-15), clause 6.1, on what a declaration of conformity contains: its identification, the issuer, the object, the statement,
+          the requirements referred to, the date of issue, who issued it, and the limitations on its validity.
+        </Text>
         <PageFooter label={`${d.number} · issued ${stamp(d.issuedAt)}`} />
       </Page>
     </Document>

@@ -16,6 +16,8 @@ export interface DeviationSummaryView {
   producerName: string;
   respondBy: string | null;
   overdue: boolean;
+  /** The buyer's decided outcome, once decided. */
+  outcome: DeviationDecision["outcome"] | null;
   createdAt: string;
   updatedAt: string;
 }

@@ -51,7 +51,7 @@ describe("one status per lot", () => {
   it("when the lot conforms or was conceded, then its document is a certificate of conformity that names the concession and its conditions", async () => {
     const good = await getPdf(tech.agent, B(`/lots/${lots.good.id}/conformity.pdf`));
     expect(good.status).toBe(200);
-    for (const needle of ["Certificate of conformity", "Status: Conforms", "Identification", "Object", "Requirements referred to", "Limitations", "Issued on", "Tessa Marlow", "judged against spec version 1"]) expect(good.text).toContain(needle);
+    for (const needle of ["Certificate of conformity", "Status: Conforms", "Identification", "Object", "Requirements referred to", "Limitations", "Issued on", "Tessa Marlow", "judged against spec version 1", "Laid out after ISO/IEC 17050-1:2004"]) expect(good.text).toContain(needle);
     const conceded = await getPdf(tech.agent, B(`/lots/${lots.conceded.id}/conformity.pdf`));
     for (const needle of ["Certificate of conformity", "Status: Accepted under concession", "Concession: deviation #", "Sound on tasting; VA stable over four weeks.", "Condition, price adjustment: 4 % off the invoice for this lot"]) {
       expect(conceded.text).toContain(needle);

@@ -65,6 +65,7 @@ function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationS
     producerName: c.producer.name,
     respondBy: d.respondBy ? d.respondBy.toISOString() : null,
     overdue: isOverdue(d),
+    outcome: d.decision?.outcome ?? null,
     createdAt: d.createdAt.toISOString(),
     updatedAt: d.updatedAt.toISOString(),
   };

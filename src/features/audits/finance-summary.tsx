@@ -23,6 +23,11 @@ function SpendTable({ caption, head, rows, currency }: { caption: string; head: 
         <tr>{[head, "Paid orders", "Paid", "Refunded", "Net"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
       </thead>
       <tbody>
+        {rows.length === 0 && (
+          <tr>
+            <td colSpan={5} className="py-2 text-ink-500">No paid order in this period.</td>
+          </tr>
+        )}
         {rows.map((r) => (
           <tr key={r.key} className="border-b border-line/60">
             <th scope="row" className="py-1 pr-3 font-normal">{r.key}</th>

@@ -6,7 +6,7 @@ import { deviationsQuery } from "./api/deviations.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
-import { DEVIATION_KIND_LABELS, DEVIATION_STATUSES, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
+import { DEVIATION_KIND_LABELS, DEVIATION_STATUSES, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
 export function DeviationsPage() {
@@ -38,9 +38,13 @@ export function DeviationsPage() {
                   <td className="py-2 pr-3">{d.lotCode}<span className="block text-xs text-ink-500">{d.vintage}</span></td>
                   <td className="py-2 pr-3">{d.wineName}<span className="block text-xs text-ink-500">{d.producerName}</span></td>
                   <td className="py-2 pr-3">{d.parameters.map((p) => findParameter(p)?.name ?? p).join(", ") || "—"}<span className="block text-xs text-ink-500">{DEVIATION_KIND_LABELS[d.kind]}</span></td>
-                  <td className="py-2 pr-3">{DEVIATION_STATUS_LABELS[d.status]}</td>
+                  <td className="py-2 pr-3">
+                    {DEVIATION_STATUS_LABELS[d.status]}
+                    {d.outcome && <span className="block text-xs text-ink-500">{DEVIATION_OUTCOME_LABELS[d.outcome]}</span>}
+                  </td>
                   <td className="py-2 pr-3 tabular-nums">
-                    {d.respondBy ? d.respondBy.slice(0, 10) : "—"}
+                    {/* A decided deviation waits for nobody's answer. */}
+                    {d.respondBy && !d.outcome ? d.respondBy.slice(0, 10) : "—"}
                     {d.overdue && <span className="ml-2 rounded-full bg-alarm-50 px-2 text-xs font-semibold text-alarm-700">overdue</span>}
                   </td>
                 </tr>
