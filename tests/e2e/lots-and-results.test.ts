@@ -34,6 +34,26 @@ describe("lots and results: import, certificate, verdicts and trends", () => {
     await screenshot(page, "import-done");
   });
 
+  it("when a French lab file has a value far outside what wine can be, then the preview holds it back until the producer confirms it", async () => {
+    const { page } = s;
+    await nav("Specifications");
+    await page.getByRole("link", { name: "Sentier Blanc" }).first().click();
+    await page.getByRole("link", { name: "Import results (CSV)" }).click();
+    await page.getByLabel("CSV file").setInputFiles(path.resolve(import.meta.dirname, "../fixtures/laboratoire-francais.csv"));
+    await page.getByText("3 samples", { exact: true }).waitFor();
+    await page.getByLabel("Laboratory").fill("Laboratoire Vauclair");
+    // Units come from the French headers: volatile acidity stays in g/L as sulfuric acid.
+    expect(await page.getByLabel("Unit of column Acidité volatile (g/L H2SO4)").inputValue()).toBe("g/L as sulfuric acid");
+    await page.getByText(/1 value looks implausible/).waitFor();
+    await page.getByText(/Row 3, TAV \(% vol\): Implausible: check the unit/).waitFor();
+    const send = page.getByRole("button", { name: "Import 3 samples" });
+    expect(await send.isDisabled()).toBe(true);
+    await page.getByLabel(/I have checked these values and their units/).check();
+    expect(await send.isEnabled()).toBe(true);
+    await expectAccessible(page, "import with an implausible value");
+    await screenshot(page, "import-implausible");
+  });
+
   it("when the producer opens the failing lot and attaches the certificate, then the certificate is listed with its hash", async () => {
     const { page } = s;
     await nav("Lots");
