@@ -15,8 +15,11 @@ export const ENGINE_VERSION = "1.1.0";
 export type Outcome = Statement | "missing" | "not required" | "inconclusive";
 
 export interface ReportedUncertainty {
-  /** Expanded uncertainty U with coverage factor k (k = 2 when the lab does not say), or a standard uncertainty u. */
-  kind: "expanded" | "standard";
+  /**
+   * Expanded uncertainty U with coverage factor k (k = 2 when the lab does not say), a standard
+   * uncertainty u, or a relative expanded uncertainty in % of the result (again with k, default 2).
+   */
+  kind: "expanded" | "standard" | "relative";
   value: number;
   k?: number;
 }
@@ -92,7 +95,11 @@ function textsFor(req: GoverningRequirement, displayUnit: UnitId): Wording {
 export function usedUncertainty(parameterId: ParameterId, canonicalUnit: UnitId, value: number, input: Pick<ResultInput, "unit" | "uncertainty" | "densityGPerMl">): UsedUncertainty {
   const def = parameter(parameterId);
   if (input.uncertainty && input.uncertainty.value >= 0) {
-    const k = input.uncertainty.kind === "expanded" ? (input.uncertainty.k ?? 2) : 1;
+    const k = input.uncertainty.kind === "standard" ? 1 : (input.uncertainty.k ?? 2);
+    if (!(k > 0)) throw new RangeError(`A coverage factor must be above 0; k = ${k} was given.`);
+    if (input.uncertainty.kind === "relative") {
+      return { u: (Math.abs(value) * input.uncertainty.value) / 100 / k, source: "laboratory", basis: `laboratory's relative expanded uncertainty of ${input.uncertainty.value} % with k = ${k}` };
+    }
     const inCanonical = convert(input.uncertainty.value, input.unit, canonicalUnit, { densityGPerMl: input.densityGPerMl });
     return {
       u: Math.abs(inCanonical) / k,
@@ -120,6 +127,13 @@ function statementAt(req: GoverningRequirement, x: number, w: number): { stateme
 }
 
 const passing = (s: Statement) => s === "pass" || s === "conditional pass";
+
+/** True when a guard band of width w on each side leaves no value that could pass (concentrations are never negative). */
+export function guardLeavesNothing(req: Pick<GoverningRequirement, "lower" | "upper">, w: number): boolean {
+  const hi = req.upper ? req.upper.value - w : Infinity;
+  const lo = req.lower ? req.lower.value + w : 0;
+  return hi < lo || hi < 0;
+}
 
 type Decided = Omit<Verdict, "parameter" | "unit" | "governing" | "ruleText" | "informativeOutcome">;
 
@@ -194,7 +208,8 @@ function decide(req: GoverningRequirement, input: ResultInput, texts: Wording): 
     const decidedBy = side ? ` The ${side} limit decides: ${side === "upper" ? upperText : lowerText}.` : "";
     const guard = w > 0 ? ` Guard band w = ${trim(w * show)} ${unitLabel}.` : "";
     const shown = trim(x * show);
-    return decided(statement, `${shown} ${unitLabel} against ${limitsText || "no limit"}: ${statement}.${decidedBy}${guard}`, shown, x, side, unc, w, p);
+    const hopeless = w > 0 && guardLeavesNothing(req, w) ? ` Warning: with this uncertainty no result can show conformity under this rule (the guard band leaves no acceptance zone); a method with a smaller uncertainty is needed.` : "";
+    return decided(statement, `${shown} ${unitLabel} against ${limitsText || "no limit"}: ${statement}.${decidedBy}${guard}${hopeless}`, shown, x, side, unc, w, p);
   }
 
   // Censored: the true value lies in an interval; decide only if every value in it gives the same kind of answer.
@@ -211,6 +226,11 @@ function decide(req: GoverningRequirement, input: ResultInput, texts: Wording): 
   }
   const lo = r.kind === "below" ? 0 : r.limit * factor;
   const hi = r.kind === "below" ? r.limit! * factor : Infinity;
+  // Every value the result allows meets the limits ("<1.0" against "not more than 1.0"): it conforms,
+  // whatever the guard band, for the band is about a measured value and there is none here.
+  if ((!req.upper || hi <= req.upper.value) && (!req.lower || lo >= req.lower.value)) {
+    return decided("pass", `${canonicalText} ${unitLabel}: every value in that range meets ${limitsText}.`, canonicalText, null, null, null, 0, null);
+  }
   // The reporting limit carries no usable uncertainty; the guard band uses the default for a value at the limit.
   const unc = uncertaintyFor(req, r.kind === "below" ? hi : lo, { ...input, uncertainty: null });
   const w = guardWidth(req.rule, unc.u);

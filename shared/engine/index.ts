@@ -12,9 +12,9 @@
 export { UNITS, ETHANOL_DENSITY_G_PER_ML, UnitError, convert, convertQuantity, isUnit, quantity } from "./units.ts";
 export type { UnitId, Dimension, Quantity, MgPerL, GPerL, MeqPerL, PercentVol, PH, GPerMl } from "./units.ts";
 
-/** Laboratory notation: decimal commas, "<0.5", "n.d.", "> 300". */
-export { parseReading, parseDecimal, formatReading } from "./parse.ts";
-export type { Reading, ParseResult } from "./parse.ts";
+/** Laboratory notation: decimal commas or points, thousands groups, "<0.5", "≤ 0.5", "< LOQ (0.5)", "n.d.", "n.q.", "tr.", "> 300", "0.82 ± 0.05", a trailing unit. */
+export { parseReading, parseDecimal, readNumber, formatReading } from "./parse.ts";
+export type { Reading, ParseResult, ParseOptions, NumberFormat } from "./parse.ts";
 
 /** Display rounding: every value shown to its parameter's precision in the unit shown. */
 export { displayDigits, displayValue, unitLabel } from "./display.ts";
@@ -42,7 +42,7 @@ export {
 export type { Citation, WineCategory, StillSugarTerm, SparklingSugarTerm, SugarTermResult, AlcoholCheck, SulphiteTrigger, SulphiteMarket } from "./labelling.ts";
 
 /** Market rule packs: which limits apply to this wine in this market, and why. */
-export { MARKET_PACKS, MARKET_IDS, applicableLimits } from "./markets/index.ts";
+export { MARKET_PACKS, MARKET_IDS, MarketError, applicableLimits } from "./markets/index.ts";
 export type { AppliedLimit, UndeterminedLimit, MarketId, MarketPack, WineProfile } from "./markets/index.ts";
 export type { Colour, LegalLimitRule, Applicability } from "./markets/types.ts";
 
@@ -56,7 +56,7 @@ export { buildRequirement, validateBuyerRequirement, RequirementError } from "./
 export type { BuyerRequirement, GoverningRequirement, GoverningBound, BoundSource, RequirementIssue } from "./requirement.ts";
 
 /** Verdicts for one result. */
-export { ENGINE_VERSION, evaluate, usedUncertainty } from "./evaluate.ts";
+export { ENGINE_VERSION, evaluate, guardLeavesNothing, usedUncertainty } from "./evaluate.ts";
 export type { Verdict, Outcome, ResultInput, ReportedUncertainty, UsedUncertainty } from "./evaluate.ts";
 
 /** Transit: arrival against pre-shipment. */

@@ -183,7 +183,10 @@ export function sulphiteStatement(market: SulphiteMarket, totalSo2: Reading): Su
       }
       return { ...base, required: "undetermined", reason: "the reported limit of quantification is above the trigger; ask for a more sensitive method" };
     case "above":
-      return { ...base, required: triggers(totalSo2.limit) || totalSo2.limit >= threshold, reason: `total SO2 above ${totalSo2.limit} mg/L` };
+      // "> 8" could be 9 or 12: only a reading above the threshold itself settles it.
+      return totalSo2.limit >= threshold
+        ? { ...base, required: true, reason: `total SO2 above ${totalSo2.limit} mg/L, so over the trigger` }
+        : { ...base, required: "undetermined", reason: `total SO2 above ${totalSo2.limit} mg/L may lie on either side of the ${eu ? "more than 10" : "10 or more"} mg/L trigger; ask for the value` };
     case "presence":
       return { ...base, required: "undetermined", reason: "total SO2 must be reported as a number" };
   }

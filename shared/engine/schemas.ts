@@ -56,7 +56,7 @@ export const resultInputSchema = z.object({
   reading: readingSchema,
   unit: z.enum(unitIds),
   uncertainty: z
-    .object({ kind: z.enum(["expanded", "standard"]), value: finite.min(0), k: z.number().gt(0).lte(5).optional() })
+    .object({ kind: z.enum(["expanded", "standard", "relative"]), value: finite.min(0), k: z.number().gt(0, { error: "A coverage factor k must be above 0." }).lte(5).optional() })
     .nullish(),
   densityGPerMl: z.number().gt(0.5).lt(2).optional(),
 });

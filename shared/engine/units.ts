@@ -61,6 +61,10 @@ export class UnitError extends Error {}
 
 /** Converts within one dimension. mg/kg ↔ mg/L needs the wine's density in g/mL (= kg/L). */
 export function convert(value: number, from: UnitId, to: UnitId, opts: { densityGPerMl?: number } = {}): number {
+  // Data from outside (a file, an old row) may name a unit that does not exist; say which.
+  if (!isUnit(from)) throw new UnitError(`"${String(from)}" is not a unit Cellarpact knows.`);
+  if (!isUnit(to)) throw new UnitError(`"${String(to)}" is not a unit Cellarpact knows.`);
+  if (!Number.isFinite(value)) throw new UnitError(`${value} is not a finite number.`);
   if (from === to) return value;
   const a = UNITS[from];
   const b = UNITS[to];

@@ -39,9 +39,10 @@ export interface ReadResult {
 }
 
 export function readResult(r: { parameter: string; raw: string; unit: string; uncertainty?: ReportedUncertainty | null }): ReadResult {
-  const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" });
+  const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence", unit: r.unit });
   const base = { parameter: r.parameter, raw: r.raw, unit: r.unit, uncertainty: r.uncertainty ?? null };
-  return parsed.ok ? { ...base, reading: parsed.reading } : { ...base, reading: null, error: parsed.error };
+  // "0.82 ± 0.05" carries its own expanded uncertainty.
+  return parsed.ok ? { ...base, uncertainty: base.uncertainty ?? parsed.uncertainty ?? null, reading: parsed.reading } : { ...base, reading: null, error: parsed.error };
 }
 
 /** From best to worst: a missing required result outweighs a conditional pass, a fail outweighs everything. */

@@ -22,9 +22,9 @@ export const lotSchema = z.object({
 export type LotInput = z.infer<typeof lotSchema>;
 
 export const uncertaintySchema = z.object({
-  kind: z.enum(["expanded", "standard"]),
+  kind: z.enum(["expanded", "standard", "relative"]),
   value: z.number({ error: "Enter the uncertainty as a number." }).min(0, { error: "An uncertainty cannot be negative." }),
-  k: z.number().gt(0).lte(5).optional(),
+  k: z.number().gt(0, { error: "A coverage factor k must be above 0." }).lte(5, { error: "A coverage factor k is at most 5." }).optional(),
 });
 
 /** One result as typed or imported: the laboratory's text is kept, and read by the engine. */
@@ -40,8 +40,9 @@ export const resultEntrySchema = z
     const p = findParameter(r.parameter);
     if (!p) return;
     if (!(p.units as readonly string[]).includes(r.unit)) ctx.addIssue({ code: "custom", path: ["unit"], message: `${r.unit} is not a unit for ${p.name}.` });
-    const parsed = parseReading(r.raw, { presence: p.kind === "presence" });
+    const parsed = parseReading(r.raw, { presence: p.kind === "presence", unit: r.unit });
     if (!parsed.ok) ctx.addIssue({ code: "custom", path: ["raw"], message: parsed.error });
+    else if (parsed.uncertainty && r.uncertainty) ctx.addIssue({ code: "custom", path: ["raw"], message: `"${r.raw}" carries its own uncertainty; give it there or in the uncertainty field, not both.` });
   });
 export type ResultEntry = z.infer<typeof resultEntrySchema>;
 

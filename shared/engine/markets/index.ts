@@ -68,6 +68,13 @@ function toApplied(pack: MarketPack, rule: LegalLimitRule, densityGPerMl?: numbe
  * not give are listed as undetermined, never guessed. mg/kg limits use the wine's density (1.000 g/mL
  * when unknown, stated in the result).
  */
+/** A market with no rule pack: refused by name rather than judged as if it had no law. */
+export class MarketError extends Error {
+  constructor(readonly market: string) {
+    super(`"${market}" is not a market Cellarpact has rules for; choose one of ${Object.keys(MARKET_PACKS).join(", ")}.`);
+  }
+}
+
 export function applicableLimits(
   markets: readonly MarketId[],
   profile: WineProfile,
@@ -77,6 +84,7 @@ export function applicableLimits(
   const undetermined: UndeterminedLimit[] = [];
   for (const id of markets) {
     const pack = MARKET_PACKS[id];
+    if (!pack) throw new MarketError(id);
     for (const rule of pack.rules) {
       if (opts.parameter && rule.parameter !== opts.parameter) continue;
       const a = rule.applies(profile);

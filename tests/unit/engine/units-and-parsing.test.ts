@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { convert, quantity, UnitError, type MgPerL, parseReading, parseDecimal, molecularSo2 } from "../../../shared/engine/index.ts";
 
@@ -81,8 +82,8 @@ describe("laboratory notation", () => {
     expect(parseReading("ND", { loq: 0.1 })).toEqual({ ok: true, reading: { kind: "below", limit: 0.1 } });
   });
 
-  it("when a result is ambiguous or not a number, then the error says why", () => {
-    expect(parseReading("1,234.5")).toMatchObject({ ok: false, error: expect.stringContaining("mixes decimal marks") });
+  it("when a result is not a number, then the error names the text", () => {
+    expect(parseReading("1,2,3.4.5")).toMatchObject({ ok: false, error: '"1,2,3.4.5" is not a number, "<" or ">" a number, or "n.d.".' });
     expect(parseReading("twelve")).toMatchObject({ ok: false, error: expect.stringContaining("is not a number") });
     expect(parseReading("<")).toMatchObject({ ok: false });
     expect(parseReading("")).toEqual({ ok: false, error: "No result given." });
@@ -91,5 +92,86 @@ describe("laboratory notation", () => {
   it("when a present/absent parameter is read, then words map to presence", () => {
     expect(parseReading("crystals", { presence: true })).toEqual({ ok: true, reading: { kind: "presence", present: true } });
     expect(parseReading("none", { presence: true })).toEqual({ ok: true, reading: { kind: "presence", present: false } });
+  });
+});
+
+describe("lab notation as laboratories write it (common practice in lab reports)", () => {
+  const value = (v: number) => ({ ok: true, reading: { kind: "value", value: v } });
+  const below = (limit: number | null) => ({ ok: true, reading: { kind: "below", limit } });
+
+  it("when a censored result is written with ≤, <=, ≥ or >=, then it stays censored on the right side", () => {
+    expect(parseReading("≤0.5")).toEqual(below(0.5));
+    expect(parseReading("<=0,5")).toEqual(below(0.5));
+    expect(parseReading("≥ 300")).toEqual({ ok: true, reading: { kind: "above", limit: 300 } });
+    expect(parseReading(">=300")).toEqual({ ok: true, reading: { kind: "above", limit: 300 } });
+  });
+
+  it("when a laboratory names its reporting limit, or writes not quantified or traces, then the result is below that limit", () => {
+    expect(parseReading("< LOQ (0.5)")).toEqual(below(0.5));
+    expect(parseReading("<LQ 0,2")).toEqual(below(0.2));
+    expect(parseReading("<LQ")).toEqual(below(null));
+    expect(parseReading("n.q.", { loq: 0.1 })).toEqual(below(0.1));
+    expect(parseReading("tr.")).toEqual(below(null));
+  });
+
+  it("when a cell holds the value with its expanded uncertainty, then both are read, the uncertainty with k = 2", () => {
+    expect(parseReading("0.82 ± 0.05")).toEqual({ ok: true, reading: { kind: "value", value: 0.82 }, uncertainty: { kind: "expanded", value: 0.05, k: 2 } });
+    expect(parseReading("0,82 +/- 0,05")).toMatchObject({ uncertainty: { value: 0.05 } });
+    expect(parseReading("<0.5 ± 0.1")).toMatchObject({ ok: false, error: expect.stringContaining("not a censored one") });
+  });
+
+  it("when a unit follows the number, then it is taken if it is the expected one and refused if not", () => {
+    expect(parseReading("0.82 g/L as acetic acid", { unit: "g/L as acetic acid" })).toMatchObject({ ok: true, reading: { kind: "value", value: 0.82 }, unit: "g/L as acetic acid" });
+    expect(parseReading("31 mg/L", { unit: "mg/L" })).toMatchObject({ ok: true, unit: "mg/L" });
+    expect(parseReading("31 mg/L", { unit: "g/L" })).toEqual({ ok: false, error: '"31 mg/L" is in mg/L, but this result is expected in g/L; convert it or choose that unit.' });
+    expect(parseReading("31 furlongs")).toEqual({ ok: false, error: '"31 furlongs": "furlongs" is not a unit Cellarpact knows.' });
+  });
+
+  it("when thousands are grouped, then both conventions read, and a number that reads two ways follows the stated format", () => {
+    expect(parseReading("1,234.5")).toEqual(value(1234.5));
+    expect(parseReading("1.234,5")).toEqual(value(1234.5));
+    expect(parseReading("1 234,5")).toEqual(value(1234.5));
+    expect(parseReading("12.500.000")).toEqual(value(12500000));
+    expect(parseReading("1.234", { numberFormat: "comma" })).toEqual(value(1234));
+    expect(parseReading("1.234", { numberFormat: "point" })).toEqual(value(1.234));
+    expect(parseReading("1,234", { numberFormat: "point" })).toEqual(value(1234));
+    expect(parseReading("1,234", { numberFormat: "comma" })).toEqual(value(1.234));
+    // Typed alone, a single mark is a decimal mark; a leading zero never starts a thousands group.
+    expect(parseReading("1.012")).toEqual(value(1.012));
+    expect(parseReading("0,455", { numberFormat: "point" })).toEqual(value(0.455));
+  });
+
+  it("when a result is negative, not finite or written with a Unicode minus, then it is refused with the text named, never read as a pass or a fail", () => {
+    expect(parseReading("−0.5")).toEqual({ ok: false, error: '"-0.5": a measured result cannot be negative.' });
+    expect(parseReading("-3")).toMatchObject({ ok: false, error: expect.stringContaining("cannot be negative") });
+    for (const bad of ["NaN", "Infinity", "-Infinity", "1e999", "0x10", "1/2"]) {
+      const r = parseReading(bad);
+      expect([bad, r.ok]).toEqual([bad, false]);
+      if (!r.ok) expect(r.error).toContain(bad === "1e999" ? "1e999" : bad.replace("−", "-"));
+    }
+  });
+
+  it("when random lab text is read, then the parser answers and never throws (fast-check)", () => {
+    fc.assert(
+      fc.property(fc.string({ maxLength: 30 }), (text) => {
+        const r = parseReading(text);
+        expect(typeof r.ok).toBe("boolean");
+        if (r.ok && r.reading.kind === "value") expect(Number.isFinite(r.reading.value) && r.reading.value >= 0).toBe(true);
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
+  it("when a number is written in either format and read with that format, then it is the number written (fast-check)", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 9_999_999 }), fc.integer({ min: 0, max: 999 }), fc.constantFrom<"point" | "comma">("point", "comma"), (whole, frac, format) => {
+        const [dec, th] = format === "point" ? [".", ","] : [",", "."];
+        const grouped = whole.toLocaleString("en-US").replaceAll(",", th);
+        const text = `${grouped}${dec}${String(frac).padStart(3, "0")}`;
+        const r = parseReading(text, { numberFormat: format });
+        expect(r).toEqual(value(Number(`${whole}.${String(frac).padStart(3, "0")}`)));
+      }),
+      { numRuns: 500 },
+    );
   });
 });
