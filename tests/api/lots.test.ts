@@ -88,10 +88,10 @@ describe("submitting an analysis", () => {
     const lotId = await newLot();
     const before = await count("analyses");
     const body = failingAnalysis();
-    body.results[1] = { parameter: "free_so2", raw: "1,234.5", unit: "mg/L" };
+    body.results[1] = { parameter: "free_so2", raw: "−5", unit: "mg/L" };
     const res = await producer.agent.post(P(`/lots/${lotId}/analyses`)).set("x-csrf-token", producer.csrf).send(body);
     expect(res.status).toBe(400);
-    expect(res.body.errors[0]).toMatchObject({ path: "results.1.raw" });
+    expect(res.body.errors[0]).toMatchObject({ path: "results.1.raw", message: '"-5": a measured result cannot be negative.' });
     expect(await count("analyses")).toBe(before);
   });
 });
