@@ -27,7 +27,29 @@ export type { ParameterDef, ParameterId, ParameterGroup, MethodRef, DefaultUncer
 export { PLAUSIBLE_RANGES, implausibility } from "./plausibility.ts";
 
 /** Derived values. */
-export { DEFAULT_SO2_PKA, boundSo2, molecularSo2, freeSo2ForMolecular, sugarFreeExtract, reducedExtract, fixedAcidity } from "./derived.ts";
+export {
+  DEFAULT_SO2_PKA,
+  SUGAR_PER_PERCENT_VOL,
+  boundSo2,
+  molecularSo2,
+  freeSo2ForMolecular,
+  sugarFreeExtract,
+  reducedExtract,
+  fixedAcidity,
+  potentialAlcohol,
+  totalAlcohol,
+  oechsleFromDensity,
+  baumeFromDensity,
+  brixFromDensity,
+} from "./derived.ts";
+
+/** Replicates: averaged only within the method's repeatability (ISO 5725-6 critical range). */
+export { checkReplicates } from "./replicates.ts";
+export type { ReplicateCheck } from "./replicates.ts";
+
+/** What a guard band costs: global consumer's and producer's risks (JCGM 106:2012, clause 9). */
+export { globalRisks } from "./risk.ts";
+export type { GlobalRisks, RiskInput } from "./risk.ts";
 
 /** Labelling: EU sugar terms, alcohol tolerances (EU, US with tax class), sulphite statement. */
 export {
