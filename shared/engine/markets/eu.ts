@@ -17,8 +17,9 @@ const so2Rules: LegalLimitRule[] = [
   value: r.value,
   unit: "mg/L" as const,
   condition: `${r.colour === "red" ? "red" : "white and rosé"} wine other than sparkling and liqueur wine, sugar ${r.sugarHigh ? "at least 5" : "below 5"} g/L`,
+  // A.1 holds for every dry wine, listed or not; A.2(a)/(b) for sweet wines the derogations of A.2(c)–(e) do not name.
   applies: (p: WineProfile) =>
-    stillOrOther(p) && notSpecial(p) && (r.colour === "red") === (p.colour === "red")
+    stillOrOther(p) && (r.colour === "red") === (p.colour === "red") && (!r.sugarHigh || notSpecial(p))
       ? needs(p, ["sugarGPerL"], (q) => (q.sugarGPerL >= 5) === r.sugarHigh)
       : false,
   citation: { ...SO2, article: `Annex I, Part B, section A, point ${r.point}` },
@@ -43,7 +44,7 @@ const lead = (id: string, value: number, from: number, to: number | null, liqueu
 export const EU_PACK: MarketPack = {
   id: "EU",
   name: "European Union",
-  version: "2026.1",
+  version: "2026.2",
   edition: "Regulations in force on 1 December 2026 as read for Cellarpact",
   rules: [
     ...so2Rules,
@@ -54,8 +55,9 @@ export const EU_PACK: MarketPack = {
         side: "max",
         value: v,
         unit: "mg/L",
-        condition: `wine listed for ${v} mg/L (e.g. ${["Spätlese", "Auslese", "Beerenauslese, Eiswein, Sauternes"][i]})`,
-        applies: (p) => p.euSo2Derogation === v,
+        condition: `wine listed for ${v} mg/L (e.g. ${["Spätlese", "Auslese", "Beerenauslese, Eiswein, Sauternes"][i]}) with sugar of at least 5 g/L`,
+        // Point 2 raises the limit only "as regards wines with a sugar content ... of not less than five grams per litre".
+        applies: (p) => (p.euSo2Derogation === v ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL >= 5) : false),
         citation: { ...SO2, article: `Annex I, Part B, section A, point 2(${["c", "d", "e"][i]})` },
         confirmed: v === 300 ? "read in the source" : "secondary source; point letter from memory",
       }),

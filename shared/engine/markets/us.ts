@@ -4,7 +4,7 @@ import type { MarketPack } from "./types.ts";
 export const US_PACK: MarketPack = {
   id: "US",
   name: "United States (federal)",
-  version: "2026.1",
+  version: "2026.2",
   edition: "27 CFR as read for Cellarpact (4.21 in the 4-1-19 edition, 4.22 in the 2004 edition)",
   rules: [
     {
@@ -71,8 +71,9 @@ export const US_PACK: MarketPack = {
       unit: "g/100 mL",
       condition: "still wine (0.392 g/100 mL plus 0.009 g/100 mL tolerance for mechanical variation)",
       applies: (p) => p.category === "still",
-      citation: { document: "27 CFR", article: "§ 26.222(a)", edition: "current" },
-      confirmed: "read in the source",
+      // § 26.222 holds the same words but governs wine from Puerto Rico and the Virgin Islands only; § 24.245 governs wine generally.
+      citation: { document: "27 CFR", article: "§ 24.245 (use of carbon dioxide in still wine)", edition: "current" },
+      confirmed: "§ 24.245's title and its cross-reference from § 24.319 read; the 0.392 + 0.009 g/100 mL values read in the identical § 26.222(a) text",
     },
   ],
 };

@@ -66,8 +66,10 @@ describe("other EU, US, OIV and scheme limits", () => {
     expect(only("US", whiteOffDry, "volatile_acidity")[0]!.statedValue).toBe(0.12);
   });
 
-  it("when CO2 in a US still wine is checked, then 0.392 + 0.009 g/100 mL (27 CFR 26.222(a))", () => {
-    expect(only("US", redDry, "carbon_dioxide")[0]!.value).toBeCloseTo(4.01, 10);
+  it("when CO2 in a US still wine is checked, then 0.392 + 0.009 g/100 mL, cited to 27 CFR 24.245 (26.222 covers Puerto Rico and the Virgin Islands only)", () => {
+    const co2 = only("US", redDry, "carbon_dioxide")[0]!;
+    expect(co2.value).toBeCloseTo(4.01, 10);
+    expect(co2.citation.article).toMatch(/^§ 24\.245/);
   });
 
   it("when OIV limits apply, then methanol 400 red / 250 white and lead 0.10 mg/L from the 2019 harvest (OIV-MA-C1-01, 2019 issue)", () => {
