@@ -43,6 +43,12 @@ export const wineProfileSchema = z.object({
   alcoholPercentVol: z.number().min(0).max(25).optional(),
   euSo2Derogation: z.union([z.literal(300), z.literal(350), z.literal(400)]).optional(),
   usHighBrixJuice: z.boolean().optional(),
+  filtered: z.boolean().optional(),
+  organic: z.boolean().optional(),
+  protectedOrigin: z.enum(["pdo", "pgi", "none"]).optional(),
+  overripeGrapes: z.boolean().optional(),
+  liqueurFromUnfermentedMust: z.boolean().optional(),
+  sparklingCategory: z.enum(["sparkling", "quality", "quality-aromatic", "aerated"]).optional(),
 });
 
 export const readingSchema = z.discriminatedUnion("kind", [

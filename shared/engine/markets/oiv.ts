@@ -17,16 +17,20 @@ const simple = (id: string, parameter: LegalLimitRule["parameter"], value: numbe
 export const OIV_PACK: MarketPack = {
   id: "OIV",
   name: "OIV maximum acceptable limits",
-  version: "2026.1",
+  version: "2026.2",
   edition: "OIV-MA-C1-01, 2019 issue",
   rules: [
     simple("oiv-va", "volatile_acidity", 20, "meq/L", "volatile acidity"),
     simple("oiv-citric", "citric_acid", 1, "g/L", "citric acid"),
     {
       ...simple("oiv-copper", "copper", 1, "mg/L", "copper (OIV-OENO 434-2011)", "wines other than liqueur wines from unfermented or slightly fermented must"),
-      applies: (p) => p.category !== "liqueur",
+      // The 2 mg/L limit is for one kind of liqueur wine only; every other wine, liqueur wines included, keeps 1 mg/L.
+      applies: (p) => (p.category !== "liqueur" ? true : needs(p, ["liqueurFromUnfermentedMust"], (q) => !q.liqueurFromUnfermentedMust)),
     },
-    { ...simple("oiv-copper-liqueur", "copper", 2, "mg/L", "copper (OIV-OENO 434-2011)", "liqueur wines from unfermented or slightly fermented must"), applies: (p) => p.category === "liqueur" },
+    {
+      ...simple("oiv-copper-liqueur", "copper", 2, "mg/L", "copper (OIV-OENO 434-2011)", "liqueur wines from unfermented or slightly fermented must"),
+      applies: (p) => (p.category === "liqueur" ? needs(p, ["liqueurFromUnfermentedMust"], (q) => q.liqueurFromUnfermentedMust) : false),
+    },
     {
       ...simple("oiv-lead", "lead", 0.1, "mg/L", "lead (OIV-OENO 638-2019)", "wine from the 2019 harvest on"),
       applies: (p) => (p.category === "liqueur" ? false : needs(p, ["harvestYear"], (q) => q.harvestYear >= 2019)),

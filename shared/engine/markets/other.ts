@@ -1,13 +1,15 @@
 /** Further schemes with published numbers: the English and Welsh quality wine scheme, China's import checks, Ontario's retailer. */
-import { needs, type MarketPack } from "./types.ts";
+import { and, needs, type MarketPack, type WineProfile } from "./types.ts";
 
-const UK = { document: "The Wine (Amendment) Regulations / quality wine scheme, UK SI 2011/2936", article: "Schedule 2, paragraph 3", edition: "2011" };
+const UK = { document: "The Wine Regulations 2011 (SI 2011/2936)", article: "Schedule 2, paragraph 3", edition: "2011" };
+// The Schedule sets its values for protected-origin wine made in England and Wales, not for wine sold there.
+const protectedOrigin = (p: WineProfile) => needs(p, ["protectedOrigin"], (q) => q.protectedOrigin !== "none");
 
 export const UK_QWS_PACK: MarketPack = {
   id: "UK-QWS",
-  name: "England and Wales quality wine scheme",
-  version: "2026.1",
-  edition: "UK SI 2011/2936 Schedule 2",
+  name: "England and Wales protected-origin wine (Wine Regulations 2011)",
+  version: "2026.2",
+  edition: "UK SI 2011/2936 Schedule 2, for PDO and PGI wine made in England and Wales",
   rules: [
     {
       id: "uk-free-so2-dry",
@@ -15,8 +17,8 @@ export const UK_QWS_PACK: MarketPack = {
       side: "max",
       value: 45,
       unit: "mg/L",
-      condition: "dry wine (sugar at most 4 g/L)",
-      applies: (p) => needs(p, ["sugarGPerL"], (q) => q.sugarGPerL <= 4),
+      condition: "protected-origin dry wine (sugar at most 4 g/L)",
+      applies: (p) => and(protectedOrigin(p), needs(p, ["sugarGPerL"], (q) => q.sugarGPerL <= 4)),
       citation: UK,
       confirmed: "read in the source",
     },
@@ -26,15 +28,15 @@ export const UK_QWS_PACK: MarketPack = {
       side: "max",
       value: 60,
       unit: "mg/L",
-      condition: "other than dry wine (sugar above 4 g/L)",
-      applies: (p) => needs(p, ["sugarGPerL"], (q) => q.sugarGPerL > 4),
+      condition: "protected-origin wine other than dry (sugar above 4 g/L)",
+      applies: (p) => and(protectedOrigin(p), needs(p, ["sugarGPerL"], (q) => q.sugarGPerL > 4)),
       citation: UK,
       confirmed: "read in the source",
     },
-    { id: "uk-copper", parameter: "copper", side: "max", value: 0.5, unit: "mg/L", condition: "all wines in the scheme", applies: () => true, citation: UK, confirmed: "read in the source" },
-    { id: "uk-iron", parameter: "iron", side: "max", value: 8, unit: "mg/L", condition: "all wines in the scheme", applies: () => true, citation: UK, confirmed: "read in the source" },
-    { id: "uk-ta", parameter: "total_acidity", side: "min", value: 4, unit: "g/L as tartaric acid", condition: "all wines in the scheme", applies: () => true, citation: UK, confirmed: "read in the source" },
-    { id: "uk-alcohol", parameter: "alcohol", side: "min", value: 9, unit: "% vol", condition: "total alcoholic strength (measured here as actual alcohol, a conservative reading)", applies: () => true, citation: UK, confirmed: "read in the source" },
+    { id: "uk-copper", parameter: "copper", side: "max", value: 0.5, unit: "mg/L", condition: "protected-origin wine made in England and Wales", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
+    { id: "uk-iron", parameter: "iron", side: "max", value: 8, unit: "mg/L", condition: "protected-origin wine made in England and Wales", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
+    { id: "uk-ta", parameter: "total_acidity", side: "min", value: 4, unit: "g/L as tartaric acid", condition: "protected-origin wine made in England and Wales", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
+    { id: "uk-alcohol", parameter: "alcohol", side: "min", value: 9, unit: "% vol", condition: "protected-origin wine: total alcoholic strength (measured here as actual alcohol, a conservative reading)", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
   ],
 };
 
@@ -63,7 +65,7 @@ const LCBO = { document: "AWRI, 'Pre-bottling wine adjustments and specification
 export const CA_ON_PACK: MarketPack = {
   id: "CA-ON",
   name: "Ontario (provincial retailer)",
-  version: "2026.1",
+  version: "2026.2",
   edition: "Retailer technical requirements as summarised in 2019",
   rules: (["white", "rose", "red"] as const).map((colour) => ({
     id: `on-turbidity-${colour}`,
@@ -71,8 +73,8 @@ export const CA_ON_PACK: MarketPack = {
     side: "max" as const,
     value: { white: 5, rose: 8, red: 10 }[colour],
     unit: "NTU" as const,
-    condition: `${colour === "rose" ? "rosé" : colour} wine, filtered`,
-    applies: (p) => p.colour === colour,
+    condition: `${colour === "rose" ? "rosé" : colour} wine, filtered (unfiltered wines are exempt)`,
+    applies: (p) => (p.colour === colour ? needs(p, ["filtered"], (q) => q.filtered) : false),
     citation: LCBO,
     confirmed: "read in the source",
   })),

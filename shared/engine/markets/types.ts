@@ -16,7 +16,36 @@ export interface WineProfile {
   euSo2Derogation?: 300 | 350 | 400;
   /** Wine made from unameliorated juice of 28 °Brix or more (27 CFR 4.21). */
   usHighBrixJuice?: boolean;
+  /** Filtered before filling; some turbidity limits exempt unfiltered wines. */
+  filtered?: boolean;
+  /** Made under the organic production rules. */
+  organic?: boolean;
+  /** Protected designation of origin, protected geographical indication, or neither. */
+  protectedOrigin?: "pdo" | "pgi" | "none";
+  /** Made from overripe grapes. */
+  overripeGrapes?: boolean;
+  /** A liqueur wine made from unfermented or only slightly fermented grape must. */
+  liqueurFromUnfermentedMust?: boolean;
+  /** A sparkling wine's category, where the law tells them apart. */
+  sparklingCategory?: "sparkling" | "quality" | "quality-aromatic" | "aerated";
 }
+
+/** The facts of a profile in words, for a message that names what is missing. */
+export const PROFILE_FACT_LABELS: Record<keyof WineProfile, string> = {
+  colour: "colour",
+  category: "category",
+  sugarGPerL: "sugar content",
+  harvestYear: "harvest year",
+  alcoholPercentVol: "alcoholic strength",
+  euSo2Derogation: "listing for a higher SO2 limit",
+  usHighBrixJuice: "whether it is made from juice of 28 °Brix or more",
+  filtered: "whether it is filtered",
+  organic: "whether it is organic",
+  protectedOrigin: "PDO or PGI status",
+  overripeGrapes: "whether it is made from overripe grapes",
+  liqueurFromUnfermentedMust: "whether the liqueur wine is made from unfermented or slightly fermented must",
+  sparklingCategory: "sparkling wine category",
+};
 
 /** true/false, or the profile fields the rule needs but did not get. */
 export type Applicability = true | false | { missing: (keyof WineProfile)[] };
@@ -53,4 +82,11 @@ export function needs<K extends keyof WineProfile>(p: WineProfile, keys: K[], te
   const missing = keys.filter((k) => p[k] === undefined);
   if (missing.length) return { missing };
   return test(p as Required<Pick<WineProfile, K>> & WineProfile);
+}
+
+/** Both conditions must hold: false wins, then every missing fact is named. */
+export function and(a: Applicability, b: Applicability): Applicability {
+  if (a === false || b === false) return false;
+  const missing = [...(a === true ? [] : a.missing), ...(b === true ? [] : b.missing)];
+  return missing.length ? { missing: [...new Set(missing)] } : true;
 }

@@ -79,17 +79,38 @@ describe("other EU, US, OIV and scheme limits", () => {
     expect(only("OIV", { ...redDry, harvestYear: 2015 }, "lead")[0]!.value).toBe(0.15);
   });
 
-  it("when the English quality wine scheme applies, then free SO2 45 dry / 60 other, copper 0.5, iron 8 (UK SI 2011/2936 Sch. 2)", () => {
-    expect(only("UK-QWS", redDry, "free_so2")[0]!.value).toBe(45);
-    expect(only("UK-QWS", whiteOffDry, "free_so2")[0]!.value).toBe(60);
-    expect(only("UK-QWS", redDry, "copper")[0]!.value).toBe(0.5);
-    expect(only("UK-QWS", redDry, "iron")[0]!.value).toBe(8);
+  it("when a protected-origin wine made in England and Wales is checked, then free SO2 45 dry / 60 other, copper 0.5, iron 8 (The Wine Regulations 2011, SI 2011/2936 Sch. 2)", () => {
+    const pdo = { protectedOrigin: "pdo" as const };
+    expect(only("UK-QWS", { ...redDry, ...pdo }, "free_so2")[0]!.value).toBe(45);
+    expect(only("UK-QWS", { ...whiteOffDry, ...pdo }, "free_so2")[0]!.value).toBe(60);
+    expect(only("UK-QWS", { ...redDry, ...pdo }, "copper")[0]!.value).toBe(0.5);
+    expect(only("UK-QWS", { ...redDry, ...pdo }, "iron")[0]!.value).toBe(8);
+  });
+
+  it("when a rule needs a fact the wine's profile lacks, then the warning names the fact in words", () => {
+    const r = buildRequirement({ parameter: "copper", unit: "mg/L", upper: 1, rule: { kind: "simple" } }, ["UK-QWS"], redDry);
+    expect(r.issues.map((w) => w.message).join(" ")).toContain("give the wine's PDO or PGI status to decide");
+  });
+
+  it("when a wine has no protected origin, or its origin is not known, then the scheme's limits do not apply, or are undetermined with the missing fact named", () => {
+    expect(only("UK-QWS", { ...redDry, protectedOrigin: "none" }, "copper")).toEqual([]);
+    const { undetermined } = applicableLimits(["UK-QWS"], redDry, { parameter: "copper" });
+    expect(undetermined.map((u) => u.missing)).toEqual([["protectedOrigin"]]);
   });
 
   it("when wine goes to China or Ontario, then sugar-free extract minima and turbidity maxima by colour (Vintessential/Wine Australia; AWRI)", () => {
     expect(only("CN", redDry, "sugar_free_extract")[0]).toMatchObject({ side: "min", value: 18 });
     expect(only("CN", { ...redDry, colour: "rose" }, "sugar_free_extract")[0]!.value).toBe(17);
-    expect(only("CA-ON", whiteOffDry, "turbidity")[0]!.value).toBe(5);
+    expect(only("CA-ON", { ...whiteOffDry, filtered: true }, "turbidity")[0]!.value).toBe(5);
+    // Unfiltered wines are exempt from the turbidity maxima; an unknown filtration leaves the rule undetermined.
+    expect(only("CA-ON", { ...whiteOffDry, filtered: false }, "turbidity")).toEqual([]);
+    expect(applicableLimits(["CA-ON"], whiteOffDry, { parameter: "turbidity" }).undetermined[0]!.missing).toEqual(["filtered"]);
+  });
+
+  it("when a liqueur wine's copper is checked, then 2 mg/L only for one made from unfermented or slightly fermented must, otherwise 1 mg/L (OIV-MA-C1-01, OENO 434-2011)", () => {
+    expect(only("OIV", { ...redDry, category: "liqueur", liqueurFromUnfermentedMust: true }, "copper").map((l) => l.value)).toEqual([2]);
+    expect(only("OIV", { ...redDry, category: "liqueur", liqueurFromUnfermentedMust: false }, "copper").map((l) => l.value)).toEqual([1]);
+    expect(applicableLimits(["OIV"], { ...redDry, category: "liqueur" }, { parameter: "copper" }).undetermined.map((u) => u.missing)).toEqual([["liqueurFromUnfermentedMust"], ["liqueurFromUnfermentedMust"]]);
   });
 });
 
@@ -117,7 +138,7 @@ describe("requirement = buyer range ∩ market law", () => {
   });
 
   it("when total acidity has only a legal minimum, then the law supplies the lower bound", () => {
-    const r = buildRequirement({ parameter: "total_acidity", unit: "g/L as tartaric acid", upper: 8, rule: { kind: "simple" } }, ["EU", "UK-QWS"], redDry);
+    const r = buildRequirement({ parameter: "total_acidity", unit: "g/L as tartaric acid", upper: 8, rule: { kind: "simple" } }, ["EU", "UK-QWS"], { ...redDry, protectedOrigin: "pdo" });
     expect(r.lower!.source.kind === "law" && r.lower!.source.limit.market).toBe("UK-QWS");
     expect(r.lower!.value).toBeCloseTo(53.3, 1); // 4 g/L as tartaric acid
   });
