@@ -69,6 +69,11 @@ export function labelCheck(input: LabelCheckInput): LabelCheckLine[] {
   }
 
   for (const market of input.markets) {
+    const abv = alcohol.value ?? input.labelledAlcoholPercentVol;
+    if (market === "US" && abv !== null && (abv < 7 || abv > 24)) {
+      lines.push({ topic: "Alcohol on the label", market, status: "info", text: `27 CFR part 4 does not apply: it covers wine of 7 to 24 % vol, and this one has ${displayValue("alcohol", abv, "% vol")} % vol.`, citation: { document: "27 CFR", article: "§ 4.6", edition: "T.D. TTB-158, 85 FR 18721 (2020)" } });
+      continue;
+    }
     if (market === "EU" || market === "US") {
       if (input.labelledAlcoholPercentVol === null || alcohol.value === null) {
         lines.push({ topic: "Alcohol on the label", market, status: "undetermined", text: input.labelledAlcoholPercentVol === null ? "Enter the labelled alcohol on the lot to check it against the analysis." : "No numeric alcohol result yet.", citation: null });

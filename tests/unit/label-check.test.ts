@@ -36,6 +36,11 @@ describe("label check", () => {
     expect(lines.find((l) => l.topic === "Sulphite statement" && l.market === "US")!.text).toMatch(/^Required: "Contains sulfites"/);
   });
 
+  it("when a wine is under 7 % vol, then the US line says 27 CFR part 4 does not apply (27 CFR 4.6)", () => {
+    const lines = labelCheck({ category: "still", markets: ["US"], labelledAlcoholPercentVol: 5.5, results: [value("alcohol", 5.5, "% vol"), value("total_so2", 40, "mg/L")] });
+    expect(lines.filter((l) => l.market === "US")).toEqual([expect.objectContaining({ status: "info", text: "27 CFR part 4 does not apply: it covers wine of 7 to 24 % vol, and this one has 5.50 % vol." })]);
+  });
+
   it("when the label's alcohol is unknown or a market has no rules, then the line says what is missing instead of guessing", () => {
     const lines = labelCheck({ category: "still", markets: ["EU", "CN"], labelledAlcoholPercentVol: null, results: base });
     expect(lines.find((l) => l.topic === "Alcohol on the label")).toMatchObject({ status: "undetermined", text: "Enter the labelled alcohol on the lot to check it against the analysis." });

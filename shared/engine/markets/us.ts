@@ -1,11 +1,15 @@
 /** United States federal limits (27 CFR, TTB). */
-import type { MarketPack } from "./types.ts";
+import { and, needs, type Applicability, type MarketPack, type WineProfile } from "./types.ts";
+
+/** Part 4 "appl[ies] to wine containing not less than 7 percent and not more than 24 percent alcohol by volume" (27 CFR 4.6). */
+export const inPart4Scope = (p: WineProfile): Applicability => needs(p, ["alcoholPercentVol"], (q) => q.alcoholPercentVol >= 7 && q.alcoholPercentVol <= 24);
+const part4 = (test: (p: WineProfile) => boolean) => (p: WineProfile) => and(inPart4Scope(p), test(p));
 
 export const US_PACK: MarketPack = {
   id: "US",
   name: "United States (federal)",
-  version: "2026.2",
-  edition: "27 CFR as read for Cellarpact (4.21 in the 4-1-19 edition, 4.22 in the 2004 edition)",
+  version: "2026.3",
+  edition: "27 CFR as read for Cellarpact (4.21 in the 4-1-19 edition, 4.22 in the 2004 edition, 4.6 as added by T.D. TTB-158, 85 FR 18721, 2 April 2020)",
   rules: [
     {
       id: "us-va-red",
@@ -14,7 +18,7 @@ export const US_PACK: MarketPack = {
       value: 0.14,
       unit: "g/100 mL as acetic acid",
       condition: "natural red grape wine, volatile acidity calculated as acetic acid exclusive of sulfur dioxide",
-      applies: (p) => p.colour === "red" && p.usHighBrixJuice !== true,
+      applies: part4((p) => p.colour === "red" && p.usHighBrixJuice !== true),
       citation: { document: "27 CFR", article: "§ 4.21(a)(1)(iv)", edition: "4-1-19" },
       confirmed: "read in the source (OCR copy; 'red' restored from memory)",
     },
@@ -25,7 +29,7 @@ export const US_PACK: MarketPack = {
       value: 0.12,
       unit: "g/100 mL as acetic acid",
       condition: "other grape wine (white, rosé), exclusive of sulfur dioxide",
-      applies: (p) => p.colour !== "red" && p.usHighBrixJuice !== true,
+      applies: part4((p) => p.colour !== "red" && p.usHighBrixJuice !== true),
       citation: { document: "27 CFR", article: "§ 4.21(a)(1)(iv)", edition: "4-1-19" },
       confirmed: "read in the source",
     },
@@ -36,7 +40,7 @@ export const US_PACK: MarketPack = {
       value: 0.17,
       unit: "g/100 mL as acetic acid",
       condition: "red wine from unameliorated juice of 28 °Brix or more",
-      applies: (p) => p.colour === "red" && p.usHighBrixJuice === true,
+      applies: part4((p) => p.colour === "red" && p.usHighBrixJuice === true),
       citation: { document: "27 CFR", article: "§ 4.21(a)(1)(iv)", edition: "4-1-19" },
       confirmed: "read in the source",
     },
@@ -47,7 +51,7 @@ export const US_PACK: MarketPack = {
       value: 0.15,
       unit: "g/100 mL as acetic acid",
       condition: "white wine from unameliorated juice of 28 °Brix or more",
-      applies: (p) => p.colour !== "red" && p.usHighBrixJuice === true,
+      applies: part4((p) => p.colour !== "red" && p.usHighBrixJuice === true),
       citation: { document: "27 CFR", article: "§ 4.21(a)(1)(iv)", edition: "4-1-19" },
       confirmed: "read in the source",
     },
@@ -57,8 +61,8 @@ export const US_PACK: MarketPack = {
       side: "max",
       value: 350,
       unit: "ppm",
-      condition: "finished wine",
-      applies: () => true,
+      condition: "finished wine of 7 to 24 % vol (27 CFR 4.6)",
+      applies: part4(() => true),
       citation: { document: "27 CFR", article: "§ 4.22(b)(1)", edition: "April 1, 2004" },
       confirmed: "read in the source",
     },

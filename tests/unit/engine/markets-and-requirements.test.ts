@@ -66,6 +66,16 @@ describe("other EU, US, OIV and scheme limits", () => {
     expect(only("US", whiteOffDry, "volatile_acidity")[0]!.statedValue).toBe(0.12);
   });
 
+  it("when a wine is outside 7–24 % vol, then 27 CFR part 4's limits do not apply; at 7 and 24 they do (27 CFR 4.6: 'not less than 7 percent and not more than 24 percent')", () => {
+    for (const [abv, applies] of [[6.9, false], [7, true], [24, true], [24.1, false]] as const) {
+      expect([abv, only("US", { ...redDry, alcoholPercentVol: abv }, "volatile_acidity").length > 0]).toEqual([abv, applies]);
+      expect([abv, only("US", { ...redDry, alcoholPercentVol: abv }, "total_so2").length > 0]).toEqual([abv, applies]);
+    }
+    // Without an alcoholic strength the scope cannot be decided: the rule is undetermined, not applied.
+    const { alcoholPercentVol: _a, ...noAbv } = redDry;
+    expect(applicableLimits(["US"], noAbv, { parameter: "total_so2" }).undetermined[0]!.missing).toEqual(["alcoholPercentVol"]);
+  });
+
   it("when CO2 in a US still wine is checked, then 0.392 + 0.009 g/100 mL, cited to 27 CFR 24.245 (26.222 covers Puerto Rico and the Virgin Islands only)", () => {
     const co2 = only("US", redDry, "carbon_dioxide")[0]!;
     expect(co2.value).toBeCloseTo(4.01, 10);
