@@ -110,7 +110,7 @@ export function judgeRow(judge: Judge, row: RequirementView, stage: AnalysisStag
     guardBand: v.guardBand,
     conformanceProbability: v.conformanceProbability,
     ruleText: v.ruleText,
-    legalLimits: req.legalLimits.map((l) => ({ market: l.market, side: l.side, value: l.value, citation: l.citation })),
+    legalLimits: req.legalLimits.map((l) => ({ market: l.market, side: l.side, value: l.value, citation: l.citation, confirmed: l.confirmed })),
   };
 }
 

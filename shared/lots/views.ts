@@ -37,7 +37,7 @@ export interface StoredVerdict {
   conformanceProbability: number | null;
   ruleText: string;
   /** Every legal limit that applies to this parameter in the lot's market, governing or not. */
-  legalLimits: { market: MarketId; side: "max" | "min"; value: number; citation: Citation }[];
+  legalLimits: { market: MarketId; side: "max" | "min"; value: number; citation: Citation; confirmed?: string }[];
 }
 
 export interface LotSummary {

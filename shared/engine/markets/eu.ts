@@ -37,14 +37,14 @@ const lead = (id: string, value: number, from: number, to: number | null, liqueu
     (p.category === "liqueur") === liqueur
       ? needs(p, ["harvestYear"], (q) => q.harvestYear >= from && (to === null || q.harvestYear <= to))
       : false,
-  citation: { document: "Commission Regulation (EU) 2023/915 (values introduced by Reg. (EU) 2021/1317)", article: "Annex I, lead in wine", edition: "2023/915 row from memory; values confirmed in secondary sources" },
-  confirmed: "secondary source",
+  citation: { document: "Commission Regulation (EU) 2023/915", article: "Annex I, lead: wine", edition: "consolidated text in force" },
+  confirmed: "citation not yet confirmed: the 2023/915 row was not read; the values (introduced by Reg. (EU) 2021/1317) were read in secondary sources",
 });
 
 export const EU_PACK: MarketPack = {
   id: "EU",
   name: "European Union",
-  version: "2026.2",
+  version: "2026.3",
   edition: "Regulations in force on 1 December 2026 as read for Cellarpact",
   rules: [
     ...so2Rules,
@@ -59,7 +59,7 @@ export const EU_PACK: MarketPack = {
         // Point 2 raises the limit only "as regards wines with a sugar content ... of not less than five grams per litre".
         applies: (p) => (p.euSo2Derogation === v ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL >= 5) : false),
         citation: { ...SO2, article: `Annex I, Part B, section A, point 2(${["c", "d", "e"][i]})` },
-        confirmed: v === 300 ? "read in the source" : "secondary source; point letter from memory",
+        confirmed: v === 300 ? "read in the source (legislation.gov.uk copy of 2019/934, Annex I Part B A.2(c))" : "citation not yet confirmed: the value was read in a secondary source, the point letter not read in the act",
       }),
     ),
     {
@@ -71,7 +71,7 @@ export const EU_PACK: MarketPack = {
       condition: "sparkling wine",
       applies: (p) => p.category === "sparkling",
       citation: { ...SO2, article: "Annex I, Part B, section A (sparkling wines)" },
-      confirmed: "secondary source",
+      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
     },
     {
       id: "eu-so2-quality-sparkling",
@@ -82,7 +82,7 @@ export const EU_PACK: MarketPack = {
       condition: "quality sparkling wine",
       applies: (p) => p.category === "quality-sparkling",
       citation: { ...SO2, article: "Annex I, Part B, section A (quality sparkling wines)" },
-      confirmed: "secondary source",
+      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
     },
     {
       id: "eu-so2-liqueur",
@@ -93,7 +93,7 @@ export const EU_PACK: MarketPack = {
       condition: "liqueur wine, sugar below 5 g/L",
       applies: (p) => (p.category === "liqueur" ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL < 5) : false),
       citation: { ...SO2, article: "Annex I, Part B, section A (liqueur wines)" },
-      confirmed: "secondary source",
+      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
     },
     {
       id: "eu-so2-liqueur-sweet",
@@ -104,7 +104,7 @@ export const EU_PACK: MarketPack = {
       condition: "liqueur wine, sugar at least 5 g/L",
       applies: (p) => (p.category === "liqueur" ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL >= 5) : false),
       citation: { ...SO2, article: "Annex I, Part B, section A (liqueur wines)" },
-      confirmed: "secondary source",
+      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
     },
     {
       id: "eu-va-white",
@@ -114,8 +114,8 @@ export const EU_PACK: MarketPack = {
       unit: "meq/L",
       condition: "white and rosé wine",
       applies: (p) => p.colour !== "red",
-      citation: { document: "Commission Delegated Regulation (EU) 2019/934", article: "Annex I, Part C (volatile acid content; part letter from memory)", edition: "OJ L 149, 7.6.2019" },
-      confirmed: "secondary source (UK SI 2011/2936 Sch. 2 repeats 18/18/20 meq/L)",
+      citation: { document: "Commission Delegated Regulation (EU) 2019/934", article: "Annex I, Part C (volatile acid content)", edition: "OJ L 149, 7.6.2019" },
+      confirmed: "citation not yet confirmed: the part letter was not read in the act; the values were read in UK SI 2011/2936 Sch. 2, which repeats 18/18/20 meq/L",
     },
     {
       id: "eu-va-red",
@@ -125,8 +125,8 @@ export const EU_PACK: MarketPack = {
       unit: "meq/L",
       condition: "red wine",
       applies: (p) => p.colour === "red",
-      citation: { document: "Commission Delegated Regulation (EU) 2019/934", article: "Annex I, Part C (volatile acid content; part letter from memory)", edition: "OJ L 149, 7.6.2019" },
-      confirmed: "secondary source (UK SI 2011/2936 Sch. 2 repeats 18/18/20 meq/L)",
+      citation: { document: "Commission Delegated Regulation (EU) 2019/934", article: "Annex I, Part C (volatile acid content)", edition: "OJ L 149, 7.6.2019" },
+      confirmed: "citation not yet confirmed: the part letter was not read in the act; the values were read in UK SI 2011/2936 Sch. 2, which repeats 18/18/20 meq/L",
     },
     {
       id: "eu-ta-min",
@@ -137,7 +137,7 @@ export const EU_PACK: MarketPack = {
       condition: "wine",
       applies: () => true,
       citation: { document: "Regulation (EU) No 1308/2013", article: "Annex VII, Part II, point 1", edition: "OJ L 347, 20.12.2013" },
-      confirmed: "secondary source",
+      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
     },
     lead("eu-lead-2001", 0.2, 2001, 2015, false),
     lead("eu-lead-2016", 0.15, 2016, 2021, false),
@@ -152,8 +152,8 @@ export const EU_PACK: MarketPack = {
       condition: "wine below 15 % vol other than liqueur wine, from the 2005 harvest",
       applies: (p) =>
         p.category === "liqueur" ? false : needs(p, ["harvestYear", "alcoholPercentVol"], (q) => q.harvestYear >= 2005 && q.alcoholPercentVol < 15),
-      citation: { document: "Commission Regulation (EC) No 123/2005 (now Reg. (EU) 2023/915, from memory)", article: "Annex, point 2.2.4, footnotes b and d", edition: "OJ L 25, 28.1.2005" },
-      confirmed: "read in the source (123/2005)",
+      citation: { document: "Commission Regulation (EU) 2023/915", article: "Annex I, ochratoxin A: wine", edition: "consolidated text in force" },
+      confirmed: "citation not yet confirmed: the value was read in the repealed Reg. (EC) No 123/2005, Annex point 2.2.4 (footnotes b and d); the 2023/915 row was not read",
     },
   ],
 };

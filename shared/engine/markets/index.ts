@@ -96,3 +96,6 @@ export function applicableLimits(
 }
 
 export type { MarketId, MarketPack, WineProfile } from "./types.ts";
+
+/** A rule's citation has been read in the published text itself, not only in a secondary source. */
+export const citationConfirmed = (confirmed: string | undefined) => !!confirmed && confirmed.startsWith("read in the source");

@@ -40,12 +40,12 @@ export const UK_QWS_PACK: MarketPack = {
   ],
 };
 
-const CN = { document: "Wine Australia export advice on China's import checks (standard GB 15037, from memory)", article: "sugar-free extract and manganese", edition: "as quoted in 2019" };
+const CN = { document: "Wine Australia export advice on China's import checks", article: "sugar-free extract", edition: "as quoted in 2019" };
 
 export const CN_PACK: MarketPack = {
   id: "CN",
   name: "China (import checks)",
-  version: "2026.1",
+  version: "2026.2",
   edition: "Import-check values as published in exporters' advice",
   rules: (["white", "rose", "red"] as const).map((colour) => ({
     id: `cn-sfe-${colour}`,
@@ -56,7 +56,7 @@ export const CN_PACK: MarketPack = {
     condition: `${colour === "rose" ? "rosé" : colour} wine`,
     applies: (p) => p.colour === colour,
     citation: CN,
-    confirmed: "secondary source",
+    confirmed: "citation not yet confirmed: read in exporters' advice; the national standard it quotes (GB 15037) was not read",
   })),
 };
 

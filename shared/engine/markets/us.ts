@@ -20,7 +20,7 @@ export const US_PACK: MarketPack = {
       condition: "natural red grape wine, volatile acidity calculated as acetic acid exclusive of sulfur dioxide",
       applies: part4((p) => p.colour === "red" && p.usHighBrixJuice !== true),
       citation: { document: "27 CFR", article: "§ 4.21(a)(1)(iv)", edition: "4-1-19" },
-      confirmed: "read in the source (OCR copy; 'red' restored from memory)",
+      confirmed: "read in the source (an OCR copy whose word 'red' was unreadable and is inferred from the paragraph's structure)",
     },
     {
       id: "us-va-white",
@@ -77,7 +77,7 @@ export const US_PACK: MarketPack = {
       applies: (p) => p.category === "still",
       // § 26.222 holds the same words but governs wine from Puerto Rico and the Virgin Islands only; § 24.245 governs wine generally.
       citation: { document: "27 CFR", article: "§ 24.245 (use of carbon dioxide in still wine)", edition: "current" },
-      confirmed: "§ 24.245's title and its cross-reference from § 24.319 read; the 0.392 + 0.009 g/100 mL values read in the identical § 26.222(a) text",
+      confirmed: "citation not yet confirmed: § 24.245's title and its cross-reference from § 24.319 read; the 0.392 + 0.009 g/100 mL values read in the identical § 26.222(a) text",
     },
   ],
 };

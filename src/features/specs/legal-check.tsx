@@ -1,5 +1,5 @@
 /** The live check beside a row: the destination markets' limits with citations, which bound governs, and warnings. */
-import { buildRequirement, RequirementError, UNITS, type BuyerRequirement, type GoverningRequirement, type MarketId, type WineProfile } from "../../../shared/engine/index.ts";
+import { buildRequirement, citationConfirmed, RequirementError, UNITS, type BuyerRequirement, type GoverningRequirement, type MarketId, type WineProfile } from "../../../shared/engine/index.ts";
 
 const num = (x: number) => String(Number(x.toPrecision(5)));
 
@@ -26,6 +26,7 @@ export function LegalCheck({ row, markets, profile }: { row: BuyerRequirement; m
           <span className="block font-normal text-ink-500">
             {l.citation.document}, {l.citation.article}
           </span>
+          {!citationConfirmed(l.confirmed) && <span className="block font-normal text-ochre-700">Citation not yet confirmed: {l.confirmed.replace(/^citation not yet confirmed: /, "")}</span>}
         </p>
       ))}
       {governing.map((g) =>

@@ -5,6 +5,8 @@
 import { describe, expect, it } from "vitest";
 import {
   applicableLimits,
+  citationConfirmed,
+  MARKET_PACKS,
   euSparklingSugarTerms,
   euStillSugarTerms,
   sulphiteStatement,
@@ -125,5 +127,23 @@ describe("labelling boundaries worded 'more than', 'at least', 'not over'", () =
   it("when alcohol is exactly 16 %, then the still-wine class is 'not over 16%' (26 U.S.C. 5041(b))", () => {
     expect(usTaxClass(16)).toBe("not over 16%");
     expect(usTaxClass(16.01)).toBe("over 16% to 21%");
+  });
+});
+
+describe("citations people can check", () => {
+  it("when any rule of any pack is cited, then its citation never says 'from memory'; an unconfirmed one says why in its confirmation note", () => {
+    for (const pack of Object.values(MARKET_PACKS)) {
+      for (const rule of pack.rules) {
+        const text = `${rule.citation.document} ${rule.citation.article} ${rule.citation.edition}`;
+        expect([rule.id, /from memory/i.test(text)]).toEqual([rule.id, false]);
+        expect([rule.id, citationConfirmed(rule.confirmed) || rule.confirmed.length > 20]).toEqual([rule.id, true]);
+      }
+    }
+  });
+
+  it("when a contaminant limit is cited, then it names the regulation in force, EU 2023/915, not a repealed act", () => {
+    for (const rule of MARKET_PACKS.EU.rules.filter((r) => r.parameter === "lead" || r.parameter === "ochratoxin_a")) {
+      expect([rule.id, rule.citation.document]).toEqual([rule.id, "Commission Regulation (EU) 2023/915"]);
+    }
   });
 });
