@@ -24,6 +24,7 @@ import {
 } from "../engine/index.ts";
 import { wineProfile, type WineFacts } from "../specs/profile.ts";
 import type { RequirementView } from "../specs/views.ts";
+import type { WineProfile } from "../engine/index.ts";
 import { specStageFor, type AnalysisStage } from "./vocabulary.ts";
 import type { StoredBound, StoredVerdict } from "./views.ts";
 
@@ -74,13 +75,34 @@ export interface Judge {
   markets: MarketId[];
   built: Map<string, GoverningRequirement>;
   rows: readonly RequirementView[];
+  profile: WineProfile;
+  /** The sample's density at 20 °C in g/mL, when its analysis measured one; mg/kg limits and results use it alike. */
+  densityGPerMl?: number;
 }
 
 export function judgeFor(ctx: JudgeContext): Judge {
   const markets = judgedMarkets(ctx.lot.market, ctx.wine.markets);
   const profile = wineProfile(ctx.wine, ctx.lot.vintage);
   const rows = ctx.requirements ?? [];
-  return { markets, rows, built: new Map(rows.map((r) => [r.parameter, buildRequirement(r, markets, profile)])) };
+  return { markets, rows, profile, built: new Map(rows.map((r) => [r.parameter, buildRequirement(r, markets, profile)])) };
+}
+
+/** The same judge for one sample of measured density: every row built again with it (once per density, for a batch). */
+const BY_DENSITY = new WeakMap<Judge, Map<number, Judge>>();
+function withDensity(judge: Judge, densityGPerMl: number): Judge {
+  let cache = BY_DENSITY.get(judge);
+  if (!cache) BY_DENSITY.set(judge, (cache = new Map()));
+  let j = cache.get(densityGPerMl);
+  if (!j) cache.set(densityGPerMl, (j = { ...judge, densityGPerMl, built: new Map(judge.rows.map((r) => [r.parameter, buildRequirement(r, judge.markets, judge.profile, { densityGPerMl })])) }));
+  return j;
+}
+
+/** The density the analysis measured, in g/mL; undefined when it has none. */
+function measuredDensity(results: readonly ReadResult[]): number | undefined {
+  const d = results.find((r) => r.parameter === "density" && r.reading?.kind === "value");
+  if (!d || d.reading?.kind !== "value") return undefined;
+  const g = convert(d.reading.value, d.unit as UnitId, "g/mL");
+  return g > 0.5 && g < 2 ? g : undefined;
 }
 
 function storedBound(b: GoverningBound | undefined): StoredBound | null {
@@ -91,7 +113,7 @@ function storedBound(b: GoverningBound | undefined): StoredBound | null {
 /** The verdict of one spec row, given the result for it (or none). */
 export function judgeRow(judge: Judge, row: RequirementView, stage: AnalysisStage, result: ReadResult | undefined): StoredVerdict {
   const req = judge.built.get(row.parameter)!;
-  const input = result?.reading ? { reading: result.reading, unit: result.unit as UnitId, uncertainty: result.uncertainty } : null;
+  const input = result?.reading ? { reading: result.reading, unit: result.unit as UnitId, uncertainty: result.uncertainty, ...(judge.densityGPerMl ? { densityGPerMl: judge.densityGPerMl } : {}) } : null;
   const v = evaluate(req, input, { requiredAtStage: row.stages.includes(specStageFor(stage)), displayUnit: row.unit as UnitId });
   return {
     parameter: row.parameter,
@@ -143,7 +165,9 @@ export interface Judgement {
  * Judges one analysis. `onlyReported` is for an independent audit, which speaks only for the
  * parameters ordered: the spec's other rows are then not "missing" from it.
  */
-export function judgeAnalysis(judge: Judge, stage: AnalysisStage, results: readonly ReadResult[], opts: { onlyReported?: boolean } = {}): Judgement {
+export function judgeAnalysis(judge0: Judge, stage: AnalysisStage, results: readonly ReadResult[], opts: { onlyReported?: boolean } = {}): Judgement {
+  const density = measuredDensity(results);
+  const judge = density !== undefined && density !== 1 ? withDensity(judge0, density) : judge0;
   const byParameter = new Map(results.map((r) => [r.parameter, r]));
   const rows = opts.onlyReported ? judge.rows.filter((r) => byParameter.has(r.parameter)) : judge.rows;
   const verdicts = rows.map((row) => judgeRow(judge, row, stage, byParameter.get(row.parameter)));
