@@ -48,6 +48,8 @@ export class Analysis extends Model<InferAttributes<Analysis>, InferCreationAttr
   declare auditOrderId: CreationOptional<number | null>;
   /** Set on a re-judgement: the analysis whose results it judges again against a later version. */
   declare rejudgedFromId: CreationOptional<number | null>;
+  /** How the laboratory writes numbers, when it said; its results' text is always read with it. */
+  declare numberFormat: CreationOptional<"point" | "comma" | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -64,6 +66,7 @@ export class Analysis extends Model<InferAttributes<Analysis>, InferCreationAttr
         submittedBy: { type: DataTypes.INTEGER, allowNull: true },
         auditOrderId: { type: DataTypes.INTEGER, allowNull: true },
         rejudgedFromId: { type: DataTypes.INTEGER, allowNull: true },
+        numberFormat: { type: DataTypes.STRING(5), allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

@@ -3,7 +3,7 @@
  * headers or from their own column, "value ± U" cells, and row-by-row errors. Parsing the file
  * itself is papaparse's job; this module only sees rows of strings.
  */
-import { acceptsUnit, findParameter, implausibility, isUnit, parseDecimal, parseReading, PARAMETERS, type UnitId } from "../engine/index.ts";
+import { acceptsUnit, findParameter, implausibility, isUnit, parseDecimal, parseReading, PARAMETERS, type NumberFormat, type UnitId } from "../engine/index.ts";
 import { foldHeader, parameterForHeaderName } from "./header-synonyms.ts";
 import { resultEntrySchema, type ResultEntry } from "./schemas.ts";
 
@@ -164,14 +164,14 @@ export function buildSamples(
   headers: readonly string[],
   rows: readonly (readonly string[])[],
   mapping: readonly ColumnRole[],
-  defaults: { sampleDate: string },
+  defaults: { sampleDate: string; numberFormat?: NumberFormat | null },
 ): { samples: ImportSample[]; errors: RowError[]; implausible: RowError[] } {
   const errors: RowError[] = [];
   // Values read fine but outside what wine can be: held back until someone confirms them.
   const implausible: RowError[] = [];
   let rowFlags: RowError[] = [];
   const check = (r: ResultEntry, rowNo: number, column: string | null) => {
-    const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" });
+    const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence", ...(defaults.numberFormat ? { numberFormat: defaults.numberFormat } : {}) });
     const why = parsed.ok ? implausibility(r.parameter, parsed.reading, r.unit) : null;
     if (why) rowFlags.push({ row: rowNo, column, message: why });
   };
@@ -270,4 +270,24 @@ export function buildSamples(
     byKey.set(key, sample);
   });
   return { samples: [...byKey.values()], errors, implausible };
+}
+
+/** A number with one mark followed by exactly three digits ("1.234", "12,500") reads two ways. */
+const TWO_WAYS = /^[+-]?[1-9]\d{0,2}[.,]\d{3}$/;
+
+/**
+ * Result cells that read two ways unless the laboratory's number format is known; the import asks
+ * for the format once per file when there is any. Returns up to `max` examples.
+ */
+export function ambiguousNumbers(rows: readonly (readonly string[])[], mapping: readonly ColumnRole[], max = 5): string[] {
+  const cols = mapping.flatMap((m, c) => (m.kind === "parameter" || m.kind === "value" ? [c] : []));
+  const found: string[] = [];
+  for (const row of rows) {
+    for (const c of cols) {
+      const cell = splitPlusMinus((row[c] ?? "").trim()).raw.replace(/^[<>≤≥]=?\s*/, "");
+      if (TWO_WAYS.test(cell) && !found.includes(cell)) found.push(cell);
+      if (found.length >= max) return found;
+    }
+  }
+  return found;
 }

@@ -13,6 +13,7 @@ import {
   MARKET_PACKS,
   parseReading,
   type GoverningBound,
+  type NumberFormat,
   type GoverningRequirement,
   type MarketId,
   type Outcome,
@@ -39,8 +40,9 @@ export interface ReadResult {
   error?: string;
 }
 
-export function readResult(r: { parameter: string; raw: string; unit: string; uncertainty?: ReportedUncertainty | null }): ReadResult {
-  const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence", unit: r.unit });
+/** `numberFormat`: how the laboratory writes numbers, when it said; it decides a number that reads two ways ("1.234"). */
+export function readResult(r: { parameter: string; raw: string; unit: string; uncertainty?: ReportedUncertainty | null }, numberFormat?: NumberFormat | null): ReadResult {
+  const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence", unit: r.unit, ...(numberFormat ? { numberFormat } : {}) });
   const base = { parameter: r.parameter, raw: r.raw, unit: r.unit, uncertainty: r.uncertainty ?? null };
   // "0.82 ± 0.05" carries its own expanded uncertainty.
   return parsed.ok ? { ...base, uncertainty: base.uncertainty ?? parsed.uncertainty ?? null, reading: parsed.reading } : { ...base, reading: null, error: parsed.error };

@@ -54,10 +54,15 @@ const uniqueParameters = (results: { parameter: string }[], ctx: z.RefinementCtx
   });
 };
 
+/** How a laboratory writes numbers: "point" for 1,234.5, "comma" for 1.234,5. */
+export const NUMBER_FORMATS = ["point", "comma"] as const;
+export const NUMBER_FORMAT_LABELS: Record<(typeof NUMBER_FORMATS)[number], string> = { point: "1,234.5 (point for decimals)", comma: "1.234,5 (comma for decimals)" };
+
 const analysisHeader = {
   stage: z.enum(ANALYSIS_STAGES, { error: "Choose the stage." }),
   laboratoryName: z.string().trim().min(2, { error: "Name the laboratory." }).max(160),
   accreditation: z.string().trim().max(60).nullish(),
+  numberFormat: z.enum(NUMBER_FORMATS, { error: "Choose how the laboratory writes numbers." }).nullish(),
 };
 
 export const idempotencyKeySchema = z.string().regex(/^[A-Za-z0-9_-]{8,100}$/, { error: "An idempotency key has 8–100 letters, digits, _ or -." });

@@ -184,3 +184,23 @@ describe("a later version and a recorded re-judgement", () => {
     expect((await producer.agent.post(P(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", producer.csrf)).status).toBe(404);
   });
 });
+
+describe("a laboratory's number format", () => {
+  it("when an import says the laboratory writes 1.234,5, then '1.200' CFU/mL is read and kept as twelve hundred; in the point format it would be 1.2", async () => {
+    const send = (lotCode: string, numberFormat: "comma" | "point") =>
+      producer.agent
+        .post(P("/contracts/1/imports"))
+        .set("x-csrf-token", producer.csrf)
+        .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Laboratoire Vauclair", numberFormat, samples: [{ lotCode, vintage: 2025, sampleDate: "2026-11-27", results: [{ parameter: "yeast_count", raw: "1.200", unit: "CFU/mL" }] }] });
+    const comma = await send(`NF-C-${tag}`, "comma");
+    const point = await send(`NF-P-${tag}`, "point");
+    expect([comma.status, point.status]).toEqual([201, 201]);
+    const reading = async (code: string) => {
+      const lot = ((await producer.agent.get(P(`/lots?q=${code}`))).body as LotSummary[])[0]!;
+      const detail = (await producer.agent.get(P(`/lots/${lot.id}`))).body as LotDetail;
+      return detail.analyses[0]!.results[0]!;
+    };
+    expect(await reading(`NF-C-${tag}`)).toMatchObject({ rawText: "1.200", reading: { kind: "value", value: 1200 } });
+    expect(await reading(`NF-P-${tag}`)).toMatchObject({ rawText: "1.200", reading: { kind: "value", value: 1.2 } });
+  });
+});

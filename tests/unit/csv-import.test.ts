@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { readCsv } from "../support/csv.ts";
-import { buildSamples, guessMapping, normaliseDate, normaliseUnit, parseHeader, splitPlusMinus } from "../../shared/lots/csv.ts";
+import { ambiguousNumbers, buildSamples, guessMapping, normaliseDate, normaliseUnit, parseHeader, splitPlusMinus } from "../../shared/lots/csv.ts";
 import { HEADER_SYNONYMS } from "../../shared/lots/header-synonyms.ts";
 import { convert, implausibility, parseReading } from "../../shared/engine/index.ts";
 
@@ -150,5 +150,14 @@ describe("CSV import: a number keeps the meaning the file gives it", () => {
     expect(implausibility("alcohol", read("12.5"), "% vol")).toBeNull();
     expect(implausibility("ph", read("33"), "pH")).not.toBeNull();
     expect(implausibility("free_so2", read("<5"), "mg/L")).toBeNull();
+  });
+});
+
+describe("CSV import: numbers that read two ways", () => {
+  it("when result cells hold a single mark followed by three digits, then the import must ask for the laboratory's number format; other numbers do not need it", () => {
+    const headers = ["Lot", "Levures (UFC/ml)", "pH"];
+    const mapping = guessMapping(headers);
+    expect(ambiguousNumbers([["L1", "1.200", "3,30"], ["L2", "0,455", "3,31"], ["L3", "< 1.500", "3,2"]], mapping)).toEqual(["1.200", "1.500"]);
+    expect(ambiguousNumbers([["L1", "120", "3,30"], ["L2", "12,5", "3,31"]], mapping)).toEqual([]);
   });
 });

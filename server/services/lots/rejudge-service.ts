@@ -28,7 +28,7 @@ export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: 
     if (analysis.evaluation?.specVersionId === governing.version.id) throw conflict(`This analysis was already judged against version ${governing.version.number}, the version in force.`);
     if (await Analysis.count({ where: { rejudgedFromId: analysis.id }, transaction: t })) throw conflict("This analysis has already been re-judged; see the re-judgement on the lot.");
     const results = analysis.results.map((r) => ({ parameter: r.parameter, raw: r.rawText, unit: r.unit as UnitId, uncertainty: (r.uncertainty as ReportedUncertainty | null) ?? null, method: r.method }));
-    const stored = await storeAnalyses(t, contract, user.id, { stage: analysis.stage, laboratoryName: analysis.laboratoryName, accreditation: analysis.accreditation, actingOrgId: orgId, rejudgedFromId: analysis.id }, [
+    const stored = await storeAnalyses(t, contract, user.id, { stage: analysis.stage, laboratoryName: analysis.laboratoryName, accreditation: analysis.accreditation, actingOrgId: orgId, rejudgedFromId: analysis.id, numberFormat: analysis.numberFormat ?? null }, [
       { lot, sampleDate: analysis.sampleDate, results },
     ]);
     const id = stored.analysisIds[0]!;

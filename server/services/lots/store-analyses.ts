@@ -27,6 +27,8 @@ export interface AnalysisHeader {
   actingOrgId?: number;
   /** Set when the results are those of an earlier analysis, judged again against the version now in force. */
   rejudgedFromId?: number | null;
+  /** How the laboratory writes numbers; kept with the analysis so its text always reads the same. */
+  numberFormat?: "point" | "comma" | null;
 }
 
 export interface SampleToStore {
@@ -51,7 +53,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
   };
   for (const s of samples) await governing(s.lot.vintage);
   // Each result is read once: the stored reading and the verdict come from the same parse.
-  const read: ReadResult[][] = samples.map((s) => s.results.map(readResult));
+  const read: ReadResult[][] = samples.map((s) => s.results.map((r) => readResult(r, header.numberFormat)));
 
   const analyses = await Analysis.bulkCreate(
     samples.map((s) => ({
@@ -64,6 +66,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
       submittedBy: userId,
       auditOrderId: header.auditOrderId ?? null,
       rejudgedFromId: header.rejudgedFromId ?? null,
+      numberFormat: header.numberFormat ?? null,
     })),
     { transaction: t },
   );

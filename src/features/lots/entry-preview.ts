@@ -31,5 +31,5 @@ export const judgeForLot = (lot: Pick<LotDetail, "contract" | "vintage" | "marke
   judgeFor({ wine: lot.contract.wine, lot: { vintage: lot.vintage, market: lot.market }, requirements: lot.governing?.requirements ?? null });
 
 export function previewJudgement(judge: Judge, stage: AnalysisStage, results: readonly ResultEntry[]): Judgement {
-  return judgeAnalysis(judge, stage, results.map(readResult));
+  return judgeAnalysis(judge, stage, results.map((r) => readResult(r)));
 }

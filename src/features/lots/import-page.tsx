@@ -14,8 +14,10 @@ import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { CsvMapping } from "./csv-mapping.tsx";
-import { buildSamples, guessMapping, type ColumnRole } from "../../../shared/lots/csv.ts";
-import { IMPORT_BATCH_MAX } from "../../../shared/lots/schemas.ts";
+import { ambiguousNumbers, buildSamples, guessMapping, type ColumnRole } from "../../../shared/lots/csv.ts";
+import { IMPORT_BATCH_MAX, NUMBER_FORMATS, NUMBER_FORMAT_LABELS } from "../../../shared/lots/schemas.ts";
+import type { NumberFormat } from "../../../shared/engine/index.ts";
+import { rememberedFormat, rememberFormat } from "./number-format-memory.ts";
 import { ANALYSIS_STAGES, ANALYSIS_STAGE_LABELS, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 import type { ImportResult } from "../../../shared/lots/views.ts";
@@ -48,7 +50,22 @@ export function ImportPage() {
   const [error, setError] = useState<string | null>(null);
   const [confirmed, setConfirmed] = useState(false);
 
-  const preview = useMemo(() => (parsed ? buildSamples(parsed.headers, parsed.rows, mapping, { sampleDate }) : null), [parsed, mapping, sampleDate]);
+  const [numberFormat, setNumberFormat] = useState<NumberFormat | "">("");
+  const ambiguous = useMemo(() => (parsed ? ambiguousNumbers(parsed.rows, mapping) : []), [parsed, mapping]);
+  const preview = useMemo(
+    () => (parsed ? buildSamples(parsed.headers, parsed.rows, mapping, { sampleDate, numberFormat: numberFormat || null }) : null),
+    [parsed, mapping, sampleDate, numberFormat],
+  );
+  // Once a laboratory's number format is known, it is remembered for its next file.
+  const chooseLab = (name: string) => {
+    setLab(name);
+    const known = rememberedFormat(name);
+    if (known) setNumberFormat(known);
+  };
+  const chooseFormat = (f: NumberFormat | "") => {
+    setNumberFormat(f);
+    if (f && lab.trim()) rememberFormat(lab, f);
+  };
 
   const readFile = (file: File) => {
     setParsed(null);
@@ -79,13 +96,14 @@ export function ImportPage() {
     if (!preview) return;
     setError(null);
     const importId = crypto.randomUUID();
+    if (numberFormat && lab.trim()) rememberFormat(lab, numberFormat);
     const total = preview.samples.length;
     const summary: Outcome = { analyses: 0, lotsCreated: 0, samples: [], failing: [] };
     setSent({ done: 0, total });
     try {
       for (let i = 0; i < total; i += IMPORT_BATCH_MAX) {
         const batch = preview.samples.slice(i, i + IMPORT_BATCH_MAX).map(({ rows: _rows, ...s }) => s);
-        const r = await importBatch(orgId, Number(contractId), { idempotencyKey: `${importId}-${i}`, stage, laboratoryName: lab, accreditation: accreditation || null, samples: batch });
+        const r = await importBatch(orgId, Number(contractId), { idempotencyKey: `${importId}-${i}`, stage, laboratoryName: lab, accreditation: accreditation || null, numberFormat: numberFormat || null, samples: batch });
         summary.analyses += r.analyses;
         summary.lotsCreated += r.lotsCreated;
         summary.samples.push(...r.samples);
@@ -113,7 +131,7 @@ export function ImportPage() {
               <input id="csv-file" type="file" accept=".csv,text/csv,.txt" onChange={(e) => e.target.files?.[0] && readFile(e.target.files[0])} />
             </div>
             <SelectField label="Stage" value={stage} onChange={(e) => setStage(e.target.value as AnalysisStage)} options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))} />
-            <TextField label="Laboratory" value={lab} onChange={(e) => setLab(e.target.value)} />
+            <TextField label="Laboratory" value={lab} onChange={(e) => chooseLab(e.target.value)} />
             <TextField label="Accreditation number" value={accreditation} onChange={(e) => setAccreditation(e.target.value)} />
             <TextField label="Sample date when the file has none" type="date" value={sampleDate} onChange={(e) => setSampleDate(e.target.value)} />
           </div>
@@ -162,6 +180,21 @@ export function ImportPage() {
                 </tbody>
               </table>
             )}
+            {ambiguous.length > 0 && (
+              <div className="mb-4 flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 p-3 text-sm">
+                <p className="font-semibold text-ochre-700">
+                  Some numbers read two ways ({ambiguous.join(", ")}): a thousands separator or three decimals. How does {lab.trim() || "this laboratory"} write numbers?
+                </p>
+                <div className="max-w-sm">
+                  <SelectField
+                    label="The laboratory's number format"
+                    value={numberFormat}
+                    onChange={(e) => chooseFormat(e.target.value as NumberFormat | "")}
+                    options={[{ value: "", label: "Choose…" }, ...NUMBER_FORMATS.map((f) => ({ value: f, label: NUMBER_FORMAT_LABELS[f] }))]}
+                  />
+                </div>
+              </div>
+            )}
             {preview.implausible.length > 0 && (
               <div className="mb-4 flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 p-3 text-sm">
                 <p className="font-semibold text-ochre-700">{preview.implausible.length === 1 ? "1 value looks implausible" : `${preview.implausible.length} values look implausible`}: check the unit of each column before sending.</p>
@@ -175,7 +208,7 @@ export function ImportPage() {
                 </label>
               </div>
             )}
-            <Button onClick={() => void send()} disabled={busy || preview.samples.length === 0 || lab.trim().length < 2 || (preview.implausible.length > 0 && !confirmed)}>
+            <Button onClick={() => void send()} disabled={busy || preview.samples.length === 0 || lab.trim().length < 2 || (preview.implausible.length > 0 && !confirmed) || (ambiguous.length > 0 && !numberFormat)}>
               {busy ? "Importing…" : `Import ${preview.samples.length} samples`}
             </Button>
             {lab.trim().length < 2 && <p className="mt-1 text-xs text-ink-500">Name the laboratory first.</p>}
