@@ -89,7 +89,14 @@ export const PARAMETERS = [
   { id: "iron", name: "Iron", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 1, bounds: "upper", kind: "quantity", method: { ref: "OIV-MA-AS322-05A", title: "Iron", confirmed: false }, defaultUncertainty: TEN_PERCENT },
   { id: "copper", name: "Copper", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 2, bounds: "upper", kind: "quantity", method: { ref: "OIV-MA-AS322-06", title: "Copper", confirmed: false }, defaultUncertainty: TEN_PERCENT },
   { id: "lead", name: "Lead", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L", "mg/kg", "µg/kg"], digits: 3, bounds: "upper", kind: "quantity", method: { ref: "OIV-MA-AS322-12", title: "Lead", confirmed: false }, defaultUncertainty: TEN_PERCENT },
+  { id: "arsenic", name: "Arsenic", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 3, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "cadmium", name: "Cadmium", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 4, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "boron", name: "Boron (as boric acid)", group: "Metals", unit: "mg/L", units: ["mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "Expressed as boric acid, as the OIV limit is." },
+  { id: "bromine", name: "Bromine", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 2, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "excess_sodium", name: "Excess sodium", group: "Metals", unit: "mg/L", units: ["mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "Sodium beyond what the wine's chloride accounts for, as the OIV defines it (OENO 09/2007)." },
+  { id: "sulphates", name: "Sulphates (as potassium sulphate)", group: "Metals", unit: "g/L", units: ["g/L", "mg/L"], digits: 2, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "Expressed as potassium sulphate, as the OIV limit is." },
   // Dissolved gases
+  { id: "overpressure", name: "Overpressure (CO2, at 20 °C)", group: "Dissolved gases", unit: "bar", units: ["bar"], digits: 1, bounds: "both", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "For sparkling and semi-sparkling wine, measured in the closed container." },
   { id: "dissolved_oxygen", name: "Dissolved oxygen", group: "Dissolved gases", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 2, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "carbon_dioxide", name: "Carbon dioxide", group: "Dissolved gases", unit: "g/L", units: ["g/L", "mg/L", "g/100 mL"], digits: 2, bounds: "both", kind: "quantity", method: { ref: "OIV-MA-AS314-01", title: "Carbon dioxide", confirmed: false }, defaultUncertainty: TEN_PERCENT },
   // Microbiology
@@ -100,6 +107,7 @@ export const PARAMETERS = [
   { id: "tca", name: "2,4,6-Trichloroanisole (TCA)", group: "Taints and contaminants", unit: "ng/L", units: ["ng/L"], digits: 1, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "ethylphenol_4", name: "4-Ethylphenol", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "ethylguaiacol_4", name: "4-Ethylguaiacol", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "ethyl_carbamate", name: "Ethyl carbamate", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "methanol", name: "Methanol", group: "Taints and contaminants", unit: "mg/L", units: ["mg/L", "g/L"], digits: 0, bounds: "upper", kind: "quantity", method: { ref: "OIV-MA-AS312-03A", title: "Methanol", confirmed: false }, defaultUncertainty: TEN_PERCENT },
   { id: "ochratoxin_a", name: "Ochratoxin A", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "µg/kg", "ng/L"], digits: 2, bounds: "upper", kind: "quantity", method: { ref: "OIV-MA-AS315-10", title: "Ochratoxin A", confirmed: false }, defaultUncertainty: TEN_PERCENT },
 ] as const satisfies readonly ParameterDef[];

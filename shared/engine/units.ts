@@ -29,6 +29,7 @@ export const UNITS = {
   "g/mL": { dimension: "density", toGPerMl: 1, label: "g/mL" },
   "kg/m³": { dimension: "density", toGPerMl: 0.001, label: "kg/m³" },
   "%": { dimension: "percent", label: "%" },
+  bar: { dimension: "pressure", label: "bar" },
   presence: { dimension: "presence", label: "present / absent" },
 } as const;
 

@@ -17,11 +17,16 @@ const simple = (id: string, parameter: LegalLimitRule["parameter"], value: numbe
 export const OIV_PACK: MarketPack = {
   id: "OIV",
   name: "OIV maximum acceptable limits",
-  version: "2026.2",
+  version: "2026.3",
   edition: "OIV-MA-C1-01, 2019 issue",
   rules: [
     simple("oiv-va", "volatile_acidity", 20, "meq/L", "volatile acidity"),
     simple("oiv-citric", "citric_acid", 1, "g/L", "citric acid"),
+    simple("oiv-arsenic", "arsenic", 0.2, "mg/L", "arsenic"),
+    simple("oiv-boron", "boron", 80, "mg/L", "boron (expressed as boric acid)"),
+    simple("oiv-bromine", "bromine", 1, "mg/L", "bromine", "all wines; the text allows it to be exceeded, by way of exception, in wines from certain vineyards with a brackish subsoil"),
+    simple("oiv-cadmium", "cadmium", 0.01, "mg/L", "cadmium"),
+    simple("oiv-excess-sodium", "excess_sodium", 80, "mg/L", "excess sodium (OENO 09/2007)"),
     {
       ...simple("oiv-copper", "copper", 1, "mg/L", "copper (OIV-OENO 434-2011)", "wines other than liqueur wines from unfermented or slightly fermented must"),
       // The 2 mg/L limit is for one kind of liqueur wine only; every other wine, liqueur wines included, keeps 1 mg/L.
