@@ -13,9 +13,9 @@ const now = new Date("2026-11-20T09:00:00Z");
 const stamps = { created_at: now, updated_at: now };
 
 const WINES = [
-  { id: 1, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Blanc", colour: "white", category: "still", region: "Loire Valley", markets: ["EU", "OIV"], nominal_sugar_g_per_l: 2.5, nominal_alcohol_percent_vol: 12.5 },
-  { id: 2, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Rouge", colour: "red", category: "still", region: "Loire Valley", markets: ["EU", "OIV"], nominal_sugar_g_per_l: 1.8, nominal_alcohol_percent_vol: 13 },
-  { id: 3, retailer_org_id: 1, producer_org_id: 3, name: "Kestrel Flats Shiraz (bulk)", colour: "red", category: "still", region: "Riverland, South Australia", markets: ["EU", "OIV"], nominal_sugar_g_per_l: 3.2, nominal_alcohol_percent_vol: 14 },
+  { id: 1, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Blanc", colour: "white", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 2.5, nominal_alcohol_percent_vol: 12.5 },
+  { id: 2, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Rouge", colour: "red", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 1.8, nominal_alcohol_percent_vol: 13 },
+  { id: 3, retailer_org_id: 1, producer_org_id: 3, name: "Kestrel Flats Shiraz (bulk)", colour: "red", category: "still", region: "Riverland, South Australia", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 3.2, nominal_alcohol_percent_vol: 14 },
   { id: 4, retailer_org_id: 1, producer_org_id: 4, name: "Valsorda Rosato Frizzante", colour: "rose", category: "semi-sparkling", region: "Veneto", markets: ["EU", "US"], nominal_sugar_g_per_l: 9, nominal_alcohol_percent_vol: 11 },
 ];
 
@@ -161,7 +161,7 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   let lotId = 0;
   for (const lot of LOTS) {
     lotId += 1;
-    await qi.bulkInsert("lots", [{ id: lotId, contract_id: lot.contract, vintage: lot.vintage, lot_code: lot.code, volume_litres: lot.litres, container: lot.container, planned_date: lot.date, market: "EU", ...stamps }]);
+    await qi.bulkInsert("lots", [{ id: lotId, contract_id: lot.contract, vintage: lot.vintage, lot_code: lot.code, volume_litres: lot.litres, container: lot.container, planned_date: lot.date, market: "GB", ...stamps }]);
   }
   await submitDemoAnalyses(
     qi,

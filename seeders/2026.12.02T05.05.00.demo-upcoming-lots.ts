@@ -15,9 +15,9 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   const now = new Date();
   const stamps = { created_at: now, updated_at: now };
   const lots = [
-    { contract_id: 1, vintage: 2025, lot_code: "SB-25-11", volume_litres: 12000, container: "bottles", planned_date: inDays(12), market: "EU" },
-    { contract_id: 1, vintage: 2025, lot_code: "SB-25-12", volume_litres: 9000, container: "bottles", planned_date: inDays(30), market: "EU" },
-    { contract_id: 3, vintage: 2025, lot_code: "KF-SH-25-F1", volume_litres: 24000, container: "flexitank", planned_date: inDays(21), market: "EU" },
+    { contract_id: 1, vintage: 2025, lot_code: "SB-25-11", volume_litres: 12000, container: "bottles", planned_date: inDays(12), market: "GB" },
+    { contract_id: 1, vintage: 2025, lot_code: "SB-25-12", volume_litres: 9000, container: "bottles", planned_date: inDays(30), market: "GB" },
+    { contract_id: 3, vintage: 2025, lot_code: "KF-SH-25-F1", volume_litres: 24000, container: "flexitank", planned_date: inDays(21), market: "GB" },
   ];
   for (const lot of lots) await qi.bulkInsert("lots", [{ ...lot, ...stamps }]);
   const TROIS_SENTES = "elise.carbonnel@troissentes.test";

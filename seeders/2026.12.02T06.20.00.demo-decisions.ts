@@ -33,7 +33,7 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
     });
   }
 
-  await registerLot(elise.orgId, elise.user, { contractId: 1, vintage: 2024, lotCode: REJECTED_LOT, volumeLitres: 6000, container: "bottles", plannedDate: null, market: "EU" });
+  await registerLot(elise.orgId, elise.user, { contractId: 1, vintage: 2024, lotCode: REJECTED_LOT, volumeLitres: 6000, container: "bottles", plannedDate: null, market: "GB" });
   await submitDemoAnalyses(qi, [
     {
       lotCode: REJECTED_LOT,

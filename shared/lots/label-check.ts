@@ -74,41 +74,45 @@ export function labelCheck(input: LabelCheckInput): LabelCheckLine[] {
       lines.push({ topic: "Alcohol on the label", market, status: "info", text: `27 CFR part 4 does not apply: it covers wine of 7 to 24 % vol, and this one has ${displayValue("alcohol", abv, "% vol")} % vol.`, citation: { document: "27 CFR", article: "§ 4.6", edition: "T.D. TTB-158, 85 FR 18721 (2020)" } });
       continue;
     }
-    if (market === "EU" || market === "US") {
+    if (market === "EU" || market === "US" || market === "GB") {
+      // Great Britain kept the EU labelling rules in its retained law; the same checks apply, cited as retained.
+      const rules = market === "US" ? "US" : "EU";
+      const retained = (c: Citation): Citation => (market === "GB" ? { ...c, document: `${c.document} as retained in the law of Great Britain`, edition: "revised text on legislation.gov.uk" } : c);
       if (input.labelledAlcoholPercentVol === null || alcohol.value === null) {
         lines.push({ topic: "Alcohol on the label", market, status: "undetermined", text: input.labelledAlcoholPercentVol === null ? "Enter the labelled alcohol on the lot to check it against the analysis." : "No numeric alcohol result yet.", citation: null });
       } else {
-        const c = market === "EU" ? euAlcoholLabelCheck(input.labelledAlcoholPercentVol, alcohol.value, input.category) : usAlcoholLabelCheck(input.labelledAlcoholPercentVol, alcohol.value);
+        const c = rules === "EU" ? euAlcoholLabelCheck(input.labelledAlcoholPercentVol, alcohol.value, input.category) : usAlcoholLabelCheck(input.labelledAlcoholPercentVol, alcohol.value);
         const measured = displayValue("alcohol", alcohol.value, "% vol");
         lines.push({
           topic: "Alcohol on the label",
           market,
           status: c.withinTolerance && c.problems.length === 0 ? "ok" : "problem",
           text: c.problems.length ? c.problems.join(" ") : `Label ${input.labelledAlcoholPercentVol} % vol, analysis ${measured} % vol: within ±${c.tolerance} (${c.allowed.min}–${c.allowed.max} % vol).`,
-          citation: c.citation,
+          citation: retained(c.citation),
         });
       }
-      const s = sulphiteStatement(market, total.reading ?? { kind: "presence", present: true });
+      const s = sulphiteStatement(rules, total.reading ?? { kind: "presence", present: true });
       lines.push({
         topic: "Sulphite statement",
         market,
         status: total.reading === null || s.required === "undetermined" ? "undetermined" : "info",
         text: total.reading === null ? "No total SO2 result yet." : s.required === "undetermined" ? `Undetermined: ${s.reason}.` : s.required ? `Required: "${s.wording}" (${s.reason}).` : `Not required (${s.reason}).`,
-        citation: s.citation,
+        citation: retained(s.citation),
       });
     } else {
       lines.push({ topic: "Sulphite statement", market, status: "undetermined", text: `Cellarpact has no labelling rules for ${market}; follow that market's regulation.`, citation: null });
     }
   }
 
-  if (input.markets.includes("EU")) {
+  const sugarMarket = input.markets.find((m) => m === "EU" || m === "GB");
+  if (sugarMarket) {
     if (sugar.value === null) {
-      lines.push({ topic: "Sugar-content term", market: "EU", status: "undetermined", text: "No numeric residual sugar result yet.", citation: null });
+      lines.push({ topic: "Sugar-content term", market: sugarMarket, status: "undetermined", text: "No numeric residual sugar result yet.", citation: null });
     } else {
       const sparkling = input.category === "sparkling" || input.category === "quality-sparkling";
       const terms = sparkling ? euSparklingSugarTerms(sugar.value) : euStillSugarTerms(sugar.value, acidity.value ?? undefined);
       const at = `${displayValue("residual_sugar", sugar.value, "g/L")} g/L sugar${!sparkling && acidity.value !== null ? `, ${displayValue("total_acidity", acidity.value, "g/L as tartaric acid")} g/L total acidity as tartaric acid` : ""}`;
-      lines.push({ topic: "Sugar-content term", market: "EU", status: terms.fits.length ? "info" : "undetermined", text: `${terms.fits.length ? `May be labelled ${terms.fits.map((f) => `"${f}"`).join(" or ")}` : "No term fits"} at ${at}.${terms.note ? ` ${terms.note}` : ""}`, citation: terms.citation });
+      lines.push({ topic: "Sugar-content term", market: sugarMarket, status: terms.fits.length ? "info" : "undetermined", text: `${terms.fits.length ? `May be labelled ${terms.fits.map((f) => `"${f}"`).join(" or ")}` : "No term fits"} at ${at}.${terms.note ? ` ${terms.note}` : ""}`, citation: sugarMarket === "GB" ? { ...terms.citation, document: `${terms.citation.document} as retained in the law of Great Britain`, edition: "revised text on legislation.gov.uk" } : terms.citation });
     }
   }
   return lines;

@@ -36,6 +36,13 @@ describe("label check", () => {
     expect(lines.find((l) => l.topic === "Sulphite statement" && l.market === "US")!.text).toMatch(/^Required: "Contains sulfites"/);
   });
 
+  it("when the wine is sold in Great Britain, then the EU labelling checks apply as retained there, and say so", () => {
+    const lines = labelCheck({ category: "still", markets: ["GB"], labelledAlcoholPercentVol: 12.5, results: base });
+    expect(lines.find((l) => l.topic === "Alcohol on the label")).toMatchObject({ market: "GB", status: "ok" });
+    expect(lines.find((l) => l.topic === "Sulphite statement")!.citation!.document).toBe("Regulation (EU) No 1169/2011 as retained in the law of Great Britain");
+    expect(lines.find((l) => l.topic === "Sugar-content term")).toMatchObject({ market: "GB" });
+  });
+
   it("when a wine is under 7 % vol, then the US line says 27 CFR part 4 does not apply (27 CFR 4.6)", () => {
     const lines = labelCheck({ category: "still", markets: ["US"], labelledAlcoholPercentVol: 5.5, results: [value("alcohol", 5.5, "% vol"), value("total_so2", 40, "mg/L")] });
     expect(lines.filter((l) => l.market === "US")).toEqual([expect.objectContaining({ status: "info", text: "27 CFR part 4 does not apply: it covers wine of 7 to 24 % vol, and this one has 5.50 % vol." })]);

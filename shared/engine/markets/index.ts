@@ -7,9 +7,11 @@ import { EU_PACK } from "./eu.ts";
 import { US_PACK } from "./us.ts";
 import { OIV_PACK } from "./oiv.ts";
 import { CA_ON_PACK, CN_PACK, UK_QWS_PACK } from "./other.ts";
+import { GB_PACK } from "./gb.ts";
 
 export const MARKET_PACKS: Record<MarketId, MarketPack> = {
   EU: EU_PACK,
+  GB: GB_PACK,
   US: US_PACK,
   OIV: OIV_PACK,
   "UK-QWS": UK_QWS_PACK,

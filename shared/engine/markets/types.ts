@@ -75,7 +75,7 @@ export interface MarketPack {
   rules: readonly LegalLimitRule[];
 }
 
-export type MarketId = "EU" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON";
+export type MarketId = "EU" | "GB" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON";
 
 /** Helper for rules that need one profile field. */
 export function needs<K extends keyof WineProfile>(p: WineProfile, keys: K[], test: (p: Required<Pick<WineProfile, K>> & WineProfile) => boolean): Applicability {

@@ -3,7 +3,7 @@ import { applicableLimits, MARKET_PACKS, buildRequirement, validateBuyerRequirem
 
 const redDry: WineProfile = { colour: "red", category: "still", sugarGPerL: 2, harvestYear: 2023, alcoholPercentVol: 13.5 };
 const whiteOffDry: WineProfile = { colour: "white", category: "still", sugarGPerL: 6, harvestYear: 2024, alcoholPercentVol: 11.5 };
-const only = (market: "EU" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON", p: WineProfile, parameter: (typeof PARAMETERS)[number]["id"]) =>
+const only = (market: "EU" | "GB" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON", p: WineProfile, parameter: (typeof PARAMETERS)[number]["id"]) =>
   applicableLimits([market], p, { parameter }).limits;
 
 describe("catalogue", () => {
@@ -74,6 +74,18 @@ describe("other EU, US, OIV and scheme limits", () => {
     // Without an alcoholic strength the scope cannot be decided: the rule is undetermined, not applied.
     const { alcoholPercentVol: _a, ...noAbv } = redDry;
     expect(applicableLimits(["US"], noAbv, { parameter: "total_so2" }).undetermined[0]!.missing).toEqual(["alcoholPercentVol"]);
+  });
+
+  it("when wine is placed on the market in Great Britain, then the retained 2019/934 limits apply, cited as retained (legislation.gov.uk revised text, Annex I Part B A.1 and A.2)", () => {
+    expect(only("GB", redDry, "total_so2").map((l) => l.value)).toEqual([150]);
+    expect(only("GB", { ...whiteOffDry, sugarGPerL: 5 }, "total_so2").map((l) => l.value)).toEqual([250]);
+    expect(only("GB", { ...whiteOffDry, sugarGPerL: 60, euSo2Derogation: 300 }, "total_so2").map((l) => l.value)).toEqual([300]);
+    const so2 = only("GB", redDry, "total_so2")[0]!;
+    expect(so2.citation.document).toBe("Commission Delegated Regulation (EU) 2019/934 as retained in the law of Great Britain");
+    expect(so2.confirmed).toMatch(/^read in the source/);
+    expect(only("GB", redDry, "volatile_acidity").map((l) => l.value)).toEqual([20]);
+    // Contaminant limits are not in the GB pack yet (GB did not take over Reg. (EU) 2023/915).
+    expect(only("GB", redDry, "lead")).toEqual([]);
   });
 
   it("when CO2 in a US still wine is checked, then 0.392 + 0.009 g/100 mL, cited to 27 CFR 24.245 (26.222 covers Puerto Rico and the Virgin Islands only)", () => {

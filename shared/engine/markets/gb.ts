@@ -1,0 +1,29 @@
+/**
+ * Great Britain: wine placed on the market in England, Scotland and Wales, under the EU wine rules as
+ * they were retained and stand in GB law (the revised texts on legislation.gov.uk). The values are
+ * the EU pack's for the rules GB kept; the citations name the retained texts. Contaminant limits are
+ * not in this pack yet: GB did not take over Reg. (EU) 2023/915.
+ */
+import type { LegalLimitRule, MarketPack } from "./types.ts";
+import { EU_PACK } from "./eu.ts";
+
+const RETAINED = " as retained in the law of Great Britain";
+const KEPT = /^eu-(so2|va|ta)-/;
+
+const rules: LegalLimitRule[] = EU_PACK.rules
+  .filter((r) => KEPT.test(r.id))
+  .map((r) => ({
+    ...r,
+    id: r.id.replace(/^eu-/, "gb-"),
+    citation: { ...r.citation, document: `${r.citation.document}${RETAINED}`, edition: "revised text on legislation.gov.uk" },
+    // The SO2 points were read in the GB revised text itself; the rest keep the EU pack's notes.
+    confirmed: /^eu-so2-(red|white)-/.test(r.id) || r.id === "eu-so2-derogation-300" ? "read in the source (legislation.gov.uk revised text of 2019/934, Annex I Part B, A.1 and A.2)" : r.confirmed,
+  }));
+
+export const GB_PACK: MarketPack = {
+  id: "GB",
+  name: "Great Britain (wine placed on the market)",
+  version: "2026.1",
+  edition: "Retained EU wine law as revised on legislation.gov.uk, read for Cellarpact in December 2026",
+  rules,
+};
