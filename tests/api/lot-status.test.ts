@@ -88,7 +88,7 @@ describe("a lot's market", () => {
   it("when a producer registers or corrects a lot for a market its contract does not name, then it is refused on the market field (regression)", async () => {
     const bad = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode: `ST-US-${tag}`, volumeLitres: 100, container: "bottles", market: "US" });
     expect(bad.status).toBe(400);
-    expect(bad.body.errors).toEqual([{ path: "market", message: "Contract HG-C-2024-017 covers EU, OIV; choose one of those markets." }]);
+    expect(bad.body.errors).toEqual([{ path: "market", message: "Contract HG-C-2024-017 covers GB, EU, OIV; choose one of those markets." }]);
     const fix = await producer.agent.patch(P(`/lots/${lots.good.id}`)).set("x-csrf-token", producer.csrf).send({ volumeLitres: 9000, container: "bottles", plannedDate: null, market: "CN" });
     expect(fix.status).toBe(400);
     expect((await producer.agent.get(P(`/lots/${lots.good.id}`))).body.market).toBe("EU");
