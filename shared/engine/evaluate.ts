@@ -10,7 +10,7 @@ import { convert, UNITS, type UnitId } from "./units.ts";
 import { displayValue } from "./display.ts";
 import type { GoverningBound, GoverningRequirement } from "./requirement.ts";
 
-export const ENGINE_VERSION = "1.1.0";
+export const ENGINE_VERSION = "1.2.0";
 
 export type Outcome = Statement | "missing" | "not required" | "inconclusive";
 
