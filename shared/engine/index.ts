@@ -68,6 +68,7 @@ export { MARKET_PACKS, MARKET_IDS, MarketError, applicableLimits, citationConfir
 export type { AppliedLimit, UndeterminedLimit, MarketId, MarketPack, WineProfile } from "./markets/index.ts";
 export type { Colour, LegalLimitRule, Applicability } from "./markets/types.ts";
 export { PROFILE_FACT_LABELS } from "./markets/types.ts";
+export { retainedInGb } from "./markets/gb.ts";
 
 /** Decision rules (ISO/IEC 17025 7.8.6, ILAC-G8) and conformance probability (JCGM 106). */
 export { DEFAULT_DECISION_RULE, conformanceProbability, describeRule, guardWidth, ruleLabel, statementForSide } from "./decision.ts";

@@ -22,10 +22,10 @@ import {
   type ReportedUncertainty,
   type TransitValue,
   type UnitId,
+  type WineProfile,
 } from "../engine/index.ts";
 import { wineProfile, type WineFacts } from "../specs/profile.ts";
 import type { RequirementView } from "../specs/views.ts";
-import type { WineProfile } from "../engine/index.ts";
 import { specStageFor, type AnalysisStage } from "./vocabulary.ts";
 import type { StoredBound, StoredVerdict } from "./views.ts";
 

@@ -14,6 +14,7 @@ import {
   euStillSugarTerms,
   molecularSo2,
   quantity,
+  retainedInGb,
   sulphiteStatement,
   usAlcoholLabelCheck,
   type Citation,
@@ -77,7 +78,7 @@ export function labelCheck(input: LabelCheckInput): LabelCheckLine[] {
     if (market === "EU" || market === "US" || market === "GB") {
       // Great Britain kept the EU labelling rules in its retained law; the same checks apply, cited as retained.
       const rules = market === "US" ? "US" : "EU";
-      const retained = (c: Citation): Citation => (market === "GB" ? { ...c, document: `${c.document} as retained in the law of Great Britain`, edition: "revised text on legislation.gov.uk" } : c);
+      const retained = (c: Citation): Citation => (market === "GB" ? retainedInGb(c) : c);
       if (input.labelledAlcoholPercentVol === null || alcohol.value === null) {
         lines.push({ topic: "Alcohol on the label", market, status: "undetermined", text: input.labelledAlcoholPercentVol === null ? "Enter the labelled alcohol on the lot to check it against the analysis." : "No numeric alcohol result yet.", citation: null });
       } else {
@@ -112,7 +113,7 @@ export function labelCheck(input: LabelCheckInput): LabelCheckLine[] {
       const sparkling = input.category === "sparkling" || input.category === "quality-sparkling";
       const terms = sparkling ? euSparklingSugarTerms(sugar.value) : euStillSugarTerms(sugar.value, acidity.value ?? undefined);
       const at = `${displayValue("residual_sugar", sugar.value, "g/L")} g/L sugar${!sparkling && acidity.value !== null ? `, ${displayValue("total_acidity", acidity.value, "g/L as tartaric acid")} g/L total acidity as tartaric acid` : ""}`;
-      lines.push({ topic: "Sugar-content term", market: sugarMarket, status: terms.fits.length ? "info" : "undetermined", text: `${terms.fits.length ? `May be labelled ${terms.fits.map((f) => `"${f}"`).join(" or ")}` : "No term fits"} at ${at}.${terms.note ? ` ${terms.note}` : ""}`, citation: sugarMarket === "GB" ? { ...terms.citation, document: `${terms.citation.document} as retained in the law of Great Britain`, edition: "revised text on legislation.gov.uk" } : terms.citation });
+      lines.push({ topic: "Sugar-content term", market: sugarMarket, status: terms.fits.length ? "info" : "undetermined", text: `${terms.fits.length ? `May be labelled ${terms.fits.map((f) => `"${f}"`).join(" or ")}` : "No term fits"} at ${at}.${terms.note ? ` ${terms.note}` : ""}`, citation: sugarMarket === "GB" ? retainedInGb(terms.citation) : terms.citation });
     }
   }
   return lines;

@@ -38,7 +38,19 @@ async function statusInputs(ids: number[]) {
     }),
     Deviation.findAll({ where: { lotId: ids }, attributes: ["id", "lotId", "kind", "status", "parameters", "decision"] }),
   ]);
-  return (lotId: number) => ({ analyses: analyses.filter((a) => a.lotId === lotId) as (Analysis & StatusAnalysis)[], deviations: deviations.filter((d) => d.lotId === lotId) });
+  // Grouped once, so a list of many lots does not scan every row per lot.
+  const group = <T extends { lotId: number }>(rows: T[]) => {
+    const by = new Map<number, T[]>();
+    for (const r of rows) {
+      const list = by.get(r.lotId);
+      if (list) list.push(r);
+      else by.set(r.lotId, [r]);
+    }
+    return by;
+  };
+  const analysesBy = group(analyses as (Analysis & StatusAnalysis)[]);
+  const deviationsBy = group(deviations);
+  return (lotId: number) => ({ analyses: analysesBy.get(lotId) ?? [], deviations: deviationsBy.get(lotId) ?? [] });
 }
 
 /** One lot's status, for a caller that has already checked who may see the lot (a deviation's record, for instance). */

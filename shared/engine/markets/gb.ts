@@ -4,10 +4,13 @@
  * the EU pack's for the rules GB kept; the citations name the retained texts. Contaminant limits are
  * not in this pack yet: GB did not take over Reg. (EU) 2023/915.
  */
+import type { Citation } from "../labelling.ts";
 import type { LegalLimitRule, MarketPack } from "./types.ts";
 import { EU_PACK } from "./eu.ts";
 
-const RETAINED = " as retained in the law of Great Britain";
+/** An EU text as Great Britain kept it: the citation names the retained text and where its revised version is read. */
+export const retainedInGb = (c: Citation): Citation => ({ ...c, document: `${c.document} as retained in the law of Great Britain`, edition: "revised text on legislation.gov.uk" });
+
 const KEPT = /^eu-(so2|va|ta)-/;
 
 const rules: LegalLimitRule[] = EU_PACK.rules
@@ -15,7 +18,7 @@ const rules: LegalLimitRule[] = EU_PACK.rules
   .map((r) => ({
     ...r,
     id: r.id.replace(/^eu-/, "gb-"),
-    citation: { ...r.citation, document: `${r.citation.document}${RETAINED}`, edition: "revised text on legislation.gov.uk" },
+    citation: retainedInGb(r.citation),
     // The SO2 points were read in the GB revised text itself; the rest keep the EU pack's notes.
     confirmed: /^eu-so2-(red|white)-/.test(r.id) || r.id === "eu-so2-derogation-300" ? "read in the source (legislation.gov.uk revised text of 2019/934, Annex I Part B, A.1 and A.2)" : r.confirmed,
   }));

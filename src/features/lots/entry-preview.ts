@@ -3,7 +3,7 @@
  * form submits and judged by the same judge the server stores with, so the preview cannot disagree.
  */
 import { parseDecimal, type UnitId } from "../../../shared/engine/index.ts";
-import { judgeAnalysis, judgeFor, readResult, type Judge, type Judgement } from "../../../shared/lots/judge.ts";
+import { judgeAnalysis, judgeFor, readResult, type Judge, type Judgement, type ReadResult } from "../../../shared/lots/judge.ts";
 import type { ResultEntry } from "../../../shared/lots/schemas.ts";
 import type { AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { LotDetail } from "../../../shared/lots/views.ts";
@@ -30,6 +30,8 @@ export function entryResults(requirements: readonly RequirementView[], lines: Re
 export const judgeForLot = (lot: Pick<LotDetail, "contract" | "vintage" | "market" | "governing">): Judge =>
   judgeFor({ wine: lot.contract.wine, lot: { vintage: lot.vintage, market: lot.market }, requirements: lot.governing?.requirements ?? null });
 
-export function previewJudgement(judge: Judge, stage: AnalysisStage, results: readonly ResultEntry[]): Judgement {
-  return judgeAnalysis(judge, stage, results.map((r) => readResult(r)));
+/** The judgement, with the results as read for it: the form shows parse errors and plausibility from the same reading. */
+export function previewJudgement(judge: Judge, stage: AnalysisStage, results: readonly ResultEntry[]): Judgement & { read: readonly ReadResult[] } {
+  const read = results.map((r) => readResult(r));
+  return { ...judgeAnalysis(judge, stage, read), read };
 }

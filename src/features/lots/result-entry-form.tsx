@@ -3,7 +3,7 @@
  * verdict computed by the engine in the browser as the user types.
  */
 import { useMemo, useState } from "react";
-import { findParameter, implausibility, parseReading, UNITS, type UnitId } from "../../../shared/engine/index.ts";
+import { findParameter, implausibility, UNITS, type UnitId } from "../../../shared/engine/index.ts";
 import { analysisSubmissionSchema } from "../../../shared/lots/schemas.ts";
 import { countsText } from "../../../shared/lots/judge.ts";
 import { ANALYSIS_STAGES, ANALYSIS_STAGE_LABELS, specStageFor, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
@@ -30,7 +30,9 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
   const judge = useMemo(() => judgeForLot(lot), [lot]);
   const visible = requirements.filter((r) => r.stages.includes(specStageFor(stage)) || lines[r.parameter]?.raw);
   const results = entryResults(requirements, lines);
-  const verdictOf = new Map(previewJudgement(judge, stage, results).verdicts.map((v) => [v.parameter, v]));
+  const preview = previewJudgement(judge, stage, results);
+  const verdictOf = new Map(preview.verdicts.map((v) => [v.parameter, v]));
+  const readOf = new Map(preview.read.map((r) => [r.parameter, r]));
 
   const onSubmit = () => {
     setDone(null);
@@ -78,11 +80,12 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
             const p = findParameter(r.parameter);
             const l = lines[r.parameter]!;
             const i = results.findIndex((x) => x.parameter === r.parameter);
-            const parsed = l.raw.trim() ? parseReading(l.raw, { presence: p?.kind === "presence" }) : null;
-            const verdict = parsed?.ok ? verdictOf.get(r.parameter) : null;
-            const odd = parsed?.ok ? implausibility(r.parameter, parsed.reading, l.unit as UnitId) : null;
+            // The same reading the verdict was made from: one parse for the error, the plausibility and the verdict.
+            const read = readOf.get(r.parameter);
+            const verdict = read?.reading ? verdictOf.get(r.parameter) : null;
+            const odd = read?.reading ? implausibility(r.parameter, read.reading, read.unit as UnitId) : null;
             const set = (patch: Partial<EntryLine>) => setLines((all) => ({ ...all, [r.parameter]: { ...l, ...patch } }));
-            const error = (parsed && !parsed.ok ? parsed.error : undefined) ?? errors[`results.${i}.raw`] ?? errors[`results.${i}.unit`];
+            const error = read?.error ?? errors[`results.${i}.raw`] ?? errors[`results.${i}.unit`];
             return (
               <tr key={r.parameter} className="border-b border-line/60 align-top">
                 <td className="py-2 pr-3 font-semibold">
