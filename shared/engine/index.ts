@@ -66,8 +66,8 @@ export type { Citation, WineCategory, StillSugarTerm, SparklingSugarTerm, SugarT
 /** Market rule packs: which limits apply to this wine in this market, and why. */
 export { MARKET_PACKS, MARKET_IDS, MarketError, applicableLimits, citationConfirmed } from "./markets/index.ts";
 export type { AppliedLimit, UndeterminedLimit, MarketId, MarketPack, WineProfile } from "./markets/index.ts";
-export type { Colour, LegalLimitRule, Applicability } from "./markets/types.ts";
-export { PROFILE_FACT_LABELS } from "./markets/types.ts";
+export type { Colour, LegalLimitRule, Applicability, OivSulphateCase } from "./markets/types.ts";
+export { PROFILE_FACT_LABELS, OIV_SULPHATE_CASES } from "./markets/types.ts";
 export { retainedInGb } from "./markets/gb.ts";
 
 /** Decision rules (ISO/IEC 17025 7.8.6, ILAC-G8) and conformance probability (JCGM 106). */

@@ -94,6 +94,8 @@ export const PARAMETERS = [
   { id: "boron", name: "Boron (as boric acid)", group: "Metals", unit: "mg/L", units: ["mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "Expressed as boric acid, as the OIV limit is." },
   { id: "bromine", name: "Bromine", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 2, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "excess_sodium", name: "Excess sodium", group: "Metals", unit: "mg/L", units: ["mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "Sodium beyond what the wine's chloride accounts for, as the OIV defines it (OENO 09/2007)." },
+  { id: "silver", name: "Silver", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 2, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "fluoride", name: "Fluoride", group: "Metals", unit: "mg/L", units: ["mg/L", "µg/L"], digits: 2, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "sulphates", name: "Sulphates (as potassium sulphate)", group: "Metals", unit: "g/L", units: ["g/L", "mg/L"], digits: 2, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "Expressed as potassium sulphate, as the OIV limit is." },
   // Dissolved gases
   { id: "overpressure", name: "Overpressure (CO2, at 20 °C)", group: "Dissolved gases", unit: "bar", units: ["bar"], digits: 1, bounds: "both", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "For sparkling and semi-sparkling wine, measured in the closed container." },
@@ -108,6 +110,10 @@ export const PARAMETERS = [
   { id: "ethylphenol_4", name: "4-Ethylphenol", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "ethylguaiacol_4", name: "4-Ethylguaiacol", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
   { id: "ethyl_carbamate", name: "Ethyl carbamate", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "diethylene_glycol", name: "Diethylene glycol", group: "Taints and contaminants", unit: "mg/L", units: ["mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "ethylene_glycol", name: "Ethylene glycol (ethanediol)", group: "Taints and contaminants", unit: "mg/L", units: ["mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "propylene_glycol", name: "Propylene glycol (propan-1,2-diol)", group: "Taints and contaminants", unit: "mg/L", units: ["mg/L", "g/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT },
+  { id: "malvidin_diglucoside", name: "Malvidin diglucoside", group: "Taints and contaminants", unit: "mg/L", units: ["mg/L"], digits: 0, bounds: "upper", kind: "quantity", defaultUncertainty: TEN_PERCENT, note: "Marker of hybrid grape varieties, by the OIV's quantitative method." },
   { id: "methanol", name: "Methanol", group: "Taints and contaminants", unit: "mg/L", units: ["mg/L", "g/L"], digits: 0, bounds: "upper", kind: "quantity", method: { ref: "OIV-MA-AS312-03A", title: "Methanol", confirmed: false }, defaultUncertainty: TEN_PERCENT },
   { id: "ochratoxin_a", name: "Ochratoxin A", group: "Taints and contaminants", unit: "µg/L", units: ["µg/L", "µg/kg", "ng/L"], digits: 2, bounds: "upper", kind: "quantity", method: { ref: "OIV-MA-AS315-10", title: "Ochratoxin A", confirmed: false }, defaultUncertainty: TEN_PERCENT },
 ] as const satisfies readonly ParameterDef[];

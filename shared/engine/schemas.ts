@@ -3,6 +3,7 @@ import { z } from "zod";
 import { PARAMETERS, acceptsUnit, findParameter } from "./parameters.ts";
 import { UNITS, type UnitId } from "./units.ts";
 import { validateBuyerRequirement } from "./requirement.ts";
+import { OIV_SULPHATE_CASES } from "./markets/types.ts";
 
 const unitIds = Object.keys(UNITS) as [UnitId, ...UnitId[]];
 const parameterIds = PARAMETERS.map((p) => p.id) as [string, ...string[]];
@@ -42,6 +43,11 @@ export const wineProfileSchema = z.object({
   harvestYear: z.number().int().min(1900).max(2200).optional(),
   alcoholPercentVol: z.number().min(0).max(25).optional(),
   euSo2Derogation: z.union([z.literal(300), z.literal(350), z.literal(400)]).optional(),
+  euVaDerogation: z.union([z.literal(24.48), z.literal(25), z.literal(30), z.literal(35)]).optional(),
+  euZonesAB: z.boolean().optional(),
+  oivSweetWhiteSo2Exception: z.boolean().optional(),
+  oivSulphateCase: z.enum(OIV_SULPHATE_CASES).optional(),
+  cryoliteTreatedVineyard: z.boolean().optional(),
   usHighBrixJuice: z.boolean().optional(),
   filtered: z.boolean().optional(),
   organic: z.boolean().optional(),

@@ -1,30 +1,8 @@
 /** European Union wine and food law limits that a result can be checked against. */
-import { needs, type LegalLimitRule, type MarketPack, type WineProfile } from "./types.ts";
-
-const SO2 = { document: "Commission Delegated Regulation (EU) 2019/934", edition: "OJ L 149, 7.6.2019" };
-const stillOrOther = (p: WineProfile) => p.category === "still" || p.category === "semi-sparkling";
-const notSpecial = (p: WineProfile) => p.euSo2Derogation === undefined;
-
-const so2Rules: LegalLimitRule[] = [
-  { id: "eu-so2-red-dry", value: 150, colour: "red", sugarHigh: false, point: "A.1(a)" },
-  { id: "eu-so2-white-dry", value: 200, colour: "white-rose", sugarHigh: false, point: "A.1(b)" },
-  { id: "eu-so2-red-sweet", value: 200, colour: "red", sugarHigh: true, point: "A.2(a)" },
-  { id: "eu-so2-white-sweet", value: 250, colour: "white-rose", sugarHigh: true, point: "A.2(b)" },
-].map((r) => ({
-  id: r.id,
-  parameter: "total_so2" as const,
-  side: "max" as const,
-  value: r.value,
-  unit: "mg/L" as const,
-  condition: `${r.colour === "red" ? "red" : "white and rosé"} wine other than sparkling and liqueur wine, sugar ${r.sugarHigh ? "at least 5" : "below 5"} g/L`,
-  // A.1 holds for every dry wine, listed or not; A.2(a)/(b) for sweet wines the derogations of A.2(c)–(e) do not name.
-  applies: (p: WineProfile) =>
-    stillOrOther(p) && (r.colour === "red") === (p.colour === "red") && (!r.sugarHigh || notSpecial(p))
-      ? needs(p, ["sugarGPerL"], (q) => (q.sugarGPerL >= 5) === r.sugarHigh)
-      : false,
-  citation: { ...SO2, article: `Annex I, Part B, section A, point ${r.point}` },
-  confirmed: "read in the source (legislation.gov.uk copy)",
-}));
+import { needs, type LegalLimitRule, type MarketPack } from "./types.ts";
+import { EU_ORGANIC_SO2_RULES, EU_SO2_RULES } from "./eu-so2.ts";
+import { EU_CATEGORY_RULES } from "./eu-categories.ts";
+import { EU_VA_RULES } from "./eu-volatile-acidity.ts";
 
 const lead = (id: string, value: number, from: number, to: number | null, liqueur: boolean): LegalLimitRule => ({
   id,
@@ -44,90 +22,13 @@ const lead = (id: string, value: number, from: number, to: number | null, liqueu
 export const EU_PACK: MarketPack = {
   id: "EU",
   name: "European Union",
-  version: "2026.3",
+  version: "2026.4",
   edition: "Regulations in force on 1 December 2026 as read for Cellarpact",
   rules: [
-    ...so2Rules,
-    ...([300, 350, 400] as const).map(
-      (v, i): LegalLimitRule => ({
-        id: `eu-so2-derogation-${v}`,
-        parameter: "total_so2",
-        side: "max",
-        value: v,
-        unit: "mg/L",
-        condition: `wine listed for ${v} mg/L (e.g. ${["Spätlese", "Auslese", "Beerenauslese, Eiswein, Sauternes"][i]}) with sugar of at least 5 g/L`,
-        // Point 2 raises the limit only "as regards wines with a sugar content ... of not less than five grams per litre".
-        applies: (p) => (p.euSo2Derogation === v ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL >= 5) : false),
-        citation: { ...SO2, article: `Annex I, Part B, section A, point 2(${["c", "d", "e"][i]})` },
-        confirmed: v === 300 ? "read in the source (legislation.gov.uk copy of 2019/934, Annex I Part B A.2(c))" : "citation not yet confirmed: the value was read in a secondary source, the point letter not read in the act",
-      }),
-    ),
-    {
-      id: "eu-so2-sparkling",
-      parameter: "total_so2",
-      side: "max",
-      value: 235,
-      unit: "mg/L",
-      condition: "sparkling wine",
-      applies: (p) => p.category === "sparkling",
-      citation: { ...SO2, article: "Annex I, Part B, section A (sparkling wines)" },
-      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
-    },
-    {
-      id: "eu-so2-quality-sparkling",
-      parameter: "total_so2",
-      side: "max",
-      value: 185,
-      unit: "mg/L",
-      condition: "quality sparkling wine",
-      applies: (p) => p.category === "quality-sparkling",
-      citation: { ...SO2, article: "Annex I, Part B, section A (quality sparkling wines)" },
-      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
-    },
-    {
-      id: "eu-so2-liqueur",
-      parameter: "total_so2",
-      side: "max",
-      value: 150,
-      unit: "mg/L",
-      condition: "liqueur wine, sugar below 5 g/L",
-      applies: (p) => (p.category === "liqueur" ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL < 5) : false),
-      citation: { ...SO2, article: "Annex I, Part B, section A (liqueur wines)" },
-      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
-    },
-    {
-      id: "eu-so2-liqueur-sweet",
-      parameter: "total_so2",
-      side: "max",
-      value: 200,
-      unit: "mg/L",
-      condition: "liqueur wine, sugar at least 5 g/L",
-      applies: (p) => (p.category === "liqueur" ? needs(p, ["sugarGPerL"], (q) => q.sugarGPerL >= 5) : false),
-      citation: { ...SO2, article: "Annex I, Part B, section A (liqueur wines)" },
-      confirmed: "citation not yet confirmed: the value was read in a secondary source, not in the act itself",
-    },
-    {
-      id: "eu-va-white",
-      parameter: "volatile_acidity",
-      side: "max",
-      value: 18,
-      unit: "meq/L",
-      condition: "white and rosé wine",
-      applies: (p) => p.colour !== "red",
-      citation: { document: "Commission Delegated Regulation (EU) 2019/934", article: "Annex I, Part C (volatile acid content)", edition: "OJ L 149, 7.6.2019" },
-      confirmed: "citation not yet confirmed: the part letter was not read in the act; the values were read in UK SI 2011/2936 Sch. 2, which repeats 18/18/20 meq/L",
-    },
-    {
-      id: "eu-va-red",
-      parameter: "volatile_acidity",
-      side: "max",
-      value: 20,
-      unit: "meq/L",
-      condition: "red wine",
-      applies: (p) => p.colour === "red",
-      citation: { document: "Commission Delegated Regulation (EU) 2019/934", article: "Annex I, Part C (volatile acid content)", edition: "OJ L 149, 7.6.2019" },
-      confirmed: "citation not yet confirmed: the part letter was not read in the act; the values were read in UK SI 2011/2936 Sch. 2, which repeats 18/18/20 meq/L",
-    },
+    ...EU_SO2_RULES,
+    ...EU_ORGANIC_SO2_RULES,
+    ...EU_CATEGORY_RULES,
+    ...EU_VA_RULES,
     {
       id: "eu-ta-min",
       parameter: "total_acidity",

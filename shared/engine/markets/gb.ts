@@ -5,13 +5,14 @@
  * not in this pack yet: GB did not take over Reg. (EU) 2023/915.
  */
 import type { Citation } from "../labelling.ts";
-import type { LegalLimitRule, MarketPack } from "./types.ts";
+import type { LegalLimitRule, MarketPack, WineProfile } from "./types.ts";
 import { EU_PACK } from "./eu.ts";
 
 /** An EU text as Great Britain kept it: the citation names the retained text and where its revised version is read. */
 export const retainedInGb = (c: Citation): Citation => ({ ...c, document: `${c.document} as retained in the law of Great Britain`, edition: "revised text on legislation.gov.uk" });
 
-const KEPT = /^eu-(so2|va|ta)-/;
+// The Member States' volatile acidity derogations and the EU organic rules (2018/848, 2021/1165) are not GB law; contaminants are not in this pack yet.
+const KEPT = /^eu-(so2|va-(white|red)$|ta-|alcohol-|overpressure-|citric-|sorbic-)/;
 
 const rules: LegalLimitRule[] = EU_PACK.rules
   .filter((r) => KEPT.test(r.id))
@@ -19,6 +20,8 @@ const rules: LegalLimitRule[] = EU_PACK.rules
     ...r,
     id: r.id.replace(/^eu-/, "gb-"),
     citation: retainedInGb(r.citation),
+    // The derogations that lift the EU volatile acidity limits are the Member States' and bind nothing in GB.
+    ...(r.parameter === "volatile_acidity" ? { applies: (p: WineProfile) => (r.id === "eu-va-red") === (p.colour === "red") } : {}),
     // The SO2 points were read in the GB revised text itself; the rest keep the EU pack's notes.
     confirmed: /^eu-so2-(red|white)-/.test(r.id) || r.id === "eu-so2-derogation-300" ? "read in the source (legislation.gov.uk revised text of 2019/934, Annex I Part B, A.1 and A.2)" : r.confirmed,
   }));
@@ -26,7 +29,7 @@ const rules: LegalLimitRule[] = EU_PACK.rules
 export const GB_PACK: MarketPack = {
   id: "GB",
   name: "Great Britain (wine placed on the market)",
-  version: "2026.1",
+  version: "2026.2",
   edition: "Retained EU wine law as revised on legislation.gov.uk, read for Cellarpact in December 2026",
   rules,
 };

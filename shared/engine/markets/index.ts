@@ -8,12 +8,14 @@ import { US_PACK } from "./us.ts";
 import { OIV_PACK } from "./oiv.ts";
 import { CA_ON_PACK, CN_PACK, UK_QWS_PACK } from "./other.ts";
 import { GB_PACK } from "./gb.ts";
+import { AU_NZ_PACK } from "./au-nz.ts";
 
 export const MARKET_PACKS: Record<MarketId, MarketPack> = {
   EU: EU_PACK,
   GB: GB_PACK,
   US: US_PACK,
   OIV: OIV_PACK,
+  "AU-NZ": AU_NZ_PACK,
   "UK-QWS": UK_QWS_PACK,
   CN: CN_PACK,
   "CA-ON": CA_ON_PACK,

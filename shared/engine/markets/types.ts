@@ -4,6 +4,10 @@ import type { UnitId } from "../units.ts";
 
 export type Colour = "red" | "white" | "rose";
 
+/** The OIV raises its 1 g/L sulphate limit for wines matured in cask for at least 2 years, sweetened or fortified, and further for others. */
+export const OIV_SULPHATE_CASES = ["none", "cask-sweetened-or-fortified", "concentrated-must-or-naturally-sweet"] as const;
+export type OivSulphateCase = (typeof OIV_SULPHATE_CASES)[number];
+
 /** What a market's law needs to know about a wine to pick its limits. */
 export interface WineProfile {
   colour: Colour;
@@ -14,6 +18,16 @@ export interface WineProfile {
   alcoholPercentVol?: number;
   /** EU wines listed for higher SO2 (2019/934 Annex I Part B A.2(c)–(e)). */
   euSo2Derogation?: 300 | 350 | 400;
+  /** EU wines a Member State lists for a higher volatile acid limit (2019/934 Annex I Part C point 3), meq/L. */
+  euVaDerogation?: 24.48 | 25 | 30 | 35;
+  /** Made only from grapes harvested in EU wine-growing zones A and B (1308/2013 Annex VII Part II point 1). */
+  euZonesAB?: boolean;
+  /** One of the sweet white wines a country admits to the OIV's exceptional 400 mg/L SO2 limit. */
+  oivSweetWhiteSo2Exception?: boolean;
+  /** Which of the OIV's raised sulphate limits the wine falls under, if any (OIV-MA-C1-01). */
+  oivSulphateCase?: OivSulphateCase;
+  /** From vineyards treated with cryolite as national law allows (the OIV's fluoride limit is then 3 mg/L). */
+  cryoliteTreatedVineyard?: boolean;
   /** Wine made from unameliorated juice of 28 °Brix or more (27 CFR 4.21). */
   usHighBrixJuice?: boolean;
   /** Filtered before filling; some turbidity limits exempt unfiltered wines. */
@@ -38,6 +52,11 @@ export const PROFILE_FACT_LABELS: Record<keyof WineProfile, string> = {
   harvestYear: "harvest year",
   alcoholPercentVol: "alcoholic strength",
   euSo2Derogation: "listing for a higher SO2 limit",
+  euVaDerogation: "listing for a higher volatile acidity limit",
+  euZonesAB: "whether its grapes come only from EU wine-growing zones A and B",
+  oivSweetWhiteSo2Exception: "whether it is admitted to the OIV's sweet white wine exception for SO2",
+  oivSulphateCase: "which OIV sulphate case it falls under",
+  cryoliteTreatedVineyard: "whether its vineyards were treated with cryolite",
   usHighBrixJuice: "whether it is made from juice of 28 °Brix or more",
   filtered: "whether it is filtered",
   organic: "whether it is organic",
@@ -75,7 +94,7 @@ export interface MarketPack {
   rules: readonly LegalLimitRule[];
 }
 
-export type MarketId = "EU" | "GB" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON";
+export type MarketId = "EU" | "GB" | "US" | "OIV" | "AU-NZ" | "UK-QWS" | "CN" | "CA-ON";
 
 /** Helper for rules that need one profile field. */
 export function needs<K extends keyof WineProfile>(p: WineProfile, keys: K[], test: (p: Required<Pick<WineProfile, K>> & WineProfile) => boolean): Applicability {
