@@ -13,10 +13,10 @@ const now = new Date("2026-11-20T09:00:00Z");
 const stamps = { created_at: now, updated_at: now };
 
 const WINES = [
-  { id: 1, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Blanc", colour: "white", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 2.5, nominal_alcohol_percent_vol: 12.5 },
-  { id: 2, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Rouge", colour: "red", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 1.8, nominal_alcohol_percent_vol: 13 },
-  { id: 3, retailer_org_id: 1, producer_org_id: 3, name: "Kestrel Flats Shiraz (bulk)", colour: "red", category: "still", region: "Riverland, South Australia", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 3.2, nominal_alcohol_percent_vol: 14 },
-  { id: 4, retailer_org_id: 1, producer_org_id: 4, name: "Valsorda Rosato Frizzante", colour: "rose", category: "semi-sparkling", region: "Veneto", markets: ["EU", "US"], nominal_sugar_g_per_l: 9, nominal_alcohol_percent_vol: 11 },
+  { id: 1, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Blanc", colour: "white", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 2.5, nominal_alcohol_percent_vol: 12.5, law_facts: { organic: false, protectedOrigin: "pdo", filtered: true, euZonesAB: true, oivSulphateCase: "none", cryoliteTreatedVineyard: false } },
+  { id: 2, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Rouge", colour: "red", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 1.8, nominal_alcohol_percent_vol: 13, law_facts: { organic: false, protectedOrigin: "pdo", filtered: true, euZonesAB: true, oivSulphateCase: "none", cryoliteTreatedVineyard: false } },
+  { id: 3, retailer_org_id: 1, producer_org_id: 3, name: "Kestrel Flats Shiraz (bulk)", colour: "red", category: "still", region: "Riverland, South Australia", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 3.2, nominal_alcohol_percent_vol: 14, law_facts: { organic: false, protectedOrigin: "none", euZonesAB: false, oivSulphateCase: "none" } },
+  { id: 4, retailer_org_id: 1, producer_org_id: 4, name: "Valsorda Rosato Frizzante", colour: "rose", category: "semi-sparkling", region: "Veneto", markets: ["EU", "US"], nominal_sugar_g_per_l: 9, nominal_alcohol_percent_vol: 11, law_facts: { organic: false, protectedOrigin: "pgi", filtered: true, usHighBrixJuice: false } },
 ];
 
 const CONTRACTS = [
@@ -118,7 +118,7 @@ const LOTS: LotSeed[] = [
 ];
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
-  await qi.bulkInsert("wines", WINES.map((w) => ({ ...w, markets: JSON.stringify(w.markets), ...stamps })));
+  await qi.bulkInsert("wines", WINES.map((w) => ({ ...w, markets: JSON.stringify(w.markets), law_facts: JSON.stringify(w.law_facts), ...stamps })));
   await qi.bulkInsert("contracts", CONTRACTS.map((c) => ({ ...c, ...stamps })));
   await qi.bulkInsert(
     "spec_versions",

@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { MarketId } from "../../shared/engine/index.ts";
 import type { Colour, WineCategory } from "../../shared/engine/index.ts";
+import type { WineLawFacts } from "../../shared/specs/law-facts.ts";
 
 export class Wine extends Model<InferAttributes<Wine>, InferCreationAttributes<Wine>> {
   declare id: CreationOptional<number>;
@@ -13,6 +14,7 @@ export class Wine extends Model<InferAttributes<Wine>, InferCreationAttributes<W
   declare markets: MarketId[];
   declare nominalSugarGPerL: number | null;
   declare nominalAlcoholPercentVol: number | null;
+  declare lawFacts: CreationOptional<WineLawFacts | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -29,6 +31,7 @@ export class Wine extends Model<InferAttributes<Wine>, InferCreationAttributes<W
         markets: { type: DataTypes.JSON, allowNull: false },
         nominalSugarGPerL: { type: DataTypes.DOUBLE, allowNull: true },
         nominalAlcoholPercentVol: { type: DataTypes.DOUBLE, allowNull: true },
+        lawFacts: { type: DataTypes.JSON, allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

@@ -7,7 +7,8 @@ import { commentSchema, newContractSchema, newVersionSchema, requestChangesSchem
 import * as queries from "../services/specs/spec-queries.ts";
 import * as lifecycle from "../services/specs/spec-lifecycle.ts";
 import { specSheetPdf } from "../services/specs/spec-pdf.ts";
-import { createContract, listProducers } from "../services/specs/contract-service.ts";
+import { createContract, listProducers, updateLawFacts } from "../services/specs/contract-service.ts";
+import { lawFactsUpdateSchema } from "../../shared/specs/law-facts.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const contractParams = orgParams.extend({ contractId: idParam });
@@ -34,6 +35,11 @@ export function registerSpecRoutes(r: RouteRegistry): void {
 
   r.add({ method: "get", path: "/api/orgs/:orgId/contracts/:contractId", tag: "specs", summary: "One contract with its spec versions", access: PARTIES, params: contractParams }, ({ params, membership }) =>
     queries.getContract(params.orgId, params.contractId, membership!.role),
+  );
+
+  r.add(
+    { method: "put", path: "/api/orgs/:orgId/contracts/:contractId/law-facts", tag: "specs", summary: "State the wine's facts the law asks (organic, PDO/PGI, listings for higher limits)", access: BUYER, params: contractParams, body: lawFactsUpdateSchema, errors: { 403: "not the buyer" } },
+    ({ params, body, user }) => updateLawFacts(params.orgId, params.contractId, user, body.lawFacts),
   );
 
   r.add(

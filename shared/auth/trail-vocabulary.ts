@@ -25,6 +25,7 @@ export const ACTION_LABELS = {
   "membership.role_changed": "Role changed",
   "membership.removed": "Member removed",
   "contract.created": "Contract opened",
+  "wine.law_facts_changed": "Wine's facts for the law changed",
   "spec.version_created": "Spec version started",
   "spec.draft_saved": "Spec draft saved",
   "spec.sent": "Spec sent to the producer",

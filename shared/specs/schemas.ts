@@ -3,6 +3,7 @@
  * mistake. Row checks come from the engine (validateBuyerRequirement), never re-implemented here.
  */
 import { z } from "zod";
+import { wineLawFactsSchema } from "./law-facts.ts";
 import { buyerRequirementSchema, MARKET_IDS, type MarketId } from "../engine/index.ts";
 import { SEVERITIES, STAGES, SPEC_STATUSES, WINE_CATEGORIES, COLOURS } from "./vocabulary.ts";
 
@@ -74,6 +75,7 @@ export const wineSchema = z.object({
   markets: z.array(z.enum(MARKET_IDS as [MarketId, ...MarketId[]])).min(1, { error: "Choose at least one destination market." }),
   nominalSugarGPerL: z.number().min(0).max(600).nullish(),
   nominalAlcoholPercentVol: z.number().min(0).max(25).nullish(),
+  lawFacts: wineLawFactsSchema.optional(),
 });
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: "Use a date like 2026-03-31." });

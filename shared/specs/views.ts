@@ -1,3 +1,4 @@
+import type { WineLawFacts } from "./law-facts.ts";
 /** Shapes of the spec-sheet API's answers, shared by the server that builds them and the client that reads them. */
 import type { DecisionRule, MarketId, ParameterDiff, Reading, ReportedUncertainty, WineCategory, Colour } from "../engine/index.ts";
 import type { Severity, SpecStatus, Stage } from "./vocabulary.ts";
@@ -22,7 +23,7 @@ export interface ContractView {
   endsOn: string | null;
   retailer: { id: number; name: string };
   producer: { id: number; name: string };
-  wine: { id: number; name: string; colour: Colour; category: WineCategory; region: string; markets: MarketId[]; nominalSugarGPerL: number | null; nominalAlcoholPercentVol: number | null };
+  wine: { id: number; name: string; colour: Colour; category: WineCategory; region: string; markets: MarketId[]; nominalSugarGPerL: number | null; nominalAlcoholPercentVol: number | null; lawFacts: WineLawFacts | null };
 }
 
 export interface VersionSummary {

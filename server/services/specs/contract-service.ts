@@ -4,7 +4,9 @@ import { Contract } from "../../models/contract.ts";
 import { Wine } from "../../models/wine.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
-import { conflict, validationFailed } from "../../http/problem.ts";
+import { conflict, forbidden, validationFailed } from "../../http/problem.ts";
+import { contractFor } from "./spec-access.ts";
+import { lawFactsText, type WineLawFacts } from "../../../shared/specs/law-facts.ts";
 import type { NewContractInput } from "../../../shared/specs/schemas.ts";
 import type { SessionUser } from "../session-service.ts";
 
@@ -33,6 +35,7 @@ export async function createContract(retailerOrgId: number, user: SessionUser, i
         markets: w.markets,
         nominalSugarGPerL: w.nominalSugarGPerL ?? null,
         nominalAlcoholPercentVol: w.nominalAlcoholPercentVol ?? null,
+        lawFacts: w.lawFacts ?? null,
       },
       { transaction: t },
     );
@@ -50,5 +53,29 @@ export async function createContract(retailerOrgId: number, user: SessionUser, i
       details: { reference: input.reference, wine: w.name, producer: producer.name },
     });
     return { id: contract.id };
+  });
+}
+
+/**
+ * The buyer states what the law needs to know about the wine (organic, PDO/PGI, listings for higher
+ * limits). Verdicts already stored keep the facts they were judged on; the lot page offers a re-judgement.
+ */
+export async function updateLawFacts(orgId: number, contractId: number, user: SessionUser, lawFacts: WineLawFacts): Promise<{ lawFacts: WineLawFacts }> {
+  return inTransaction(async (t) => {
+    const { contract, side } = await contractFor(orgId, contractId, t);
+    if (side !== "buyer") throw forbidden("Only the buyer states the wine's facts for the law.");
+    const before = contract.wine.lawFacts ?? {};
+    await contract.wine.update({ lawFacts }, { transaction: t });
+    await recordAudit(t, {
+      actorUserId: user.id,
+      organisationId: orgId,
+      action: "wine.law_facts_changed",
+      entityType: "contract",
+      entityId: contract.id,
+      before,
+      after: lawFacts,
+      details: { wine: contract.wine.name, facts: lawFactsText(lawFacts).join("; ") || "none stated" },
+    });
+    return { lawFacts };
   });
 }

@@ -33,6 +33,7 @@ export const contractView = (c: ContractWithParties): ContractView => ({
     markets: c.wine.markets,
     nominalSugarGPerL: c.wine.nominalSugarGPerL,
     nominalAlcoholPercentVol: c.wine.nominalAlcoholPercentVol,
+    lawFacts: c.wine.lawFacts ?? null,
   },
 });
 

@@ -8,6 +8,7 @@ import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/u
 import { Button } from "../../components/ui/button.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
 import { StatusBadge } from "./status-badge.tsx";
+import { LawFactsCard } from "./law-facts-card.tsx";
 import { SPEC_TEMPLATES } from "../../../shared/specs/templates.ts";
 import { COLOUR_LABELS, STAGE_LABELS, WINE_CATEGORY_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { MARKET_PACKS } from "../../../shared/engine/index.ts";
@@ -36,22 +37,25 @@ export function ContractPage() {
         }
       />
       <div className="grid gap-6 lg:grid-cols-3">
-        <Card title="The wine" className="lg:col-span-1">
-          <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
-            <dt className="text-ink-500">Colour and style</dt>
-            <dd>{COLOUR_LABELS[c.wine.colour]}, {WINE_CATEGORY_LABELS[c.wine.category].toLowerCase()}</dd>
-            <dt className="text-ink-500">Region</dt>
-            <dd>{c.wine.region}</dd>
-            <dt className="text-ink-500">Destination markets</dt>
-            <dd>{c.wine.markets.map((m) => MARKET_PACKS[m].name).join("; ")}</dd>
-            <dt className="text-ink-500">Usual sugar</dt>
-            <dd>{c.wine.nominalSugarGPerL ?? "—"} g/L</dd>
-            <dt className="text-ink-500">Usual alcohol</dt>
-            <dd>{c.wine.nominalAlcoholPercentVol ?? "—"} % vol</dd>
-            <dt className="text-ink-500">Contract runs</dt>
-            <dd>{c.startsOn} to {c.endsOn ?? "open"}</dd>
-          </dl>
-        </Card>
+        <div className="flex flex-col gap-6 lg:col-span-1">
+          <Card title="The wine">
+            <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
+              <dt className="text-ink-500">Colour and style</dt>
+              <dd>{COLOUR_LABELS[c.wine.colour]}, {WINE_CATEGORY_LABELS[c.wine.category].toLowerCase()}</dd>
+              <dt className="text-ink-500">Region</dt>
+              <dd>{c.wine.region}</dd>
+              <dt className="text-ink-500">Destination markets</dt>
+              <dd>{c.wine.markets.map((m) => MARKET_PACKS[m].name).join("; ")}</dd>
+              <dt className="text-ink-500">Usual sugar</dt>
+              <dd>{c.wine.nominalSugarGPerL ?? "—"} g/L</dd>
+              <dt className="text-ink-500">Usual alcohol</dt>
+              <dd>{c.wine.nominalAlcoholPercentVol ?? "—"} % vol</dd>
+              <dt className="text-ink-500">Contract runs</dt>
+              <dd>{c.startsOn} to {c.endsOn ?? "open"}</dd>
+            </dl>
+          </Card>
+          <LawFactsCard orgId={orgId} contract={c} />
+        </div>
         <Card title="Spec versions" className="lg:col-span-2">
           {c.versions.length === 0 ? (
             <EmptyState title="No spec version yet.">{c.canCreateVersion ? "Start one below." : "The buyer has not sent one yet."}</EmptyState>

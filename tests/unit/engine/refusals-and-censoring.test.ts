@@ -30,7 +30,7 @@ describe("refused inputs name the value and the field", () => {
   });
 
   it("when an analysis holds an unreadable result, then the judge marks it missing with the parser's reason, never a pass", () => {
-    const judge = judgeFor({ wine: { colour: "white", category: "still", nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12, markets: ["EU"] }, lot: { vintage: 2025, market: "EU" }, requirements: [{ id: 1, parameter: "copper", unit: "mg/L", lower: null, upper: 1, target: null, method: null, rule: guarded, severity: "major", stages: ["pre_filling"] }] });
+    const judge = judgeFor({ wine: { colour: "white", category: "still", nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12, lawFacts: null, markets: ["EU"] }, lot: { vintage: 2025, market: "EU" }, requirements: [{ id: 1, parameter: "copper", unit: "mg/L", lower: null, upper: 1, target: null, method: null, rule: guarded, severity: "major", stages: ["pre_filling"] }] });
     const read = readResult({ parameter: "copper", raw: "-0.2", unit: "mg/L" });
     expect(read).toMatchObject({ reading: null, error: '"-0.2": a measured result cannot be negative.' });
     expect(judgeAnalysis(judge, "pre_filling", [read]).verdicts[0]!.outcome).toBe("missing");
@@ -70,7 +70,7 @@ describe("mg/kg limits and the sample's density", () => {
   it("when the analysis measured the density at 20 °C, then a mg/kg limit and the result are converted with it alike", () => {
     // EU lead in wine from the 2022 harvest: 0.10 mg/kg (Commission Regulation (EU) 2023/915, values of 2021/1317; citation not yet confirmed).
     // At 1.050 g/mL that is 0.105 mg/L, so 0.104 mg/L conforms; taken at 1.000 g/mL it would not.
-    const wine = { colour: "white" as const, category: "still" as const, nominalSugarGPerL: 60, nominalAlcoholPercentVol: 12, markets: ["EU" as const] };
+    const wine = { colour: "white" as const, category: "still" as const, nominalSugarGPerL: 60, nominalAlcoholPercentVol: 12, lawFacts: null, markets: ["EU" as const] };
     const judge = judgeFor({ wine, lot: { vintage: 2024, market: "EU" }, requirements: [{ id: 1, parameter: "lead", unit: "mg/L", lower: null, upper: 0.2, target: null, method: null, rule: { kind: "simple" }, severity: "major", stages: ["pre_filling"] }] });
     const lead = readResult({ parameter: "lead", raw: "0.104", unit: "mg/L" });
     expect(judgeAnalysis(judge, "pre_filling", [lead]).verdicts[0]!.outcome).toBe("fail");

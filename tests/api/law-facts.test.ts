@@ -1,0 +1,76 @@
+/**
+ * The buyer states what the law asks about a wine; the judge reads it. The organic limit is the
+ * conventional one less 30 mg/L for white wine of 2 g/L sugar or more (Reg. (EU) 2021/1165 Annex V,
+ * values as read in secondary sources; see tests/unit/engine/published-limits-more.test.ts).
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { randomUUID } from "node:crypto";
+import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import type { ContractDetail } from "../../shared/specs/views.ts";
+import type { LotDetail } from "../../shared/lots/views.ts";
+import { passingResults } from "../support/passing-results.ts";
+
+let t: TestApp;
+let tech: SignedInAgent;
+let producer: SignedInAgent;
+const B = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
+const P = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
+const SENTIER_BLANC = 1;
+let original: ContractDetail["wine"]["lawFacts"];
+
+const put = (who: SignedInAgent, url: string, lawFacts: unknown) => who.agent.put(url).set("x-csrf-token", who.csrf).send({ lawFacts });
+
+beforeAll(async () => {
+  t = buildTestApp();
+  [tech, producer] = await Promise.all([signInAs(t.app, DEMO.buyerTechnologist), signInAs(t.app, DEMO.producerQuality)]);
+  original = ((await tech.agent.get(B(`/contracts/${SENTIER_BLANC}`))).body as ContractDetail).wine.lawFacts;
+});
+
+afterAll(async () => {
+  await put(tech, B(`/contracts/${SENTIER_BLANC}/law-facts`), original ?? {});
+});
+
+describe("the wine's facts for the law", () => {
+  it("when the buyer states the wine is organic, then the contract shows it, the trail records it and the lot's EU limits include the organic one", async () => {
+    const res = await put(tech, B(`/contracts/${SENTIER_BLANC}/law-facts`), { ...original, organic: true });
+    expect(res.status).toBe(200);
+    const contract = (await tech.agent.get(B(`/contracts/${SENTIER_BLANC}`))).body as ContractDetail;
+    expect(contract.wine.lawFacts).toMatchObject({ organic: true, protectedOrigin: "pdo" });
+
+    const history = (await tech.agent.get(B(`/history/contract/${SENTIER_BLANC}`))).body as { action: string; details: Record<string, unknown> }[];
+    expect(history.map((h) => h.action)).toContain("wine.law_facts_changed");
+
+    const lot = await producer.agent
+      .post(P("/lots"))
+      .set("x-csrf-token", producer.csrf)
+      .send({ contractId: SENTIER_BLANC, vintage: 2025, lotCode: `LF-${randomUUID().slice(0, 5)}`, volumeLitres: 5000, container: "bottles", plannedDate: "2027-01-15", market: "EU" });
+    expect(lot.status).toBe(201);
+    const planned = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
+    const sent = await producer.agent
+      .post(P(`/lots/${lot.body.id}/analyses`))
+      .set("x-csrf-token", producer.csrf)
+      .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Domaine des Trois Sentes cellar laboratory", sampleDate: "2026-11-25", results: passingResults(planned.governing!.requirements, "pre_filling", {}) });
+    expect(sent.status).toBe(201);
+    const detail = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
+    const so2 = detail.analyses[0]!.evaluation!.verdicts.find((v) => v.parameter === "total_so2")!;
+    // Sentier Blanc: white, usual sugar 2.5 g/L → conventional 200 mg/L (2019/934 A.1(b)) and organic 170 mg/L.
+    expect(so2.legalLimits.map((l) => l.value).sort((a, b) => a - b)).toEqual([170, 200]);
+  });
+
+  it("when a fact has a value the law does not know, or an unknown name, then it is refused by name and nothing changes", async () => {
+    const before = ((await tech.agent.get(B(`/contracts/${SENTIER_BLANC}`))).body as ContractDetail).wine.lawFacts;
+    const bad = await put(tech, B(`/contracts/${SENTIER_BLANC}/law-facts`), { organic: "yes" });
+    expect(bad.status).toBe(400);
+    expect(bad.body.errors.map((e: { path: string }) => e.path)).toEqual(["lawFacts.organic"]);
+    const unknown = await put(tech, B(`/contracts/${SENTIER_BLANC}/law-facts`), { organics: true });
+    expect(unknown.status).toBe(400);
+    expect(JSON.stringify(unknown.body.errors)).toContain("organics");
+    const after = ((await tech.agent.get(B(`/contracts/${SENTIER_BLANC}`))).body as ContractDetail).wine.lawFacts;
+    expect(after).toEqual(before);
+  });
+
+  it("when the producer tries to state the buyer's facts, then it is refused", async () => {
+    const res = await put(producer, P(`/contracts/${SENTIER_BLANC}/law-facts`), { organic: false });
+    expect(res.status).toBe(403);
+  });
+});
