@@ -6,7 +6,7 @@
  */
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
 import { convert, findParameter, UNITS, type ResultComparison } from "../../shared/engine/index.ts";
-import { verdictText } from "../../shared/lots/verdict-text.ts";
+import { governingCitations, verdictText } from "../../shared/lots/verdict-text.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../shared/lots/vocabulary.ts";
 import { CONDITION_LABELS } from "../../shared/deviations/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, StoredVerdict } from "../../shared/lots/views.ts";
@@ -82,6 +82,7 @@ function LotDocument({ d }: { d: LotDocumentData }) {
   const title = TITLES[d.kind];
   const status = lot.status;
   const rules = [...new Set([...declared.flatMap((a) => a.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])].map((v) => v.ruleText))];
+  const citations = governingCitations([...declared.flatMap((a) => a.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])]);
   const markets = [...new Set([...declared, ...(audit?.analysis ? [audit.analysis] : [])].flatMap((a) => Object.entries(a.evaluation?.marketVersions ?? {})).map(([m, v]) => `${m} (rule pack ${v})`))];
   return (
     <Document title={`${title} ${d.number}`} author="Cellarpact">
@@ -133,7 +134,17 @@ function LotDocument({ d }: { d: LotDocumentData }) {
             ? `Specification of contract ${lot.contractReference}, version ${lot.governing.number} (agreed${lot.governing.decidedAt ? ` ${lot.governing.decidedAt.slice(0, 10)}` : ""}), vintages ${lot.governing.vintageFrom}${lot.governing.vintageTo ? `–${lot.governing.vintageTo}` : " onwards"}.`
             : "No agreed specification governs this vintage."}
         </Text>
-        <Text>Legal limits of the destination market: {markets.join(", ") || lot.market}. Each rule's citation is printed beside the limit it sets in the results below.</Text>
+        <Text>Legal limits of the destination market: {markets.join(", ") || lot.market}. The texts the governing legal limits below come from:</Text>
+        {citations.length ? (
+          citations.map((c) => (
+            <Text key={c.text} style={s.small}>
+              · {c.market}: {c.text}
+              {c.unconfirmed ? ` — citation not yet confirmed: ${c.unconfirmed}` : ""}
+            </Text>
+          ))
+        ) : (
+          <Text style={s.small}>· none: the buyer's limits are stricter wherever the law sets one.</Text>
+        )}
 
         <Text style={s.h2}>Results declared by the producer</Text>
         {declared.length ? (

@@ -1,6 +1,7 @@
 /** The spec sheet as a PDF: version, status, parties, and every requirement with method, decision rule and legal citation. */
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import { buildRequirement, findParameter, describeRule, ruleLabel, type BuyerRequirement } from "../../shared/engine/index.ts";
+import { buildRequirement, citationConfirmed, findParameter, describeRule, ruleLabel, undeterminedText, type AppliedLimit, type BuyerRequirement } from "../../shared/engine/index.ts";
+import { lawFactsText } from "../../shared/specs/law-facts.ts";
 import { SEVERITY_LABELS, SPEC_STATUS_LABELS, STAGE_LABELS } from "../../shared/specs/vocabulary.ts";
 import type { SpecVersionDetail } from "../../shared/specs/views.ts";
 import { wineProfile } from "../../shared/specs/profile.ts";
@@ -41,6 +42,15 @@ function limitsText(r: BuyerRequirement): string {
   return `${range}${target ? ` (target ${target})` : ""} ${r.unit === "presence" ? "" : r.unit}`.trim();
 }
 
+function CitationText({ limit }: { limit: AppliedLimit }) {
+  return (
+    <Text style={s.small}>
+      {limit.citation.document}, {limit.citation.article}
+      {citationConfirmed(limit.confirmed) ? "" : ` — citation not yet confirmed: ${limit.confirmed.replace(/^citation not yet confirmed: /, "")}`}
+    </Text>
+  );
+}
+
 function SpecSheet({ d }: { d: SpecSheetData }) {
   const wine = d.contract.wine;
   const profile = wineProfile(wine, d.vintageFrom);
@@ -61,6 +71,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
             ["Wine", `${wine.colour === "rose" ? "rosé" : wine.colour}, ${wine.category}, ${wine.region}`],
             ["Vintages", vintages],
             ["Destination markets", wine.markets.join(", ")],
+            ["Facts for the law", lawFactsText(wine.lawFacts ?? {}).join("; ") || "none stated"],
             ["Stages", d.stages.map((x) => STAGE_LABELS[x]).join(", ")],
             ["Requirements", String(d.requirements.length)],
             ["Generated", d.generatedAt.toISOString().slice(0, 16).replace("T", " ") + " UTC"],
@@ -101,22 +112,23 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
                     <Text>
                       {lawLimit.side} {num(lawLimit.statedValue)} {lawLimit.statedUnit} ({lawLimit.market}) governs
                     </Text>
-                    <Text style={s.small}>
-                      {lawLimit.citation.document}, {lawLimit.citation.article}
-                    </Text>
+                    <CitationText limit={lawLimit} />
                   </>
                 ) : strictest ? (
                   <>
                     <Text>
                       Law: {strictest.side} {num(strictest.statedValue)} {strictest.statedUnit} ({strictest.market}); buyer's limit is stricter
                     </Text>
-                    <Text style={s.small}>
-                      {strictest.citation.document}, {strictest.citation.article}
-                    </Text>
+                    <CitationText limit={strictest} />
                   </>
                 ) : (
                   <Text style={s.small}>No legal limit in the destination markets' packs.</Text>
                 )}
+                {req.undetermined.map((u) => (
+                  <Text key={u.ruleId} style={s.small}>
+                    Undetermined: {undeterminedText(u)}
+                  </Text>
+                ))}
               </View>
             </View>
           );

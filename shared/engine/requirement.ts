@@ -3,9 +3,8 @@
  * says which bound governs on each side and where it comes from.
  */
 import { acceptsUnit, findParameter, type ParameterId } from "./parameters.ts";
-import { PROFILE_FACT_LABELS } from "./markets/types.ts";
 import { convert, UNITS, type UnitId } from "./units.ts";
-import { applicableLimits, type AppliedLimit, type MarketId, type UndeterminedLimit, type WineProfile } from "./markets/index.ts";
+import { applicableLimits, undeterminedText, type AppliedLimit, type MarketId, type UndeterminedLimit, type WineProfile } from "./markets/index.ts";
 import type { DecisionRule } from "./decision.ts";
 
 export interface BuyerRequirement {
@@ -132,9 +131,7 @@ export function buildRequirement(
   if (upper && lower && lower.value > upper.value) {
     issues.push({ severity: "error", field: "lower", message: "With the legal limits applied, the lower limit lies above the upper limit: no wine could conform." });
   }
-  for (const u of undetermined) {
-    issues.push({ severity: "warning", field: "parameter", message: `A ${u.market} limit (${u.condition}) may apply; give the wine's ${u.missing.map((m) => PROFILE_FACT_LABELS[m as keyof typeof PROFILE_FACT_LABELS] ?? m).join(" and ")} to decide.` });
-  }
+  for (const u of undetermined) issues.push({ severity: "warning", field: "parameter", message: `${undeterminedText(u)} State it on the contract to decide.` });
   return { parameter: id, unit: p.unit, lower, upper, target: toCanonical(row.target), rule: row.rule, legalLimits: limits, undetermined, issues };
 }
 

@@ -1,5 +1,5 @@
 /** A stored verdict as short text in its spec row's unit: the result with U (k = 2) and the governing limits, rounded to the parameter's precision. */
-import { convert, displayValue, unitLabel, type UnitId } from "../engine/index.ts";
+import { citationConfirmed, convert, displayValue, unitLabel, type UnitId } from "../engine/index.ts";
 import type { StoredBound, StoredVerdict } from "./views.ts";
 
 function boundText(parameter: string, b: StoredBound, factor: number, display: string): string {
@@ -20,4 +20,19 @@ export function verdictText(v: StoredVerdict): { result: string; limits: string;
     limits,
     uncertainty: u ? `U = ${shown(2 * u.u * factor)} ${unit}, k = 2 (${u.source === "laboratory" ? "laboratory" : "Cellarpact default"})` : "none stated",
   };
+}
+
+/** The legal texts the governing limits of these verdicts come from, once each, with whether each citation was confirmed in the published text. */
+export function governingCitations(verdicts: readonly StoredVerdict[]): { market: string; text: string; unconfirmed: string | null }[] {
+  const seen = new Map<string, { market: string; text: string; unconfirmed: string | null }>();
+  for (const v of verdicts) {
+    for (const b of [v.lower, v.upper]) {
+      if (!b || b.source !== "law" || !b.citation) continue;
+      const text = `${b.citation.document}, ${b.citation.article} (${b.citation.edition})`;
+      if (seen.has(text)) continue;
+      const confirmed = v.legalLimits.find((l) => l.citation.document === b.citation!.document && l.citation.article === b.citation!.article)?.confirmed;
+      seen.set(text, { market: b.market ?? "", text, unconfirmed: confirmed && !citationConfirmed(confirmed) ? confirmed.replace(/^citation not yet confirmed: /, "") : null });
+    }
+  }
+  return [...seen.values()];
 }

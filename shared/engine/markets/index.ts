@@ -2,7 +2,7 @@
 import { convert } from "../units.ts";
 import { parameter, type ParameterId } from "../parameters.ts";
 import type { Citation } from "../labelling.ts";
-import type { LegalLimitRule, MarketId, MarketPack, WineProfile } from "./types.ts";
+import { PROFILE_FACT_LABELS, type LegalLimitRule, type MarketId, type MarketPack, type WineProfile } from "./types.ts";
 import { EU_PACK } from "./eu.ts";
 import { US_PACK } from "./us.ts";
 import { OIV_PACK } from "./oiv.ts";
@@ -46,8 +46,12 @@ export interface UndeterminedLimit {
   ruleId: string;
   parameter: ParameterId;
   condition: string;
-  missing: string[];
+  missing: (keyof WineProfile)[];
 }
+
+/** A rule that may apply, in words that name the facts it needs. */
+export const undeterminedText = (u: UndeterminedLimit) =>
+  `A ${u.market} limit (${u.condition}) may apply; it needs the wine's ${u.missing.map((m) => PROFILE_FACT_LABELS[m]).join(" and ")}.`;
 
 function toApplied(pack: MarketPack, rule: LegalLimitRule, densityGPerMl?: number): AppliedLimit {
   const canonical = parameter(rule.parameter).unit;

@@ -111,7 +111,7 @@ describe("other EU, US, OIV and scheme limits", () => {
 
   it("when a rule needs a fact the wine's profile lacks, then the warning names the fact in words", () => {
     const r = buildRequirement({ parameter: "copper", unit: "mg/L", upper: 1, rule: { kind: "simple" } }, ["UK-QWS"], redDry);
-    expect(r.issues.map((w) => w.message).join(" ")).toContain("give the wine's PDO or PGI status to decide");
+    expect(r.issues.map((w) => w.message).join(" ")).toContain("it needs the wine's PDO or PGI status. State it on the contract to decide.");
   });
 
   it("when a wine has no protected origin, or its origin is not known, then the scheme's limits do not apply, or are undetermined with the missing fact named", () => {
