@@ -99,6 +99,8 @@ export interface AnalysisView {
     marketVersions: Record<string, string>;
     worstOutcome: Outcome;
     verdicts: StoredVerdict[];
+    /** The wine's facts for the law (or its usual sugar and alcohol) have changed since this verdict. */
+    factsChanged: boolean;
   } | null;
   certificates: CertificateView[];
 }

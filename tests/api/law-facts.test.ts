@@ -17,6 +17,7 @@ const B = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
 const P = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
 const SENTIER_BLANC = 1;
 let original: ContractDetail["wine"]["lawFacts"];
+let lotId = 0;
 
 const put = (who: SignedInAgent, url: string, lawFacts: unknown) => who.agent.put(url).set("x-csrf-token", who.csrf).send({ lawFacts });
 
@@ -55,6 +56,24 @@ describe("the wine's facts for the law", () => {
     const so2 = detail.analyses[0]!.evaluation!.verdicts.find((v) => v.parameter === "total_so2")!;
     // Sentier Blanc: white, usual sugar 2.5 g/L → conventional 200 mg/L (2019/934 A.1(b)) and organic 170 mg/L.
     expect(so2.legalLimits.map((l) => l.value).sort((a, b) => a - b)).toEqual([170, 200]);
+    expect(detail.analyses[0]!.evaluation!.factsChanged).toBe(false);
+    lotId = lot.body.id;
+  });
+
+  it("when the facts change after a verdict, then the verdict says so and a re-judgement reads the facts as they stand", async () => {
+    const analysisId = ((await tech.agent.get(B(`/lots/${lotId}`))).body as LotDetail).analyses[0]!.id;
+    const before = await tech.agent.post(B(`/lots/${lotId}/analyses/${analysisId}/rejudge`)).set("x-csrf-token", tech.csrf);
+    expect(before.status).toBe(409); // same version, same facts: nothing to re-judge
+    expect((await put(tech, B(`/contracts/${SENTIER_BLANC}/law-facts`), { ...original, organic: false })).status).toBe(200);
+    const stale = (await tech.agent.get(B(`/lots/${lotId}`))).body as LotDetail;
+    expect(stale.analyses[0]!.evaluation!.factsChanged).toBe(true);
+    const re = await tech.agent.post(B(`/lots/${lotId}/analyses/${analysisId}/rejudge`)).set("x-csrf-token", tech.csrf);
+    expect(re.status).toBe(201);
+    const after = (await tech.agent.get(B(`/lots/${lotId}`))).body as LotDetail;
+    const rejudged = after.analyses.find((a) => a.rejudgedFromId === analysisId)!;
+    expect(rejudged.evaluation!.factsChanged).toBe(false);
+    // Not organic any more: only the conventional 200 mg/L (2019/934 Annex I Part B A.1(b)).
+    expect(rejudged.evaluation!.verdicts.find((v) => v.parameter === "total_so2")!.legalLimits.map((l) => l.value)).toEqual([200]);
   });
 
   it("when a fact has a value the law does not know, or an unknown name, then it is refused by name and nothing changes", async () => {

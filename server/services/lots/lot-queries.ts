@@ -1,6 +1,6 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
 import { literal, Op } from "sequelize";
-import { compareTransit, convert, displayDigits, displayValue, findParameter, formatReading, type GoverningBound, type MarketId, type Outcome, type Reading, type UnitId } from "../../../shared/engine/index.ts";
+import { compareTransit, convert, displayDigits, displayValue, findParameter, formatReading, type GoverningBound, type MarketId, type Outcome, type Reading, type UnitId, type WineProfile } from "../../../shared/engine/index.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
 import type { Stage } from "../../../shared/specs/vocabulary.ts";
@@ -18,6 +18,7 @@ import { orderReference } from "../../../shared/audits/vocabulary.ts";
 import { governingVersion } from "./governing.ts";
 import { isFailing, judgeFor, transitValues } from "../../../shared/lots/judge.ts";
 import { lotStatus, type StatusAnalysis } from "../../../shared/lots/lot-status.ts";
+import { profileDiffers, wineProfile } from "../../../shared/specs/profile.ts";
 
 const parameterName = (p: string) => findParameter(p)?.name ?? p;
 
@@ -96,7 +97,7 @@ export async function listLots(orgId: number, f: { contract?: number; q?: string
   return summaries(lots, byId);
 }
 
-function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>): AnalysisView {
+function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>, profileNow: WineProfile): AnalysisView {
   return {
     id: a.id,
     stage: a.stage,
@@ -111,7 +112,8 @@ function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>): A
       ? {
           specVersionId: a.evaluation.specVersionId,
           specVersion: a.evaluation.specVersionId ? { id: a.evaluation.specVersionId, number: versionNumbers.get(a.evaluation.specVersionId) ?? 0 } : null,
-          engineVersion: a.evaluation.engineVersion, marketVersions: a.evaluation.marketVersions, worstOutcome: a.evaluation.worstOutcome as Outcome, verdicts: a.evaluation.verdicts }
+          engineVersion: a.evaluation.engineVersion, marketVersions: a.evaluation.marketVersions, worstOutcome: a.evaluation.worstOutcome as Outcome, verdicts: a.evaluation.verdicts,
+          factsChanged: profileDiffers(a.evaluation.profile ?? null, profileNow) }
       : null,
     certificates: a.certificates.map((c) => ({ id: c.id, originalName: c.originalName, mime: c.mime, sizeBytes: c.sizeBytes, sha256: c.sha256, createdAt: c.createdAt.toISOString() })),
   };
@@ -138,7 +140,7 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
     canSubmit: side === "producer" && role === "producer_quality",
     contract: contractView(contract),
     governing: governing ? { ...versionSummary(governing.version), requirements: governing.requirements } : null,
-    analyses: analyses.map((a) => analysisView(a, versionNumbers)),
+    analyses: analyses.map((a) => analysisView(a, versionNumbers, wineProfile(contract.wine, lot.vintage))),
     transit: isBulk(lot.container) && pre && arrival ? compareTransit(transitValues(pre.results), transitValues(arrival.results)) : null,
     deviations: deviations.map((d) => ({ id: d.id, kind: d.kind, status: d.status, parameters: d.parameters, summary: d.summary, analysisId: d.analysisId, decision: d.decision ?? null, createdAt: d.createdAt.toISOString() })),
     audits,

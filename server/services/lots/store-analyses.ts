@@ -102,7 +102,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     const e = judgeAnalysis(judgeOf(s.lot), header.stage, read[i]!, { onlyReported: !!header.auditOrderId });
     summary.samples.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, counts: e.counts });
     if (e.failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: e.failing });
-    return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts };
+    return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts, profile: judgeOf(s.lot).profile };
   });
   const now = new Date();
   await insertInChunks(
@@ -116,6 +116,7 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
       market_versions: JSON.stringify(e.marketVersions),
       worst_outcome: e.worstOutcome,
       verdicts: JSON.stringify(e.verdicts),
+      profile: JSON.stringify(e.profile),
       created_at: now,
     })),
   );

@@ -51,7 +51,7 @@ function LawFactsForm({ orgId, contract, onDone }: { orgId: number; contract: Co
     update.mutate(values.lawFacts, { onSuccess: onDone, onError: (err) => setError(applyServerErrors(err, setFieldError, keys.map((k) => `lawFacts.${k}`))) }),
   );
   return (
-    <form onSubmit={onSubmit} noValidate className="grid gap-3">
+    <form onSubmit={onSubmit} noValidate className="grid grid-cols-1 gap-3">
       {error && <Notice tone="error">{error}</Notice>}
       {keys.map((k: LawFactKey) => (
         <SelectField
