@@ -120,6 +120,32 @@ describe("engine properties (fast-check, fixed seed)", () => {
     expect(exercised).toBeGreaterThan(300);
   });
 
+  it("when results come in any unit the parameter accepts, against market law for any wine, with or without an uncertainty, then the batch path and the full verdict agree", () => {
+    const markets = ["EU", "GB", "OIV", "US", "AU-NZ"] as const;
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...quantityParams),
+        fc.nat(),
+        profileArb,
+        finite(0, 50),
+        finite(0.1, 200),
+        ruleArb,
+        fc.array(fc.tuple(finite(0, 300), fc.option(finite(0, 5))), { minLength: 1, maxLength: 20 }),
+        (p, pick, profile, lower, width, rule, results) => {
+          const inputUnit = p.units[pick % p.units.length]!;
+          const req = buildRequirement({ parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : lower, upper: lower + width, rule }, markets, profile);
+          const out = new Uint8Array(results.length);
+          evaluateMany(compileRequirement(req, inputUnit), results.map((r) => r[0]), results.map((r) => r[1] ?? NaN), out);
+          return results.every(([x, u], i) => {
+            const v = evaluate(req, { reading: { kind: "value", value: x }, unit: inputUnit, uncertainty: u === null ? null : { kind: "standard", value: u } });
+            return v.outcome === STATEMENT_CODES[out[i]!];
+          });
+        },
+      ),
+      SEED,
+    );
+  });
+
   it("when the batch path and the full verdict see the same numeric results, then they give the same statements", () => {
     fc.assert(
       fc.property(fc.constantFrom(...quantityParams), finite(0, 50), finite(0.1, 200), ruleArb, fc.array(fc.tuple(finite(0, 300), fc.option(finite(0, 5))), { minLength: 1, maxLength: 30 }), (p, lower, width, rule, results) => {
