@@ -15,8 +15,10 @@ const BOUNDARIES = [
   ["server", ["src"], "the server never imports client code; share it through shared/"],
   ["server/routes", ["server/models", "server/db"], "routes call services; only services touch models"],
   ["server/http", ["server/models", "server/db", "server/routes"], "HTTP plumbing calls services, never models"],
-  ["server/services", ["server/routes"], "services do not know about routes"],
-  ["server/models", ["server/services", "server/routes", "server/http"], "models are the bottom layer"],
+  ["server/services", ["server/routes", "server/http"], "services know nothing of routes or HTTP; they throw the errors of server/errors.ts"],
+  ["server/integrations", ["server/services", "server/routes", "server/http"], "integrations (payments, mail, storage) are a floor below the services"],
+  ["server/models", ["server/services", "server/routes", "server/http", "server/integrations"], "models are the bottom layer"],
+  ["server/errors.ts", ["server/services", "server/routes", "server/http", "server/models", "server/integrations"], "errors are neutral: every floor may throw them"],
 ];
 // shared/ may use only these packages: no I/O, no framework.
 const SHARED_PACKAGES = new Set(["zod"]);

@@ -20,7 +20,7 @@ import { registerDeviationRoutes } from "./routes/deviation-routes.ts";
 import { registerAuditRoutes } from "./routes/audit-routes.ts";
 import { registerComplianceAuditRoutes } from "./routes/compliance-audit-routes.ts";
 import { registerPaymentWebhookRoutes, STRIPE_WEBHOOK_PATH } from "./routes/payment-webhook-routes.ts";
-import { settingsFrom, useServiceSettings } from "./services/settings.ts";
+import { settingsFrom, useServiceSettings } from "./settings.ts";
 
 export const APP_VERSION = "0.1.0";
 export const BODY_LIMIT = "100kb";

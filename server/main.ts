@@ -5,7 +5,7 @@ import { ConfigError, loadConfig, type Config } from "./config.ts";
 import { createSequelize } from "./db/connection.ts";
 import { useDatabase } from "./db/database.ts";
 import { createApp } from "./app.ts";
-import { startOutboxWorker } from "./services/outbox-service.ts";
+import { startOutboxWorker } from "./integrations/mail/outbox.ts";
 import { sendDigests } from "./services/notification-service.ts";
 import { warnApproachingDeadlines } from "./services/deviations/deviation-service.ts";
 

@@ -2,7 +2,7 @@
 import type { QueryInterface } from "sequelize";
 import { useDatabase } from "../../server/db/database.ts";
 import { loadConfig } from "../../server/config.ts";
-import { settingsFrom, useServiceSettings } from "../../server/services/settings.ts";
+import { settingsFrom, useServiceSettings } from "../../server/settings.ts";
 import { User } from "../../server/models/user.ts";
 import { toSessionUser } from "../../server/services/session-service.ts";
 import type { Role } from "../../shared/auth/roles.ts";

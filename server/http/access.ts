@@ -1,7 +1,7 @@
 /** Access rules that every route declares, and the check that enforces them. */
 import type { Role } from "../../shared/auth/roles.ts";
 import type { SessionUser, SessionMembership } from "../services/session-service.ts";
-import { forbidden, notFound, unauthorized } from "./problem.ts";
+import { forbidden, notFound, unauthorized } from "../errors.ts";
 import { ROLE_LABELS } from "../../shared/auth/roles.ts";
 
 export type Access =

@@ -2,7 +2,8 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import { ZodError } from "zod";
 import { MulterError } from "multer";
-import { HttpError, validationFailed } from "./problem.ts";
+import { AppError, tooLarge, unsupportedMedia, validationFailed } from "../errors.ts";
+import { statusOf } from "./problem.ts";
 import { zodFieldErrors } from "./validate.ts";
 
 interface BodyParserError {
@@ -11,26 +12,26 @@ interface BodyParserError {
   limit?: number;
 }
 
-function toHttpError(err: unknown): HttpError | null {
-  if (err instanceof HttpError) return err;
+function toAppError(err: unknown): AppError | null {
+  if (err instanceof AppError) return err;
   if (err instanceof MulterError) {
-    if (err.code === "LIMIT_FILE_SIZE") return new HttpError(413, "Payload too large", "The file is larger than the upload limit.");
-    return new HttpError(400, "Bad upload", `The upload was not accepted: ${err.message}. Send one file in the field "file".`);
+    if (err.code === "LIMIT_FILE_SIZE") return tooLarge("The file is larger than the upload limit.");
+    return new AppError("bad_request", "Bad upload", `The upload was not accepted: ${err.message}. Send one file in the field "file".`);
   }
   if (err instanceof ZodError) return validationFailed(zodFieldErrors(err));
   const e = err as BodyParserError;
-  if (e?.type === "entity.parse.failed") return new HttpError(400, "Malformed JSON", "The request body is not valid JSON.");
+  if (e?.type === "entity.parse.failed") return new AppError("bad_request", "Malformed JSON", "The request body is not valid JSON.");
   if (e?.type === "entity.too.large")
-    return new HttpError(413, "Payload too large", `The request body exceeds the limit of ${e.limit} bytes.`);
+    return tooLarge(`The request body exceeds the limit of ${e.limit} bytes.`);
   if (e?.type === "encoding.unsupported" || e?.type === "charset.unsupported")
-    return new HttpError(415, "Unsupported media type", "Send the body as UTF-8 JSON.");
+    return unsupportedMedia("Send the body as UTF-8 JSON.");
   return null;
 }
 
 export function errorHandler(production: boolean): ErrorRequestHandler {
   return (err, req, res, _next) => {
-    const known = toHttpError(err);
-    const status = known?.status ?? 500;
+    const known = toAppError(err);
+    const status = known ? statusOf(known) : 500;
     if (!known) req.log?.error({ err }, "unhandled error");
     const body: Record<string, unknown> = {
       type: "about:blank",

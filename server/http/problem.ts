@@ -1,27 +1,19 @@
-/** Errors that map onto RFC 9457 problem details. */
-export interface FieldError {
-  path: string;
-  message: string;
-}
+/** How each kind of error reads over HTTP: its status code in an RFC 9457 problem document. */
+import type { AppError, ErrorKind } from "../errors.ts";
 
-export class HttpError extends Error {
-  constructor(
-    readonly status: number,
-    readonly title: string,
-    readonly detail?: string,
-    readonly errors?: FieldError[],
-  ) {
-    super(detail ?? title);
-  }
-}
+export const STATUS_OF: Record<ErrorKind, number> = {
+  bad_request: 400,
+  validation: 400,
+  unauthenticated: 401,
+  payment_declined: 402,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  gone: 410,
+  too_large: 413,
+  unsupported_media: 415,
+  rate_limited: 429,
+  upstream_failed: 502,
+};
 
-export const badRequest = (detail: string, errors?: FieldError[]) => new HttpError(400, "Bad request", detail, errors);
-export const validationFailed = (errors: FieldError[]) =>
-  new HttpError(400, "Validation failed", "Some fields are not valid; see errors.", errors);
-export const unauthorized = (detail = "Sign in to continue.") => new HttpError(401, "Not signed in", detail);
-export const forbidden = (detail: string) => new HttpError(403, "Forbidden", detail);
-/** Also used for data of other organisations, so a caller cannot learn that it exists. */
-export const notFound = (what = "The resource") => new HttpError(404, "Not found", `${what} was not found.`);
-export const conflict = (detail: string) => new HttpError(409, "Conflict", detail);
-export const gone = (detail: string) => new HttpError(410, "Gone", detail);
-export const tooManyRequests = (detail: string) => new HttpError(429, "Too many requests", detail);
+export const statusOf = (err: AppError) => STATUS_OF[err.kind];

@@ -1,7 +1,7 @@
 /** Login throttling per client address and per account; only failed attempts count. */
 import { rateLimit, ipKeyGenerator } from "express-rate-limit";
 import type { RequestHandler } from "express";
-import { tooManyRequests } from "./problem.ts";
+import { tooManyRequests } from "../errors.ts";
 
 export interface LimitSettings {
   perIp: number;

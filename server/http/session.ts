@@ -8,7 +8,7 @@ import {
   readSessionToken,
   type SessionSettings,
 } from "../services/session-service.ts";
-import { forbidden } from "./problem.ts";
+import { forbidden } from "../errors.ts";
 
 export const SESSION_COOKIE = "cp_session";
 export const CSRF_COOKIE = "cp_csrf";

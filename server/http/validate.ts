@@ -1,5 +1,5 @@
 import type { ZodError, ZodType } from "zod";
-import { validationFailed, type FieldError } from "./problem.ts";
+import { validationFailed, type FieldError } from "../errors.ts";
 
 export function zodFieldErrors(error: ZodError, prefix?: string): FieldError[] {
   return error.issues.map((issue) => ({

@@ -7,7 +7,7 @@ import { decisionSchema, deviationListQuerySchema, editMessageSchema, manualDevi
 import * as deviations from "../services/deviations/deviation-service.ts";
 import { deviationPdf } from "../services/deviations/deviation-pdf.ts";
 import * as notifications from "../services/notification-service.ts";
-import { badRequest } from "../http/problem.ts";
+import { badRequest } from "../errors.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const devParams = orgParams.extend({ deviationId: idParam });

@@ -9,7 +9,7 @@ import { analysisSubmissionSchema, importBatchSchema, lotSchema, lotUpdateSchema
 import * as submissions from "../services/lots/submission-service.ts";
 import * as queries from "../services/lots/lot-queries.ts";
 import { readCertificate, storeCertificate } from "../services/lots/certificate-service.ts";
-import { badRequest } from "../http/problem.ts";
+import { badRequest } from "../errors.ts";
 import { lotDocument } from "../services/lots/conformity-service.ts";
 import { rejudgeAnalysis } from "../services/lots/rejudge-service.ts";
 

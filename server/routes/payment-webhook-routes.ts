@@ -1,6 +1,6 @@
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { PUBLIC } from "../http/access.ts";
-import { verifiedEvent } from "../services/payments/stripe-client.ts";
+import { verifiedEvent } from "../integrations/payments/stripe-client.ts";
 import { applyStripeEvent } from "../services/payments/webhook-service.ts";
 
 /** Mounted with express.raw in app.ts: the signature covers the exact bytes Stripe sent. */

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { orgMember } from "../http/access.ts";
-import { validationFailed } from "../http/problem.ts";
+import { validationFailed } from "../errors.ts";
 import { idParam } from "../../shared/ids.ts";
 import { commentSchema, newContractSchema, newVersionSchema, requestChangesSchema, specDraftSchema, specListQuerySchema } from "../../shared/specs/schemas.ts";
 import * as queries from "../services/specs/spec-queries.ts";

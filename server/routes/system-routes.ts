@@ -2,8 +2,8 @@ import type { RouteRegistry } from "../http/route-registry.ts";
 import { PUBLIC } from "../http/access.ts";
 import { buildOpenApi } from "../http/openapi.ts";
 import { databaseHealth } from "../services/health-service.ts";
-import { readDevInbox } from "../services/dev-inbox-service.ts";
-import { HttpError } from "../http/problem.ts";
+import { readDevInbox } from "../integrations/mail/dev-inbox.ts";
+import { upstreamFailed } from "../errors.ts";
 
 export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; devInboxUrl?: string }): void {
   r.add({ method: "get", path: "/api/health", tag: "system", summary: "Service and database state", access: PUBLIC, errors: { 503: "database down" } }, async ({ res }) => {
@@ -24,7 +24,7 @@ export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; 
         try {
           return await readDevInbox(url);
         } catch (err) {
-          throw new HttpError(502, "Mail fake unavailable", `Could not read the local mail fake: ${(err as Error).message}`);
+          throw upstreamFailed("Mail fake unavailable", `Could not read the local mail fake: ${(err as Error).message}`);
         }
       },
     );

@@ -1,5 +1,5 @@
 /** Whether an organisation may read the history of an entity: it must be a party to it. */
-import { notFound } from "../http/problem.ts";
+import { notFound } from "../errors.ts";
 import { versionFor, contractFor } from "./specs/spec-access.ts";
 import { lotFor } from "./lots/lot-access.ts";
 import { Deviation } from "../models/deviation.ts";

@@ -5,11 +5,11 @@ import { User } from "../models/user.ts";
 import { PasswordReset } from "../models/password-reset.ts";
 import { inTransaction } from "../db/database.ts";
 import { recordAudit } from "./audit-service.ts";
-import { enqueueMail } from "./outbox-service.ts";
-import { passwordResetMail } from "../mail/templates.ts";
+import { enqueueMail } from "../integrations/mail/outbox.ts";
+import { passwordResetMail } from "../integrations/mail/templates.ts";
 import { randomToken, sha256 } from "../lib/crypto.ts";
-import { serviceSettings } from "./settings.ts";
-import { gone, unauthorized, validationFailed } from "../http/problem.ts";
+import { serviceSettings } from "../settings.ts";
+import { gone, unauthorized, validationFailed } from "../errors.ts";
 import { toSessionUser, type SessionUser } from "./session-service.ts";
 
 export const SIGN_IN_FAILED = "The e-mail address or the password is not right.";

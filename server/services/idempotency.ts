@@ -6,7 +6,7 @@ import { UniqueConstraintError, type Transaction } from "sequelize";
 import { IdempotencyKey } from "../models/evaluation.ts";
 import { inTransaction } from "../db/database.ts";
 import { canonicalJson, sha256 } from "../lib/crypto.ts";
-import { conflict } from "../http/problem.ts";
+import { conflict } from "../errors.ts";
 
 export async function idempotent<T>(organisationId: number, key: string, body: unknown, work: (t: Transaction) => Promise<T>): Promise<{ replayed: boolean; response: T }> {
   const requestHash = sha256(canonicalJson(body));

@@ -5,7 +5,7 @@ import { Organisation } from "../models/organisation.ts";
 import { inTransaction } from "../db/database.ts";
 import { recordAudit } from "./audit-service.ts";
 import { assertRoleFits } from "./invitation-service.ts";
-import { conflict, notFound } from "../http/problem.ts";
+import { conflict, notFound } from "../errors.ts";
 import type { Role } from "../../shared/auth/roles.ts";
 import type { Transaction } from "sequelize";
 import type { MemberView } from "../../shared/auth/views.ts";

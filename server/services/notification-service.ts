@@ -6,9 +6,9 @@ import { Op, type Transaction } from "sequelize";
 import { Notification, NotificationPreference } from "../models/deviation.ts";
 import { Membership } from "../models/membership.ts";
 import { User } from "../models/user.ts";
-import { enqueueMail } from "./outbox-service.ts";
+import { enqueueMail } from "../integrations/mail/outbox.ts";
 import { database } from "../db/database.ts";
-import { serviceSettings } from "./settings.ts";
+import { serviceSettings } from "../settings.ts";
 import { NOTIFICATION_KINDS, type NotificationKind } from "../../shared/deviations/vocabulary.ts";
 
 export interface NotificationPreferences {

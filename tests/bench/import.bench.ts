@@ -10,7 +10,7 @@ import { createSequelize } from "../../server/db/connection.ts";
 import { useDatabase } from "../../server/db/database.ts";
 import { createMigrator, createSeeder } from "../../server/db/migrator.ts";
 import { dropAllTables } from "../../server/db/reset.ts";
-import { useServiceSettings } from "../../server/services/settings.ts";
+import { useServiceSettings } from "../../server/settings.ts";
 import { importAnalyses } from "../../server/services/lots/submission-service.ts";
 import { createContract } from "../../server/services/specs/contract-service.ts";
 import { toSessionUser } from "../../server/services/session-service.ts";

@@ -1,7 +1,7 @@
 /** Delivers the outbox to an in-process SMTP fake over real SMTP, as the worker does. */
 import nodemailer from "nodemailer";
 import { startMailFake, type MailFake } from "../../server/fakes/mail-fake.ts";
-import { deliverDueMail } from "../../server/services/outbox-service.ts";
+import { deliverDueMail } from "../../server/integrations/mail/outbox.ts";
 
 export async function startTestMail(port?: number) {
   const fake: MailFake = await startMailFake({ smtpPort: port });

@@ -1,5 +1,5 @@
 import { renderInvoice } from "../../pdf/invoice-pdf.tsx";
-import { notFound } from "../../http/problem.ts";
+import { notFound } from "../../errors.ts";
 import { orderFor } from "./order-access.ts";
 import { detailOf } from "./order-views.ts";
 import type { Role } from "../../../shared/auth/roles.ts";

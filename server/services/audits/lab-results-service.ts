@@ -11,7 +11,7 @@ import { Organisation } from "../../models/organisation.ts";
 import { recordAudit } from "../audit-service.ts";
 import { idempotent } from "../idempotency.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
-import { conflict, notFound, validationFailed, type FieldError } from "../../http/problem.ts";
+import { conflict, notFound, validationFailed, type FieldError } from "../../errors.ts";
 import { contractFor } from "../specs/spec-access.ts";
 import { storeAnalyses } from "../lots/store-analyses.ts";
 import { openDeviations } from "../deviations/open-deviations.ts";

@@ -1,7 +1,7 @@
 /** Which audit orders an organisation may see, and as which party: the buyer who pays, the laboratory, or the producer. */
 import type { Transaction } from "sequelize";
 import { AuditOrder } from "../../models/audit-order.ts";
-import { notFound } from "../../http/problem.ts";
+import { notFound } from "../../errors.ts";
 
 export type OrderSide = "buyer" | "laboratory" | "producer";
 

@@ -3,7 +3,7 @@ import { LabPrice } from "../../models/audit-order.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
-import { forbidden } from "../../http/problem.ts";
+import { forbidden } from "../../errors.ts";
 import { CURRENCY } from "../../../shared/audits/vocabulary.ts";
 import type { PriceListInput } from "../../../shared/audits/schemas.ts";
 import type { LaboratoryOffer } from "../../../shared/audits/views.ts";

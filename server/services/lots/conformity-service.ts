@@ -5,7 +5,7 @@
  * screens show, from `lotStatus`.
  */
 import { getLot } from "./lot-queries.ts";
-import { conflict } from "../../http/problem.ts";
+import { conflict } from "../../errors.ts";
 import { renderLotDocument, type LotDocumentData } from "../../pdf/conformity-pdf.tsx";
 import { CERTIFIABLE } from "../../../shared/lots/lot-status.ts";
 import { ROLE_LABELS, type Role } from "../../../shared/auth/roles.ts";

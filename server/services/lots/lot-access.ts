@@ -1,6 +1,6 @@
 import type { Transaction } from "sequelize";
 import { Lot } from "../../models/lot.ts";
-import { notFound } from "../../http/problem.ts";
+import { notFound } from "../../errors.ts";
 import { contractFor } from "../specs/spec-access.ts";
 
 /** The lot if the organisation is a party to its contract; otherwise 404. */

@@ -7,7 +7,7 @@
 import { inTransaction } from "../../db/database.ts";
 import { Analysis, AnalysisResult } from "../../models/lot.ts";
 import { AnalysisEvaluation } from "../../models/evaluation.ts";
-import { conflict, notFound } from "../../http/problem.ts";
+import { conflict, notFound } from "../../errors.ts";
 import { recordAudit } from "../audit-service.ts";
 import { lotFor } from "./lot-access.ts";
 import { governingVersion } from "./governing.ts";

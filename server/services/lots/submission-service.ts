@@ -2,7 +2,7 @@
 import { Lot } from "../../models/lot.ts";
 import { recordAudit } from "../audit-service.ts";
 import { idempotent } from "../idempotency.ts";
-import { conflict, notFound, validationFailed } from "../../http/problem.ts";
+import { conflict, notFound, validationFailed } from "../../errors.ts";
 import { inTransaction } from "../../db/database.ts";
 import type { AnalysisSubmission, ImportBatch, LotInput, LotUpdate } from "../../../shared/lots/schemas.ts";
 import { contractFor, type ContractWithParties } from "../specs/spec-access.ts";

@@ -14,11 +14,11 @@ import { User } from "../../models/user.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
-import { enqueueMail } from "../outbox-service.ts";
+import { enqueueMail } from "../../integrations/mail/outbox.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
-import { serviceSettings } from "../settings.ts";
+import { serviceSettings } from "../../settings.ts";
 import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
-import { receiptMail, refundMail } from "../../mail/payment-templates.ts";
+import { receiptMail, refundMail } from "../../integrations/mail/payment-templates.ts";
 import { formatMoney, orderReference, orderStatus } from "../../../shared/audits/vocabulary.ts";
 
 export interface AppliedEvent {

@@ -4,7 +4,7 @@ import { Contract } from "../../models/contract.ts";
 import { Wine } from "../../models/wine.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
-import { conflict, forbidden, validationFailed } from "../../http/problem.ts";
+import { conflict, forbidden, validationFailed } from "../../errors.ts";
 import { contractFor } from "./spec-access.ts";
 import { lawFactsText, type WineLawFacts } from "../../../shared/specs/law-facts.ts";
 import type { NewContractInput } from "../../../shared/specs/schemas.ts";

@@ -4,7 +4,7 @@ import { Contract } from "../../models/contract.ts";
 import { Wine } from "../../models/wine.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { SpecVersion } from "../../models/spec-version.ts";
-import { notFound } from "../../http/problem.ts";
+import { notFound } from "../../errors.ts";
 
 export type Side = "buyer" | "producer";
 

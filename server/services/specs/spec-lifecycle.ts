@@ -16,7 +16,7 @@ import { SpecComment } from "../../models/spec-comment.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
-import { conflict, notFound, validationFailed } from "../../http/problem.ts";
+import { conflict, notFound, validationFailed } from "../../errors.ts";
 import { contractFor, versionFor, type ContractWithParties } from "./spec-access.ts";
 import { requirementsOf } from "./spec-queries.ts";
 import type { SessionUser } from "../session-service.ts";

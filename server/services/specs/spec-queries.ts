@@ -13,7 +13,7 @@ import { Organisation } from "../../models/organisation.ts";
 import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
 import { contractFor, contractInclude, versionFor, sideOf, type ContractWithParties } from "./spec-access.ts";
 import { actionsFor, contractView, requirementView, versionSummary } from "./spec-view.ts";
-import { badRequest } from "../../http/problem.ts";
+import { badRequest } from "../../errors.ts";
 
 export interface SpecListFilters {
   wine?: number;

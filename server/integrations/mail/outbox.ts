@@ -6,8 +6,8 @@
 import { randomUUID } from "node:crypto";
 import { Op, type Transaction } from "sequelize";
 import type { Transporter } from "nodemailer";
-import { OutboxMessage } from "../models/outbox-message.ts";
-import { database } from "../db/database.ts";
+import { OutboxMessage } from "../../models/outbox-message.ts";
+import { database } from "../../db/database.ts";
 
 export interface OutgoingMail {
   to: string;

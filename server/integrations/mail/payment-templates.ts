@@ -1,6 +1,6 @@
 /** Wording of the payment mails: a receipt when Stripe confirms a payment, a note when it confirms a refund. */
-import { formatMoney } from "../../shared/audits/vocabulary.ts";
-import type { OutgoingMail } from "../services/outbox-service.ts";
+import { formatMoney } from "../../../shared/audits/vocabulary.ts";
+import type { OutgoingMail } from "./outbox.ts";
 
 interface OrderMailFacts {
   to: string;

@@ -1,6 +1,6 @@
 /** The few config values that services need, set once when the app is built (or a seeder runs). */
 import path from "node:path";
-import type { Config } from "../config.ts";
+import type { Config } from "./config.ts";
 
 export interface ServiceSettings {
   appUrl: string;

@@ -3,9 +3,9 @@ import { fileTypeFromBuffer } from "file-type";
 import { mkdir, readFile, unlink, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
-import { sha256 } from "../lib/crypto.ts";
-import { HttpError } from "../http/problem.ts";
-import { serviceSettings } from "./settings.ts";
+import { sha256 } from "../../lib/crypto.ts";
+import { unsupportedMedia } from "../../errors.ts";
+import { serviceSettings } from "../../settings.ts";
 
 export const ACCEPTED_TYPES: Record<string, string> = { "application/pdf": "pdf", "image/png": "png", "image/jpeg": "jpg" };
 
@@ -20,7 +20,7 @@ export interface SavedFile {
 export async function saveCheckedFile(file: { buffer: Buffer; originalname: string }): Promise<SavedFile> {
   const detected = await fileTypeFromBuffer(file.buffer);
   if (!detected || !ACCEPTED_TYPES[detected.mime]) {
-    throw new HttpError(415, "Unsupported media type", `The file's content is ${detected ? detected.mime : "not a known type"}; upload a PDF, PNG or JPEG.`);
+    throw unsupportedMedia(`The file's content is ${detected ? detected.mime : "not a known type"}; upload a PDF, PNG or JPEG.`);
   }
   const dir = serviceSettings().certificateDir;
   await mkdir(dir, { recursive: true });

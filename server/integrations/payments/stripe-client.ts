@@ -1,7 +1,7 @@
 /** The one stripe SDK client, aimed by settings at Stripe or at the local fake; and webhook verification. */
 import Stripe from "stripe";
-import { serviceSettings } from "../settings.ts";
-import { HttpError, badRequest } from "../../http/problem.ts";
+import { serviceSettings } from "../../settings.ts";
+import { AppError, badRequest, paymentDeclined, upstreamFailed } from "../../errors.ts";
 
 let client: { key: string; stripe: Stripe } | null = null;
 
@@ -27,9 +27,9 @@ export function verifiedEvent(rawBody: unknown, signature: string | undefined): 
 }
 
 /** A Stripe failure as an HTTP answer: card errors are the payer's to fix (402), the rest is the service's (502). */
-export function paymentServiceError(err: unknown): HttpError {
-  if (err instanceof HttpError) return err;
-  if (err instanceof Stripe.errors.StripeCardError) return new HttpError(402, "Payment declined", err.message);
-  if (err instanceof Stripe.errors.StripeError) return new HttpError(502, "Payment service error", `The payment service refused the request: ${err.message}`);
-  return new HttpError(502, "Payment service unavailable", "The payment service could not be reached; nothing was charged. Try again in a moment.");
+export function paymentServiceError(err: unknown): AppError {
+  if (err instanceof AppError) return err;
+  if (err instanceof Stripe.errors.StripeCardError) return paymentDeclined(err.message);
+  if (err instanceof Stripe.errors.StripeError) return upstreamFailed("Payment service error", `The payment service refused the request: ${err.message}`);
+  return upstreamFailed("Payment service unavailable", "The payment service could not be reached; nothing was charged. Try again in a moment.");
 }

@@ -1,6 +1,6 @@
 /** Wording of the mails Cellarpact sends. Plain text keeps them readable in any client. */
-import { ROLE_LABELS, type Role } from "../../shared/auth/roles.ts";
-import type { OutgoingMail } from "../services/outbox-service.ts";
+import { ROLE_LABELS, type Role } from "../../../shared/auth/roles.ts";
+import type { OutgoingMail } from "./outbox.ts";
 
 export function invitationMail(p: {
   to: string;
