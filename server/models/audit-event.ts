@@ -34,21 +34,3 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
     );
   }
 }
-
-/** One row: the last sequence number and hash, used as the append lock and as the tail checkpoint. */
-export class AuditHead extends Model<InferAttributes<AuditHead>, InferCreationAttributes<AuditHead>> {
-  declare id: number;
-  declare lastSeq: number;
-  declare lastHash: string;
-
-  static initModel(sequelize: Sequelize) {
-    AuditHead.init(
-      {
-        id: { type: DataTypes.TINYINT, primaryKey: true },
-        lastSeq: { type: DataTypes.BIGINT, allowNull: false },
-        lastHash: { type: DataTypes.CHAR(64), allowNull: false },
-      },
-      { sequelize, tableName: "audit_head", underscored: true, timestamps: false },
-    );
-  }
-}

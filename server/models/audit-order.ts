@@ -1,31 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { ResultComparison } from "../../shared/engine/index.ts";
 import type { QuoteLine } from "../../shared/audits/pricing.ts";
-import type { OrderStatus, PaymentKind } from "../../shared/audits/vocabulary.ts";
+import type { OrderStatus } from "../../shared/audits/vocabulary.ts";
 import type { AnalysisStage } from "../../shared/lots/vocabulary.ts";
-
-export class LabPrice extends Model<InferAttributes<LabPrice>, InferCreationAttributes<LabPrice>> {
-  declare id: CreationOptional<number>;
-  declare organisationId: number;
-  declare parameter: string;
-  declare priceCents: number;
-  declare currency: string;
-  declare updatedAt: CreationOptional<Date>;
-
-  static initModel(sequelize: Sequelize) {
-    LabPrice.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        organisationId: { type: DataTypes.INTEGER, allowNull: false },
-        parameter: { type: DataTypes.STRING(40), allowNull: false },
-        priceCents: { type: DataTypes.INTEGER, allowNull: false },
-        currency: { type: DataTypes.CHAR(3), allowNull: false },
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "lab_prices", underscored: true, createdAt: false },
-    );
-  }
-}
 
 export class AuditOrder extends Model<InferAttributes<AuditOrder>, InferCreationAttributes<AuditOrder>> {
   declare id: CreationOptional<number>;
@@ -80,73 +56,6 @@ export class AuditOrder extends Model<InferAttributes<AuditOrder>, InferCreation
         updatedAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: "audit_orders", underscored: true },
-    );
-  }
-}
-
-export class AuditOrderLot extends Model<InferAttributes<AuditOrderLot>, InferCreationAttributes<AuditOrderLot>> {
-  declare id: CreationOptional<number>;
-  declare auditOrderId: number;
-  declare lotId: number;
-  declare declaredAnalysisId: CreationOptional<number | null>;
-  declare analysisId: CreationOptional<number | null>;
-  declare comparisons: CreationOptional<ResultComparison[] | null>;
-
-  static initModel(sequelize: Sequelize) {
-    AuditOrderLot.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        auditOrderId: { type: DataTypes.INTEGER, allowNull: false },
-        lotId: { type: DataTypes.INTEGER, allowNull: false },
-        declaredAnalysisId: { type: DataTypes.INTEGER, allowNull: true },
-        analysisId: { type: DataTypes.INTEGER, allowNull: true },
-        comparisons: { type: DataTypes.JSON, allowNull: true },
-      },
-      { sequelize, tableName: "audit_order_lots", underscored: true, timestamps: false },
-    );
-  }
-}
-
-export class AuditPayment extends Model<InferAttributes<AuditPayment>, InferCreationAttributes<AuditPayment>> {
-  declare id: CreationOptional<number>;
-  declare auditOrderId: number;
-  declare kind: PaymentKind;
-  declare stripeRef: string;
-  declare amountCents: number;
-  declare detail: string | null;
-  declare createdAt: CreationOptional<Date>;
-
-  static initModel(sequelize: Sequelize) {
-    AuditPayment.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        auditOrderId: { type: DataTypes.INTEGER, allowNull: false },
-        kind: { type: DataTypes.ENUM("payment", "refund", "failure"), allowNull: false },
-        stripeRef: { type: DataTypes.STRING(80), allowNull: false },
-        amountCents: { type: DataTypes.INTEGER, allowNull: false },
-        detail: { type: DataTypes.STRING(250), allowNull: true },
-        createdAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "audit_payments", underscored: true, updatedAt: false },
-    );
-  }
-}
-
-export class StripeEvent extends Model<InferAttributes<StripeEvent>, InferCreationAttributes<StripeEvent>> {
-  declare id: string;
-  declare type: string;
-  declare outcome: string;
-  declare receivedAt: Date;
-
-  static initModel(sequelize: Sequelize) {
-    StripeEvent.init(
-      {
-        id: { type: DataTypes.STRING(80), primaryKey: true },
-        type: { type: DataTypes.STRING(60), allowNull: false },
-        outcome: { type: DataTypes.STRING(40), allowNull: false },
-        receivedAt: { type: DataTypes.DATE(3), allowNull: false },
-      },
-      { sequelize, tableName: "stripe_events", underscored: true, timestamps: false },
     );
   }
 }

@@ -5,17 +5,31 @@ import { User } from "./user.ts";
 import { Membership } from "./membership.ts";
 import { Invitation } from "./invitation.ts";
 import { PasswordReset } from "./password-reset.ts";
-import { AuditEvent, AuditHead } from "./audit-event.ts";
+import { AuditEvent } from "./audit-event.ts";
+import { AuditHead } from "./audit-head.ts";
 import { OutboxMessage } from "./outbox-message.ts";
 import { Wine } from "./wine.ts";
 import { Contract } from "./contract.ts";
 import { SpecVersion } from "./spec-version.ts";
 import { SpecRequirement } from "./spec-requirement.ts";
 import { SpecComment } from "./spec-comment.ts";
-import { Analysis, AnalysisResult, Lot } from "./lot.ts";
-import { AnalysisEvaluation, Certificate, IdempotencyKey } from "./evaluation.ts";
-import { AuditOrder, AuditOrderLot, AuditPayment, LabPrice, StripeEvent } from "./audit-order.ts";
-import { Deviation, DeviationAttachment, DeviationMessage, DeviationMessageEdit, Notification, NotificationPreference } from "./deviation.ts";
+import { Analysis } from "./analysis.ts";
+import { AnalysisResult } from "./analysis-result.ts";
+import { Lot } from "./lot.ts";
+import { AnalysisEvaluation } from "./analysis-evaluation.ts";
+import { Certificate } from "./certificate.ts";
+import { IdempotencyKey } from "./idempotency-key.ts";
+import { AuditOrder } from "./audit-order.ts";
+import { AuditOrderLot } from "./audit-order-lot.ts";
+import { AuditPayment } from "./audit-payment.ts";
+import { LabPrice } from "./lab-price.ts";
+import { StripeEvent } from "./stripe-event.ts";
+import { Deviation } from "./deviation.ts";
+import { DeviationAttachment } from "./deviation-attachment.ts";
+import { DeviationMessage } from "./deviation-message.ts";
+import { DeviationMessageEdit } from "./deviation-message-edit.ts";
+import { Notification } from "./notification.ts";
+import { NotificationPreference } from "./notification-preference.ts";
 
 export function initModels(sequelize: Sequelize): void {
   for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey, DeviationMessage, DeviationMessageEdit, DeviationAttachment, Notification, NotificationPreference, LabPrice, AuditOrder, AuditOrderLot, AuditPayment, StripeEvent]) {

@@ -5,7 +5,8 @@
 import type { Transaction } from "sequelize";
 import type { AuditAction } from "../../shared/auth/trail-vocabulary.ts";
 import { Op, type WhereOptions } from "sequelize";
-import { AuditEvent, AuditHead } from "../models/audit-event.ts";
+import { AuditEvent } from "../models/audit-event.ts";
+import { AuditHead } from "../models/audit-head.ts";
 import { User } from "../models/user.ts";
 import { canonicalJson, sha256 } from "../lib/crypto.ts";
 import type { AuditEntryView, ChainVerification } from "../../shared/auth/views.ts";

@@ -3,7 +3,7 @@
  * waits on the unique index and then receives the first answer; a retry after success gets it too.
  */
 import { UniqueConstraintError, type Transaction } from "sequelize";
-import { IdempotencyKey } from "../models/evaluation.ts";
+import { IdempotencyKey } from "../models/idempotency-key.ts";
 import { inTransaction } from "../db/database.ts";
 import { canonicalJson, sha256 } from "../lib/crypto.ts";
 import { conflict } from "../errors.ts";

@@ -3,7 +3,8 @@
  * at once, in a daily digest, or not at all; and only for the kinds the user chose.
  */
 import { Op, type Transaction } from "sequelize";
-import { Notification, NotificationPreference } from "../models/deviation.ts";
+import { Notification } from "../models/notification.ts";
+import { NotificationPreference } from "../models/notification-preference.ts";
 import { Membership } from "../models/membership.ts";
 import { User } from "../models/user.ts";
 import { enqueueMail } from "../integrations/mail/outbox.ts";

@@ -5,8 +5,11 @@
  */
 import { Op, type Transaction } from "sequelize";
 import { orderPath } from "../../../shared/paths.ts";
-import { type AuditOrder, AuditOrderLot } from "../../models/audit-order.ts";
-import { Analysis, AnalysisResult, Lot } from "../../models/lot.ts";
+import { type AuditOrder } from "../../models/audit-order.ts";
+import { AuditOrderLot } from "../../models/audit-order-lot.ts";
+import { Analysis } from "../../models/analysis.ts";
+import { AnalysisResult } from "../../models/analysis-result.ts";
+import { Lot } from "../../models/lot.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { recordAudit } from "../audit-service.ts";
 import { idempotent } from "../idempotency.ts";

@@ -4,7 +4,9 @@
  * Nothing here marks an order paid: only a verified webhook event does (payments/webhook-service.ts).
  */
 import { Op } from "sequelize";
-import { AuditOrder, AuditOrderLot, LabPrice } from "../../models/audit-order.ts";
+import { AuditOrder } from "../../models/audit-order.ts";
+import { AuditOrderLot } from "../../models/audit-order-lot.ts";
+import { LabPrice } from "../../models/lab-price.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { Lot } from "../../models/lot.ts";
 import { inTransaction } from "../../db/database.ts";

@@ -1,11 +1,14 @@
 /** Audit orders as the API shows them; payment details only to the buyer who paid. */
 import { Op } from "sequelize";
-import { AuditOrder, AuditOrderLot, AuditPayment } from "../../models/audit-order.ts";
+import { AuditOrder } from "../../models/audit-order.ts";
+import { AuditOrderLot } from "../../models/audit-order-lot.ts";
+import { AuditPayment } from "../../models/audit-payment.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { User } from "../../models/user.ts";
 import { Lot } from "../../models/lot.ts";
 import { Deviation } from "../../models/deviation.ts";
-import { AnalysisEvaluation, Certificate } from "../../models/evaluation.ts";
+import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
+import { Certificate } from "../../models/certificate.ts";
 import { Contract } from "../../models/contract.ts";
 import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { orderReference } from "../../../shared/audits/vocabulary.ts";

@@ -1,5 +1,5 @@
 /** Laboratories' price lists: each laboratory sets its own; buyers see every laboratory's when they order. */
-import { LabPrice } from "../../models/audit-order.ts";
+import { LabPrice } from "../../models/lab-price.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";

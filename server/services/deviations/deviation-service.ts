@@ -5,9 +5,13 @@
 import { Op, type Transaction } from "sequelize";
 import type { AuditAction } from "../../../shared/auth/trail-vocabulary.ts";
 import { deviationPath } from "../../../shared/paths.ts";
-import { Deviation, DeviationAttachment, DeviationMessage, DeviationMessageEdit } from "../../models/deviation.ts";
-import { Analysis, Lot } from "../../models/lot.ts";
-import { AnalysisEvaluation } from "../../models/evaluation.ts";
+import { Deviation } from "../../models/deviation.ts";
+import { DeviationAttachment } from "../../models/deviation-attachment.ts";
+import { DeviationMessage } from "../../models/deviation-message.ts";
+import { DeviationMessageEdit } from "../../models/deviation-message-edit.ts";
+import { Analysis } from "../../models/analysis.ts";
+import { Lot } from "../../models/lot.ts";
+import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
 import { Membership } from "../../models/membership.ts";
 import { User } from "../../models/user.ts";
 import { Contract } from "../../models/contract.ts";

@@ -3,8 +3,8 @@
  * name outside the web root, its SHA-256 in the audit log, downloadable by both parties. The producer
  * documents its own analyses; an independent audit's report is attached by the laboratory that wrote it.
  */
-import { Analysis } from "../../models/lot.ts";
-import { Certificate } from "../../models/evaluation.ts";
+import { Analysis } from "../../models/analysis.ts";
+import { Certificate } from "../../models/certificate.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordAudit } from "../audit-service.ts";
 import { forbidden, notFound } from "../../errors.ts";

@@ -5,8 +5,9 @@
  * so the first verdict remains reproducible. Nothing is ever re-judged without this request.
  */
 import { inTransaction } from "../../db/database.ts";
-import { Analysis, AnalysisResult } from "../../models/lot.ts";
-import { AnalysisEvaluation } from "../../models/evaluation.ts";
+import { Analysis } from "../../models/analysis.ts";
+import { AnalysisResult } from "../../models/analysis-result.ts";
+import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
 import { conflict, notFound } from "../../errors.ts";
 import { recordAudit } from "../audit-service.ts";
 import { lotFor } from "./lot-access.ts";

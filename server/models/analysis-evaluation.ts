@@ -1,4 +1,3 @@
-import { StoredFileModel, storedFileAttributes } from "./stored-file-attributes.ts";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { StoredVerdict } from "../../shared/lots/views.ts";
 import type { WineProfile } from "../../shared/engine/index.ts";
@@ -29,44 +28,6 @@ export class AnalysisEvaluation extends Model<InferAttributes<AnalysisEvaluation
         createdAt: DataTypes.DATE(3),
       },
       { sequelize, tableName: "analysis_evaluations", underscored: true, updatedAt: false },
-    );
-  }
-}
-
-export class Certificate extends StoredFileModel<Certificate> {
-  declare analysisId: number;
-
-  static initModel(sequelize: Sequelize) {
-    Certificate.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        analysisId: { type: DataTypes.INTEGER, allowNull: false },
-        ...storedFileAttributes,
-      },
-      { sequelize, tableName: "certificates", underscored: true, updatedAt: false },
-    );
-  }
-}
-
-export class IdempotencyKey extends Model<InferAttributes<IdempotencyKey>, InferCreationAttributes<IdempotencyKey>> {
-  declare id: CreationOptional<number>;
-  declare organisationId: number;
-  declare key: string;
-  declare requestHash: string;
-  declare response: unknown;
-  declare createdAt: CreationOptional<Date>;
-
-  static initModel(sequelize: Sequelize) {
-    IdempotencyKey.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        organisationId: { type: DataTypes.INTEGER, allowNull: false },
-        key: { type: DataTypes.STRING(100), allowNull: false },
-        requestHash: { type: DataTypes.CHAR(64), allowNull: false },
-        response: { type: DataTypes.JSON, allowNull: false },
-        createdAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "idempotency_keys", underscored: true, updatedAt: false },
     );
   }
 }
