@@ -17,7 +17,7 @@ import { registerSystemRoutes } from "./routes/system-routes.ts";
 import { registerSpecRoutes } from "./routes/spec-routes.ts";
 import { registerLotRoutes } from "./routes/lot-routes.ts";
 import { registerDeviationRoutes } from "./routes/deviation-routes.ts";
-import { registerAuditRoutes } from "./routes/audit-routes.ts";
+import { registerTrailRoutes } from "./routes/trail-routes.ts";
 import { registerComplianceAuditRoutes } from "./routes/compliance-audit-routes.ts";
 import { registerPaymentWebhookRoutes, STRIPE_WEBHOOK_PATH } from "./routes/payment-webhook-routes.ts";
 import { settingsFrom, useServiceSettings } from "./settings.ts";
@@ -79,7 +79,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   registerSpecRoutes(registry);
   registerLotRoutes(registry, { certificateMaxBytes: config.CERTIFICATE_MAX_BYTES });
   registerDeviationRoutes(registry, { attachmentMaxBytes: config.CERTIFICATE_MAX_BYTES });
-  registerAuditRoutes(registry);
+  registerTrailRoutes(registry);
   registerComplianceAuditRoutes(registry);
   registerPaymentWebhookRoutes(registry);
   app.use(router);

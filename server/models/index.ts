@@ -5,8 +5,8 @@ import { User } from "./user.ts";
 import { Membership } from "./membership.ts";
 import { Invitation } from "./invitation.ts";
 import { PasswordReset } from "./password-reset.ts";
-import { AuditEvent } from "./audit-event.ts";
-import { AuditHead } from "./audit-head.ts";
+import { TrailEntry } from "./trail-entry.ts";
+import { TrailHead } from "./trail-head.ts";
 import { OutboxMessage } from "./outbox-message.ts";
 import { Wine } from "./wine.ts";
 import { Contract } from "./contract.ts";
@@ -32,7 +32,7 @@ import { Notification } from "./notification.ts";
 import { NotificationPreference } from "./notification-preference.ts";
 
 export function initModels(sequelize: Sequelize): void {
-  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, AuditEvent, AuditHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey, DeviationMessage, DeviationMessageEdit, DeviationAttachment, Notification, NotificationPreference, LabPrice, AuditOrder, AuditOrderLot, AuditPayment, StripeEvent]) {
+  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, TrailEntry, TrailHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey, DeviationMessage, DeviationMessageEdit, DeviationAttachment, Notification, NotificationPreference, LabPrice, AuditOrder, AuditOrderLot, AuditPayment, StripeEvent]) {
     m.initModel(sequelize);
   }
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });

@@ -6,7 +6,7 @@ import { idParam } from "../../shared/ids.ts";
 import * as members from "../services/member-service.ts";
 import * as invitations from "../services/invitation-service.ts";
 import * as organisations from "../services/organisation-service.ts";
-import { verifyAuditChain } from "../services/audit-service.ts";
+import { verifyTrailChain } from "../services/trail/trail-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const memberParams = orgParams.extend({ membershipId: idParam });
@@ -54,7 +54,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
     ({ body, user }) => organisations.createOrganisation(body, user),
   );
 
-  r.add({ method: "get", path: "/api/platform/audit/verify", tag: "platform", summary: "Verify the whole audit chain", access: PLATFORM_ADMIN }, () =>
-    verifyAuditChain(),
+  r.add({ method: "get", path: "/api/platform/trail/verify", tag: "platform", summary: "Verify the whole trail's hash chain", access: PLATFORM_ADMIN }, () =>
+    verifyTrailChain(),
   );
 }

@@ -4,7 +4,7 @@ import { Op } from "sequelize";
 import { User } from "../models/user.ts";
 import { PasswordReset } from "../models/password-reset.ts";
 import { inTransaction } from "../db/database.ts";
-import { recordAudit } from "./audit-service.ts";
+import { recordTrail } from "./trail/trail-service.ts";
 import { enqueueMail } from "../integrations/mail/outbox.ts";
 import { passwordResetMail } from "../integrations/mail/templates.ts";
 import { randomToken, sha256 } from "../lib/crypto.ts";
@@ -24,7 +24,7 @@ export async function signIn(email: string, password: string): Promise<{ user: S
   const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
   if (!user || !user.passwordHash || !ok) {
     await inTransaction((t) =>
-      recordAudit(t, {
+      recordTrail(t, {
         actorUserId: null,
         organisationId: null,
         action: "auth.sign_in_failed",
@@ -37,7 +37,7 @@ export async function signIn(email: string, password: string): Promise<{ user: S
   }
   const sessionUser = await toSessionUser(user);
   await inTransaction((t) =>
-    recordAudit(t, {
+    recordTrail(t, {
       actorUserId: user.id,
       organisationId: sessionUser.memberships[0]?.organisationId ?? null,
       action: "auth.sign_in",
@@ -52,7 +52,7 @@ export async function signIn(email: string, password: string): Promise<{ user: S
 export async function signOut(userId: number): Promise<void> {
   await inTransaction(async (t) => {
     await User.increment("sessionVersion", { where: { id: userId }, transaction: t });
-    await recordAudit(t, { actorUserId: userId, organisationId: null, action: "auth.sign_out", entityType: "user", entityId: userId });
+    await recordTrail(t, { actorUserId: userId, organisationId: null, action: "auth.sign_out", entityType: "user", entityId: userId });
   });
 }
 
@@ -75,7 +75,7 @@ export async function requestPasswordReset(email: string): Promise<void> {
         expiresMinutes: RESET_MINUTES,
       }),
     );
-    await recordAudit(t, { actorUserId: null, organisationId: null, action: "auth.reset_requested", entityType: "user", entityId: user.id });
+    await recordTrail(t, { actorUserId: null, organisationId: null, action: "auth.reset_requested", entityType: "user", entityId: user.id });
   });
 }
 
@@ -92,7 +92,7 @@ export async function resetPassword(token: string, password: string): Promise<vo
     const user = await User.findByPk(reset.userId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw gone("The account no longer exists.");
     await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction: t });
-    await recordAudit(t, { actorUserId: user.id, organisationId: null, action: "auth.password_reset", entityType: "user", entityId: user.id });
+    await recordTrail(t, { actorUserId: user.id, organisationId: null, action: "auth.password_reset", entityType: "user", entityId: user.id });
   });
 }
 
@@ -105,7 +105,7 @@ export async function changePassword(userId: number, current: string, next: stri
   return inTransaction(async (t) => {
     const sessionVersion = user.sessionVersion + 1;
     await user.update({ passwordHash, sessionVersion }, { transaction: t });
-    await recordAudit(t, { actorUserId: userId, organisationId: null, action: "auth.password_changed", entityType: "user", entityId: userId });
+    await recordTrail(t, { actorUserId: userId, organisationId: null, action: "auth.password_changed", entityType: "user", entityId: userId });
     return sessionVersion;
   });
 }
@@ -116,7 +116,7 @@ export async function updateProfile(userId: number, name: string): Promise<Sessi
     if (!user) throw unauthorized();
     const before = { name: user.name };
     await user.update({ name }, { transaction: t });
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: userId,
       organisationId: null,
       action: "user.profile_updated",

@@ -5,7 +5,7 @@ import { Organisation } from "../models/organisation.ts";
 import { User } from "../models/user.ts";
 import { Membership } from "../models/membership.ts";
 import { inTransaction } from "../db/database.ts";
-import { recordAudit } from "./audit-service.ts";
+import { recordTrail } from "./trail/trail-service.ts";
 import { enqueueMail } from "../integrations/mail/outbox.ts";
 import { invitationMail } from "../integrations/mail/templates.ts";
 import { randomToken, sha256 } from "../lib/crypto.ts";
@@ -53,7 +53,7 @@ export async function createInvitation(
     { transaction: t },
   );
   await enqueueMail(t, mail(`${serviceSettings().appUrl}/accept-invitation/${token}`));
-  await recordAudit(t, {
+  await recordTrail(t, {
     actorUserId: p.invitedBy?.id ?? null,
     organisationId: p.organisation.id,
     action: "invitation.created",
@@ -99,7 +99,7 @@ export async function revokeInvitation(orgId: number, invitationId: number, acto
     const inv = await Invitation.findOne({ where: { id: invitationId, organisationId: orgId }, transaction: t, lock: t.LOCK.UPDATE });
     if (!inv || inv.acceptedAt || inv.revokedAt) throw notFound("The invitation");
     await inv.update({ revokedAt: new Date() }, { transaction: t });
-    await recordAudit(t, { actorUserId: actorId, organisationId: orgId, action: "invitation.revoked", entityType: "invitation", entityId: inv.id });
+    await recordTrail(t, { actorUserId: actorId, organisationId: orgId, action: "invitation.revoked", entityType: "invitation", entityId: inv.id });
   });
 }
 
@@ -142,7 +142,7 @@ export async function acceptInvitation(token: string, name: string, password: st
     else user = await User.create({ email: inv.email, name, passwordHash }, { transaction: t });
     await Membership.create({ userId: user.id, organisationId: inv.organisationId, role: inv.role }, { transaction: t });
     await inv.update({ acceptedAt: new Date() }, { transaction: t });
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: inv.organisationId,
       action: "invitation.accepted",

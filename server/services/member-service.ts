@@ -3,7 +3,7 @@ import { Membership } from "../models/membership.ts";
 import { User } from "../models/user.ts";
 import { Organisation } from "../models/organisation.ts";
 import { inTransaction } from "../db/database.ts";
-import { recordAudit } from "./audit-service.ts";
+import { recordTrail } from "./trail/trail-service.ts";
 import { assertRoleFits } from "./invitation-service.ts";
 import { conflict, notFound } from "../errors.ts";
 import type { Role } from "../../shared/auth/roles.ts";
@@ -48,7 +48,7 @@ export async function changeRole(orgId: number, membershipId: number, role: Role
     const before = { role: m.role };
     await m.update({ role }, { transaction: t });
     await User.increment("sessionVersion", { where: { id: m.userId }, transaction: t });
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: actorId,
       organisationId: orgId,
       action: "membership.role_changed",
@@ -70,7 +70,7 @@ export async function removeMember(orgId: number, membershipId: number, actorId:
     await assertNotLastAdmin(t, orgId, m);
     await m.destroy({ transaction: t });
     await User.increment("sessionVersion", { where: { id: m.userId }, transaction: t });
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: actorId,
       organisationId: orgId,
       action: "membership.removed",

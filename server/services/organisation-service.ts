@@ -3,7 +3,7 @@ import { fn, col } from "sequelize";
 import { Organisation } from "../models/organisation.ts";
 import { Membership } from "../models/membership.ts";
 import { inTransaction } from "../db/database.ts";
-import { recordAudit } from "./audit-service.ts";
+import { recordTrail } from "./trail/trail-service.ts";
 import { createInvitation, INVITATION_DAYS } from "./invitation-service.ts";
 import { organisationWelcomeMail } from "../integrations/mail/templates.ts";
 import { conflict, notFound } from "../errors.ts";
@@ -44,7 +44,7 @@ export async function createOrganisation(input: CreateOrganisationInput, actor: 
       throw conflict(`An organisation named ${input.name} exists already.`);
     }
     const organisation = await Organisation.create({ name: input.name, kind: input.kind, country: input.country }, { transaction: t });
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: actor.id,
       organisationId: organisation.id,
       action: "organisation.created",

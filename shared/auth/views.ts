@@ -27,22 +27,3 @@ export interface OrganisationView {
   createdAt: string;
 }
 
-export interface AuditEntryView {
-  seq: number;
-  occurredAt: string;
-  actorUserId: number | null;
-  organisationId: number | null;
-  actorName: string | null;
-  action: string;
-  entityType: string;
-  entityId: string | null;
-  details: Record<string, unknown> | null;
-  hash: string;
-}
-
-export interface ChainVerification {
-  ok: boolean;
-  checked: number;
-  lastSeq: number;
-  firstBroken?: { seq: number; reason: string };
-}

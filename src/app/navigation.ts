@@ -20,7 +20,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: "Deviations", to: "/deviations", roles: ["buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst"] },
   { label: "Audits", to: "/audits", roles: ["buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst"] },
   { label: "Members", to: "/members", roles: ["org_admin"] },
-  { label: "Activity log", to: "/activity", roles: ["org_admin"] },
+  { label: "Trail", to: "/activity", roles: ["org_admin"] },
   { label: "Price list", to: "/price-list", roles: ["org_admin"], kinds: ["laboratory"] },
   { label: "Organisations", to: "/platform/organisations", platformAdminOnly: true },
   { label: "Profile", to: "/profile" },

@@ -17,7 +17,7 @@ const router = createBrowserRouter([
     children: [
       { index: true, lazy: () => import("../features/home/home-page.tsx").then((m) => ({ Component: m.HomePage })) },
       { path: "members", lazy: () => import("../features/members/members-page.tsx").then((m) => ({ Component: m.MembersPage })) },
-      { path: "activity", lazy: () => import("../features/audit/activity-page.tsx").then((m) => ({ Component: m.ActivityPage })) },
+      { path: "activity", lazy: () => import("../features/trail/activity-page.tsx").then((m) => ({ Component: m.ActivityPage })) },
       { path: "specs", lazy: () => import("../features/specs/specs-list-page.tsx").then((m) => ({ Component: m.SpecsListPage })) },
       { path: ROUTES.spec.slice(1), lazy: () => import("../features/specs/spec-page.tsx").then((m) => ({ Component: m.SpecPage })) },
       { path: "specs/:specId/compare", lazy: () => import("../features/specs/compare-page.tsx").then((m) => ({ Component: m.ComparePage })) },

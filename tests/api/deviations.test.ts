@@ -76,7 +76,7 @@ describe("deviations", () => {
 
     const history = (await producer.agent.get(P(`/history/deviation/${deviationId}`))).body as { action: string }[];
     expect(history.map((h) => h.action)).toEqual(["deviation.opened", "deviation.proposed", "deviation.proposed", "deviation.accepted", "deviation.decided"]);
-    expect((await buyer.agent.get(B("/audit/verify"))).body.ok).toBe(true);
+    expect((await buyer.agent.get(B("/trail/verify"))).body.ok).toBe(true);
   });
 
   it("when another producer or the laboratory asks for a deviation, then 404", async () => {
@@ -138,15 +138,15 @@ describe("deviations", () => {
     expect(mail.to(DEMO.producerAdmin).filter((m) => /update.* since yesterday/.test(m.subject))).toHaveLength(1);
   });
 
-  it("when the org admin exports the audit log, then CSV and JSON downloads come with filters applied", async () => {
+  it("when the org admin exports the trail, then CSV and JSON downloads come with filters applied", async () => {
     const admin = await signInAs(t.app, DEMO.retailerAdmin);
-    const csv = await admin.agent.get(B("/audit?format=csv&action=deviation.")).buffer(true);
+    const csv = await admin.agent.get(B("/trail?format=csv&action=deviation.")).buffer(true);
     expect(csv.headers["content-type"]).toMatch(/text\/csv/);
     expect(csv.text.split("\n")[0]).toContain("seq,occurred_at,actor,action");
     expect(csv.text).toContain("deviation.decided");
     // Each row also says what happened in words.
     expect(csv.text).toContain("Deviation decided");
-    const json = await admin.agent.get(B("/audit?format=json&entityType=deviation")).buffer(true);
+    const json = await admin.agent.get(B("/trail?format=json&entityType=deviation")).buffer(true);
     expect(JSON.parse(json.text).every((e: { entityType: string }) => e.entityType === "deviation")).toBe(true);
   });
 });

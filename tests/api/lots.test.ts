@@ -135,13 +135,13 @@ describe("certificates", () => {
   const pdf = Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n");
   const filesNow = () => readdirSync(certDir).length;
 
-  it("when a real PDF is uploaded, then its SHA-256 is recorded in the audit log and both parties can download it", async () => {
+  it("when a real PDF is uploaded, then its SHA-256 is recorded on the trail and both parties can download it", async () => {
     const lotId = await newLot();
     const { body } = await producer.agent.post(P(`/lots/${lotId}/analyses`)).set("x-csrf-token", producer.csrf).send(failingAnalysis());
     const up = await producer.agent.post(P(`/analyses/${body.analysisId}/certificates`)).set("x-csrf-token", producer.csrf).attach("file", pdf, "certificate.pdf");
     expect(up.status).toBe(201);
     expect(up.body.mime).toBe("application/pdf");
-    const audit = await t.sequelize.query<{ details: string | { sha256: string } }>("SELECT details FROM audit_events WHERE action = 'certificate.uploaded' ORDER BY seq DESC LIMIT 1", { type: QueryTypes.SELECT });
+    const audit = await t.sequelize.query<{ details: string | { sha256: string } }>("SELECT details FROM trail_entries WHERE action = 'certificate.uploaded' ORDER BY seq DESC LIMIT 1", { type: QueryTypes.SELECT });
     const details = typeof audit[0]!.details === "string" ? JSON.parse(audit[0]!.details) : audit[0]!.details;
     expect(details.sha256).toBe(up.body.sha256);
     const lot = (await buyer.agent.get(B(`/lots/${lotId}`))).body;

@@ -55,7 +55,7 @@ describe("tenancy", () => {
     expect((await admin.agent.get(`/api/orgs/${other}`)).status).toBe(404);
     expect((await admin.agent.get(`/api/orgs/${other}/members`)).status).toBe(404);
     expect((await admin.agent.get(`/api/orgs/${other}/invitations`)).status).toBe(404);
-    expect((await admin.agent.get(`/api/orgs/${other}/audit`)).status).toBe(404);
+    expect((await admin.agent.get(`/api/orgs/${other}/trail`)).status).toBe(404);
     expect((await admin.agent.post(`/api/orgs/${other}/invitations`).set("x-csrf-token", admin.csrf).send({ email: uniqueEmail(), role: "producer_quality" })).status).toBe(404);
     expect((await admin.agent.patch(`/api/orgs/${other}/members/1`).set("x-csrf-token", admin.csrf).send({ role: "org_admin" })).status).toBe(404);
     expect((await admin.agent.delete(`/api/orgs/${other}/members/1`).set("x-csrf-token", admin.csrf)).status).toBe(404);
@@ -80,7 +80,7 @@ describe("roles", () => {
     expect(changed.status).toBe(200);
     expect(changed.body.role).toBe("org_admin");
     expect((await analyst.agent.get(`/api/orgs/${ORG.lab}/members`)).status).toBe(401);
-    const log = (await admin.agent.get(`/api/orgs/${ORG.lab}/audit`)).body as { action: string; details: { to?: string } }[];
+    const log = (await admin.agent.get(`/api/orgs/${ORG.lab}/trail`)).body as { action: string; details: { to?: string } }[];
     expect(log.find((e) => e.action === "membership.role_changed")?.details.to).toBe("org_admin");
     // Restore the demo role.
     await admin.agent.patch(`/api/orgs/${ORG.lab}/members/${target.membershipId}`).set("x-csrf-token", admin.csrf).send({ role: "lab_analyst" });

@@ -127,7 +127,7 @@ describe("ordering and paying an audit", () => {
     expect(declined.status).toBe(402);
     expect(await declined.text()).toContain("Your card was declined.");
     await waitFor("the decline", async () => (await order(placed.id)).status === "payment_failed");
-    expect(await countOf("SELECT COUNT(*) AS n FROM audit_events WHERE action = 'payment.failed' AND entity_id = ?", [String(placed.id)])).toBe(1);
+    expect(await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action = 'payment.failed' AND entity_id = ?", [String(placed.id)])).toBe(1);
 
     const paid = await pay("4242 4242 4242 4242");
     expect(paid.status).toBe(303);
@@ -163,7 +163,7 @@ describe("ordering and paying an audit", () => {
       return x.status === "refunded" && x;
     });
     expect(r.refundedCents).toBe(placed.amountCents);
-    expect(await countOf("SELECT COUNT(*) AS n FROM audit_events WHERE action IN ('payment.refunded', 'audit_order.refund_requested') AND entity_id = ?", [String(placed.id)])).toBe(2);
+    expect(await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action IN ('payment.refunded', 'audit_order.refund_requested') AND entity_id = ?", [String(placed.id)])).toBe(2);
     const second = await finance.agent.post(B(`/audit-orders/${placed.id}/refund`)).set("x-csrf-token", finance.csrf).send({ reason: "again" });
     expect(second.status).toBe(409);
 
@@ -179,7 +179,7 @@ describe("ordering and paying an audit", () => {
 });
 
 describe("webhooks", () => {
-  it("the same signed event delivered 50 times at once records one payment, one audit entry and one receipt", async () => {
+  it("the same signed event delivered 50 times at once records one payment, one trail entry and one receipt", async () => {
     const placed = await placeOrder();
     const { payload, header } = signed(succeededEvent(placed.id, placed.amountCents));
     const answers = await Promise.all(Array.from({ length: 50 }, () => post(payload, header)));
@@ -187,7 +187,7 @@ describe("webhooks", () => {
     const bodies = await Promise.all(answers.map((a) => a.json()));
     expect(bodies.filter((b) => !b.duplicate)).toHaveLength(1);
     expect(await countOf("SELECT COUNT(*) AS n FROM audit_payments WHERE audit_order_id = ?", [placed.id])).toBe(1);
-    expect(await countOf("SELECT COUNT(*) AS n FROM audit_events WHERE action = 'payment.succeeded' AND entity_id = ?", [String(placed.id)])).toBe(1);
+    expect(await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action = 'payment.succeeded' AND entity_id = ?", [String(placed.id)])).toBe(1);
     await mail.deliver();
     expect(mail.to(DEMO.buyerFinance).filter((m) => m.subject.startsWith(`Receipt for audit ${placed.reference}`))).toHaveLength(1);
     expect((await order(placed.id)).status).toBe("paid");

@@ -78,7 +78,7 @@ describe("a deviation negotiated to a recorded decision", () => {
     await screenshot(page, "deviation-decided");
   });
 
-  it("when the parties look, then the mails are in the inbox and the audit trail shows every step and verifies", async () => {
+  it("when the parties look, then the mails are in the inbox and the trail shows every step and verifies", async () => {
     const { page, baseUrl } = s;
     const id = deviationUrl.split("/").pop();
     const trail = page.getByRole("list", { name: "Recorded events" });

@@ -11,11 +11,11 @@ afterAll(() => s?.stop());
 const EXPECTED_NAV: [keyof typeof DEMO, string[]][] = [
   ["buyerTechnologist", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Audits", "Profile"]],
   ["buyerFinance", ["Overview", "Specifications", "Lots", "Deviations", "Audits", "Profile"]],
-  ["retailerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
+  ["retailerAdmin", ["Overview", "Members", "Trail", "Profile"]],
   ["producerQuality", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Audits", "Profile"]],
-  ["producerAdmin", ["Overview", "Members", "Activity log", "Profile"]],
+  ["producerAdmin", ["Overview", "Members", "Trail", "Profile"]],
   ["labAnalyst", ["Overview", "Deviations", "Audits", "Profile"]],
-  ["labAdmin", ["Overview", "Members", "Activity log", "Price list", "Profile"]],
+  ["labAdmin", ["Overview", "Members", "Trail", "Price list", "Profile"]],
   ["platformAdmin", ["Overview", "Organisations", "Profile"]],
 ];
 
@@ -38,7 +38,7 @@ describe("each demo role signs in and sees its own navigation", () => {
       await screenshot(s.page, `overview-${who}`);
       for (const label of nav.slice(1)) {
         await s.page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: label }).click();
-        await s.page.getByRole("heading", { level: 1, name: label === "Activity log" ? "Activity log" : label }).waitFor();
+        await s.page.getByRole("heading", { level: 1, name: label }).waitFor();
         await s.page.waitForLoadState("networkidle");
         await expectAccessible(s.page, `${who} ${label}`);
         await screenshot(s.page, `${who}-${label.toLowerCase().replace(/\s+/g, "-")}`);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { actionLabel, detailsText } from "../../shared/auth/trail-vocabulary.ts";
+import { actionLabel, detailsText } from "../../shared/trail/vocabulary.ts";
 import { newPasswordSchema, signInSchema, inviteSchema } from "../../shared/auth/schemas.ts";
 import { roleFitsKind } from "../../shared/auth/roles.ts";
 

@@ -11,7 +11,7 @@ import { Analysis } from "../../models/analysis.ts";
 import { AnalysisResult } from "../../models/analysis-result.ts";
 import { Lot } from "../../models/lot.ts";
 import { Organisation } from "../../models/organisation.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { idempotent } from "../idempotency.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { conflict, notFound, validationFailed, type FieldError } from "../../errors.ts";
@@ -110,7 +110,7 @@ export async function submitLabResults(labOrgId: number, orderId: number, user: 
       { transaction: t },
     );
     const deviationIds = [...stored.deviationIds, ...discrepancyIds];
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: labOrgId,
       action: "audit_order.results_submitted",

@@ -10,7 +10,7 @@ import { LabPrice } from "../../models/lab-price.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { Lot } from "../../models/lot.ts";
 import { inTransaction } from "../../db/database.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { idempotent } from "../idempotency.ts";
 import { conflict, notFound, validationFailed } from "../../errors.ts";
 import { contractFor } from "../specs/spec-access.ts";
@@ -57,7 +57,7 @@ export async function createOrder(buyerOrgId: number, user: SessionUser, input: 
       { transaction: t },
     );
     await AuditOrderLot.bulkCreate(lots.map((l) => ({ auditOrderId: order.id, lotId: l.id })), { transaction: t });
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: buyerOrgId,
       action: "audit_order.created",
@@ -128,7 +128,7 @@ export async function startCheckout(buyerOrgId: number, id: number, user: Sessio
     );
     await inTransaction(async (t) => {
       await AuditOrder.update({ checkoutSessionId: session.id, paymentIntentId: typeof session.payment_intent === "string" ? session.payment_intent : null }, { where: { id: order.id }, transaction: t });
-      await recordAudit(t, { actorUserId: user.id, organisationId: buyerOrgId, action: "audit_order.checkout_started", entityType: "audit_order", entityId: order.id, details: { session: session.id, amountCents: session.amount_total } });
+      await recordTrail(t, { actorUserId: user.id, organisationId: buyerOrgId, action: "audit_order.checkout_started", entityType: "audit_order", entityId: order.id, details: { session: session.id, amountCents: session.amount_total } });
     });
     return { url: session.url! };
   } catch (err) {
@@ -147,7 +147,7 @@ export async function requestRefund(buyerOrgId: number, id: number, user: Sessio
       { idempotencyKey: `cellarpact-audit-order-${order.id}-refund` },
     );
     await inTransaction((t) =>
-      recordAudit(t, { actorUserId: user.id, organisationId: buyerOrgId, action: "audit_order.refund_requested", entityType: "audit_order", entityId: order.id, details: { refund: refund.id, amountCents: refund.amount, reason } }),
+      recordTrail(t, { actorUserId: user.id, organisationId: buyerOrgId, action: "audit_order.refund_requested", entityType: "audit_order", entityId: order.id, details: { refund: refund.id, amountCents: refund.amount, reason } }),
     );
     return { refundId: refund.id, amountCents: refund.amount };
   } catch (err) {

@@ -2,7 +2,7 @@
 import { LabPrice } from "../../models/lab-price.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { inTransaction } from "../../db/database.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { forbidden } from "../../errors.ts";
 import { CURRENCY } from "../../../shared/audits/vocabulary.ts";
 import type { PriceListInput } from "../../../shared/audits/schemas.ts";
@@ -29,7 +29,7 @@ export async function setPriceList(labOrgId: number, user: SessionUser, input: P
     const before = itemsOf(await LabPrice.findAll({ where: { organisationId: labOrgId }, transaction: t }));
     await LabPrice.destroy({ where: { organisationId: labOrgId }, transaction: t });
     await LabPrice.bulkCreate(input.items.map((i) => ({ organisationId: labOrgId, parameter: i.parameter, priceCents: i.priceCents, currency: CURRENCY })), { transaction: t });
-    await recordAudit(t, { actorUserId: user.id, organisationId: labOrgId, action: "price_list.updated", entityType: "organisation", entityId: labOrgId, before, after: input.items, details: { items: input.items.length } });
+    await recordTrail(t, { actorUserId: user.id, organisationId: labOrgId, action: "price_list.updated", entityType: "organisation", entityId: labOrgId, before, after: input.items, details: { items: input.items.length } });
     return { currency: CURRENCY, items: itemsOf(await LabPrice.findAll({ where: { organisationId: labOrgId }, transaction: t })) };
   });
 }

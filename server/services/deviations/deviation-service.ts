@@ -3,7 +3,7 @@
  * edit history) in which producers propose and only the buyer's technologist decides, with a reason.
  */
 import { Op, type Transaction } from "sequelize";
-import type { AuditAction } from "../../../shared/auth/trail-vocabulary.ts";
+import type { TrailAction } from "../../../shared/trail/vocabulary.ts";
 import { deviationPath } from "../../../shared/paths.ts";
 import { Deviation } from "../../models/deviation.ts";
 import { DeviationAttachment } from "../../models/deviation-attachment.ts";
@@ -16,7 +16,7 @@ import { Membership } from "../../models/membership.ts";
 import { User } from "../../models/user.ts";
 import { Contract } from "../../models/contract.ts";
 import { inTransaction } from "../../db/database.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { conflict, forbidden, notFound, validationFailed } from "../../errors.ts";
 import { contractFor, contractInclude, type ContractWithParties, type Side } from "../specs/spec-access.ts";
@@ -150,8 +150,8 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
   };
 }
 
-const audit = (t: Transaction, user: SessionUser, orgId: number, action: AuditAction, d: Deviation, details: Record<string, unknown>, after?: unknown) =>
-  recordAudit(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "deviation", entityId: d.id, after, details });
+const audit = (t: Transaction, user: SessionUser, orgId: number, action: TrailAction, d: Deviation, details: Record<string, unknown>, after?: unknown) =>
+  recordTrail(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "deviation", entityId: d.id, after, details });
 
 export async function postMessage(orgId: number, id: number, user: SessionUser, input: MessageInput) {
   return inTransaction(async (t) => {
@@ -266,7 +266,7 @@ export async function attachToMessage(orgId: number, id: number, messageId: numb
   try {
     return await inTransaction(async (t) => {
       const a = await DeviationAttachment.create({ messageId, ...saved, uploadedBy: user.id }, { transaction: t });
-      await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "deviation.attachment_added", entityType: "deviation", entityId: id, details: { messageId, sha256: saved.sha256, bytes: saved.sizeBytes } });
+      await recordTrail(t, { actorUserId: user.id, organisationId: orgId, action: "deviation.attachment_added", entityType: "deviation", entityId: id, details: { messageId, sha256: saved.sha256, bytes: saved.sizeBytes } });
       return { id: a.id, sha256: saved.sha256 };
     });
   } catch (err) {

@@ -1,9 +1,9 @@
-/** Opening deviations (from failing results, transit drift, or by hand): deadline, audit entry, notifications. */
+/** Opening deviations (from failing results, transit drift, or by hand): deadline, trail entry, notifications. */
 import type { DeviationKind } from "../../../shared/deviations/vocabulary.ts";
 import { deviationPath } from "../../../shared/paths.ts";
 import type { Transaction } from "sequelize";
 import { Deviation } from "../../models/deviation.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { RESPONSE_DAYS } from "../../../shared/deviations/vocabulary.ts";
 import type { ContractWithParties } from "../specs/spec-access.ts";
@@ -27,7 +27,7 @@ export async function openDeviations(t: Transaction, contract: ContractWithParti
   );
   const parties = await usersWithRoles([contract.retailerOrgId, contract.producerOrgId], ["buyer_technologist", "producer_quality"], t);
   for (const d of created) {
-    await recordAudit(t, { actorUserId: actor.userId, organisationId: actor.organisationId, action: "deviation.opened", entityType: "deviation", entityId: d.id, after: { kind: d.kind, parameters: d.parameters }, details: { lotId: d.lotId, kind: d.kind, parameters: d.parameters } });
+    await recordTrail(t, { actorUserId: actor.userId, organisationId: actor.organisationId, action: "deviation.opened", entityType: "deviation", entityId: d.id, after: { kind: d.kind, parameters: d.parameters }, details: { lotId: d.lotId, kind: d.kind, parameters: d.parameters } });
   }
   // One notification per party for the whole batch keeps a large import from flooding inboxes.
   await notify(

@@ -1,12 +1,12 @@
 /**
  * Laboratory certificates: type decided by the file's content (PDF, PNG, JPEG), stored under a random
- * name outside the web root, its SHA-256 in the audit log, downloadable by both parties. The producer
+ * name outside the web root, its SHA-256 on the trail, downloadable by both parties. The producer
  * documents its own analyses; an independent audit's report is attached by the laboratory that wrote it.
  */
 import { Analysis } from "../../models/analysis.ts";
 import { Certificate } from "../../models/certificate.ts";
 import { inTransaction } from "../../db/database.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { forbidden, notFound } from "../../errors.ts";
 import { discardFile, readStoredFile, saveCheckedFile } from "../../integrations/storage/stored-files.ts";
 import { lotFor } from "./lot-access.ts";
@@ -36,7 +36,7 @@ export async function storeCertificate(orgId: number, analysisId: number, user: 
   try {
     return await inTransaction(async (t) => {
       const cert = await Certificate.create({ analysisId, ...saved, uploadedBy: user.id }, { transaction: t });
-      await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "certificate.uploaded", entityType: "certificate", entityId: cert.id, details: { analysisId, sha256: saved.sha256, bytes: saved.sizeBytes, mime: saved.mime } });
+      await recordTrail(t, { actorUserId: user.id, organisationId: orgId, action: "certificate.uploaded", entityType: "certificate", entityId: cert.id, details: { analysisId, sha256: saved.sha256, bytes: saved.sizeBytes, mime: saved.mime } });
       return { id: cert.id, sha256: saved.sha256, mime: saved.mime };
     });
   } catch (err) {

@@ -9,7 +9,7 @@ import { Analysis } from "../../models/analysis.ts";
 import { AnalysisResult } from "../../models/analysis-result.ts";
 import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
 import { conflict, notFound } from "../../errors.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { lotFor } from "./lot-access.ts";
 import { governingVersion } from "./governing.ts";
 import { storeAnalyses } from "./store-analyses.ts";
@@ -37,7 +37,7 @@ export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: 
       { lot, sampleDate: analysis.sampleDate, results },
     ]);
     const id = stored.analysisIds[0]!;
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: orgId,
       action: "analysis.rejudged",

@@ -25,7 +25,7 @@ export interface AnalysisHeader {
   accreditation?: string | null;
   /** Set for an independent laboratory's results on a paid audit: stored and evaluated alike, opened deviations link the audit. */
   auditOrderId?: number | null;
-  /** The organisation acting, for the audit log; the producer unless a laboratory submits. */
+  /** The organisation acting, for the trail; the producer unless a laboratory submits. */
   actingOrgId?: number;
   /** Set when the results are those of an earlier analysis, judged again against the version now in force. */
   rejudgedFromId?: number | null;

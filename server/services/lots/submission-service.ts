@@ -1,6 +1,6 @@
 /** Registering lots and submitting analyses (one by form, many by CSV import), idempotently. */
 import { Lot } from "../../models/lot.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { idempotent } from "../idempotency.ts";
 import { conflict, notFound, validationFailed } from "../../errors.ts";
 import { inTransaction } from "../../db/database.ts";
@@ -27,7 +27,7 @@ export async function registerLot(orgId: number, user: SessionUser, input: LotIn
       throw validationFailed([{ path: "lotCode", message: `Lot ${input.lotCode} is already registered under this contract.` }]);
     }
     const lot = await Lot.create({ ...input, volumeLitres: String(input.volumeLitres), plannedDate: input.plannedDate ?? null, labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol) }, { transaction: t });
-    await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.registered", entityType: "lot", entityId: lot.id, after: input, details: { lotCode: input.lotCode, contractId: contract.id } });
+    await recordTrail(t, { actorUserId: user.id, organisationId: orgId, action: "lot.registered", entityType: "lot", entityId: lot.id, after: input, details: { lotCode: input.lotCode, contractId: contract.id } });
     return { id: lot.id };
   });
 }
@@ -42,7 +42,7 @@ export async function updateLot(orgId: number, lotId: number, user: SessionUser,
       { volumeLitres: String(input.volumeLitres), container: input.container, plannedDate: input.plannedDate ?? null, market: input.market, labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol) },
       { transaction: t },
     );
-    await recordAudit(t, { actorUserId: user.id, organisationId: orgId, action: "lot.updated", entityType: "lot", entityId: lot.id, before, after: input, details: { lotCode: lot.lotCode } });
+    await recordTrail(t, { actorUserId: user.id, organisationId: orgId, action: "lot.updated", entityType: "lot", entityId: lot.id, before, after: input, details: { lotCode: lot.lotCode } });
   });
 }
 
@@ -52,7 +52,7 @@ export async function submitAnalysis(orgId: number, lotId: number, user: Session
     const { lot, contract, side } = await lotFor(orgId, lotId, t);
     if (side !== "producer") throw notFound("The lot");
     const stored = await storeAnalyses(t, contract, user.id, body, [{ lot, sampleDate: body.sampleDate, results: body.results }]);
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: orgId,
       action: "analysis.submitted",
@@ -98,7 +98,7 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
       if (s.vintage && existing.get(s.lotCode)!.vintage !== s.vintage) throw conflict(`Lot ${s.lotCode} is registered as vintage ${existing.get(s.lotCode)!.vintage}, not ${s.vintage}.`);
     }
     const stored = await storeAnalyses(t, contract, user.id, header, samples.map((s) => ({ lot: existing.get(s.lotCode)!, sampleDate: s.sampleDate, results: s.results })));
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: orgId,
       action: "analysis.imported",

@@ -5,7 +5,7 @@
  * decline is stored once per Stripe object; and the order's status is derived from those facts.
  */
 import { UniqueConstraintError, type Transaction } from "sequelize";
-import type { AuditAction } from "../../../shared/auth/trail-vocabulary.ts";
+import type { TrailAction } from "../../../shared/trail/vocabulary.ts";
 import { orderPath } from "../../../shared/paths.ts";
 import type Stripe from "stripe";
 import { AuditOrder } from "../../models/audit-order.ts";
@@ -15,7 +15,7 @@ import { Contract } from "../../models/contract.ts";
 import { User } from "../../models/user.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { inTransaction } from "../../db/database.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { enqueueMail } from "../../integrations/mail/outbox.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { serviceSettings } from "../../settings.ts";
@@ -123,8 +123,8 @@ async function mailFacts(t: Transaction, order: AuditOrder) {
   };
 }
 
-const audit = (t: Transaction, order: AuditOrder, action: AuditAction, details: Record<string, unknown>) =>
-  recordAudit(t, { actorUserId: null, organisationId: order.buyerOrgId, action, entityType: "audit_order", entityId: order.id, details: { reference: orderReference(order.id), ...details } });
+const audit = (t: Transaction, order: AuditOrder, action: TrailAction, details: Record<string, unknown>) =>
+  recordTrail(t, { actorUserId: null, organisationId: order.buyerOrgId, action, entityType: "audit_order", entityId: order.id, details: { reference: orderReference(order.id), ...details } });
 
 async function recordPayment(t: Transaction, order: AuditOrder, paymentIntent: string, amountCents: number): Promise<string> {
   const row = await claimPayment(t, order, "payment", paymentIntent, amountCents, null);

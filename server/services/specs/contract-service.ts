@@ -3,7 +3,7 @@ import { Organisation } from "../../models/organisation.ts";
 import { Contract } from "../../models/contract.ts";
 import { Wine } from "../../models/wine.ts";
 import { inTransaction } from "../../db/database.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { conflict, forbidden, validationFailed } from "../../errors.ts";
 import { contractFor } from "./spec-access.ts";
 import { lawFactsText, type WineLawFacts } from "../../../shared/specs/law-facts.ts";
@@ -43,7 +43,7 @@ export async function createContract(retailerOrgId: number, user: SessionUser, i
       { reference: input.reference, retailerOrgId, producerOrgId: producer.id, wineId: wine.id, startsOn: input.startsOn, endsOn: input.endsOn ?? null },
       { transaction: t },
     );
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: retailerOrgId,
       action: "contract.created",
@@ -66,7 +66,7 @@ export async function updateLawFacts(orgId: number, contractId: number, user: Se
     if (side !== "buyer") throw forbidden("Only the buyer states the wine's facts for the law.");
     const before = contract.wine.lawFacts ?? {};
     await contract.wine.update({ lawFacts }, { transaction: t });
-    await recordAudit(t, {
+    await recordTrail(t, {
       actorUserId: user.id,
       organisationId: orgId,
       action: "wine.law_facts_changed",

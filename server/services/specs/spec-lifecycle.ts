@@ -1,9 +1,9 @@
 /**
  * Changing spec sheets: drafts (with optimistic locking), sending, the producer's decision,
- * withdrawal, new versions and row comments. Every change is in the audit log.
+ * withdrawal, new versions and row comments. Every change is on the trail.
  */
 import { Op, type Transaction } from "sequelize";
-import type { AuditAction } from "../../../shared/auth/trail-vocabulary.ts";
+import type { TrailAction } from "../../../shared/trail/vocabulary.ts";
 import { buildRequirement, findParameter, type MarketId } from "../../../shared/engine/index.ts";
 import { specPath } from "../../../shared/paths.ts";
 import { SPEC_TEMPLATES } from "../../../shared/specs/templates.ts";
@@ -14,7 +14,7 @@ import { SpecVersion } from "../../models/spec-version.ts";
 import { SpecRequirement } from "../../models/spec-requirement.ts";
 import { SpecComment } from "../../models/spec-comment.ts";
 import { inTransaction } from "../../db/database.ts";
-import { recordAudit } from "../audit-service.ts";
+import { recordTrail } from "../trail/trail-service.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { conflict, notFound, validationFailed } from "../../errors.ts";
 import { contractFor, versionFor, type ContractWithParties } from "./spec-access.ts";
@@ -43,8 +43,8 @@ async function writeRows(t: Transaction, specVersionId: number, rows: readonly S
   );
 }
 
-const audit = (t: Transaction, user: SessionUser, orgId: number, action: AuditAction, version: SpecVersion, extra: { before?: unknown; after?: unknown; details?: Record<string, unknown> } = {}) =>
-  recordAudit(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "spec_version", entityId: version.id, ...extra, details: { contractId: version.contractId, number: version.number, ...extra.details } });
+const audit = (t: Transaction, user: SessionUser, orgId: number, action: TrailAction, version: SpecVersion, extra: { before?: unknown; after?: unknown; details?: Record<string, unknown> } = {}) =>
+  recordTrail(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "spec_version", entityId: version.id, ...extra, details: { contractId: version.contractId, number: version.number, ...extra.details } });
 
 /** A new draft: blank, from a template, or copied from an earlier version of the same contract. */
 export async function createVersion(orgId: number, contractId: number, user: SessionUser, input: NewVersionInput): Promise<{ id: number }> {

@@ -14,7 +14,7 @@ import { LabResultsForm } from "./lab-results-form.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { LegalCaution } from "../specs/legal-caution.tsx";
-import { HistoryPanel } from "../audit/history-panel.tsx";
+import { HistoryPanel } from "../trail/history-panel.tsx";
 import { CertificateUpload } from "../lots/certificate-upload.tsx";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";

@@ -9,7 +9,7 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { VerdictTable } from "../lots/verdict-table.tsx";
-import { HistoryPanel } from "../audit/history-panel.tsx";
+import { HistoryPanel } from "../trail/history-panel.tsx";
 import { MessageComposer } from "./message-composer.tsx";
 import { ProposalFields } from "./proposal-fields.tsx";
 import { CONDITION_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS, proposalText, type DeviationCondition, type DeviationOutcome } from "../../../shared/deviations/vocabulary.ts";

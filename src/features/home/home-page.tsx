@@ -50,7 +50,7 @@ export function HomePage() {
         {membership && ["buyer_technologist", "producer_quality"].includes(membership.role) && <DueLotsCard orgId={membership.organisationId} />}
         {user.isPlatformAdmin && (
           <Card title="Platform administration">
-            <p className="text-sm text-ink-700">Open organisations for new retailers, producers and laboratories, and check the audit chain.</p>
+            <p className="text-sm text-ink-700">Open organisations for new retailers, producers and laboratories, and check the trail's hash chain.</p>
             <Link to="/platform/organisations" className="mt-4 inline-block text-sm font-semibold text-must-700 underline">
               Organisations
             </Link>

@@ -24,7 +24,7 @@ export function CertificateUpload({ orgId, analysisId, label = "Attach the labor
           setState(null);
           try {
             const r = await uploadCertificate(orgId, analysisId, file);
-            setState({ tone: "success", text: `Attached. SHA-256 ${r.sha256.slice(0, 16)}… is in the audit trail.` });
+            setState({ tone: "success", text: `Attached. SHA-256 ${r.sha256.slice(0, 16)}… is on the trail.` });
             await qc.invalidateQueries({ queryKey: lotKeys.all(orgId) });
           } catch (err) {
             setState({ tone: "error", text: errorMessage(err) });

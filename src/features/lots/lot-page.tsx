@@ -13,7 +13,7 @@ import { VerdictTable } from "./verdict-table.tsx";
 import { ResultEntryForm } from "./result-entry-form.tsx";
 import { CertificateUpload } from "./certificate-upload.tsx";
 import { LegalCaution } from "../specs/legal-caution.tsx";
-import { HistoryPanel } from "../audit/history-panel.tsx";
+import { HistoryPanel } from "../trail/history-panel.tsx";
 import { OpenDeviationForm } from "../deviations/open-deviation-form.tsx";
 import { LotEditForm } from "./lot-edit-form.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";

@@ -5,7 +5,8 @@ import { useState } from "react";
 import { createOrganisationSchema, type CreateOrganisationInput } from "../../../shared/auth/schemas.ts";
 import { ORGANISATION_KINDS, ORGANISATION_KIND_LABELS } from "../../../shared/auth/roles.ts";
 import { api } from "../../lib/api-client.ts";
-import type { ChainVerification, OrganisationView as OrganisationRow } from "../../../shared/auth/views.ts";
+import type { OrganisationView as OrganisationRow } from "../../../shared/auth/views.ts";
+import type { ChainVerification } from "../../../shared/trail/views.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
@@ -103,9 +104,9 @@ function CreateOrganisation() {
 }
 
 function ChainCheck() {
-  const verify = useMutation({ mutationFn: () => api<ChainVerification>("/api/platform/audit/verify") });
+  const verify = useMutation({ mutationFn: () => api<ChainVerification>("/api/platform/trail/verify") });
   return (
-    <Card title="Audit chain">
+    <Card title="The trail's hash chain">
       <p className="mb-4 text-sm text-ink-700">Recomputes every entry's SHA-256 hash and its link to the previous one, and compares the end of the chain with the checkpoint.</p>
       {verify.data?.ok && <Notice tone="success">The chain is intact: {verify.data.checked} entries checked.</Notice>}
       {verify.data && !verify.data.ok && (

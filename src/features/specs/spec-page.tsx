@@ -10,7 +10,7 @@ import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx
 import { Button } from "../../components/ui/button.tsx";
 import { StatusBadge } from "./status-badge.tsx";
 import { LegalCaution } from "./legal-caution.tsx";
-import { HistoryPanel } from "../audit/history-panel.tsx";
+import { HistoryPanel } from "../trail/history-panel.tsx";
 import { SpecEditor } from "./spec-editor.tsx";
 import { SpecReadView } from "./spec-read-view.tsx";
 import { STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";

@@ -2,7 +2,7 @@ import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query
 import { api } from "../../../lib/api-client.ts";
 import type { DecisionInput, MessageInput } from "../../../../shared/deviations/schemas.ts";
 import type { DeviationDetail, DeviationSummaryView } from "../../../../shared/deviations/views.ts";
-import type { AuditEntryView, ChainVerification } from "../../../../shared/auth/views.ts";
+import type { TrailEntryView, ChainVerification } from "../../../../shared/trail/views.ts";
 
 const base = (orgId: number) => `/api/orgs/${orgId}`;
 
@@ -23,8 +23,8 @@ export const deviationsQuery = (orgId: number, f: Record<string, string | undefi
   });
 export const deviationQuery = (orgId: number, id: number) => queryOptions({ queryKey: deviationKeys.detail(orgId, id), queryFn: () => api<DeviationDetail>(`${base(orgId)}/deviations/${id}`) });
 export const historyQuery = (orgId: number, type: string, id: number) =>
-  queryOptions({ queryKey: deviationKeys.history(orgId, type, id), queryFn: () => api<AuditEntryView[]>(`${base(orgId)}/history/${type}/${id}`) });
-export const verifyChain = (orgId: number) => api<ChainVerification>(`${base(orgId)}/audit/verify`);
+  queryOptions({ queryKey: deviationKeys.history(orgId, type, id), queryFn: () => api<TrailEntryView[]>(`${base(orgId)}/history/${type}/${id}`) });
+export const verifyChain = (orgId: number) => api<ChainVerification>(`${base(orgId)}/trail/verify`);
 export const deviationPdfUrl = (orgId: number, id: number) => `${base(orgId)}/deviations/${id}/pdf`;
 export const attachmentUrl = (orgId: number, id: number) => `${base(orgId)}/deviation-attachments/${id}`;
 

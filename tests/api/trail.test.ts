@@ -2,7 +2,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
 import { buildTestApp, type TestApp } from "../support/api.ts";
 import { inTransaction } from "../../server/db/database.ts";
-import { recordAudit, verifyAuditChain, GENESIS_HASH } from "../../server/services/audit-service.ts";
+import { recordTrail, verifyTrailChain, GENESIS_HASH } from "../../server/services/trail/trail-service.ts";
 import { sha256 } from "../../server/lib/crypto.ts";
 
 let t: TestApp;
@@ -19,38 +19,38 @@ interface Snapshot {
 const sql = (q: string, replacements?: unknown[]) => t.sequelize.query(q, { replacements, type: QueryTypes.RAW });
 
 async function snapshot(): Promise<Snapshot> {
-  const events = await t.sequelize.query<Record<string, unknown>>("SELECT * FROM audit_events ORDER BY seq", { type: QueryTypes.SELECT });
-  const [head] = await t.sequelize.query<Record<string, unknown>>("SELECT * FROM audit_head", { type: QueryTypes.SELECT });
+  const events = await t.sequelize.query<Record<string, unknown>>("SELECT * FROM trail_entries ORDER BY seq", { type: QueryTypes.SELECT });
+  const [head] = await t.sequelize.query<Record<string, unknown>>("SELECT * FROM trail_head", { type: QueryTypes.SELECT });
   return { events, head: head! };
 }
 
 /** Puts the table back exactly as it was, so each tamper case starts from an intact chain. */
 async function restore(s: Snapshot) {
-  await sql("DELETE FROM audit_events");
+  await sql("DELETE FROM trail_entries");
   for (const e of s.events) {
     const cols = Object.keys(e);
     await sql(
-      `INSERT INTO audit_events (${cols.join(",")}) VALUES (${cols.map(() => "?").join(",")})`,
+      `INSERT INTO trail_entries (${cols.join(",")}) VALUES (${cols.map(() => "?").join(",")})`,
       cols.map((c) => (c === "details" && e[c] !== null && typeof e[c] !== "string" ? JSON.stringify(e[c]) : e[c])),
     );
   }
-  await sql("UPDATE audit_head SET last_seq = ?, last_hash = ? WHERE id = 1", [s.head.last_seq, s.head.last_hash]);
+  await sql("UPDATE trail_head SET last_seq = ?, last_hash = ? WHERE id = 1", [s.head.last_seq, s.head.last_hash]);
 }
 
 let base: Snapshot;
 beforeAll(async () => {
   for (let i = 0; i < 5; i++) {
     await inTransaction((tx) =>
-      recordAudit(tx, { actorUserId: 2, organisationId: 1, action: "user.profile_updated", entityType: "thing", entityId: i, before: { v: i }, after: { v: i + 1 }, details: { i } }),
+      recordTrail(tx, { actorUserId: 2, organisationId: 1, action: "user.profile_updated", entityType: "thing", entityId: i, before: { v: i }, after: { v: i + 1 }, details: { i } }),
     );
   }
   base = await snapshot();
 });
 beforeEach(() => restore(base));
 
-describe("hash-chained audit log (RFC 9162 §2.1-style chaining; OWASP ASVS V16 log integrity)", () => {
+describe("the hash-chained trail (RFC 9162 §2.1-style chaining; OWASP ASVS V16 log integrity)", () => {
   it("when nothing was touched, then the whole chain verifies", async () => {
-    const v = await verifyAuditChain();
+    const v = await verifyTrailChain();
     expect(v.ok).toBe(true);
     expect(v.checked).toBe(base.events.length);
   });
@@ -73,23 +73,23 @@ describe("hash-chained audit log (RFC 9162 §2.1-style chaining; OWASP ASVS V16 
     ["hash", `'${"b".repeat(64)}'`],
   ] as const) {
     it(`when ${column} of one entry is changed through raw SQL, then verification reports that entry`, async () => {
-      await sql(`UPDATE audit_events SET ${column} = ${value} WHERE seq = ?`, [victim()]);
-      const v = await verifyAuditChain();
+      await sql(`UPDATE trail_entries SET ${column} = ${value} WHERE seq = ?`, [victim()]);
+      const v = await verifyTrailChain();
       expect(v.ok).toBe(false);
       expect(v.firstBroken?.seq).toBe(victim());
     });
   }
 
   it("when an entry in the middle is deleted, then verification reports the missing sequence number", async () => {
-    await sql("DELETE FROM audit_events WHERE seq = ?", [victim()]);
-    const v = await verifyAuditChain();
+    await sql("DELETE FROM trail_entries WHERE seq = ?", [victim()]);
+    const v = await verifyTrailChain();
     expect(v.firstBroken).toEqual({ seq: victim(), reason: `entry ${victim()} is missing` });
   });
 
   it("when the tail is cut off, then the checkpoint outside the table catches it", async () => {
     const last = Number(base.events.at(-1)!.seq);
-    await sql("DELETE FROM audit_events WHERE seq >= ?", [last - 1]);
-    const v = await verifyAuditChain();
+    await sql("DELETE FROM trail_entries WHERE seq >= ?", [last - 1]);
+    const v = await verifyTrailChain();
     expect(v.ok).toBe(false);
     expect(v.firstBroken?.seq).toBe(last - 1);
   });
@@ -97,8 +97,8 @@ describe("hash-chained audit log (RFC 9162 §2.1-style chaining; OWASP ASVS V16 
   it("when an entry is rewritten with a recomputed hash, then the next entry's link exposes it", async () => {
     const seq = victim();
     const row = base.events.find((e) => Number(e.seq) === seq)!;
-    await sql("UPDATE audit_events SET hash = ? WHERE seq = ?", [sha256(`forged${row.hash}`), seq]);
-    const v = await verifyAuditChain();
+    await sql("UPDATE trail_entries SET hash = ? WHERE seq = ?", [sha256(`forged${row.hash}`), seq]);
+    const v = await verifyTrailChain();
     expect(v.ok).toBe(false);
     expect(v.firstBroken?.seq).toBe(seq);
   });

@@ -5,11 +5,11 @@ import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { verifyChain } from "../deviations/api/deviations.ts";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
-import type { AuditEntryView as AuditEntry } from "../../../shared/auth/views.ts";
+import type { TrailEntryView } from "../../../shared/trail/views.ts";
 import { useShellContext } from "../../app/use-shell-context.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
-import { actionLabel, detailsText } from "../../../shared/auth/trail-vocabulary.ts";
+import { actionLabel, detailsText } from "../../../shared/trail/vocabulary.ts";
 
 
 export function ActivityPage() {
@@ -20,14 +20,14 @@ export function ActivityPage() {
   const qs = new URLSearchParams({ ...filters, limit: "500" });
   const entries = useQuery({
     queryKey: ["orgs", orgId, "audit", filters],
-    queryFn: () => api<AuditEntry[]>(`/api/orgs/${orgId}/audit?${qs}`),
+    queryFn: () => api<TrailEntryView[]>(`/api/orgs/${orgId}/trail?${qs}`),
     enabled: orgId !== undefined && membership?.role === "org_admin",
   });
   const verify = useMutation({ mutationFn: () => verifyChain(orgId!) });
-  if (!membership || membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the activity log." />;
+  if (!membership || membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
   return (
     <>
-      <PageHeader title="Activity log" lead="Recent recorded events of your organisation. Each entry is chained to the previous one by its SHA-256 hash, so later changes show." />
+      <PageHeader title="Trail" lead="What was done in your organisation, as recorded. Each entry is chained to the previous one by its SHA-256 hash, so later changes show." />
       <Card>
         <div className="mb-4 grid gap-3 md:grid-cols-4">
           <TextField label="Action starts with" placeholder="deviation." defaultValue={filters.action ?? ""} onChange={(e) => set("action", e.target.value)} />
@@ -36,8 +36,8 @@ export function ActivityPage() {
           <TextField label="To" type="date" value={filters.to ?? ""} onChange={(e) => set("to", e.target.value)} />
         </div>
         <div className="mb-4 flex flex-wrap items-center gap-3">
-          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/audit?${qs}&format=csv`}>Export CSV</a>
-          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/audit?${qs}&format=json`}>Export JSON</a>
+          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/trail?${qs}&format=csv`}>Export CSV</a>
+          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/trail?${qs}&format=json`}>Export JSON</a>
           <Button variant="secondary" onClick={() => verify.mutate()} disabled={verify.isPending}>Verify the hash chain</Button>
           {verify.data?.ok && <span className="text-sm font-semibold text-verjus-700" role="status">Intact: {verify.data.checked} entries checked.</span>}
           {verify.data && !verify.data.ok && <span className="text-sm font-semibold text-alarm-700" role="status">Broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.</span>}

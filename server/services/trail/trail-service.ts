@@ -1,23 +1,23 @@
 /**
- * Append-only, hash-chained audit log. Each entry's hash covers its content and the previous hash;
+ * The trail: append-only and hash-chained. Each entry's hash covers its content and the previous hash;
  * the audit_head row serialises appends and acts as the checkpoint for the tail.
  */
 import type { Transaction } from "sequelize";
-import type { AuditAction } from "../../shared/auth/trail-vocabulary.ts";
+import type { TrailAction } from "../../../shared/trail/vocabulary.ts";
 import { Op, type WhereOptions } from "sequelize";
-import { AuditEvent } from "../models/audit-event.ts";
-import { AuditHead } from "../models/audit-head.ts";
-import { User } from "../models/user.ts";
-import { canonicalJson, sha256 } from "../lib/crypto.ts";
-import type { AuditEntryView, ChainVerification } from "../../shared/auth/views.ts";
+import { TrailEntry } from "../../models/trail-entry.ts";
+import { TrailHead } from "../../models/trail-head.ts";
+import { User } from "../../models/user.ts";
+import { canonicalJson, sha256 } from "../../lib/crypto.ts";
+import type { TrailEntryView, ChainVerification } from "../../../shared/trail/views.ts";
 
 export const GENESIS_HASH = "0".repeat(64);
 
-export interface AuditInput {
+export interface TrailInput {
   actorUserId: number | null;
   organisationId: number | null;
   /** Only actions with a label in shared/auth/trail-vocabulary.ts can be recorded. */
-  action: AuditAction;
+  action: TrailAction;
   entityType: string;
   entityId: string | number | null;
   before?: unknown;
@@ -60,8 +60,8 @@ export function entryHash(e: ChainedFields): string {
 const digest = (v: unknown) => (v === undefined ? null : sha256(canonicalJson(v)));
 
 /** Records one event inside the caller's transaction, so the event exists exactly when the change does. */
-export async function recordAudit(t: Transaction, input: AuditInput): Promise<number> {
-  const head = await AuditHead.findByPk(1, { transaction: t, lock: t.LOCK.UPDATE });
+export async function recordTrail(t: Transaction, input: TrailInput): Promise<number> {
+  const head = await TrailHead.findByPk(1, { transaction: t, lock: t.LOCK.UPDATE });
   if (!head) throw new Error("audit_head row missing; run the migrations");
   const fields: ChainedFields = {
     seq: head.lastSeq + 1,
@@ -77,14 +77,14 @@ export async function recordAudit(t: Transaction, input: AuditInput): Promise<nu
     prevHash: head.lastHash,
   };
   const hash = entryHash(fields);
-  await AuditEvent.create({ ...fields, hash }, { transaction: t });
+  await TrailEntry.create({ ...fields, hash }, { transaction: t });
   await head.update({ lastSeq: fields.seq, lastHash: hash }, { transaction: t });
   return fields.seq;
 }
 
 /** Walks the whole chain in order; reports the first entry that does not match, or a tail that was cut. */
-export async function verifyAuditChain(batchSize = 2000): Promise<ChainVerification> {
-  const head = await AuditHead.findByPk(1);
+export async function verifyTrailChain(batchSize = 2000): Promise<ChainVerification> {
+  const head = await TrailHead.findByPk(1);
   let prevHash = GENESIS_HASH;
   let expectedSeq = 1;
   let checked = 0;
@@ -95,7 +95,7 @@ export async function verifyAuditChain(batchSize = 2000): Promise<ChainVerificat
     firstBroken: { seq, reason },
   });
   for (;;) {
-    const rows = await AuditEvent.findAll({
+    const rows = await TrailEntry.findAll({
       where: { seq: { [Op.gte]: expectedSeq } },
       order: [["seq", "ASC"]],
       limit: batchSize,
@@ -129,22 +129,22 @@ export interface AuditFilters {
 }
 
 /** Entries recorded for an organisation, newest first, narrowed by the filters. */
-export async function listOrganisationAudit(organisationId: number, f: AuditFilters = {}): Promise<AuditEntryView[]> {
+export async function listOrganisationTrail(organisationId: number, f: AuditFilters = {}): Promise<TrailEntryView[]> {
   const where: WhereOptions = { organisationId };
   if (f.action) Object.assign(where, { action: { [Op.like]: `${f.action.replace(/[%_]/g, "")}%` } });
   if (f.entityType) Object.assign(where, { entityType: f.entityType });
   if (f.entityId) Object.assign(where, { entityId: f.entityId });
   if (f.actorUserId) Object.assign(where, { actorUserId: f.actorUserId });
   if (f.from || f.to) Object.assign(where, { occurredAt: { ...(f.from ? { [Op.gte]: new Date(`${f.from}T00:00:00Z`) } : {}), ...(f.to ? { [Op.lte]: new Date(`${f.to}T23:59:59.999Z`) } : {}) } });
-  return toViews(await AuditEvent.findAll({ where, order: [["seq", "DESC"]], limit: f.limit ?? 200, raw: true }));
+  return toViews(await TrailEntry.findAll({ where, order: [["seq", "DESC"]], limit: f.limit ?? 200, raw: true }));
 }
 
 /** The history of one entity, across the organisations that recorded it. */
-export async function entityHistory(entityType: string, entityId: string): Promise<AuditEntryView[]> {
-  return toViews(await AuditEvent.findAll({ where: { entityType, entityId }, order: [["seq", "ASC"]], limit: 1000, raw: true }));
+export async function entityHistory(entityType: string, entityId: string): Promise<TrailEntryView[]> {
+  return toViews(await TrailEntry.findAll({ where: { entityType, entityId }, order: [["seq", "ASC"]], limit: 1000, raw: true }));
 }
 
-async function toViews(rows: AuditEvent[]): Promise<AuditEntryView[]> {
+async function toViews(rows: TrailEntry[]): Promise<TrailEntryView[]> {
   const actorIds = [...new Set(rows.map((r) => r.actorUserId).filter((id): id is number => id !== null))];
   const actors = await User.findAll({ where: { id: actorIds }, attributes: ["id", "name"], raw: true });
   const nameOf = new Map(actors.map((a) => [a.id, a.name]));

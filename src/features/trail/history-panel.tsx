@@ -1,17 +1,17 @@
 /** The recorded history of one entity, with the hash chain's verification on demand. */
 import { useMutation, useQuery } from "@tanstack/react-query";
-import type { HistoryEntityType } from "../../../shared/auth/history.ts";
+import type { HistoryEntityType } from "../../../shared/trail/history.ts";
 import { historyQuery, verifyChain } from "../deviations/api/deviations.ts";
 import { Card } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
-import { actionLabel } from "../../../shared/auth/trail-vocabulary.ts";
+import { actionLabel } from "../../../shared/trail/vocabulary.ts";
 
 export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; entityType: HistoryEntityType; entityId: number }) {
   const history = useQuery(historyQuery(orgId, entityType, entityId));
   const verify = useMutation({ mutationFn: () => verifyChain(orgId) });
   return (
-    <Card title="Audit trail">
+    <Card title="Trail">
       {history.isPending && <LoadingState />}
       {history.isError && <ErrorState error={history.error} />}
       {history.data && (

@@ -1,11 +1,11 @@
 /** Whether an organisation may read the history of an entity: it must be a party to it. */
-import { notFound } from "../errors.ts";
-import { versionFor, contractFor } from "./specs/spec-access.ts";
-import { lotFor } from "./lots/lot-access.ts";
-import { Deviation } from "../models/deviation.ts";
-import { entityHistory } from "./audit-service.ts";
-import type { HistoryEntityType } from "../../shared/auth/history.ts";
-import { orderFor } from "./audits/order-access.ts";
+import { notFound } from "../../errors.ts";
+import { versionFor, contractFor } from "../specs/spec-access.ts";
+import { lotFor } from "../lots/lot-access.ts";
+import { Deviation } from "../../models/deviation.ts";
+import { entityHistory } from "./trail-service.ts";
+import type { HistoryEntityType } from "../../../shared/trail/history.ts";
+import { orderFor } from "../audits/order-access.ts";
 
 
 export async function historyFor(orgId: number, entityType: HistoryEntityType, entityId: number) {

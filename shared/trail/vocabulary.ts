@@ -1,5 +1,5 @@
 /**
- * Words for the audit trail: every action the server records has a label here (recordAudit takes
+ * Words for the trail, the tamper-evident record: every action the server records has a label here (recordTrail takes
  * only these, so the type-checker refuses an action without one), and the detail fields read as
  * words too. Screens, exports and PDFs print these, never the codes.
  */
@@ -58,7 +58,7 @@ export const ACTION_LABELS = {
   "price_list.updated": "Price list updated",
 } as const;
 
-export type AuditAction = keyof typeof ACTION_LABELS;
+export type TrailAction = keyof typeof ACTION_LABELS;
 
 export const actionLabel = (action: string) => (ACTION_LABELS as Record<string, string>)[action] ?? action;
 

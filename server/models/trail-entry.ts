@@ -1,6 +1,6 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {
+export class TrailEntry extends Model<InferAttributes<TrailEntry>, InferCreationAttributes<TrailEntry>> {
   declare seq: number;
   declare occurredAt: Date;
   declare actorUserId: number | null;
@@ -15,7 +15,7 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
   declare hash: string;
 
   static initModel(sequelize: Sequelize) {
-    AuditEvent.init(
+    TrailEntry.init(
       {
         seq: { type: DataTypes.BIGINT, primaryKey: true },
         occurredAt: { type: DataTypes.DATE(3), allowNull: false },
@@ -30,7 +30,7 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
         prevHash: { type: DataTypes.CHAR(64), allowNull: false },
         hash: { type: DataTypes.CHAR(64), allowNull: false },
       },
-      { sequelize, tableName: "audit_events", underscored: true, timestamps: false },
+      { sequelize, tableName: "trail_entries", underscored: true, timestamps: false },
     );
   }
 }
