@@ -7,7 +7,7 @@ import type { QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
 import { Deviation } from "../server/models/deviation.ts";
 import { Lot } from "../server/models/lot.ts";
-import { decide } from "../server/services/deviations/deviation-service.ts";
+import { decide } from "../server/services/deviations/deviation-commands.ts";
 import { registerLot } from "../server/services/lots/submission-service.ts";
 import { demoMember, useDemoServices } from "./support/demo-services.ts";
 import { submitDemoAnalyses } from "./support/submit-demo-analysis.ts";

@@ -7,7 +7,7 @@ import { useDatabase } from "./db/database.ts";
 import { createApp } from "./app.ts";
 import { startOutboxWorker } from "./integrations/mail/outbox.ts";
 import { sendDigests } from "./services/notification-service.ts";
-import { warnApproachingDeadlines } from "./services/deviations/deviation-service.ts";
+import { warnApproachingDeadlines } from "./services/deviations/deadline-job.ts";
 
 let config: Config;
 try {

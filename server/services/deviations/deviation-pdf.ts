@@ -1,5 +1,5 @@
 import { renderDeviationRecord } from "../../pdf/deviation-record-pdf.tsx";
-import { getDeviation } from "./deviation-service.ts";
+import { getDeviation } from "./deviation-queries.ts";
 import { statusOfLot } from "../lots/lot-queries.ts";
 import type { SessionMembership, SessionUser } from "../session-service.ts";
 

@@ -2,7 +2,7 @@
  * Negotiating deviations: a threaded discussion (replies, mentions, quoted results, attachments,
  * edit history) in which producers propose and only the buyer's technologist decides, with a reason.
  */
-import { Op, type Transaction } from "sequelize";
+import { type Transaction } from "sequelize";
 import type { TrailAction } from "../../../shared/trail/vocabulary.ts";
 import { deviationPath } from "../../../shared/paths.ts";
 import { Deviation } from "../../models/deviation.ts";
@@ -12,143 +12,19 @@ import { DeviationMessageEdit } from "../../models/deviation-message-edit.ts";
 import { Analysis } from "../../models/analysis.ts";
 import { Lot } from "../../models/lot.ts";
 import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
-import { Membership } from "../../models/membership.ts";
-import { User } from "../../models/user.ts";
-import { Contract } from "../../models/contract.ts";
 import { inTransaction } from "../../db/database.ts";
 import { recordTrail } from "../trail/trail-service.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { conflict, forbidden, notFound, validationFailed } from "../../errors.ts";
-import { contractFor, contractInclude, type ContractWithParties, type Side } from "../specs/spec-access.ts";
-import { AuditOrder } from "../../models/audit-order.ts";
+import { contractFor } from "../specs/spec-access.ts";
 import { createVersion } from "../specs/spec-lifecycle.ts";
 import { governingVersion } from "../lots/governing.ts";
 import { openDeviations, responseDeadline } from "./open-deviations.ts";
-import { discardFile, readStoredFile, saveCheckedFile } from "../../integrations/storage/stored-files.ts";
-import { DEVIATION_OUTCOME_LABELS, proposalText, type DeviationStatus } from "../../../shared/deviations/vocabulary.ts";
+import { discardFile, saveCheckedFile } from "../../integrations/storage/stored-files.ts";
+import { DEVIATION_OUTCOME_LABELS, proposalText } from "../../../shared/deviations/vocabulary.ts";
 import type { DecisionInput, MessageInput } from "../../../shared/deviations/schemas.ts";
-import type { DeviationDetail, DeviationSummaryView, MessageView } from "../../../shared/deviations/views.ts";
-import type { StoredVerdict } from "../../../shared/lots/views.ts";
-import type { SessionUser, SessionMembership } from "../session-service.ts";
-
-const CLOSED: DeviationStatus[] = ["decided", "closed"];
-const isOverdue = (d: Deviation, now = Date.now()) => !CLOSED.includes(d.status) && d.respondBy !== null && d.respondBy.getTime() < now;
-
-async function deviationFor(orgId: number, id: number, t?: Transaction, lock = false): Promise<{ deviation: Deviation; contract: ContractWithParties; side: Side | "laboratory" }> {
-  const deviation = await Deviation.findByPk(id, { transaction: t, lock: lock && t ? t.LOCK.UPDATE : undefined });
-  if (!deviation) throw notFound("The deviation");
-  const party = await contractFor(orgId, deviation.contractId, t).catch(() => null);
-  if (party) return { deviation, ...party };
-  // The laboratory of a paid audit reads the deviations its results opened, and only those.
-  const order = deviation.auditOrderId ? await AuditOrder.findByPk(deviation.auditOrderId, { transaction: t }) : null;
-  if (order?.laboratoryOrgId !== orgId) throw notFound("The deviation");
-  const contract = (await Contract.findByPk(deviation.contractId, { include: contractInclude, transaction: t })) as ContractWithParties;
-  return { deviation, contract, side: "laboratory" };
-}
-
-/** Writes belong to the two parties of the contract. */
-async function partyDeviationFor(orgId: number, id: number, t?: Transaction, lock = false) {
-  const found = await deviationFor(orgId, id, t, lock);
-  if (found.side === "laboratory") throw forbidden("The laboratory reads this deviation; the buyer and the producer discuss it.");
-  return found as typeof found & { side: Side };
-}
-
-function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationSummaryView {
-  return {
-    id: d.id,
-    kind: d.kind,
-    status: d.status,
-    parameters: d.parameters,
-    summary: d.summary,
-    lotId: lot.id,
-    lotCode: lot.lotCode,
-    vintage: lot.vintage,
-    contractId: c.id,
-    contractReference: c.reference,
-    wineName: c.wine.name,
-    producerName: c.producer.name,
-    respondBy: d.respondBy ? d.respondBy.toISOString() : null,
-    overdue: isOverdue(d),
-    outcome: d.decision?.outcome ?? null,
-    createdAt: d.createdAt.toISOString(),
-    updatedAt: d.updatedAt.toISOString(),
-  };
-}
-
-export async function listDeviations(orgId: number, f: { status?: DeviationStatus; lot?: number; contract?: number; overdue?: "true" | "false" }) {
-  const labOrders = await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] });
-  const contracts = (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] }, include: contractInclude })) as ContractWithParties[];
-  const byId = new Map(contracts.map((c) => [c.id, c]));
-  const own = contracts.filter((c) => c.retailerOrgId === orgId || c.producerOrgId === orgId).map((c) => c.id);
-  const ids = f.contract ? [f.contract].filter((id) => own.includes(id)) : own;
-  const labWhere = labOrders.length ? [{ auditOrderId: labOrders.map((o) => o.id), ...(f.contract ? { contractId: f.contract } : {}) }] : [];
-  const rows = await Deviation.findAll({
-    where: { [Op.or]: [{ contractId: ids }, ...labWhere], ...(f.status ? { status: f.status } : {}), ...(f.lot ? { lotId: f.lot } : {}) },
-    include: [{ model: Lot, as: "lot" }],
-    order: [["createdAt", "DESC"]],
-    limit: 500,
-  });
-  const views = rows.map((d) => summaryView(d, (d as Deviation & { lot: Lot }).lot, byId.get(d.contractId)!));
-  return f.overdue === "true" ? views.filter((v) => v.overdue) : f.overdue === "false" ? views.filter((v) => !v.overdue) : views;
-}
-
-/** Everyone who can take part: handles are the local part of their e-mail address (@tessa.marlow). */
-async function participants(c: ContractWithParties, t?: Transaction) {
-  const rows = await Membership.findAll({ where: { organisationId: [c.retailerOrgId, c.producerOrgId] }, include: [{ model: User, as: "user" }], transaction: t });
-  return rows.map((m) => {
-    const u = (m as Membership & { user: User }).user;
-    return { userId: u.id, handle: u.email.split("@")[0]!.toLowerCase(), name: u.name, organisation: m.organisationId === c.retailerOrgId ? c.retailer.name : c.producer.name };
-  });
-}
-
-export async function getDeviation(orgId: number, id: number, user: SessionUser, membership: SessionMembership): Promise<DeviationDetail> {
-  const { deviation, contract, side } = await deviationFor(orgId, id);
-  const lot = (await Lot.findByPk(deviation.lotId))!;
-  const evaluation = deviation.analysisId ? await AnalysisEvaluation.findOne({ where: { analysisId: deviation.analysisId } }) : null;
-  const people = await participants(contract);
-  const messages = (await DeviationMessage.findAll({
-    where: { deviationId: id },
-    include: [{ model: User, as: "author", attributes: ["id", "name"] }, { model: DeviationMessageEdit, as: "edits" }, { model: DeviationAttachment, as: "attachments" }],
-    order: [["createdAt", "ASC"], ["id", "ASC"]],
-  })) as (DeviationMessage & { author: User; edits: DeviationMessageEdit[]; attachments: DeviationAttachment[] })[];
-  const decider = deviation.decidedBy ? await User.findByPk(deviation.decidedBy, { attributes: ["name"] }) : null;
-  const open = !CLOSED.includes(deviation.status);
-  const role = membership.role;
-  return {
-    ...summaryView(deviation, lot, contract),
-    side,
-    analysisId: deviation.analysisId,
-    verdicts: ((evaluation?.verdicts ?? []) as StoredVerdict[]).filter((v) => deviation.parameters.includes(v.parameter)),
-    decision: deviation.decision,
-    decidedAt: deviation.decidedAt ? deviation.decidedAt.toISOString() : null,
-    decidedBy: decider?.name ?? null,
-    messages: messages.map((m): MessageView => ({
-      id: m.id,
-      parentId: m.parentId,
-      kind: m.kind,
-      author: m.author.name,
-      organisation: m.organisationId === contract.retailerOrgId ? contract.retailer.name : m.organisationId === contract.producerOrgId ? contract.producer.name : "Laboratory",
-      side: m.organisationId === contract.retailerOrgId ? "buyer" : m.organisationId === contract.producerOrgId ? "producer" : "laboratory",
-      body: m.body,
-      proposal: m.proposal,
-      quote: m.quote,
-      mentions: people.filter((p) => m.mentions.includes(p.userId)).map((p) => p.handle),
-      edits: m.edits.map((e) => ({ previousBody: e.previousBody, editedAt: e.editedAt.toISOString() })),
-      attachments: m.attachments.map((a) => ({ id: a.id, originalName: a.originalName, sizeBytes: a.sizeBytes, sha256: a.sha256 })),
-      mine: m.authorUserId === user.id,
-      createdAt: m.createdAt.toISOString(),
-      editedAt: m.editedAt ? m.editedAt.toISOString() : null,
-    })),
-    participants: people.map(({ handle, name, organisation }) => ({ handle, name, organisation })),
-    actions: {
-      comment: open && ["buyer_technologist", "producer_quality"].includes(role),
-      propose: open && ["buyer_technologist", "producer_quality"].includes(role),
-      accept: open && deviation.status !== "agreed" && ["buyer_technologist", "producer_quality"].includes(role),
-      decide: open && side === "buyer" && role === "buyer_technologist",
-      close: deviation.status === "decided" && side === "buyer" && role === "buyer_technologist",
-    },
-  };
-}
+import type { SessionUser } from "../session-service.ts";
+import { CLOSED, partyDeviationFor, participants } from "./deviation-access.ts";
 
 const audit = (t: Transaction, user: SessionUser, orgId: number, action: TrailAction, d: Deviation, details: Record<string, unknown>, after?: unknown) =>
   recordTrail(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "deviation", entityId: d.id, after, details });
@@ -274,29 +150,3 @@ export async function attachToMessage(orgId: number, id: number, messageId: numb
     throw err;
   }
 }
-
-export async function readAttachment(orgId: number, attachmentId: number) {
-  const a = await DeviationAttachment.findByPk(attachmentId);
-  const message = a ? await DeviationMessage.findByPk(a.messageId) : null;
-  if (!a || !message) throw notFound("The attachment");
-  await deviationFor(orgId, message.deviationId).catch(() => {
-    throw notFound("The attachment");
-  });
-  return { body: await readStoredFile(a.storedName), mime: a.mime, filename: a.originalName };
-}
-
-/** Warns both parties once when a response deadline is less than a day away. */
-export async function warnApproachingDeadlines(now = new Date()): Promise<number> {
-  const soon = new Date(now.getTime() + 86_400_000);
-  const due = await Deviation.findAll({ where: { status: ["open", "in_discussion", "agreed"], deadlineWarnedAt: null, respondBy: { [Op.between]: [now, soon] } }, include: [{ model: Lot, as: "lot" }] });
-  for (const d of due) {
-    await inTransaction(async (t) => {
-      const c = (await Contract.findByPk(d.contractId, { include: contractInclude, transaction: t })) as ContractWithParties;
-      const parties = await usersWithRoles([c.retailerOrgId, c.producerOrgId], ["buyer_technologist", "producer_quality"], t);
-      await notify(t, parties, { kind: "deadline", title: `Deviation #${d.id} needs a response by ${d.respondBy!.toISOString().slice(0, 16).replace("T", " ")} UTC`, body: d.summary, link: deviationPath(d.id) });
-      await d.update({ deadlineWarnedAt: now }, { transaction: t });
-    });
-  }
-  return due.length;
-}
-

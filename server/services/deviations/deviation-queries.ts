@@ -1,0 +1,117 @@
+/** Reading deviations: the list with filters, one deviation with its thread, and an attachment. */
+import { Op } from "sequelize";
+import { Deviation } from "../../models/deviation.ts";
+import { DeviationAttachment } from "../../models/deviation-attachment.ts";
+import { DeviationMessage } from "../../models/deviation-message.ts";
+import { DeviationMessageEdit } from "../../models/deviation-message-edit.ts";
+import { Lot } from "../../models/lot.ts";
+import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
+import { User } from "../../models/user.ts";
+import { Contract } from "../../models/contract.ts";
+import { notFound } from "../../errors.ts";
+import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
+import { AuditOrder } from "../../models/audit-order.ts";
+import { readStoredFile } from "../../integrations/storage/stored-files.ts";
+import { type DeviationStatus } from "../../../shared/deviations/vocabulary.ts";
+import type { DeviationDetail, DeviationSummaryView, MessageView } from "../../../shared/deviations/views.ts";
+import type { StoredVerdict } from "../../../shared/lots/views.ts";
+import type { SessionUser, SessionMembership } from "../session-service.ts";
+import { CLOSED, deviationFor, isOverdue, participants } from "./deviation-access.ts";
+
+function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationSummaryView {
+  return {
+    id: d.id,
+    kind: d.kind,
+    status: d.status,
+    parameters: d.parameters,
+    summary: d.summary,
+    lotId: lot.id,
+    lotCode: lot.lotCode,
+    vintage: lot.vintage,
+    contractId: c.id,
+    contractReference: c.reference,
+    wineName: c.wine.name,
+    producerName: c.producer.name,
+    respondBy: d.respondBy ? d.respondBy.toISOString() : null,
+    overdue: isOverdue(d),
+    outcome: d.decision?.outcome ?? null,
+    createdAt: d.createdAt.toISOString(),
+    updatedAt: d.updatedAt.toISOString(),
+  };
+}
+
+export async function listDeviations(orgId: number, f: { status?: DeviationStatus; lot?: number; contract?: number; overdue?: "true" | "false" }) {
+  const labOrders = await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] });
+  const contracts = (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] }, include: contractInclude })) as ContractWithParties[];
+  const byId = new Map(contracts.map((c) => [c.id, c]));
+  const own = contracts.filter((c) => c.retailerOrgId === orgId || c.producerOrgId === orgId).map((c) => c.id);
+  const ids = f.contract ? [f.contract].filter((id) => own.includes(id)) : own;
+  const labWhere = labOrders.length ? [{ auditOrderId: labOrders.map((o) => o.id), ...(f.contract ? { contractId: f.contract } : {}) }] : [];
+  const rows = await Deviation.findAll({
+    where: { [Op.or]: [{ contractId: ids }, ...labWhere], ...(f.status ? { status: f.status } : {}), ...(f.lot ? { lotId: f.lot } : {}) },
+    include: [{ model: Lot, as: "lot" }],
+    order: [["createdAt", "DESC"]],
+    limit: 500,
+  });
+  const views = rows.map((d) => summaryView(d, (d as Deviation & { lot: Lot }).lot, byId.get(d.contractId)!));
+  return f.overdue === "true" ? views.filter((v) => v.overdue) : f.overdue === "false" ? views.filter((v) => !v.overdue) : views;
+}
+
+export async function getDeviation(orgId: number, id: number, user: SessionUser, membership: SessionMembership): Promise<DeviationDetail> {
+  const { deviation, contract, side } = await deviationFor(orgId, id);
+  const lot = (await Lot.findByPk(deviation.lotId))!;
+  const evaluation = deviation.analysisId ? await AnalysisEvaluation.findOne({ where: { analysisId: deviation.analysisId } }) : null;
+  const people = await participants(contract);
+  const messages = (await DeviationMessage.findAll({
+    where: { deviationId: id },
+    include: [{ model: User, as: "author", attributes: ["id", "name"] }, { model: DeviationMessageEdit, as: "edits" }, { model: DeviationAttachment, as: "attachments" }],
+    order: [["createdAt", "ASC"], ["id", "ASC"]],
+  })) as (DeviationMessage & { author: User; edits: DeviationMessageEdit[]; attachments: DeviationAttachment[] })[];
+  const decider = deviation.decidedBy ? await User.findByPk(deviation.decidedBy, { attributes: ["name"] }) : null;
+  const open = !CLOSED.includes(deviation.status);
+  const role = membership.role;
+  return {
+    ...summaryView(deviation, lot, contract),
+    side,
+    analysisId: deviation.analysisId,
+    verdicts: ((evaluation?.verdicts ?? []) as StoredVerdict[]).filter((v) => deviation.parameters.includes(v.parameter)),
+    decision: deviation.decision,
+    decidedAt: deviation.decidedAt ? deviation.decidedAt.toISOString() : null,
+    decidedBy: decider?.name ?? null,
+    messages: messages.map((m): MessageView => ({
+      id: m.id,
+      parentId: m.parentId,
+      kind: m.kind,
+      author: m.author.name,
+      organisation: m.organisationId === contract.retailerOrgId ? contract.retailer.name : m.organisationId === contract.producerOrgId ? contract.producer.name : "Laboratory",
+      side: m.organisationId === contract.retailerOrgId ? "buyer" : m.organisationId === contract.producerOrgId ? "producer" : "laboratory",
+      body: m.body,
+      proposal: m.proposal,
+      quote: m.quote,
+      mentions: people.filter((p) => m.mentions.includes(p.userId)).map((p) => p.handle),
+      edits: m.edits.map((e) => ({ previousBody: e.previousBody, editedAt: e.editedAt.toISOString() })),
+      attachments: m.attachments.map((a) => ({ id: a.id, originalName: a.originalName, sizeBytes: a.sizeBytes, sha256: a.sha256 })),
+      mine: m.authorUserId === user.id,
+      createdAt: m.createdAt.toISOString(),
+      editedAt: m.editedAt ? m.editedAt.toISOString() : null,
+    })),
+    participants: people.map(({ handle, name, organisation }) => ({ handle, name, organisation })),
+    actions: {
+      comment: open && ["buyer_technologist", "producer_quality"].includes(role),
+      propose: open && ["buyer_technologist", "producer_quality"].includes(role),
+      accept: open && deviation.status !== "agreed" && ["buyer_technologist", "producer_quality"].includes(role),
+      decide: open && side === "buyer" && role === "buyer_technologist",
+      close: deviation.status === "decided" && side === "buyer" && role === "buyer_technologist",
+    },
+  };
+}
+
+export async function readAttachment(orgId: number, attachmentId: number) {
+  const a = await DeviationAttachment.findByPk(attachmentId);
+  const message = a ? await DeviationMessage.findByPk(a.messageId) : null;
+  if (!a || !message) throw notFound("The attachment");
+  await deviationFor(orgId, message.deviationId).catch(() => {
+    throw notFound("The attachment");
+  });
+  return { body: await readStoredFile(a.storedName), mime: a.mime, filename: a.originalName };
+}
