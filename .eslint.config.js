@@ -4,6 +4,8 @@ import js from "@eslint/js";
 import tseslint from "typescript-eslint";
 import reactHooks from "eslint-plugin-react-hooks";
 import globals from "globals";
+import importX from "eslint-plugin-import-x";
+import prettierConfig from "eslint-config-prettier";
 import path from "node:path";
 
 const root = import.meta.dirname;
@@ -12,6 +14,9 @@ const root = import.meta.dirname;
 const BOUNDARIES = [
   ["shared", ["src", "server", "migrations", "seeders", "tests"], "shared/ is pure domain code used by both sides"],
   ["src", ["server", "migrations", "seeders"], "the client never imports server code; share it through shared/"],
+  ["src/features", ["src/app"], "features do not know the app shell; an organisation's page gets its org from useOrganisation() in src/lib"],
+  ["src/components", ["src/features", "src/app"], "shared components sit below the features"],
+  ["src/lib", ["src/features", "src/app"], "shared client code sits below the features"],
   ["server", ["src"], "the server never imports client code; share it through shared/"],
   ["server/routes", ["server/models", "server/db"], "routes call services; only services touch models"],
   ["server/http", ["server/models", "server/db", "server/routes"], "HTTP plumbing calls services, never models"],
@@ -44,6 +49,11 @@ const importDirection = {
       if (inside(target, "shared/engine") && !inside(file, "shared/engine") && target !== "shared/engine/index.ts") {
         context.report({ node, messageId: "forbidden", data: { from: file, to: target, why: "the engine's public API is shared/engine/index.ts" } });
       }
+      // Client features stand alone: what two features share lives in src/components or src/lib.
+      const feature = (f) => (inside(f, "src/features") ? f.split("/")[2] : null);
+      if (feature(file) && feature(target) && feature(file) !== feature(target)) {
+        context.report({ node, messageId: "forbidden", data: { from: `src/features/${feature(file)}/`, to: `src/features/${feature(target)}/`, why: "a feature never imports another; share through src/components or src/lib, or compose on the page" } });
+      }
       for (const [from, forbidden, why] of BOUNDARIES) {
         if (!inside(file, from)) continue;
         const hit = forbidden.find((f) => inside(target, f));
@@ -61,9 +71,15 @@ export default tseslint.config(
   {
     files: ["**/*.{ts,tsx,js}"],
     languageOptions: { globals: { ...globals.node, ...globals.browser } },
-    plugins: { cellarpact: { rules: { "import-direction": importDirection } } },
+    settings: {
+      "import-x/resolver": { node: { extensions: [".ts", ".tsx", ".js"] } },
+      "import-x/parsers": { "@typescript-eslint/parser": [".ts", ".tsx"] },
+      "import-x/extensions": [".ts", ".tsx", ".js"],
+    },
+    plugins: { cellarpact: { rules: { "import-direction": importDirection } }, "import-x": importX },
     rules: {
       "cellarpact/import-direction": "error",
+      "import-x/no-cycle": ["error", { ignoreExternal: true }],
       "@typescript-eslint/consistent-type-imports": ["error", { fixStyle: "inline-type-imports" }],
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
       "@typescript-eslint/no-namespace": "off",
@@ -74,4 +90,6 @@ export default tseslint.config(
     plugins: { "react-hooks": reactHooks },
     rules: { ...reactHooks.configs.recommended.rules },
   },
+  // Formatting is Prettier's job (checked by `npm run lint`); turn off the rules that would fight it.
+  prettierConfig,
 );

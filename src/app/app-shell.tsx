@@ -1,6 +1,8 @@
 import { NavLink, Navigate, Outlet, useLocation, useNavigate } from "react-router-dom";
-import { useSession, useSignOut } from "../features/auth/api/session.ts";
-import { useCurrentMembership } from "../features/auth/current-organisation.ts";
+import { useSignOut } from "../features/auth/api/session.ts";
+import { useSession } from "../lib/session.ts";
+import { useCurrentMembership } from "../lib/current-organisation.ts";
+import { SignedInProvider } from "../lib/signed-in.tsx";
 import { visibleNav } from "./navigation.ts";
 import { LoadingState, ErrorState } from "../components/ui/states.tsx";
 import { ROLE_LABELS } from "../../shared/auth/roles.ts";
@@ -79,7 +81,9 @@ export function AppShell() {
         </nav>
       </header>
       <main id="main" className="mx-auto max-w-6xl px-gutter py-8">
-        <Outlet context={{ user, membership }} />
+        <SignedInProvider value={{ user, membership }}>
+          <Outlet />
+        </SignedInProvider>
       </main>
     </div>
   );

@@ -1,6 +1,6 @@
 /** The app's navigation, and which roles see each entry. */
 import type { OrganisationKind, Role } from "../../shared/auth/roles.ts";
-import type { SessionMembership, SessionUser } from "../features/auth/api/session.ts";
+import type { SessionMembership, SessionUser } from "../lib/session.ts";
 
 export interface NavItem {
   label: string;

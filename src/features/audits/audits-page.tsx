@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { ordersQuery } from "./api/audits.ts";
 import { FinanceSummary } from "./finance-summary.tsx";
@@ -21,13 +21,12 @@ const LEADS = {
 };
 
 export function AuditsPage() {
-  const { membership } = useShellContext();
-  const orgId = membership?.organisationId ?? 0;
-  const role = membership?.role;
+  const { orgId, membership } = useOrganisation();
+  const role = membership.role;
   const [params, set] = useFilterParams();
   const f = { status: params.get("status") ?? undefined, from: params.get("from") ?? undefined, to: params.get("to") ?? undefined };
   const [ordering, setOrdering] = useState(false);
-  const list = useQuery({ ...ordersQuery(orgId, f), enabled: !!membership });
+  const list = useQuery({ ...ordersQuery(orgId, f) });
   const finance = role === "buyer_finance";
   const lab = role === "lab_analyst";
   return (

@@ -5,9 +5,8 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { useNavigate } from "react-router-dom";
-import { contractsQuery } from "../specs/api/specs.ts";
-import { lotsQuery } from "../lots/api/lots.ts";
-import { laboratoriesQuery, useCreateOrder } from "./api/audits.ts";
+import { contractsQuery } from "../../lib/contracts.ts";
+import { laboratoriesQuery, orderableLotsQuery, useCreateOrder } from "./api/audits.ts";
 import { Button } from "../../components/ui/button.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Notice } from "../../components/ui/states.tsx";
@@ -31,7 +30,7 @@ export function NewAuditForm({ orgId }: { orgId: number }) {
   const [note, setNote] = useState("");
   const [key] = useState(() => crypto.randomUUID());
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const lots = useQuery({ ...lotsQuery(orgId, { contract: Number(contractId) }), enabled: !!contractId });
+  const lots = useQuery({ ...orderableLotsQuery(orgId, Number(contractId)), enabled: !!contractId });
   const lab = labs.data?.find((l) => String(l.id) === labId);
   const quote = lab ? quoteAudit(lab.items, lotIds.length, parameters) : null;
   const toggle = <T,>(list: T[], item: T) => (list.includes(item) ? list.filter((x) => x !== item) : [...list, item]);

@@ -1,41 +1,39 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import { certificateUrl } from "../lots/api/lots.ts";
-import { OutcomeBadge } from "../lots/outcome-badge.tsx";
+import { certificateUrl, conformityUrl } from "../../lib/documents.ts";
+import { OutcomeBadge } from "../../components/outcome-badge.tsx";
 import { verdictText } from "../../../shared/lots/verdict-text.ts";
 import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import { Link, useParams, useSearchParams } from "react-router-dom";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { conformityUrl, orderQuery } from "./api/audits.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
+import { orderQuery } from "./api/audits.ts";
 import { OrderStatusBadge } from "./order-status-badge.tsx";
 import { PaymentPanel } from "./payment-panel.tsx";
-import { ComparisonTable } from "./comparison-table.tsx";
+import { ComparisonTable } from "../../components/comparison-table.tsx";
 import { LabResultsForm } from "./lab-results-form.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
-import { LegalCaution } from "../specs/legal-caution.tsx";
-import { HistoryPanel } from "../trail/history-panel.tsx";
-import { CertificateUpload } from "../lots/certificate-upload.tsx";
+import { LegalCaution } from "../../components/legal-caution.tsx";
+import { HistoryPanel } from "../../components/history-panel.tsx";
+import { CertificateUpload } from "../../components/certificate-upload.tsx";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
 export function OrderPage() {
-  const { membership } = useShellContext();
-  const orgId = membership?.organisationId ?? 0;
+  const { orgId, membership } = useOrganisation();
   const id = Number(useParams().orderId);
   const [search] = useSearchParams();
   const [sent, setSent] = useState<string | null>(null);
   const returning = search.get("paid") === "1";
   const q = useQuery({
     ...orderQuery(orgId, id),
-    enabled: !!membership,
     // Back from the payment page, the webhook may not have landed yet: look again until it has.
     refetchInterval: (query) => (returning && ["awaiting_payment", "payment_failed"].includes(query.state.data?.status ?? "") ? 1000 : false),
   });
   if (q.isPending) return <LoadingState />;
   if (q.isError) return <ErrorState error={q.error} onRetry={() => q.refetch()} />;
   const o = q.data;
-  const lab = membership?.role === "lab_analyst";
+  const lab = membership.role === "lab_analyst";
   const party = !lab;
   const waiting = returning && (o.status === "awaiting_payment" || o.status === "payment_failed");
   return (
@@ -78,7 +76,7 @@ export function OrderPage() {
                     <h3 className="font-semibold">Lot {l.lotCode}: the values you sent</h3>
                     <SentValues verdicts={l.verdicts} />
                     <ReportLinks orgId={orgId} reports={l.reports} />
-                    <CertificateUpload orgId={orgId} analysisId={l.analysisId} label={`Attach your signed report for lot ${l.lotCode}`} />
+                    <CertificateUpload orgId={orgId} analysisId={l.analysisId} label={`Attach your signed report for lot ${l.lotCode}`} onUploaded={() => q.refetch()} />
                   </div>
                 ) : null,
               )}

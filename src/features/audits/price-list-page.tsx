@@ -1,7 +1,7 @@
 /** A laboratory's admin sets what it offers and at what price per lot; empty means not offered. */
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
 import { priceListQuery, useSavePriceList } from "./api/audits.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -14,9 +14,8 @@ import { PARAMETERS } from "../../../shared/engine/index.ts";
 const MEASURED = PARAMETERS.filter((p) => !("derivedFrom" in p && p.derivedFrom));
 
 export function PriceListPage() {
-  const { membership } = useShellContext();
-  const orgId = membership?.organisationId ?? 0;
-  const list = useQuery({ ...priceListQuery(orgId), enabled: !!membership });
+  const { orgId } = useOrganisation();
+  const list = useQuery({ ...priceListQuery(orgId) });
   return (
     <>
       <PageHeader title="Price list" lead="What your laboratory analyses for buyers' audits, and the price per lot in euro. Orders keep the price they were placed at." />

@@ -12,7 +12,7 @@ import { AuthLayout } from "../../components/ui/page.tsx";
 import { TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
-import { sessionQueryOptions, type Session } from "./api/session.ts";
+import { sessionQueryOptions, type Session } from "../../lib/session.ts";
 
 interface InvitationPreview {
   email: string;

@@ -1,7 +1,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
 import { deviationsQuery } from "./api/deviations.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
@@ -10,11 +10,10 @@ import { DEVIATION_KIND_LABELS, DEVIATION_STATUSES, DEVIATION_OUTCOME_LABELS, DE
 import { findParameter } from "../../../shared/engine/index.ts";
 
 export function DeviationsPage() {
-  const { membership } = useShellContext();
+  const { orgId } = useOrganisation();
   const [params, set] = useFilterParams();
-  const orgId = membership?.organisationId ?? 0;
   const f = { status: params.get("status") ?? undefined, overdue: params.get("overdue") ?? undefined, contract: params.get("contract") ?? undefined };
-  const list = useQuery({ ...deviationsQuery(orgId, f), enabled: !!membership });
+  const list = useQuery({ ...deviationsQuery(orgId, f) });
   return (
     <>
       <PageHeader title="Deviations" lead="Results outside the agreed specification, transit drift and deviations opened by hand, until the buyer decides." />

@@ -1,5 +1,5 @@
 import { Link } from "react-router-dom";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useSignedIn } from "../../lib/signed-in.tsx";
 import { ORGANISATION_KIND_LABELS, ROLE_LABELS, type Role } from "../../../shared/auth/roles.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState } from "../../components/ui/states.tsx";
@@ -24,7 +24,7 @@ const ROLE_START: Record<Role, { to: string; label: string }> = {
 };
 
 export function HomePage() {
-  const { user, membership } = useShellContext();
+  const { user, membership } = useSignedIn();
   return (
     <>
       <PageHeader title={`Welcome, ${user.name.split(" ")[0]}`} lead="Cellarpact keeps buyers and producers on the same technical specification, lot after lot." />

@@ -6,8 +6,8 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { Link, useParams } from "react-router-dom";
 import { useMemo, useState } from "react";
 import Papa from "papaparse";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { contractQuery } from "../specs/api/specs.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
+import { contractQuery } from "../../lib/contracts.ts";
 import { importBatch, lotKeys } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
@@ -33,10 +33,9 @@ interface Parsed {
 type Outcome = { analyses: number; lotsCreated: number; samples: ImportResult["samples"]; failing: ImportResult["failing"] };
 
 export function ImportPage() {
-  const { membership } = useShellContext();
+  const { orgId } = useOrganisation();
   const { contractId } = useParams();
-  const orgId = membership?.organisationId ?? 0;
-  const contract = useQuery({ ...contractQuery(orgId, Number(contractId)), enabled: !!membership });
+  const contract = useQuery({ ...contractQuery(orgId, Number(contractId)) });
   const qc = useQueryClient();
   const [parsed, setParsed] = useState<Parsed | null>(null);
   const [readProgress, setReadProgress] = useState<number | null>(null);

@@ -1,32 +1,31 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link, useParams } from "react-router-dom";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { certificateUrl, lotQuery } from "./api/lots.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
+import { lotQuery } from "./api/lots.ts";
+import { certificateUrl, conformityUrl } from "../../lib/documents.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
-import { OutcomeBadge } from "./outcome-badge.tsx";
+import { OutcomeBadge } from "../../components/outcome-badge.tsx";
 import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
 import { LotStatusCard } from "./lot-status-card.tsx";
 import { LabelCheckCard } from "./label-check-card.tsx";
 import { CERTIFIABLE } from "../../../shared/lots/lot-status.ts";
-import { VerdictTable } from "./verdict-table.tsx";
+import { VerdictTable } from "../../components/verdict-table.tsx";
 import { ResultEntryForm } from "./result-entry-form.tsx";
-import { CertificateUpload } from "./certificate-upload.tsx";
-import { LegalCaution } from "../specs/legal-caution.tsx";
-import { HistoryPanel } from "../trail/history-panel.tsx";
-import { OpenDeviationForm } from "../deviations/open-deviation-form.tsx";
+import { CertificateUpload } from "../../components/certificate-upload.tsx";
+import { LegalCaution } from "../../components/legal-caution.tsx";
+import { HistoryPanel } from "../../components/history-panel.tsx";
+import { OpenDeviationForm } from "./open-deviation-form.tsx";
 import { LotEditForm } from "./lot-edit-form.tsx";
 import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { displayValue, findParameter, unitLabel } from "../../../shared/engine/index.ts";
-import { ComparisonTable } from "../audits/comparison-table.tsx";
-import { conformityUrl } from "../audits/api/audits.ts";
+import { ComparisonTable } from "../../components/comparison-table.tsx";
 import { DEVIATION_KIND_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
 
 export function LotPage() {
-  const { membership } = useShellContext();
+  const { orgId, membership } = useOrganisation();
   const { lotId } = useParams();
-  const orgId = membership?.organisationId ?? 0;
-  const lot = useQuery({ ...lotQuery(orgId, Number(lotId)), enabled: !!membership });
+  const lot = useQuery({ ...lotQuery(orgId, Number(lotId)) });
   if (lot.isPending) return <LoadingState />;
   if (lot.isError) return <ErrorState error={lot.error} onRetry={() => lot.refetch()} />;
   const l = lot.data;
@@ -55,7 +54,7 @@ export function LotPage() {
       />
       <div className="flex flex-col gap-6">
         <LegalCaution />
-        <LotStatusCard orgId={orgId} lot={l} canRejudge={["buyer_technologist", "producer_quality"].includes(membership?.role ?? "")} />
+        <LotStatusCard orgId={orgId} lot={l} canRejudge={["buyer_technologist", "producer_quality"].includes(membership.role)} />
         <LabelCheckCard lot={l} />
         <Card title="Specification in force">
           {l.governing ? (
@@ -130,11 +129,11 @@ export function LotPage() {
                   Certificate: {c.originalName} ({Math.round(c.sizeBytes / 1024)} KB, SHA-256 {c.sha256.slice(0, 12)}…)
                 </a>
               ))}
-              {l.canSubmit && !a.auditOrderId && <CertificateUpload orgId={orgId} analysisId={a.id} />}
+              {l.canSubmit && !a.auditOrderId && <CertificateUpload orgId={orgId} analysisId={a.id} onUploaded={() => lot.refetch()} />}
             </div>
           </Card>
         ))}
-        {["buyer_technologist", "producer_quality"].includes(membership?.role ?? "") && (
+        {["buyer_technologist", "producer_quality"].includes(membership.role) && (
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Open a deviation by hand</summary>
             <div className="mt-3"><OpenDeviationForm orgId={orgId} lotId={l.id} parameters={l.governing?.requirements.map((r) => r.parameter) ?? []} /></div>

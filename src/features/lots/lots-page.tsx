@@ -4,9 +4,9 @@ import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useEffect, useState } from "react";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
 import { lotsQuery, useRegisterLot } from "./api/lots.ts";
-import { contractsQuery } from "../specs/api/specs.ts";
+import { contractsQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
@@ -18,10 +18,8 @@ import { MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 
 export function LotsPage() {
-  const { membership } = useShellContext();
+  const { orgId, membership } = useOrganisation();
   const [params, set] = useFilterParams();
-  if (!membership) return <EmptyState title="Join an organisation to see its lots." />;
-  const orgId = membership.organisationId;
   const filters = { contract: params.get("contract") ? Number(params.get("contract")) : undefined, q: params.get("q") ?? undefined };
   return (
     <>

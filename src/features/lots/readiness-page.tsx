@@ -1,6 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
 import { readinessQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
@@ -13,9 +13,8 @@ import { findParameter } from "../../../shared/engine/index.ts";
 const names = (ids: string[]) => ids.map((p) => findParameter(p)?.name ?? p).join(", ");
 
 export function ReadinessPage() {
-  const { membership } = useShellContext();
-  const orgId = membership?.organisationId ?? 0;
-  const rows = useQuery({ ...readinessQuery(orgId), enabled: !!membership });
+  const { orgId } = useOrganisation();
+  const rows = useQuery({ ...readinessQuery(orgId) });
   return (
     <>
       <PageHeader title="Readiness" lead="Lots due for filling or shipment in the next four months, or not yet planned: what each required stage still lacks, and what fails." />

@@ -10,7 +10,7 @@ import { ANALYSIS_STAGES, ANALYSIS_STAGE_LABELS, specStageFor, type AnalysisStag
 import type { LotDetail } from "../../../shared/lots/views.ts";
 import { entryResults, judgeForLot, previewJudgement, type EntryLine } from "./entry-preview.ts";
 import { useSubmitAnalysis } from "./api/lots.ts";
-import { OutcomeBadge } from "./outcome-badge.tsx";
+import { OutcomeBadge } from "../../components/outcome-badge.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";

@@ -8,8 +8,8 @@ import { useRef } from "react";
 import { CartesianGrid, ComposedChart, Line, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis, Legend } from "recharts";
 import { useVirtualizer } from "@tanstack/react-virtual";
 import Papa from "papaparse";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { contractQuery, specQuery } from "../specs/api/specs.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
+import { contractQuery, specQuery } from "../../lib/contracts.ts";
 import { trendQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
@@ -24,15 +24,14 @@ import { chartDomain } from "./chart-domain.ts";
 const fixed = (x: number | null | undefined, digits: number) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(digits));
 
 export function TrendsPage() {
-  const { membership } = useShellContext();
+  const { orgId } = useOrganisation();
   const { contractId } = useParams();
   const [params, setParams] = useSearchParams();
-  const orgId = membership?.organisationId ?? 0;
   const parameter = params.get("parameter") ?? "volatile_acidity";
-  const contract = useQuery({ ...contractQuery(orgId, Number(contractId)), enabled: !!membership });
+  const contract = useQuery({ ...contractQuery(orgId, Number(contractId)) });
   const agreed = contract.data?.versions.find((v) => v.status === "agreed");
   const spec = useQuery({ ...specQuery(orgId, agreed?.id ?? 0), enabled: !!agreed });
-  const trend = useQuery({ ...trendQuery(orgId, Number(contractId), parameter), enabled: !!membership });
+  const trend = useQuery({ ...trendQuery(orgId, Number(contractId), parameter) });
   const options = (spec.data?.requirements.map((r) => r.parameter) ?? []).concat(PARAMETERS.map((p) => p.id)).filter((p, i, all) => all.indexOf(p) === i);
   return (
     <>

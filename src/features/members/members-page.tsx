@@ -1,7 +1,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
 import { useConfirm } from "../../components/ui/confirm-dialog.tsx";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useSignedIn } from "../../lib/signed-in.tsx";
 import { ROLE_LABELS, ROLES_BY_KIND, type Role } from "../../../shared/auth/roles.ts";
 import { invitationsQueryOptions, membersQueryOptions, useChangeRole, useRemoveMember, useRevokeInvitation } from "./api/members.ts";
 import { InviteForm } from "./invite-form.tsx";
@@ -13,7 +13,7 @@ import { errorMessage } from "../../lib/api-client.ts";
 const date = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
 
 export function MembersPage() {
-  const { user, membership } = useShellContext();
+  const { user, membership } = useSignedIn();
   if (!membership || membership.role !== "org_admin") {
     return <EmptyState title="Only an organisation admin manages members.">Ask your admin to invite people or change roles.</EmptyState>;
   }

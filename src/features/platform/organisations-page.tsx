@@ -8,7 +8,7 @@ import { api } from "../../lib/api-client.ts";
 import type { OrganisationView as OrganisationRow } from "../../../shared/auth/views.ts";
 import type { ChainVerification } from "../../../shared/trail/views.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useSignedIn } from "../../lib/signed-in.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
@@ -17,7 +17,7 @@ import { Button } from "../../components/ui/button.tsx";
 const organisationsQuery = { queryKey: ["platform", "organisations"], queryFn: () => api<OrganisationRow[]>("/api/platform/organisations") };
 
 export function OrganisationsPage() {
-  const { user } = useShellContext();
+  const { user } = useSignedIn();
   if (!user.isPlatformAdmin) return <EmptyState title="Only a platform admin manages organisations." />;
   return (
     <>

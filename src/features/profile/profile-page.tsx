@@ -6,16 +6,16 @@ import { changePasswordSchema, profileSchema, type ChangePasswordInput, type Pro
 import { ROLE_LABELS } from "../../../shared/auth/roles.ts";
 import { api } from "../../lib/api-client.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { sessionQueryOptions } from "../auth/api/session.ts";
+import { useSignedIn } from "../../lib/signed-in.tsx";
+import { sessionQueryOptions } from "../../lib/session.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
-import { PreferencesCard } from "../notifications/preferences-card.tsx";
+import { PreferencesCard } from "./preferences-card.tsx";
 
 export function ProfilePage() {
-  const { user } = useShellContext();
+  const { user } = useSignedIn();
   return (
     <>
       <PageHeader title="Profile" lead="Your name as colleagues and partners see it, your password and your organisations." />

@@ -1,8 +1,9 @@
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { Link, useParams, useSearchParams } from "react-router-dom";
 import { useState } from "react";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { diffQuery, pastResultsQuery, specQuery } from "./api/specs.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
+import { diffQuery, pastResultsQuery } from "./api/specs.ts";
+import { specQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -23,14 +24,13 @@ const KIND_STYLE: Record<DiffKind, string> = {
 const n = (x: number | null) => (x === null ? "—" : String(Number(x.toPrecision(5))));
 
 export function ComparePage() {
-  const { membership } = useShellContext();
+  const { orgId } = useOrganisation();
   const { specId } = useParams();
   const [params, setParams] = useSearchParams();
-  const orgId = membership?.organisationId ?? 0;
   const id = Number(specId);
-  const spec = useQuery({ ...specQuery(orgId, id), enabled: !!membership });
+  const spec = useQuery({ ...specQuery(orgId, id) });
   const against = Number(params.get("against"));
-  const diff = useQuery({ ...diffQuery(orgId, id, against), enabled: !!membership && against > 0 });
+  const diff = useQuery({ ...diffQuery(orgId, id, against), enabled: against > 0 });
   if (spec.isPending) return <LoadingState />;
   if (spec.isError) return <ErrorState error={spec.error} />;
   const v = spec.data;

@@ -1,8 +1,9 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link, useNavigate, useParams } from "react-router-dom";
 import { useState } from "react";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { contractQuery, useCreateVersion } from "./api/specs.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
+import { useCreateVersion } from "./api/specs.ts";
+import { contractQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -16,10 +17,9 @@ import { errorMessage } from "../../lib/api-client.ts";
 import type { ContractDetail } from "../../../shared/specs/views.ts";
 
 export function ContractPage() {
-  const { membership } = useShellContext();
+  const { orgId } = useOrganisation();
   const { contractId } = useParams();
-  const orgId = membership?.organisationId ?? 0;
-  const contract = useQuery({ ...contractQuery(orgId, Number(contractId)), enabled: !!membership });
+  const contract = useQuery({ ...contractQuery(orgId, Number(contractId)) });
   if (contract.isPending) return <LoadingState />;
   if (contract.isError) return <ErrorState error={contract.error} onRetry={() => contract.refetch()} />;
   const c = contract.data;

@@ -1,13 +1,14 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
-import { useShellContext } from "../../app/use-shell-context.ts";
-import { contractsQuery, specListQuery, type SpecFilters } from "./api/specs.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
+import { specListQuery, type SpecFilters } from "./api/specs.ts";
+import { contractsQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { StatusBadge } from "./status-badge.tsx";
-import { LegalCaution } from "./legal-caution.tsx";
+import { LegalCaution } from "../../components/legal-caution.tsx";
 import { NewContractForm } from "./new-contract-form.tsx";
 import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabulary.ts";
@@ -15,10 +16,8 @@ import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabul
 const vintages = (from: number, to: number | null) => (to ? `${from}–${to}` : `${from} →`);
 
 export function SpecsListPage() {
-  const { membership } = useShellContext();
+  const { orgId, membership } = useOrganisation();
   const [params, set] = useFilterParams();
-  if (!membership) return <EmptyState title="Join an organisation to see its specifications." />;
-  const orgId = membership.organisationId;
   const filters: SpecFilters = {
     wine: params.get("wine") ? Number(params.get("wine")) : undefined,
     producer: params.get("producer") ? Number(params.get("producer")) : undefined,

@@ -2,29 +2,28 @@ import { useQuery } from "@tanstack/react-query";
 import { api } from "../../lib/api-client.ts";
 import { useMutation } from "@tanstack/react-query";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
-import { verifyChain } from "../deviations/api/deviations.ts";
+import { verifyChain } from "../../lib/trail.ts";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import type { TrailEntryView } from "../../../shared/trail/views.ts";
-import { useShellContext } from "../../app/use-shell-context.ts";
+import { useOrganisation } from "../../lib/signed-in.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { actionLabel, detailsText } from "../../../shared/trail/vocabulary.ts";
 
 
 export function ActivityPage() {
-  const { membership } = useShellContext();
-  const orgId = membership?.organisationId;
+  const { orgId, membership } = useOrganisation();
   const [params, set] = useFilterParams();
   const filters = Object.fromEntries(["action", "entityType", "from", "to"].map((k) => [k, params.get(k) ?? ""]).filter(([, v]) => v));
   const qs = new URLSearchParams({ ...filters, limit: "500" });
   const entries = useQuery({
     queryKey: ["orgs", orgId, "audit", filters],
     queryFn: () => api<TrailEntryView[]>(`/api/orgs/${orgId}/trail?${qs}`),
-    enabled: orgId !== undefined && membership?.role === "org_admin",
+    enabled: membership.role === "org_admin",
   });
-  const verify = useMutation({ mutationFn: () => verifyChain(orgId!) });
-  if (!membership || membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
+  const verify = useMutation({ mutationFn: () => verifyChain(orgId) });
+  if (membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
   return (
     <>
       <PageHeader title="Trail" lead="What was done in your organisation, as recorded. Each entry is chained to the previous one by its SHA-256 hash, so later changes show." />

@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query
 import { api } from "../../../lib/api-client.ts";
 import type { LabResultsInput, NewAuditOrder, PriceListInput } from "../../../../shared/audits/schemas.ts";
 import type { AuditOrderDetail, AuditOrderSummary, FinanceDashboard, LaboratoryOffer } from "../../../../shared/audits/views.ts";
+import type { LotSummary } from "../../../../shared/lots/views.ts";
 
 const base = (orgId: number) => `/api/orgs/${orgId}`;
 const query = (f: Record<string, string | undefined>) => {
@@ -16,6 +17,7 @@ export const auditKeys = {
   dashboard: (orgId: number, f: Record<string, string | undefined>) => [...auditKeys.all(orgId), "dashboard", f] as const,
   laboratories: (orgId: number) => [...auditKeys.all(orgId), "laboratories"] as const,
   priceList: (orgId: number) => [...auditKeys.all(orgId), "price-list"] as const,
+  lotsOf: (orgId: number, contractId: number) => [...auditKeys.all(orgId), "lots-of", contractId] as const,
 };
 
 export const ordersQuery = (orgId: number, f: Record<string, string | undefined>) =>
@@ -26,8 +28,11 @@ export const dashboardQuery = (orgId: number, f: Record<string, string | undefin
 export const laboratoriesQuery = (orgId: number) => queryOptions({ queryKey: auditKeys.laboratories(orgId), queryFn: () => api<LaboratoryOffer[]>(`${base(orgId)}/laboratories`) });
 export const priceListQuery = (orgId: number) => queryOptions({ queryKey: auditKeys.priceList(orgId), queryFn: () => api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`) });
 
+/** The contract's lots an order can cover. */
+export const orderableLotsQuery = (orgId: number, contractId: number) =>
+  queryOptions({ queryKey: auditKeys.lotsOf(orgId, contractId), queryFn: () => api<LotSummary[]>(`${base(orgId)}/lots?contract=${contractId}`) });
+
 export const invoiceUrl = (orgId: number, id: number) => `${base(orgId)}/audit-orders/${id}/invoice.pdf`;
-export const conformityUrl = (orgId: number, lotId: number) => `${base(orgId)}/lots/${lotId}/conformity.pdf`;
 
 function useInvalidate(orgId: number) {
   const qc = useQueryClient();

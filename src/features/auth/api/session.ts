@@ -1,19 +1,8 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+/** Signing in and out; the session itself is read through src/lib/session.ts. */
+import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
-import type { SessionUser } from "../../../../shared/auth/session.ts";
-
-export type { SessionMembership, SessionUser } from "../../../../shared/auth/session.ts";
+import { sessionQueryOptions, type Session } from "../../../lib/session.ts";
 import type { SignInInput } from "../../../../shared/auth/schemas.ts";
-
-export interface Session {
-  user: SessionUser | null;
-  csrfToken: string | null;
-}
-
-export const sessionQueryOptions = () =>
-  queryOptions({ queryKey: ["session"], queryFn: () => api<Session>("/api/auth/session"), staleTime: 60_000 });
-
-export const useSession = () => useQuery(sessionQueryOptions());
 
 export function useSignIn() {
   const qc = useQueryClient();

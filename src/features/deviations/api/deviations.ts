@@ -2,7 +2,7 @@ import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query
 import { api } from "../../../lib/api-client.ts";
 import type { DecisionInput, MessageInput } from "../../../../shared/deviations/schemas.ts";
 import type { DeviationDetail, DeviationSummaryView } from "../../../../shared/deviations/views.ts";
-import type { TrailEntryView, ChainVerification } from "../../../../shared/trail/views.ts";
+import { historyKeys } from "../../../lib/trail.ts";
 
 const base = (orgId: number) => `/api/orgs/${orgId}`;
 
@@ -10,7 +10,6 @@ export const deviationKeys = {
   all: (orgId: number) => ["orgs", orgId, "deviations"] as const,
   list: (orgId: number, f: Record<string, string | undefined>) => [...deviationKeys.all(orgId), "list", f] as const,
   detail: (orgId: number, id: number) => [...deviationKeys.all(orgId), "detail", id] as const,
-  history: (orgId: number, type: string, id: number) => ["orgs", orgId, "history", type, id] as const,
 };
 
 export const deviationsQuery = (orgId: number, f: Record<string, string | undefined>) =>
@@ -22,9 +21,6 @@ export const deviationsQuery = (orgId: number, f: Record<string, string | undefi
     },
   });
 export const deviationQuery = (orgId: number, id: number) => queryOptions({ queryKey: deviationKeys.detail(orgId, id), queryFn: () => api<DeviationDetail>(`${base(orgId)}/deviations/${id}`) });
-export const historyQuery = (orgId: number, type: string, id: number) =>
-  queryOptions({ queryKey: deviationKeys.history(orgId, type, id), queryFn: () => api<TrailEntryView[]>(`${base(orgId)}/history/${type}/${id}`) });
-export const verifyChain = (orgId: number) => api<ChainVerification>(`${base(orgId)}/trail/verify`);
 export const deviationPdfUrl = (orgId: number, id: number) => `${base(orgId)}/deviations/${id}/pdf`;
 export const attachmentUrl = (orgId: number, id: number) => `${base(orgId)}/deviation-attachments/${id}`;
 
@@ -32,7 +28,7 @@ function useInvalidate(orgId: number) {
   const qc = useQueryClient();
   return () => {
     void qc.invalidateQueries({ queryKey: deviationKeys.all(orgId) });
-    void qc.invalidateQueries({ queryKey: ["orgs", orgId, "history"] });
+    void qc.invalidateQueries({ queryKey: historyKeys.all(orgId) });
     void qc.invalidateQueries({ queryKey: ["notifications"] });
   };
 }

@@ -1,6 +1,5 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
-import { uploadFile } from "../../../lib/upload.ts";
 import type { AnalysisSubmission, ImportBatch, LotInput } from "../../../../shared/lots/schemas.ts";
 import type { ImportResult, LotDetail, LotSummary, ReadinessRow, SubmissionResult, TrendData } from "../../../../shared/lots/views.ts";
 
@@ -26,7 +25,6 @@ export const lotQuery = (orgId: number, id: number) => queryOptions({ queryKey: 
 export const readinessQuery = (orgId: number) => queryOptions({ queryKey: lotKeys.readiness(orgId), queryFn: () => api<ReadinessRow[]>(`${base(orgId)}/readiness`) });
 export const trendQuery = (orgId: number, contractId: number, parameter: string) =>
   queryOptions({ queryKey: lotKeys.trend(orgId, contractId, parameter), queryFn: () => api<TrendData>(`${base(orgId)}/contracts/${contractId}/trend?parameter=${parameter}`) });
-export const certificateUrl = (orgId: number, id: number) => `${base(orgId)}/certificates/${id}`;
 
 function useInvalidateLots(orgId: number) {
   const qc = useQueryClient();
@@ -49,7 +47,6 @@ export function useSubmitAnalysis(orgId: number, lotId: number) {
 export const importBatch = (orgId: number, contractId: number, batch: ImportBatch) =>
   api<ImportResult>(`${base(orgId)}/contracts/${contractId}/imports`, { method: "POST", body: batch });
 
-export const uploadCertificate = (orgId: number, analysisId: number, file: File) => uploadFile<{ id: number; sha256: string }>(`${base(orgId)}/analyses/${analysisId}/certificates`, file);
 
 /** Judge an analysis again against the version now in force; recorded as a new analysis. */
 export function useRejudge(orgId: number, lotId: number) {

@@ -2,7 +2,8 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
 import type { CommentInput, NewContractInput, NewVersionInput, SpecDraftInput } from "../../../../shared/specs/schemas.ts";
-import type { ContractDetail, ContractWithVersions, PastResultRow, SpecDiff, SpecListItem, SpecVersionDetail } from "../../../../shared/specs/views.ts";
+import type { PastResultRow, SpecDiff, SpecListItem } from "../../../../shared/specs/views.ts";
+import { contractKeys } from "../../../lib/contracts.ts";
 
 export interface SpecFilters {
   wine?: number;
@@ -17,10 +18,7 @@ const base = (orgId: number) => `/api/orgs/${orgId}`;
 export const specKeys = {
   all: (orgId: number) => ["orgs", orgId, "specs"] as const,
   list: (orgId: number, f: SpecFilters) => [...specKeys.all(orgId), "list", f] as const,
-  detail: (orgId: number, id: number) => [...specKeys.all(orgId), "detail", id] as const,
   diff: (orgId: number, id: number, against: number) => [...specKeys.all(orgId), "diff", id, against] as const,
-  contracts: (orgId: number) => [...specKeys.all(orgId), "contracts"] as const,
-  contract: (orgId: number, id: number) => [...specKeys.all(orgId), "contract", id] as const,
   results: (orgId: number, contractId: number) => [...specKeys.all(orgId), "results", contractId] as const,
 };
 
@@ -33,9 +31,6 @@ export const specListQuery = (orgId: number, f: SpecFilters) =>
     },
   });
 
-export const contractsQuery = (orgId: number) => queryOptions({ queryKey: specKeys.contracts(orgId), queryFn: () => api<ContractWithVersions[]>(`${base(orgId)}/contracts`) });
-export const contractQuery = (orgId: number, id: number) => queryOptions({ queryKey: specKeys.contract(orgId, id), queryFn: () => api<ContractDetail>(`${base(orgId)}/contracts/${id}`) });
-export const specQuery = (orgId: number, id: number) => queryOptions({ queryKey: specKeys.detail(orgId, id), queryFn: () => api<SpecVersionDetail>(`${base(orgId)}/specs/${id}`) });
 export const diffQuery = (orgId: number, id: number, against: number) =>
   queryOptions({ queryKey: specKeys.diff(orgId, id, against), queryFn: () => api<SpecDiff>(`${base(orgId)}/specs/${id}/diff?against=${against}`) });
 export const pastResultsQuery = (orgId: number, contractId: number) =>
@@ -45,7 +40,7 @@ export const specPdfUrl = (orgId: number, id: number) => `${base(orgId)}/specs/$
 
 function useInvalidateSpecs(orgId: number) {
   const qc = useQueryClient();
-  return () => qc.invalidateQueries({ queryKey: specKeys.all(orgId) });
+  return () => Promise.all([qc.invalidateQueries({ queryKey: specKeys.all(orgId) }), qc.invalidateQueries({ queryKey: contractKeys.all(orgId) })]);
 }
 
 export function useCreateVersion(orgId: number, contractId: number) {

@@ -1,6 +1,6 @@
 /** Which of the user's organisations the app is showing; remembered per browser. */
 import { useCallback, useSyncExternalStore } from "react";
-import type { SessionMembership, SessionUser } from "./api/session.ts";
+import type { SessionMembership, SessionUser } from "./session.ts";
 
 const KEY = "cellarpact.organisation";
 const listeners = new Set<() => void>();

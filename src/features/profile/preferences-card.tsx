@@ -1,6 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
-import { preferencesQuery, useSavePreferences } from "./api.ts";
+import { preferencesQuery, useSavePreferences } from "./api/preferences.ts";
 import { Card } from "../../components/ui/page.tsx";
 import { LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";

@@ -1,5 +1,5 @@
 /** Declared against independent results, parameter by parameter, with the scores and what they mean. */
-import { convert, findParameter, UNITS, type ComparisonOutcome, type ResultComparison } from "../../../shared/engine/index.ts";
+import { convert, findParameter, UNITS, type ComparisonOutcome, type ResultComparison } from "../../shared/engine/index.ts";
 
 const TONE: Record<ComparisonOutcome, string> = {
   agrees: "bg-verjus-50 text-verjus-700",

@@ -5,7 +5,6 @@ import { api, errorMessage } from "../../lib/api-client.ts";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { findParameter } from "../../../shared/engine/index.ts";
-import { deviationKeys } from "./api/deviations.ts";
 
 /** Opening a deviation by hand (a tasting fault, a label problem), with the reason written down. */
 export function OpenDeviationForm({ orgId, lotId, parameters }: { orgId: number; lotId: number; parameters: string[] }) {
@@ -16,7 +15,8 @@ export function OpenDeviationForm({ orgId, lotId, parameters }: { orgId: number;
   const open = useMutation({
     mutationFn: () => api<{ id: number }>(`/api/orgs/${orgId}/deviations`, { method: "POST", body: { lotId, parameters: chosen, reason } }),
     onSuccess: ({ id }) => {
-      void qc.invalidateQueries({ queryKey: deviationKeys.all(orgId) });
+      // The new deviation shows on this lot, in the deviation lists and on the trail: refresh the organisation's data.
+      void qc.invalidateQueries({ queryKey: ["orgs", orgId] });
       navigate(`/deviations/${id}`);
     },
   });

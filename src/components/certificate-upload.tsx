@@ -1,11 +1,10 @@
 import { useState } from "react";
-import { useQueryClient } from "@tanstack/react-query";
-import { lotKeys, uploadCertificate } from "./api/lots.ts";
-import { Notice } from "../../components/ui/states.tsx";
-import { errorMessage } from "../../lib/api-client.ts";
+import { uploadCertificate } from "../lib/documents.ts";
+import { Notice } from "./ui/states.tsx";
+import { errorMessage } from "../lib/api-client.ts";
 
-export function CertificateUpload({ orgId, analysisId, label = "Attach the laboratory's certificate" }: { orgId: number; analysisId: number; label?: string }) {
-  const qc = useQueryClient();
+/** Attaches a signed certificate or report to an analysis; the page says what to refresh afterwards. */
+export function CertificateUpload({ orgId, analysisId, label = "Attach the laboratory's certificate", onUploaded }: { orgId: number; analysisId: number; label?: string; onUploaded: () => Promise<unknown> }) {
   const [state, setState] = useState<{ tone: "success" | "error"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
   const id = `certificate-${analysisId}`;
@@ -25,7 +24,7 @@ export function CertificateUpload({ orgId, analysisId, label = "Attach the labor
           try {
             const r = await uploadCertificate(orgId, analysisId, file);
             setState({ tone: "success", text: `Attached. SHA-256 ${r.sha256.slice(0, 16)}… is on the trail.` });
-            await qc.invalidateQueries({ queryKey: lotKeys.all(orgId) });
+            await onUploaded();
           } catch (err) {
             setState({ tone: "error", text: errorMessage(err) });
           } finally {

@@ -1,6 +1,6 @@
 /** Verdicts with the bound that governed each one and where that bound comes from. */
-import { citationConfirmed, convert, displayValue, findParameter, unitLabel, type UnitId } from "../../../shared/engine/index.ts";
-import type { ResultView, StoredBound, StoredVerdict } from "../../../shared/lots/views.ts";
+import { citationConfirmed, convert, displayValue, findParameter, unitLabel, type UnitId } from "../../shared/engine/index.ts";
+import type { ResultView, StoredBound, StoredVerdict } from "../../shared/lots/views.ts";
 import { OutcomeBadge } from "./outcome-badge.tsx";
 
 function Bound({ label, b, unit, factor, show }: { label: string; b: StoredBound | null; unit: string; factor: number; show: (x: number) => string }) {

@@ -1,4 +1,4 @@
-import type { Outcome } from "../../../shared/engine/index.ts";
+import type { Outcome } from "../../shared/engine/index.ts";
 
 const TONE: Record<Outcome, string> = {
   pass: "bg-verjus-50 text-verjus-700",

@@ -1,11 +1,11 @@
 /** The recorded history of one entity, with the hash chain's verification on demand. */
 import { useMutation, useQuery } from "@tanstack/react-query";
-import type { HistoryEntityType } from "../../../shared/trail/history.ts";
-import { historyQuery, verifyChain } from "../deviations/api/deviations.ts";
-import { Card } from "../../components/ui/page.tsx";
-import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
-import { Button } from "../../components/ui/button.tsx";
-import { actionLabel } from "../../../shared/trail/vocabulary.ts";
+import type { HistoryEntityType } from "../../shared/trail/history.ts";
+import { historyQuery, verifyChain } from "../lib/trail.ts";
+import { Card } from "./ui/page.tsx";
+import { ErrorState, LoadingState, Notice } from "./ui/states.tsx";
+import { Button } from "./ui/button.tsx";
+import { actionLabel } from "../../shared/trail/vocabulary.ts";
 
 export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; entityType: HistoryEntityType; entityId: number }) {
   const history = useQuery(historyQuery(orgId, entityType, entityId));
