@@ -14,16 +14,32 @@ const root = import.meta.dirname;
 const BOUNDARIES = [
   ["shared", ["src", "server", "migrations", "seeders", "tests"], "shared/ is pure domain code used by both sides"],
   ["src", ["server", "migrations", "seeders"], "the client never imports server code; share it through shared/"],
-  ["src/features", ["src/app"], "features do not know the app shell; an organisation's page gets its org from useOrganisation() in src/lib"],
+  [
+    "src/features",
+    ["src/app"],
+    "features do not know the app shell; an organisation's page gets its org from useOrganisation() in src/lib",
+  ],
   ["src/components", ["src/features", "src/app"], "shared components sit below the features"],
   ["src/lib", ["src/features", "src/app"], "shared client code sits below the features"],
   ["server", ["src"], "the server never imports client code; share it through shared/"],
   ["server/routes", ["server/models", "server/db"], "routes call services; only services touch models"],
   ["server/http", ["server/models", "server/db", "server/routes"], "HTTP plumbing calls services, never models"],
-  ["server/services", ["server/routes", "server/http"], "services know nothing of routes or HTTP; they throw the errors of server/errors.ts"],
-  ["server/integrations", ["server/services", "server/routes", "server/http"], "integrations (payments, mail, storage) are a floor below the services"],
+  [
+    "server/services",
+    ["server/routes", "server/http"],
+    "services know nothing of routes or HTTP; they throw the errors of server/errors.ts",
+  ],
+  [
+    "server/integrations",
+    ["server/services", "server/routes", "server/http"],
+    "integrations (payments, mail, storage) are a floor below the services",
+  ],
   ["server/models", ["server/services", "server/routes", "server/http", "server/integrations"], "models are the bottom layer"],
-  ["server/errors.ts", ["server/services", "server/routes", "server/http", "server/models", "server/integrations"], "errors are neutral: every floor may throw them"],
+  [
+    "server/errors.ts",
+    ["server/services", "server/routes", "server/http", "server/models", "server/integrations"],
+    "errors are neutral: every floor may throw them",
+  ],
 ];
 // shared/ may use only these packages: no I/O, no framework.
 const SHARED_PACKAGES = new Set(["zod"]);
@@ -40,19 +56,38 @@ const importDirection = {
       if (inside(file, "shared") && !spec.startsWith(".")) {
         const pkg = spec.startsWith("@") ? spec.split("/").slice(0, 2).join("/") : spec.split("/")[0];
         if (!SHARED_PACKAGES.has(pkg)) {
-          context.report({ node, messageId: "forbidden", data: { from: "shared/", to: spec, why: "shared/ stays free of I/O and frameworks" } });
+          context.report({
+            node,
+            messageId: "forbidden",
+            data: { from: "shared/", to: spec, why: "shared/ stays free of I/O and frameworks" },
+          });
         }
         return;
       }
       if (!spec.startsWith(".")) return;
-      const target = path.relative(root, path.resolve(path.dirname(context.filename), spec)).split(path.sep).join("/");
+      const target = path
+        .relative(root, path.resolve(path.dirname(context.filename), spec))
+        .split(path.sep)
+        .join("/");
       if (inside(target, "shared/engine") && !inside(file, "shared/engine") && target !== "shared/engine/index.ts") {
-        context.report({ node, messageId: "forbidden", data: { from: file, to: target, why: "the engine's public API is shared/engine/index.ts" } });
+        context.report({
+          node,
+          messageId: "forbidden",
+          data: { from: file, to: target, why: "the engine's public API is shared/engine/index.ts" },
+        });
       }
       // Client features stand alone: what two features share lives in src/components or src/lib.
       const feature = (f) => (inside(f, "src/features") ? f.split("/")[2] : null);
       if (feature(file) && feature(target) && feature(file) !== feature(target)) {
-        context.report({ node, messageId: "forbidden", data: { from: `src/features/${feature(file)}/`, to: `src/features/${feature(target)}/`, why: "a feature never imports another; share through src/components or src/lib, or compose on the page" } });
+        context.report({
+          node,
+          messageId: "forbidden",
+          data: {
+            from: `src/features/${feature(file)}/`,
+            to: `src/features/${feature(target)}/`,
+            why: "a feature never imports another; share through src/components or src/lib, or compose on the page",
+          },
+        });
       }
       for (const [from, forbidden, why] of BOUNDARIES) {
         if (!inside(file, from)) continue;

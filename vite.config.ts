@@ -30,7 +30,15 @@ export default defineConfig({
     projects: [
       { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.ts"] } },
       // API and browser tests share the test database, rebuilt once before them.
-      { extends: true, test: { name: "integration", include: ["tests/api/**/*.test.ts", "tests/e2e/**/*.test.ts"], globalSetup: ["tests/support/global-setup.ts"], testTimeout: 90_000 } },
+      {
+        extends: true,
+        test: {
+          name: "integration",
+          include: ["tests/api/**/*.test.ts", "tests/e2e/**/*.test.ts"],
+          globalSetup: ["tests/support/global-setup.ts"],
+          testTimeout: 90_000,
+        },
+      },
     ],
   },
 });

@@ -2,7 +2,12 @@ import { DataTypes, type QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
 
 const stamps = { created_at: { type: DataTypes.DATE(3), allowNull: false }, updated_at: { type: DataTypes.DATE(3), allowNull: false } };
-const org = (onDelete = "CASCADE") => ({ type: DataTypes.INTEGER, allowNull: false, references: { model: "organisations", key: "id" }, onDelete });
+const org = (onDelete = "CASCADE") => ({
+  type: DataTypes.INTEGER,
+  allowNull: false,
+  references: { model: "organisations", key: "id" },
+  onDelete,
+});
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.createTable("wines", {

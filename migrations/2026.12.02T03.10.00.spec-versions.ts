@@ -45,7 +45,12 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.createTable("spec_comments", {
     id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
     spec_version_id: { type: DataTypes.INTEGER, allowNull: false, references: { model: "spec_versions", key: "id" }, onDelete: "CASCADE" },
-    requirement_id: { type: DataTypes.INTEGER, allowNull: true, references: { model: "spec_requirements", key: "id" }, onDelete: "CASCADE" },
+    requirement_id: {
+      type: DataTypes.INTEGER,
+      allowNull: true,
+      references: { model: "spec_requirements", key: "id" },
+      onDelete: "CASCADE",
+    },
     author_user_id: user(false),
     organisation_id: { type: DataTypes.INTEGER, allowNull: false, references: { model: "organisations", key: "id" } },
     body: { type: DataTypes.TEXT, allowNull: false },

@@ -76,5 +76,6 @@ export async function down({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.dropTable("deviation_messages");
   // Raw SQL: removeColumn trips over the connector options this project uses (see server/db/connection.ts).
   await qi.sequelize.query("ALTER TABLE deviations DROP FOREIGN KEY IF EXISTS deviations_decided_by_foreign_idx");
-  for (const c of ["deadline_warned_at", "decided_by", "decided_at", "decision", "respond_by"]) await qi.sequelize.query(`ALTER TABLE deviations DROP COLUMN ${c}`);
+  for (const c of ["deadline_warned_at", "decided_by", "decided_at", "decision", "respond_by"])
+    await qi.sequelize.query(`ALTER TABLE deviations DROP COLUMN ${c}`);
 }

@@ -73,8 +73,12 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
     received_at: { type: DataTypes.DATE(3), allowNull: false },
   });
 
-  await qi.sequelize.query("ALTER TABLE analyses ADD COLUMN audit_order_id INT NULL, ADD CONSTRAINT analyses_audit_order_fk FOREIGN KEY (audit_order_id) REFERENCES audit_orders (id)");
-  await qi.sequelize.query("ALTER TABLE deviations ADD COLUMN audit_order_id INT NULL, ADD CONSTRAINT deviations_audit_order_fk FOREIGN KEY (audit_order_id) REFERENCES audit_orders (id)");
+  await qi.sequelize.query(
+    "ALTER TABLE analyses ADD COLUMN audit_order_id INT NULL, ADD CONSTRAINT analyses_audit_order_fk FOREIGN KEY (audit_order_id) REFERENCES audit_orders (id)",
+  );
+  await qi.sequelize.query(
+    "ALTER TABLE deviations ADD COLUMN audit_order_id INT NULL, ADD CONSTRAINT deviations_audit_order_fk FOREIGN KEY (audit_order_id) REFERENCES audit_orders (id)",
+  );
   await qi.sequelize.query("ALTER TABLE deviations MODIFY kind ENUM('result', 'transit', 'manual', 'audit') NOT NULL");
 }
 

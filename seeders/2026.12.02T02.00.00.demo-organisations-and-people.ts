@@ -34,10 +34,21 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   const stamp = { created_at: now, updated_at: now };
   // Cost 10 keeps seeding quick; real accounts use the configured cost.
   const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
-  await qi.bulkInsert("organisations", ORGS.map((o) => ({ ...o, ...stamp })));
+  await qi.bulkInsert(
+    "organisations",
+    ORGS.map((o) => ({ ...o, ...stamp })),
+  );
   await qi.bulkInsert(
     "users",
-    DEMO_PEOPLE.map((p) => ({ id: p.id, name: p.name, email: p.email, password_hash: hash, is_platform_admin: p.platformAdmin, session_version: 0, ...stamp })),
+    DEMO_PEOPLE.map((p) => ({
+      id: p.id,
+      name: p.name,
+      email: p.email,
+      password_hash: hash,
+      is_platform_admin: p.platformAdmin,
+      session_version: 0,
+      ...stamp,
+    })),
   );
   await qi.bulkInsert(
     "memberships",

@@ -13,10 +13,72 @@ const now = new Date("2026-11-20T09:00:00Z");
 const stamps = { created_at: now, updated_at: now };
 
 const WINES = [
-  { id: 1, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Blanc", colour: "white", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 2.5, nominal_alcohol_percent_vol: 12.5, law_facts: { organic: false, protectedOrigin: "pdo", filtered: true, euZonesAB: true, oivSulphateCase: "none", cryoliteTreatedVineyard: false } },
-  { id: 2, retailer_org_id: 1, producer_org_id: 2, name: "Sentier Rouge", colour: "red", category: "still", region: "Loire Valley", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 1.8, nominal_alcohol_percent_vol: 13, law_facts: { organic: false, protectedOrigin: "pdo", filtered: true, euZonesAB: true, oivSulphateCase: "none", cryoliteTreatedVineyard: false } },
-  { id: 3, retailer_org_id: 1, producer_org_id: 3, name: "Kestrel Flats Shiraz (bulk)", colour: "red", category: "still", region: "Riverland, South Australia", markets: ["GB", "EU", "OIV"], nominal_sugar_g_per_l: 3.2, nominal_alcohol_percent_vol: 14, law_facts: { organic: false, protectedOrigin: "none", euZonesAB: false, oivSulphateCase: "none" } },
-  { id: 4, retailer_org_id: 1, producer_org_id: 4, name: "Valsorda Rosato Frizzante", colour: "rose", category: "semi-sparkling", region: "Veneto", markets: ["EU", "US"], nominal_sugar_g_per_l: 9, nominal_alcohol_percent_vol: 11, law_facts: { organic: false, protectedOrigin: "pgi", filtered: true, usHighBrixJuice: false } },
+  {
+    id: 1,
+    retailer_org_id: 1,
+    producer_org_id: 2,
+    name: "Sentier Blanc",
+    colour: "white",
+    category: "still",
+    region: "Loire Valley",
+    markets: ["GB", "EU", "OIV"],
+    nominal_sugar_g_per_l: 2.5,
+    nominal_alcohol_percent_vol: 12.5,
+    law_facts: {
+      organic: false,
+      protectedOrigin: "pdo",
+      filtered: true,
+      euZonesAB: true,
+      oivSulphateCase: "none",
+      cryoliteTreatedVineyard: false,
+    },
+  },
+  {
+    id: 2,
+    retailer_org_id: 1,
+    producer_org_id: 2,
+    name: "Sentier Rouge",
+    colour: "red",
+    category: "still",
+    region: "Loire Valley",
+    markets: ["GB", "EU", "OIV"],
+    nominal_sugar_g_per_l: 1.8,
+    nominal_alcohol_percent_vol: 13,
+    law_facts: {
+      organic: false,
+      protectedOrigin: "pdo",
+      filtered: true,
+      euZonesAB: true,
+      oivSulphateCase: "none",
+      cryoliteTreatedVineyard: false,
+    },
+  },
+  {
+    id: 3,
+    retailer_org_id: 1,
+    producer_org_id: 3,
+    name: "Kestrel Flats Shiraz (bulk)",
+    colour: "red",
+    category: "still",
+    region: "Riverland, South Australia",
+    markets: ["GB", "EU", "OIV"],
+    nominal_sugar_g_per_l: 3.2,
+    nominal_alcohol_percent_vol: 14,
+    law_facts: { organic: false, protectedOrigin: "none", euZonesAB: false, oivSulphateCase: "none" },
+  },
+  {
+    id: 4,
+    retailer_org_id: 1,
+    producer_org_id: 4,
+    name: "Valsorda Rosato Frizzante",
+    colour: "rose",
+    category: "semi-sparkling",
+    region: "Veneto",
+    markets: ["EU", "US"],
+    nominal_sugar_g_per_l: 9,
+    nominal_alcohol_percent_vol: 11,
+    law_facts: { organic: false, protectedOrigin: "pgi", filtered: true, usHighBrixJuice: false },
+  },
 ];
 
 const CONTRACTS = [
@@ -29,7 +91,18 @@ const CONTRACTS = [
 const template = (id: string) => SPEC_TEMPLATES.find((t) => t.id === id)!.rows;
 
 const VERSIONS = [
-  { id: 1, contract_id: 1, number: 1, status: "agreed", title: "Sentier Blanc from the 2023 vintage", vintage_from: 2023, vintage_to: null, stages: ["pre_filling", "final_check", "pre_shipment"], rows: template("still-white"), decided_by: 5 },
+  {
+    id: 1,
+    contract_id: 1,
+    number: 1,
+    status: "agreed",
+    title: "Sentier Blanc from the 2023 vintage",
+    vintage_from: 2023,
+    vintage_to: null,
+    stages: ["pre_filling", "final_check", "pre_shipment"],
+    rows: template("still-white"),
+    decided_by: 5,
+  },
   {
     id: 2,
     contract_id: 3,
@@ -42,7 +115,20 @@ const VERSIONS = [
     rows: template("still-red").map((r) => ({ ...r, stages: ["pre_shipment", "on_arrival"] as typeof r.stages })),
     decided_by: 7,
   },
-  { id: 3, contract_id: 4, number: 1, status: "draft", title: "Rosato, first draft", vintage_from: 2025, vintage_to: null, stages: ["pre_filling", "pre_shipment"], rows: template("still-white").slice(0, 6).map((r) => ({ ...r, stages: ["pre_filling"] as typeof r.stages })), decided_by: null },
+  {
+    id: 3,
+    contract_id: 4,
+    number: 1,
+    status: "draft",
+    title: "Rosato, first draft",
+    vintage_from: 2025,
+    vintage_to: null,
+    stages: ["pre_filling", "pre_shipment"],
+    rows: template("still-white")
+      .slice(0, 6)
+      .map((r) => ({ ...r, stages: ["pre_filling"] as typeof r.stages })),
+    decided_by: null,
+  },
 ];
 
 // Deterministic pseudo-random numbers, so the demo is the same on every machine.
@@ -91,17 +177,62 @@ interface LotSeed {
 }
 
 /** Who sends each contract's results: the producer's quality member. */
-const PRODUCER_QUALITY: Record<number, string> = { 1: "elise.carbonnel@troissentes.test", 2: "elise.carbonnel@troissentes.test", 3: "priya.anand@kestrelflats.test" };
+const PRODUCER_QUALITY: Record<number, string> = {
+  1: "elise.carbonnel@troissentes.test",
+  2: "elise.carbonnel@troissentes.test",
+  3: "priya.anand@kestrelflats.test",
+};
 
 const OWN_LAB = "Domaine des Trois Sentes cellar laboratory";
 const LOTS: LotSeed[] = [
-  ...[0.48, 0.5, 0.53].map((va, i) => ({ contract: 2, vintage: 2023, code: `SR-23-${i + 1}`, litres: 9000, container: "bottles" as const, date: `2024-0${i + 3}-15`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `2024-0${i + 3}-02`, results: redResults(va) }] })),
-  ...[0.58, 0.61, 0.63, 0.52].map((va, i) => ({ contract: 2, vintage: 2024, code: `SR-24-${i + 1}`, litres: 9000, container: "bottles" as const, date: `2025-0${i + 3}-15`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `2025-0${i + 3}-03`, results: redResults(va) }] })),
-  ...[2023, 2023, 2024, 2024, 2024].map((vintage, i) => ({ contract: 1, vintage, code: `SB-${vintage % 100}-${i + 1}`, litres: 12000, container: "bottles" as const, date: `${vintage + 1}-0${(i % 5) + 2}-20`, analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `${vintage + 1}-0${(i % 5) + 2}-05`, results: whiteResults() }] })),
+  ...[0.48, 0.5, 0.53].map((va, i) => ({
+    contract: 2,
+    vintage: 2023,
+    code: `SR-23-${i + 1}`,
+    litres: 9000,
+    container: "bottles" as const,
+    date: `2024-0${i + 3}-15`,
+    analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `2024-0${i + 3}-02`, results: redResults(va) }],
+  })),
+  ...[0.58, 0.61, 0.63, 0.52].map((va, i) => ({
+    contract: 2,
+    vintage: 2024,
+    code: `SR-24-${i + 1}`,
+    litres: 9000,
+    container: "bottles" as const,
+    date: `2025-0${i + 3}-15`,
+    analyses: [{ stage: "pre_filling" as const, lab: OWN_LAB, accreditation: null, date: `2025-0${i + 3}-03`, results: redResults(va) }],
+  })),
+  ...[2023, 2023, 2024, 2024, 2024].map((vintage, i) => ({
+    contract: 1,
+    vintage,
+    code: `SB-${vintage % 100}-${i + 1}`,
+    litres: 12000,
+    container: "bottles" as const,
+    date: `${vintage + 1}-0${(i % 5) + 2}-20`,
+    analyses: [
+      {
+        stage: "pre_filling" as const,
+        lab: OWN_LAB,
+        accreditation: null,
+        date: `${vintage + 1}-0${(i % 5) + 2}-05`,
+        results: whiteResults(),
+      },
+    ],
+  })),
   ...[1, 2].map((n) => {
     // The bulk spec also asks, at both stages, for dissolved oxygen, 4-ethylphenol and a sterility count.
-    const before: ResultSpec[] = [...redResults(around(0.5, 0.08, 2)), ["dissolved_oxygen", "mg/L", around(0.8, 0.3, 2)], ["ethylphenol_4", "µg/L", around(120, 60, 0)], ["sterility_count", "CFU/100 mL", 0]];
-    const after = before.map(([p, u, v]): ResultSpec => [p, u, p === "free_so2" ? v - (n === 1 ? 6 : 14) : p === "volatile_acidity" ? Number((v + 0.03).toFixed(2)) : v]);
+    const before: ResultSpec[] = [
+      ...redResults(around(0.5, 0.08, 2)),
+      ["dissolved_oxygen", "mg/L", around(0.8, 0.3, 2)],
+      ["ethylphenol_4", "µg/L", around(120, 60, 0)],
+      ["sterility_count", "CFU/100 mL", 0],
+    ];
+    const after = before.map(([p, u, v]): ResultSpec => [
+      p,
+      u,
+      p === "free_so2" ? v - (n === 1 ? 6 : 14) : p === "volatile_acidity" ? Number((v + 0.03).toFixed(2)) : v,
+    ]);
     return {
       contract: 3,
       vintage: 2024,
@@ -110,16 +241,34 @@ const LOTS: LotSeed[] = [
       container: "flexitank" as const,
       date: `2025-0${n + 4}-10`,
       analyses: [
-        { stage: "pre_shipment" as const, lab: "Riverland Wine Analysis Services", accreditation: "NATA 18844", date: `2025-0${n + 2}-20`, results: before },
-        { stage: "on_arrival" as const, lab: "Northgate Oenology Laboratory", accreditation: "UKAS 4412", date: `2025-0${n + 4}-12`, results: after },
+        {
+          stage: "pre_shipment" as const,
+          lab: "Riverland Wine Analysis Services",
+          accreditation: "NATA 18844",
+          date: `2025-0${n + 2}-20`,
+          results: before,
+        },
+        {
+          stage: "on_arrival" as const,
+          lab: "Northgate Oenology Laboratory",
+          accreditation: "UKAS 4412",
+          date: `2025-0${n + 4}-12`,
+          results: after,
+        },
       ],
     };
   }),
 ];
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
-  await qi.bulkInsert("wines", WINES.map((w) => ({ ...w, markets: JSON.stringify(w.markets), law_facts: JSON.stringify(w.law_facts), ...stamps })));
-  await qi.bulkInsert("contracts", CONTRACTS.map((c) => ({ ...c, ...stamps })));
+  await qi.bulkInsert(
+    "wines",
+    WINES.map((w) => ({ ...w, markets: JSON.stringify(w.markets), law_facts: JSON.stringify(w.law_facts), ...stamps })),
+  );
+  await qi.bulkInsert(
+    "contracts",
+    CONTRACTS.map((c) => ({ ...c, ...stamps })),
+  );
   await qi.bulkInsert(
     "spec_versions",
     VERSIONS.map((v) => ({
@@ -161,7 +310,19 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   let lotId = 0;
   for (const lot of LOTS) {
     lotId += 1;
-    await qi.bulkInsert("lots", [{ id: lotId, contract_id: lot.contract, vintage: lot.vintage, lot_code: lot.code, volume_litres: lot.litres, container: lot.container, planned_date: lot.date, market: "GB", ...stamps }]);
+    await qi.bulkInsert("lots", [
+      {
+        id: lotId,
+        contract_id: lot.contract,
+        vintage: lot.vintage,
+        lot_code: lot.code,
+        volume_litres: lot.litres,
+        container: lot.container,
+        planned_date: lot.date,
+        market: "GB",
+        ...stamps,
+      },
+    ]);
   }
   await submitDemoAnalyses(
     qi,

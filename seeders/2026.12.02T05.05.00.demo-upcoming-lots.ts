@@ -15,13 +15,45 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   const now = new Date();
   const stamps = { created_at: now, updated_at: now };
   const lots = [
-    { contract_id: 1, vintage: 2025, lot_code: "SB-25-11", volume_litres: 12000, container: "bottles", planned_date: inDays(12), market: "GB" },
-    { contract_id: 1, vintage: 2025, lot_code: "SB-25-12", volume_litres: 9000, container: "bottles", planned_date: inDays(30), market: "GB" },
-    { contract_id: 3, vintage: 2025, lot_code: "KF-SH-25-F1", volume_litres: 24000, container: "flexitank", planned_date: inDays(21), market: "GB" },
+    {
+      contract_id: 1,
+      vintage: 2025,
+      lot_code: "SB-25-11",
+      volume_litres: 12000,
+      container: "bottles",
+      planned_date: inDays(12),
+      market: "GB",
+    },
+    {
+      contract_id: 1,
+      vintage: 2025,
+      lot_code: "SB-25-12",
+      volume_litres: 9000,
+      container: "bottles",
+      planned_date: inDays(30),
+      market: "GB",
+    },
+    {
+      contract_id: 3,
+      vintage: 2025,
+      lot_code: "KF-SH-25-F1",
+      volume_litres: 24000,
+      container: "flexitank",
+      planned_date: inDays(21),
+      market: "GB",
+    },
   ];
   for (const lot of lots) await qi.bulkInsert("lots", [{ ...lot, ...stamps }]);
   const TROIS_SENTES = "elise.carbonnel@troissentes.test";
-  const analyses: { lot: string; contract: number; by: string; stage: AnalysisStage; lab: string; accreditation: string | null; results: [string, string, string][] }[] = [
+  const analyses: {
+    lot: string;
+    contract: number;
+    by: string;
+    stage: AnalysisStage;
+    lab: string;
+    accreditation: string | null;
+    results: [string, string, string][];
+  }[] = [
     {
       lot: "SB-25-11",
       stage: "pre_filling",
@@ -29,7 +61,19 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
       accreditation: null,
       contract: 1,
       by: TROIS_SENTES,
-      results: [["alcohol", "12.6", "% vol"], ["free_so2", "33", "mg/L"], ["total_so2", "112", "mg/L"], ["volatile_acidity", "0.39", "g/L as acetic acid"], ["residual_sugar", "2.1", "g/L"], ["total_acidity", "6.4", "g/L as tartaric acid"], ["ph", "3.21", "pH"], ["heat_test_haze", "0.8", "NTU"], ["cold_stability_conductivity", "2.1", "%"], ["copper", "0.14", "mg/L"], ["iron", "2.2", "mg/L"]],
+      results: [
+        ["alcohol", "12.6", "% vol"],
+        ["free_so2", "33", "mg/L"],
+        ["total_so2", "112", "mg/L"],
+        ["volatile_acidity", "0.39", "g/L as acetic acid"],
+        ["residual_sugar", "2.1", "g/L"],
+        ["total_acidity", "6.4", "g/L as tartaric acid"],
+        ["ph", "3.21", "pH"],
+        ["heat_test_haze", "0.8", "NTU"],
+        ["cold_stability_conductivity", "2.1", "%"],
+        ["copper", "0.14", "mg/L"],
+        ["iron", "2.2", "mg/L"],
+      ],
     },
     {
       lot: "SB-25-12",
@@ -38,7 +82,12 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
       accreditation: null,
       contract: 1,
       by: TROIS_SENTES,
-      results: [["alcohol", "12.9", "% vol"], ["free_so2", "29", "mg/L"], ["volatile_acidity", "0.47", "g/L as acetic acid"], ["ph", "3.27", "pH"]],
+      results: [
+        ["alcohol", "12.9", "% vol"],
+        ["free_so2", "29", "mg/L"],
+        ["volatile_acidity", "0.47", "g/L as acetic acid"],
+        ["ph", "3.27", "pH"],
+      ],
     },
     {
       lot: "KF-SH-25-F1",
@@ -47,12 +96,27 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
       accreditation: "NATA 18844",
       contract: 3,
       by: "priya.anand@kestrelflats.test",
-      results: [["alcohol", "14.1", "% vol"], ["free_so2", "31", "mg/L"], ["total_so2", "96", "mg/L"], ["volatile_acidity", "0.52", "g/L as acetic acid"], ["dissolved_oxygen", "0.6", "mg/L"]],
+      results: [
+        ["alcohol", "14.1", "% vol"],
+        ["free_so2", "31", "mg/L"],
+        ["total_so2", "96", "mg/L"],
+        ["volatile_acidity", "0.52", "g/L as acetic acid"],
+        ["dissolved_oxygen", "0.6", "mg/L"],
+      ],
     },
   ];
   await submitDemoAnalyses(
     qi,
-    analyses.map((a) => ({ lotCode: a.lot, contractId: a.contract, by: a.by, stage: a.stage, lab: a.lab, accreditation: a.accreditation, sampleDate: inDays(-3), results: a.results })),
+    analyses.map((a) => ({
+      lotCode: a.lot,
+      contractId: a.contract,
+      by: a.by,
+      stage: a.stage,
+      lab: a.lab,
+      accreditation: a.accreditation,
+      sampleDate: inDays(-3),
+      results: a.results,
+    })),
   );
 }
 

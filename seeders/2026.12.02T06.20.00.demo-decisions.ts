@@ -33,7 +33,15 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
     });
   }
 
-  await registerLot(elise.orgId, elise.user, { contractId: 1, vintage: 2024, lotCode: REJECTED_LOT, volumeLitres: 6000, container: "bottles", plannedDate: null, market: "GB" });
+  await registerLot(elise.orgId, elise.user, {
+    contractId: 1,
+    vintage: 2024,
+    lotCode: REJECTED_LOT,
+    volumeLitres: 6000,
+    container: "bottles",
+    plannedDate: null,
+    market: "GB",
+  });
   await submitDemoAnalyses(qi, [
     {
       lotCode: REJECTED_LOT,
@@ -44,17 +52,33 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
       accreditation: "UKAS 4412",
       sampleDate: "2025-09-12",
       results: [
-        ["alcohol", "12.4", "% vol"], ["free_so2", "31", "mg/L"], ["total_so2", "118", "mg/L"], ["volatile_acidity", "0.82", "g/L as acetic acid"], ["residual_sugar", "2.3", "g/L"],
-        ["total_acidity", "6.2", "g/L as tartaric acid"], ["ph", "3.24", "pH"], ["heat_test_haze", "0.7", "NTU"], ["cold_stability_conductivity", "2.4", "%"], ["copper", "0.12", "mg/L"], ["iron", "2.0", "mg/L"],
+        ["alcohol", "12.4", "% vol"],
+        ["free_so2", "31", "mg/L"],
+        ["total_so2", "118", "mg/L"],
+        ["volatile_acidity", "0.82", "g/L as acetic acid"],
+        ["residual_sugar", "2.3", "g/L"],
+        ["total_acidity", "6.2", "g/L as tartaric acid"],
+        ["ph", "3.24", "pH"],
+        ["heat_test_haze", "0.7", "NTU"],
+        ["cold_stability_conductivity", "2.4", "%"],
+        ["copper", "0.12", "mg/L"],
+        ["iron", "2.0", "mg/L"],
       ],
     },
   ]);
   const tainted = (await Lot.findOne({ where: { contractId: 1, lotCode: REJECTED_LOT } }))!;
   const taint = await Deviation.findOne({ where: { lotId: tainted.id, kind: "result" } });
-  if (taint) await decide(buyer.orgId, taint.id, buyer.user, { outcome: "rejected", conditions: [], reason: "Volatile acidity at 0.82 g/L is beyond what blending can correct within this contract's limits." });
+  if (taint)
+    await decide(buyer.orgId, taint.id, buyer.user, {
+      outcome: "rejected",
+      conditions: [],
+      reason: "Volatile acidity at 0.82 g/L is beyond what blending can correct within this contract's limits.",
+    });
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.bulkDelete("lots", { lot_code: REJECTED_LOT });
-  await qi.sequelize.query("UPDATE deviations SET status = 'open', decision = NULL, decided_at = NULL, decided_by = NULL WHERE kind = 'result' AND lot_id IN (SELECT id FROM lots WHERE lot_code = 'KF-SH-24-F2')");
+  await qi.sequelize.query(
+    "UPDATE deviations SET status = 'open', decision = NULL, decided_at = NULL, decided_by = NULL WHERE kind = 'result' AND lot_id IN (SELECT id FROM lots WHERE lot_code = 'KF-SH-24-F2')",
+  );
 }

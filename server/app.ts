@@ -31,7 +31,11 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   useServiceSettings(settingsFrom(config));
   const production = config.NODE_ENV === "production";
   const cookies: CookieSettings = { secret: config.JWT_SECRET, hours: config.SESSION_HOURS, secure: config.COOKIE_SECURE };
-  const limits = { perIp: config.LOGIN_LIMIT_PER_IP, perAccount: config.LOGIN_LIMIT_PER_ACCOUNT, windowMinutes: config.LOGIN_WINDOW_MINUTES };
+  const limits = {
+    perIp: config.LOGIN_LIMIT_PER_IP,
+    perAccount: config.LOGIN_LIMIT_PER_ACCOUNT,
+    windowMinutes: config.LOGIN_WINDOW_MINUTES,
+  };
 
   const app = express();
   app.disable("x-powered-by");

@@ -12,12 +12,19 @@ const schema = z
     APP_URL: z.url().optional(),
     DB_HOST: z.string().default("127.0.0.1"),
     DB_PORT: z.coerce.number().int().min(1).max(65535).default(3407),
-    DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/).default("cellarpact"),
+    DB_NAME: z
+      .string()
+      .regex(/^[A-Za-z0-9_]+$/)
+      .default("cellarpact"),
     DB_USER: z.string().default("cellarpact"),
     DB_PASSWORD: z.string().default("cellarpact-local"),
     DB_POOL_MAX: z.coerce.number().int().min(1).max(50).default(5),
     JWT_SECRET: z.string().min(32).default(DEV_SECRET),
-    SESSION_HOURS: z.coerce.number().positive().max(24 * 7).default(8),
+    SESSION_HOURS: z.coerce
+      .number()
+      .positive()
+      .max(24 * 7)
+      .default(8),
     COOKIE_SECURE: bool.default(false),
     BCRYPT_COST: z.coerce.number().int().min(4).max(15).optional(),
     SMTP_HOST: z.string().default("127.0.0.1"),
@@ -33,9 +40,17 @@ const schema = z
     CLIENT_DIR: z.string().optional(),
     // Outside the web root: certificates are only ever served by the download route.
     CERTIFICATE_DIR: z.string().default(".data/certificates"),
-    CERTIFICATE_MAX_BYTES: z.coerce.number().int().min(1024).max(100 * 1024 * 1024).default(10 * 1024 * 1024),
+    CERTIFICATE_MAX_BYTES: z.coerce
+      .number()
+      .int()
+      .min(1024)
+      .max(100 * 1024 * 1024)
+      .default(10 * 1024 * 1024),
     // Payments go through the stripe SDK; outside production it talks to the local fake (server/fakes/stripe).
-    STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_\w+$/, { error: "a Stripe secret key starts with sk_test_ or sk_live_" }).default("sk_test_cellarpact_local"),
+    STRIPE_SECRET_KEY: z
+      .string()
+      .regex(/^sk_(test|live)_\w+$/, { error: "a Stripe secret key starts with sk_test_ or sk_live_" })
+      .default("sk_test_cellarpact_local"),
     STRIPE_WEBHOOK_SECRET: z.string().min(16).default("whsec_cellarpact_local_development"),
     STRIPE_API_HOST: z.string().default("127.0.0.1"),
     STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).default(12111),

@@ -33,7 +33,8 @@ export class AppError extends Error {
 }
 
 export const badRequest = (detail: string, errors?: FieldError[]) => new AppError("bad_request", "Bad request", detail, errors);
-export const validationFailed = (errors: FieldError[]) => new AppError("validation", "Validation failed", "Some fields are not valid; see errors.", errors);
+export const validationFailed = (errors: FieldError[]) =>
+  new AppError("validation", "Validation failed", "Some fields are not valid; see errors.", errors);
 export const unauthorized = (detail = "Sign in to continue.") => new AppError("unauthenticated", "Not signed in", detail);
 export const forbidden = (detail: string) => new AppError("forbidden", "Forbidden", detail);
 /** Also used for data of other organisations, so a caller cannot learn that it exists. */

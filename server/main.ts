@@ -21,7 +21,10 @@ try {
 }
 
 // Session cookies and CSRF tokens never reach the log.
-const logger = pino({ level: config.LOG_LEVEL, redact: ["req.headers.cookie", 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'] });
+const logger = pino({
+  level: config.LOG_LEVEL,
+  redact: ["req.headers.cookie", 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
+});
 const sequelize = createSequelize(config, logger);
 useDatabase(sequelize);
 await sequelize.authenticate();
@@ -37,15 +40,23 @@ const transport = nodemailer.createTransport({
 });
 const worker = startOutboxWorker(
   transport,
-  { from: config.MAIL_FROM, retryBaseMs: config.OUTBOX_RETRY_BASE_MS, maxAttempts: config.OUTBOX_MAX_ATTEMPTS, pollMs: config.OUTBOX_POLL_MS },
+  {
+    from: config.MAIL_FROM,
+    retryBaseMs: config.OUTBOX_RETRY_BASE_MS,
+    maxAttempts: config.OUTBOX_MAX_ATTEMPTS,
+    pollMs: config.OUTBOX_POLL_MS,
+  },
   (err) => logger.warn({ err }, "outbox pass failed"),
 );
 
 // Hourly housekeeping: daily digests (each user at most once a day) and deadline warnings.
-const housekeeping = setInterval(() => {
-  void sendDigests().catch((err) => logger.warn({ err }, "digest pass failed"));
-  void warnApproachingDeadlines().catch((err) => logger.warn({ err }, "deadline pass failed"));
-}, 60 * 60 * 1000);
+const housekeeping = setInterval(
+  () => {
+    void sendDigests().catch((err) => logger.warn({ err }, "digest pass failed"));
+    void warnApproachingDeadlines().catch((err) => logger.warn({ err }, "deadline pass failed"));
+  },
+  60 * 60 * 1000,
+);
 
 const server = app.listen(config.PORT, config.HOST, () => {
   const address = server.address();

@@ -17,7 +17,13 @@ export function settingsFrom(config: Config): ServiceSettings {
     appUrl: config.APP_URL,
     bcryptCost: config.BCRYPT_COST,
     certificateDir: path.resolve(config.CERTIFICATE_DIR),
-    stripe: { secretKey: config.STRIPE_SECRET_KEY, webhookSecret: config.STRIPE_WEBHOOK_SECRET, host: config.STRIPE_API_HOST, port: config.STRIPE_API_PORT, protocol: config.STRIPE_API_PROTOCOL },
+    stripe: {
+      secretKey: config.STRIPE_SECRET_KEY,
+      webhookSecret: config.STRIPE_WEBHOOK_SECRET,
+      host: config.STRIPE_API_HOST,
+      port: config.STRIPE_API_PORT,
+      protocol: config.STRIPE_API_PROTOCOL,
+    },
   };
 }
 

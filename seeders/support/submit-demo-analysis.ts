@@ -26,13 +26,18 @@ export async function submitDemoAnalyses(qi: QueryInterface, analyses: DemoAnaly
   for (const a of analyses) {
     const { user, orgId } = await demoMember(a.by, "producer_quality");
     const lot = (await Lot.findOne({ where: { contractId: a.contractId, lotCode: a.lotCode } }))!;
-    await submitAnalysis(orgId, lot.id, user, analysisSubmissionSchema.parse({
-      idempotencyKey: `demo-${a.contractId}-${a.lotCode}-${a.stage}-${a.sampleDate}`,
-      stage: a.stage,
-      laboratoryName: a.lab,
-      accreditation: a.accreditation,
-      sampleDate: a.sampleDate,
-      results: a.results.map(([parameter, raw, unit]) => ({ parameter, raw, unit, uncertainty: null, method: null })),
-    }));
+    await submitAnalysis(
+      orgId,
+      lot.id,
+      user,
+      analysisSubmissionSchema.parse({
+        idempotencyKey: `demo-${a.contractId}-${a.lotCode}-${a.stage}-${a.sampleDate}`,
+        stage: a.stage,
+        laboratoryName: a.lab,
+        accreditation: a.accreditation,
+        sampleDate: a.sampleDate,
+        results: a.results.map(([parameter, raw, unit]) => ({ parameter, raw, unit, uncertainty: null, method: null })),
+      }),
+    );
   }
 }

@@ -32,11 +32,7 @@ export function describeAccess(access: Access): string {
 }
 
 /** Returns the membership the rule relied on, if any. Non-members get 404 so other tenants stay invisible. */
-export function enforceAccess(
-  access: Access,
-  user: SessionUser | null,
-  orgId: number | undefined,
-): SessionMembership | undefined {
+export function enforceAccess(access: Access, user: SessionUser | null, orgId: number | undefined): SessionMembership | undefined {
   if (access.kind === "public") return undefined;
   if (!user) throw unauthorized();
   if (access.kind === "signed-in") return undefined;

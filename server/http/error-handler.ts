@@ -21,10 +21,8 @@ function toAppError(err: unknown): AppError | null {
   if (err instanceof ZodError) return validationFailed(zodFieldErrors(err));
   const e = err as BodyParserError;
   if (e?.type === "entity.parse.failed") return new AppError("bad_request", "Malformed JSON", "The request body is not valid JSON.");
-  if (e?.type === "entity.too.large")
-    return tooLarge(`The request body exceeds the limit of ${e.limit} bytes.`);
-  if (e?.type === "encoding.unsupported" || e?.type === "charset.unsupported")
-    return unsupportedMedia("Send the body as UTF-8 JSON.");
+  if (e?.type === "entity.too.large") return tooLarge(`The request body exceeds the limit of ${e.limit} bytes.`);
+  if (e?.type === "encoding.unsupported" || e?.type === "charset.unsupported") return unsupportedMedia("Send the body as UTF-8 JSON.");
   return null;
 }
 

@@ -43,7 +43,18 @@ export function buildOpenApi(routes: readonly RouteSpec[], version: string) {
       security: spec.access.kind === "public" ? [] : [{ sessionCookie: [] }],
       parameters: parameters(spec),
       ...(spec.body ? { requestBody: { required: true, content: { "application/json": { schema: jsonSchema(spec.body) } } } } : {}),
-      ...(spec.consumes ? { requestBody: { required: true, content: { [spec.consumes]: { schema: { type: "object", properties: { file: { type: "string", format: "binary" } }, required: ["file"] } } } } } : {}),
+      ...(spec.consumes
+        ? {
+            requestBody: {
+              required: true,
+              content: {
+                [spec.consumes]: {
+                  schema: { type: "object", properties: { file: { type: "string", format: "binary" } }, required: ["file"] },
+                },
+              },
+            },
+          }
+        : {}),
       responses,
     };
   }

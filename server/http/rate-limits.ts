@@ -24,7 +24,10 @@ export function signInLimiters(s: LimitSettings): RequestHandler[] {
     rateLimit({
       ...common,
       limit: s.perAccount,
-      keyGenerator: (req) => `account:${String(req.body?.email ?? "").trim().toLowerCase()}`,
+      keyGenerator: (req) =>
+        `account:${String(req.body?.email ?? "")
+          .trim()
+          .toLowerCase()}`,
     }),
   ];
 }

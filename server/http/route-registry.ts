@@ -62,7 +62,8 @@ export class RouteRegistry {
     this.router[spec.method](spec.path, async (req: Request, res: Response) => {
       const orgId = req.params.orgId === undefined ? undefined : parseOrThrow(idParam, req.params.orgId, "params");
       const membership = enforceAccess(spec.access, req.user ?? null, orgId);
-      if (spec.before) await new Promise<void>((resolve, reject) => spec.before!(req, res, (err?: unknown) => (err ? reject(err) : resolve())));
+      if (spec.before)
+        await new Promise<void>((resolve, reject) => spec.before!(req, res, (err?: unknown) => (err ? reject(err) : resolve())));
       const ctx = {
         req,
         res,

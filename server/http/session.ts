@@ -1,13 +1,7 @@
 /** Reads the session cookie on every request and enforces CSRF on cookie-authenticated writes. */
 import type { RequestHandler, Response } from "express";
 import { timingSafeEqual } from "node:crypto";
-import {
-  csrfTokenFor,
-  issueSessionToken,
-  loadSessionUser,
-  readSessionToken,
-  type SessionSettings,
-} from "../services/session-service.ts";
+import { csrfTokenFor, issueSessionToken, loadSessionUser, readSessionToken, type SessionSettings } from "../services/session-service.ts";
 import { forbidden } from "../errors.ts";
 
 export const SESSION_COOKIE = "cp_session";

@@ -32,7 +32,38 @@ import { Notification } from "./notification.ts";
 import { NotificationPreference } from "./notification-preference.ts";
 
 export function initModels(sequelize: Sequelize): void {
-  for (const m of [Organisation, User, Membership, Invitation, PasswordReset, TrailEntry, TrailHead, OutboxMessage, Wine, Contract, SpecVersion, SpecRequirement, SpecComment, Lot, Analysis, AnalysisResult, AnalysisEvaluation, Deviation, Certificate, IdempotencyKey, DeviationMessage, DeviationMessageEdit, DeviationAttachment, Notification, NotificationPreference, LabPrice, AuditOrder, AuditOrderLot, AuditPayment, StripeEvent]) {
+  for (const m of [
+    Organisation,
+    User,
+    Membership,
+    Invitation,
+    PasswordReset,
+    TrailEntry,
+    TrailHead,
+    OutboxMessage,
+    Wine,
+    Contract,
+    SpecVersion,
+    SpecRequirement,
+    SpecComment,
+    Lot,
+    Analysis,
+    AnalysisResult,
+    AnalysisEvaluation,
+    Deviation,
+    Certificate,
+    IdempotencyKey,
+    DeviationMessage,
+    DeviationMessageEdit,
+    DeviationAttachment,
+    Notification,
+    NotificationPreference,
+    LabPrice,
+    AuditOrder,
+    AuditOrderLot,
+    AuditPayment,
+    StripeEvent,
+  ]) {
     m.initModel(sequelize);
   }
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });

@@ -1,6 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-export class NotificationPreference extends Model<InferAttributes<NotificationPreference>, InferCreationAttributes<NotificationPreference>> {
+export class NotificationPreference extends Model<
+  InferAttributes<NotificationPreference>,
+  InferCreationAttributes<NotificationPreference>
+> {
   declare userId: number;
   declare emailMode: "immediate" | "daily_digest" | "off";
   declare kinds: string[];

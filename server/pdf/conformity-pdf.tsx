@@ -69,7 +69,9 @@ function Results({ verdicts }: { verdicts: StoredVerdict[] }) {
 const TITLES = { certificate: "Certificate of conformity", statement: "Analysis statement" } as const;
 
 function versionText(a: AnalysisView) {
-  return a.evaluation?.specVersion ? `judged against spec version ${a.evaluation.specVersion.number}` : "not judged: no agreed spec version";
+  return a.evaluation?.specVersion
+    ? `judged against spec version ${a.evaluation.specVersion.number}`
+    : "not judged: no agreed spec version";
 }
 
 /**
@@ -81,9 +83,22 @@ function LotDocument({ d }: { d: LotDocumentData }) {
   const { lot, declared, audit } = d;
   const title = TITLES[d.kind];
   const status = lot.status;
-  const rules = [...new Set([...declared.flatMap((a) => a.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])].map((v) => v.ruleText))];
-  const citations = governingCitations([...declared.flatMap((a) => a.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])]);
-  const markets = [...new Set([...declared, ...(audit?.analysis ? [audit.analysis] : [])].flatMap((a) => Object.entries(a.evaluation?.marketVersions ?? {})).map(([m, v]) => `${m} (rule pack ${v})`))];
+  const rules = [
+    ...new Set(
+      [...declared.flatMap((a) => a.evaluation?.verdicts ?? []), ...(audit?.analysis?.evaluation?.verdicts ?? [])].map((v) => v.ruleText),
+    ),
+  ];
+  const citations = governingCitations([
+    ...declared.flatMap((a) => a.evaluation?.verdicts ?? []),
+    ...(audit?.analysis?.evaluation?.verdicts ?? []),
+  ]);
+  const markets = [
+    ...new Set(
+      [...declared, ...(audit?.analysis ? [audit.analysis] : [])]
+        .flatMap((a) => Object.entries(a.evaluation?.marketVersions ?? {}))
+        .map(([m, v]) => `${m} (rule pack ${v})`),
+    ),
+  ];
   return (
     <Document title={`${title} ${d.number}`} author="Cellarpact">
       <Page size="A4" style={s.page}>
@@ -93,9 +108,12 @@ function LotDocument({ d }: { d: LotDocumentData }) {
         </Text>
 
         <Text style={s.h2}>Identification</Text>
-        <Text>{title} {d.number}</Text>
         <Text>
-          Issued on {stamp(d.issuedAt)}, electronically through Cellarpact, by {d.issuedBy.name} ({d.issuedBy.role}, {d.issuedBy.organisation}).
+          {title} {d.number}
+        </Text>
+        <Text>
+          Issued on {stamp(d.issuedAt)}, electronically through Cellarpact, by {d.issuedBy.name} ({d.issuedBy.role},{" "}
+          {d.issuedBy.organisation}).
         </Text>
         <Text>
           Supplier: {lot.producerName} · Buyer: {lot.contract.retailer.name} · Contract {lot.contractReference}
@@ -103,7 +121,8 @@ function LotDocument({ d }: { d: LotDocumentData }) {
 
         <Text style={s.h2}>Object</Text>
         <Text>
-          Lot {lot.lotCode} of {lot.wineName}, vintage {lot.vintage}, {lot.contract.wine.colour} {lot.contract.wine.category} wine from {lot.contract.wine.region} · {lot.volumeLitres.toLocaleString("en-GB")} L · for {lot.market}
+          Lot {lot.lotCode} of {lot.wineName}, vintage {lot.vintage}, {lot.contract.wine.colour} {lot.contract.wine.category} wine from{" "}
+          {lot.contract.wine.region} · {lot.volumeLitres.toLocaleString("en-GB")} L · for {lot.market}
         </Text>
 
         <View style={s.box}>
@@ -125,7 +144,9 @@ function LotDocument({ d }: { d: LotDocumentData }) {
               )}
             </>
           )}
-          {d.kind === "statement" && <Text style={{ marginTop: 4 }}>This is not a certificate of conformity: the lot's status does not allow one.</Text>}
+          {d.kind === "statement" && (
+            <Text style={{ marginTop: 4 }}>This is not a certificate of conformity: the lot's status does not allow one.</Text>
+          )}
         </View>
 
         <Text style={s.h2}>Requirements referred to</Text>
@@ -134,7 +155,9 @@ function LotDocument({ d }: { d: LotDocumentData }) {
             ? `Specification of contract ${lot.contractReference}, version ${lot.governing.number} (agreed${lot.governing.decidedAt ? ` ${lot.governing.decidedAt.slice(0, 10)}` : ""}), vintages ${lot.governing.vintageFrom}${lot.governing.vintageTo ? `–${lot.governing.vintageTo}` : " onwards"}.`
             : "No agreed specification governs this vintage."}
         </Text>
-        <Text>Legal limits of the destination market: {markets.join(", ") || lot.market}. The texts the governing legal limits below come from:</Text>
+        <Text>
+          Legal limits of the destination market: {markets.join(", ") || lot.market}. The texts the governing legal limits below come from:
+        </Text>
         {citations.length ? (
           citations.map((c) => (
             <Text key={c.text} style={s.small}>
@@ -152,7 +175,8 @@ function LotDocument({ d }: { d: LotDocumentData }) {
             <View key={a.id}>
               <Text style={s.small}>
                 {ANALYSIS_STAGE_LABELS[a.stage]} · {a.laboratoryName}
-                {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · sampled {a.sampleDate} · {versionText(a)} · engine {a.evaluation?.engineVersion}
+                {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · sampled {a.sampleDate} · {versionText(a)}{" "}
+                · engine {a.evaluation?.engineVersion}
               </Text>
               <Results verdicts={a.evaluation?.verdicts ?? []} />
             </View>
@@ -172,10 +196,17 @@ function LotDocument({ d }: { d: LotDocumentData }) {
             <Results verdicts={audit.analysis.evaluation?.verdicts ?? []} />
             {audit.comparisons.some((c) => c.outcome === "discrepant") && (
               <Text style={{ marginTop: 4, fontWeight: 600 }}>
-                The independent audit disagrees with the declared results on {audit.comparisons.filter((c) => c.outcome === "discrepant").map((c) => name(c.parameter)).join(", ")}; see the deviation opened for it.
+                The independent audit disagrees with the declared results on{" "}
+                {audit.comparisons
+                  .filter((c) => c.outcome === "discrepant")
+                  .map((c) => name(c.parameter))
+                  .join(", ")}
+                ; see the deviation opened for it.
               </Text>
             )}
-            <Text style={[s.small, { marginTop: 6 }]}>Agreement with the declared results (ISO 13528 scores, the independent laboratory as reference):</Text>
+            <Text style={[s.small, { marginTop: 6 }]}>
+              Agreement with the declared results (ISO 13528 scores, the independent laboratory as reference):
+            </Text>
             <View style={s.head}>
               <Text style={s.c}>Parameter</Text>
               <Text style={s.c}>Declared / independent</Text>
@@ -196,14 +227,18 @@ function LotDocument({ d }: { d: LotDocumentData }) {
             ))}
           </>
         ) : (
-          <Text style={s.small}>{audit ? `${audit.reference} with ${audit.laboratoryName}: results not in yet.` : "No independent audit of this lot."}</Text>
+          <Text style={s.small}>
+            {audit ? `${audit.reference} with ${audit.laboratoryName}: results not in yet.` : "No independent audit of this lot."}
+          </Text>
         )}
 
         <Text style={s.h2}>Decision rule</Text>
         <Text>
-          The status above covers only the results listed, on the samples analysed. Each result is held against its governing limit, the stricter of the buyer's agreed limit and the destination
-          market's legal limit, under the decision rule agreed in the specification. The rule decides how measurement uncertainty counts: with a guard band a result passes only when it stays inside the
-          limit by the band; a "conditional" verdict (ILAC-G8) means the limit lies within the result's uncertainty interval, so conformity is likely but not shown.
+          The status above covers only the results listed, on the samples analysed. Each result is held against its governing limit, the
+          stricter of the buyer's agreed limit and the destination market's legal limit, under the decision rule agreed in the
+          specification. The rule decides how measurement uncertainty counts: with a guard band a result passes only when it stays inside
+          the limit by the band; a "conditional" verdict (ILAC-G8) means the limit lies within the result's uncertainty interval, so
+          conformity is likely but not shown.
         </Text>
         {rules.map((r) => (
           <Text key={r} style={s.small}>
@@ -214,18 +249,21 @@ function LotDocument({ d }: { d: LotDocumentData }) {
         <View style={s.box} wrap={false}>
           <Text style={{ fontWeight: 600 }}>Caution</Text>
           <Text>
-            This document summarises results recorded in Cellarpact. It does not replace the test report of an accredited laboratory, nor the checks of the destination market's authorities. Legal
-            limits and the sulphite allergen statement follow the law of the market of sale; confirm them with the competent authority before release.
+            This document summarises results recorded in Cellarpact. It does not replace the test report of an accredited laboratory, nor
+            the checks of the destination market's authorities. Legal limits and the sulphite allergen statement follow the law of the
+            market of sale; confirm them with the competent authority before release.
           </Text>
         </View>
         <Text style={s.h2}>Limitations</Text>
         <Text>
-          Valid for the lot named above and the samples analysed, on the results listed, as they stood on the date of issue. A later analysis, a later spec version or a decision on a deviation
-          may change the lot's status; the status shown in Cellarpact is the current one.
+          Valid for the lot named above and the samples analysed, on the results listed, as they stood on the date of issue. A later
+          analysis, a later spec version or a decision on a deviation may change the lot's status; the status shown in Cellarpact is the
+          current one.
         </Text>
         <Text style={[s.small, { marginTop: 8 }]}>
-          Laid out after ISO/IEC 17050-1:2004 (corrected version 2007-06-15), clause 6.1, on what a declaration of conformity contains: its identification, the issuer, the object, the statement,
-          the requirements referred to, the date of issue, who issued it, and the limitations on its validity.
+          Laid out after ISO/IEC 17050-1:2004 (corrected version 2007-06-15), clause 6.1, on what a declaration of conformity contains: its
+          identification, the issuer, the object, the statement, the requirements referred to, the date of issue, who issued it, and the
+          limitations on its validity.
         </Text>
         <PageFooter label={`${d.number} · issued ${stamp(d.issuedAt)}`} />
       </Page>

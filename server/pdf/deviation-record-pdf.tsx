@@ -28,7 +28,9 @@ function Record({ d, lotStatus, generatedAt }: { d: DeviationDetail; lotStatus: 
         <Text>
           {d.wineName}, vintage {d.vintage} · contract {d.contractReference} · producer {d.producerName}
         </Text>
-        <Text>Opened {d.createdAt.slice(0, 16).replace("T", " ")} UTC ({d.kind}): {d.summary}</Text>
+        <Text>
+          Opened {d.createdAt.slice(0, 16).replace("T", " ")} UTC ({d.kind}): {d.summary}
+        </Text>
         <Text style={{ marginTop: 4, fontWeight: 600 }}>
           Lot status: {lotStatus.label}. {lotStatus.reason}
         </Text>
@@ -57,10 +59,16 @@ function Record({ d, lotStatus, generatedAt }: { d: DeviationDetail; lotStatus: 
             {m.proposal && (
               <Text>
                 {DEVIATION_OUTCOME_LABELS[m.proposal.outcome]}
-                {m.proposal.conditions.length ? ` — ${m.proposal.conditions.map((c) => `${CONDITION_LABELS[c.kind]}: ${c.detail}`).join("; ")}` : ""}
+                {m.proposal.conditions.length
+                  ? ` — ${m.proposal.conditions.map((c) => `${CONDITION_LABELS[c.kind]}: ${c.detail}`).join("; ")}`
+                  : ""}
               </Text>
             )}
-            {m.quote && <Text style={s.small}>Quoted: {findParameter(m.quote.parameter)?.name} {m.quote.resultText} ({m.quote.outcome})</Text>}
+            {m.quote && (
+              <Text style={s.small}>
+                Quoted: {findParameter(m.quote.parameter)?.name} {m.quote.resultText} ({m.quote.outcome})
+              </Text>
+            )}
             <Text>{m.body}</Text>
           </View>
         ))}

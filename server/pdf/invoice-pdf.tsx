@@ -20,11 +20,15 @@ function InvoiceDocument({ o, generatedAt }: { o: AuditOrderDetail; generatedAt:
         <Text style={s.h1}>
           {title} for independent audit {o.reference}
         </Text>
-        <Text>Billed to: {o.buyerName} (ordered by {o.orderedBy})</Text>
+        <Text>
+          Billed to: {o.buyerName} (ordered by {o.orderedBy})
+        </Text>
         <Text>
           Service: independent analysis by {o.laboratoryName} of {o.wineName} from {o.producerName}, lots {o.lotCodes.join(", ")}
         </Text>
-        <Text>Ordered {stamp(o.createdAt)} · status: {ORDER_STATUS_LABELS[o.status]}</Text>
+        <Text>
+          Ordered {stamp(o.createdAt)} · status: {ORDER_STATUS_LABELS[o.status]}
+        </Text>
         <Text style={s.h2}>Lines</Text>
         <View style={s.head}>
           <Text style={s.wide}>Parameter</Text>
@@ -60,9 +64,13 @@ function InvoiceDocument({ o, generatedAt }: { o: AuditOrderDetail; generatedAt:
         ))}
         <View style={s.box}>
           <Text>
-            Paid {money(o.paidCents)} · refunded {money(o.refundedCents)} · {paid ? `balance ${money(o.paidCents - o.refundedCents)} kept` : `due ${money(o.amountCents - o.paidCents)}`}
+            Paid {money(o.paidCents)} · refunded {money(o.refundedCents)} ·{" "}
+            {paid ? `balance ${money(o.paidCents - o.refundedCents)} kept` : `due ${money(o.amountCents - o.paidCents)}`}
           </Text>
-          <Text style={s.small}>Prices are the laboratory's list prices when the order was placed. Taxes, where they apply, are shown on the laboratory's own invoice.</Text>
+          <Text style={s.small}>
+            Prices are the laboratory's list prices when the order was placed. Taxes, where they apply, are shown on the laboratory's own
+            invoice.
+          </Text>
         </View>
         <PageFooter label={`${o.reference} · generated ${stamp(generatedAt)}`} />
       </Page>

@@ -1,6 +1,15 @@
 /** The spec sheet as a PDF: version, status, parties, and every requirement with method, decision rule and legal citation. */
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import { buildRequirement, citationConfirmed, findParameter, describeRule, ruleLabel, undeterminedText, type AppliedLimit, type BuyerRequirement } from "../../shared/engine/index.ts";
+import {
+  buildRequirement,
+  citationConfirmed,
+  findParameter,
+  describeRule,
+  ruleLabel,
+  undeterminedText,
+  type AppliedLimit,
+  type BuyerRequirement,
+} from "../../shared/engine/index.ts";
 import { lawFactsText } from "../../shared/specs/law-facts.ts";
 import { SEVERITY_LABELS, SPEC_STATUS_LABELS, STAGE_LABELS } from "../../shared/specs/vocabulary.ts";
 import type { SpecVersionDetail } from "../../shared/specs/views.ts";
@@ -8,7 +17,10 @@ import { wineProfile } from "../../shared/specs/profile.ts";
 import { PDF_FONT, registerPdfFonts } from "./fonts.ts";
 import { PageFooter } from "./page-footer.tsx";
 
-export type SpecSheetData = Pick<SpecVersionDetail, "number" | "status" | "title" | "vintageFrom" | "vintageTo" | "stages" | "contract" | "requirements"> & { generatedAt: Date };
+export type SpecSheetData = Pick<
+  SpecVersionDetail,
+  "number" | "status" | "title" | "vintageFrom" | "vintageTo" | "stages" | "contract" | "requirements"
+> & { generatedAt: Date };
 
 const ink = "#1b2230";
 const must = "#5b1f3c";
@@ -46,7 +58,9 @@ function CitationText({ limit }: { limit: AppliedLimit }) {
   return (
     <Text style={s.small}>
       {limit.citation.document}, {limit.citation.article}
-      {citationConfirmed(limit.confirmed) ? "" : ` — citation not yet confirmed: ${limit.confirmed.replace(/^citation not yet confirmed: /, "")}`}
+      {citationConfirmed(limit.confirmed)
+        ? ""
+        : ` — citation not yet confirmed: ${limit.confirmed.replace(/^citation not yet confirmed: /, "")}`}
     </Text>
   );
 }
@@ -117,7 +131,8 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
                 ) : strictest ? (
                   <>
                     <Text>
-                      Law: {strictest.side} {num(strictest.statedValue)} {strictest.statedUnit} ({strictest.market}); buyer's limit is stricter
+                      Law: {strictest.side} {num(strictest.statedValue)} {strictest.statedUnit} ({strictest.market}); buyer's limit is
+                      stricter
                     </Text>
                     <CitationText limit={strictest} />
                   </>
@@ -142,9 +157,9 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           ))}
         </View>
         <Text style={s.caution}>
-          Legal limits change. The limits shown come from Cellarpact's market rule packs and are a help, not legal advice: the law of the destination market
-          in force at the time of sale prevails, and conformity near a limit should be confirmed by an accredited laboratory. Sulphite labelling duties apply
-          above 10 mg/L total SO2 in the EU and from 10 mg/L in the US.
+          Legal limits change. The limits shown come from Cellarpact's market rule packs and are a help, not legal advice: the law of the
+          destination market in force at the time of sale prevails, and conformity near a limit should be confirmed by an accredited
+          laboratory. Sulphite labelling duties apply above 10 mg/L total SO2 in the EU and from 10 mg/L in the US.
         </Text>
         <PageFooter label={`${d.contract.reference} · version ${d.number} · ${SPEC_STATUS_LABELS[d.status]}`} />
       </Page>

@@ -11,7 +11,16 @@ export const base = StyleSheet.create({
   head: { flexDirection: "row", borderBottomWidth: 1, borderBottomColor: "#1b2230", paddingVertical: 3, fontWeight: 600 },
   small: { fontSize: 8, color: "#5c6470" },
   box: { borderWidth: 1, borderColor: "#5b1f3c", padding: 8, marginTop: 8 },
-  footer: { position: "absolute", bottom: 24, left: 40, right: 40, fontSize: 7.5, color: "#5c6470", flexDirection: "row", justifyContent: "space-between" },
+  footer: {
+    position: "absolute",
+    bottom: 24,
+    left: 40,
+    right: 40,
+    fontSize: 7.5,
+    color: "#5c6470",
+    flexDirection: "row",
+    justifyContent: "space-between",
+  },
 });
 
 export const stamp = (d: Date | string) => (typeof d === "string" ? d : d.toISOString()).slice(0, 16).replace("T", " ") + " UTC";

@@ -17,41 +17,144 @@ const BUYERS = orgMember("buyer_finance", "buyer_technologist");
 const READERS = orgMember("buyer_finance", "buyer_technologist", "producer_quality", "lab_analyst");
 
 export function registerComplianceAuditRoutes(r: RouteRegistry): void {
-  r.add({ method: "get", path: "/api/orgs/:orgId/laboratories", tag: "audits", summary: "Laboratories and their price lists, to order an audit from", access: BUYERS, params: orgParams }, () => listLaboratories());
-
-  r.add({ method: "get", path: "/api/orgs/:orgId/price-list", tag: "audits", summary: "Your laboratory's price list", access: orgMember("lab_analyst", "org_admin"), params: orgParams }, ({ params }) => priceList(params.orgId));
   r.add(
-    { method: "put", path: "/api/orgs/:orgId/price-list", tag: "audits", summary: "Replace your laboratory's price list (prices in integer cents)", access: orgMember("org_admin"), params: orgParams, body: priceListSchema },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/laboratories",
+      tag: "audits",
+      summary: "Laboratories and their price lists, to order an audit from",
+      access: BUYERS,
+      params: orgParams,
+    },
+    () => listLaboratories(),
+  );
+
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/price-list",
+      tag: "audits",
+      summary: "Your laboratory's price list",
+      access: orgMember("lab_analyst", "org_admin"),
+      params: orgParams,
+    },
+    ({ params }) => priceList(params.orgId),
+  );
+  r.add(
+    {
+      method: "put",
+      path: "/api/orgs/:orgId/price-list",
+      tag: "audits",
+      summary: "Replace your laboratory's price list (prices in integer cents)",
+      access: orgMember("org_admin"),
+      params: orgParams,
+      body: priceListSchema,
+    },
     ({ params, user, body }) => setPriceList(params.orgId, user, body),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/audit-orders", tag: "audits", summary: "Order an independent audit of lots (priced from the laboratory's list; idempotent by key)", access: FINANCE, params: orgParams, body: newAuditOrderSchema, status: 201, errors: { 409: "idempotency key reused with another body" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/audit-orders",
+      tag: "audits",
+      summary: "Order an independent audit of lots (priced from the laboratory's list; idempotent by key)",
+      access: FINANCE,
+      params: orgParams,
+      body: newAuditOrderSchema,
+      status: 201,
+      errors: { 409: "idempotency key reused with another body" },
+    },
     async ({ params, user, body, res }) => idempotentAnswer(res, await orders.createOrder(params.orgId, user, body)),
   );
-  r.add({ method: "get", path: "/api/orgs/:orgId/audit-orders", tag: "audits", summary: "Audit orders you placed, carry out, or whose lots are yours", access: READERS, params: orgParams, query: auditListQuerySchema }, ({ params, query }) =>
-    orders.listOrders(params.orgId, query),
-  );
-  r.add({ method: "get", path: "/api/orgs/:orgId/audit-orders/:orderId", tag: "audits", summary: "One audit order: lines, payments (buyer only), lots, comparisons and verdicts", access: READERS, params: orderParams }, ({ params, membership }) =>
-    orders.getOrder(params.orgId, params.orderId, membership!),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/audit-orders",
+      tag: "audits",
+      summary: "Audit orders you placed, carry out, or whose lots are yours",
+      access: READERS,
+      params: orgParams,
+      query: auditListQuerySchema,
+    },
+    ({ params, query }) => orders.listOrders(params.orgId, query),
   );
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/audit-orders/:orderId/checkout", tag: "audits", summary: "Open the hosted payment page (one Stripe Checkout Session per order)", access: FINANCE, params: orderParams, errors: { 409: "nothing to pay", 502: "payment service error" } },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/audit-orders/:orderId",
+      tag: "audits",
+      summary: "One audit order: lines, payments (buyer only), lots, comparisons and verdicts",
+      access: READERS,
+      params: orderParams,
+    },
+    ({ params, membership }) => orders.getOrder(params.orgId, params.orderId, membership!),
+  );
+  r.add(
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/audit-orders/:orderId/checkout",
+      tag: "audits",
+      summary: "Open the hosted payment page (one Stripe Checkout Session per order)",
+      access: FINANCE,
+      params: orderParams,
+      errors: { 409: "nothing to pay", 502: "payment service error" },
+    },
     ({ params, user }) => orders.startCheckout(params.orgId, params.orderId, user),
   );
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/audit-orders/:orderId/refund", tag: "audits", summary: "Refund a paid order whose results are not in (recorded when Stripe confirms)", access: FINANCE, params: orderParams, body: z.object({ reason: z.string().trim().min(3, { error: "Give a reason for the refund." }).max(500) }), status: 202, errors: { 409: "not refundable", 502: "payment service error" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/audit-orders/:orderId/refund",
+      tag: "audits",
+      summary: "Refund a paid order whose results are not in (recorded when Stripe confirms)",
+      access: FINANCE,
+      params: orderParams,
+      body: z.object({ reason: z.string().trim().min(3, { error: "Give a reason for the refund." }).max(500) }),
+      status: 202,
+      errors: { 409: "not refundable", 502: "payment service error" },
+    },
     ({ params, user, body }) => orders.requestRefund(params.orgId, params.orderId, user, body.reason),
   );
-  r.add({ method: "get", path: "/api/orgs/:orgId/audit-orders/:orderId/invoice.pdf", tag: "audits", summary: "The order's invoice, or its receipt once paid", access: BUYERS, params: orderParams, produces: "application/pdf" }, async ({ params, membership, res }) => {
-    const { filename, pdf } = await invoicePdf(params.orgId, params.orderId, membership!.role);
-    res.status(200).type("application/pdf").attachment(filename).send(pdf);
-  });
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/audit-orders/:orderId/results", tag: "audits", summary: "The laboratory submits its results for a paid order (idempotent by key)", access: orgMember("lab_analyst"), params: orderParams, body: labResultsSchema, status: 201, errors: { 409: "not awaiting results, or key reused" } },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/audit-orders/:orderId/invoice.pdf",
+      tag: "audits",
+      summary: "The order's invoice, or its receipt once paid",
+      access: BUYERS,
+      params: orderParams,
+      produces: "application/pdf",
+    },
+    async ({ params, membership, res }) => {
+      const { filename, pdf } = await invoicePdf(params.orgId, params.orderId, membership!.role);
+      res.status(200).type("application/pdf").attachment(filename).send(pdf);
+    },
+  );
+  r.add(
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/audit-orders/:orderId/results",
+      tag: "audits",
+      summary: "The laboratory submits its results for a paid order (idempotent by key)",
+      access: orgMember("lab_analyst"),
+      params: orderParams,
+      body: labResultsSchema,
+      status: 201,
+      errors: { 409: "not awaiting results, or key reused" },
+    },
     async ({ params, user, body, res }) => idempotentAnswer(res, await submitLabResults(params.orgId, params.orderId, user, body)),
   );
-  r.add({ method: "get", path: "/api/orgs/:orgId/audit-dashboard", tag: "audits", summary: "Spend per producer and month, outstanding and refunded", access: FINANCE, params: orgParams, query: auditListQuerySchema.pick({ from: true, to: true }) }, ({ params, query }) =>
-    financeDashboard(params.orgId, query),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/audit-dashboard",
+      tag: "audits",
+      summary: "Spend per producer and month, outstanding and refunded",
+      access: FINANCE,
+      params: orgParams,
+      query: auditListQuerySchema.pick({ from: true, to: true }),
+    },
+    ({ params, query }) => financeDashboard(params.orgId, query),
   );
 }

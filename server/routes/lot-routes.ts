@@ -19,27 +19,74 @@ const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quali
 
 export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes: number }): void {
   // Memory storage with a hard size limit; nothing reaches the disk before the content check passes.
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.certificateMaxBytes, files: 1, fields: 0 } }).single("file");
-
-  r.add({ method: "get", path: "/api/orgs/:orgId/lots", tag: "lots", summary: "Lots on your contracts", access: PARTIES, params: orgParams, query: z.object({ contract: z.coerce.number().int().positive().optional(), q: z.string().trim().max(60).optional() }) }, ({ params, query }) =>
-    queries.listLots(params.orgId, query),
-  );
-
-  r.add({ method: "post", path: "/api/orgs/:orgId/lots", tag: "lots", summary: "Register a lot under a contract (producer)", access: PRODUCER, params: orgParams, body: lotSchema, status: 201 }, ({ params, user, body }) =>
-    submissions.registerLot(params.orgId, user, body),
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.certificateMaxBytes, files: 1, fields: 0 } }).single(
+    "file",
   );
 
   r.add(
-    { method: "patch", path: "/api/orgs/:orgId/lots/:lotId", tag: "lots", summary: "Correct a lot's volume, container, planned date or market (producer)", access: PRODUCER, params: orgParams.extend({ lotId: idParam }), body: lotUpdateSchema },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/lots",
+      tag: "lots",
+      summary: "Lots on your contracts",
+      access: PARTIES,
+      params: orgParams,
+      query: z.object({ contract: z.coerce.number().int().positive().optional(), q: z.string().trim().max(60).optional() }),
+    },
+    ({ params, query }) => queries.listLots(params.orgId, query),
+  );
+
+  r.add(
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/lots",
+      tag: "lots",
+      summary: "Register a lot under a contract (producer)",
+      access: PRODUCER,
+      params: orgParams,
+      body: lotSchema,
+      status: 201,
+    },
+    ({ params, user, body }) => submissions.registerLot(params.orgId, user, body),
+  );
+
+  r.add(
+    {
+      method: "patch",
+      path: "/api/orgs/:orgId/lots/:lotId",
+      tag: "lots",
+      summary: "Correct a lot's volume, container, planned date or market (producer)",
+      access: PRODUCER,
+      params: orgParams.extend({ lotId: idParam }),
+      body: lotUpdateSchema,
+    },
     ({ params, user, body }) => submissions.updateLot(params.orgId, params.lotId, user, body),
   );
 
-  r.add({ method: "get", path: "/api/orgs/:orgId/lots/:lotId", tag: "lots", summary: "One lot: governing spec, analyses with stored verdicts, certificates, transit, deviations", access: PARTIES, params: orgParams.extend({ lotId: idParam }) }, ({ params, membership }) =>
-    queries.getLot(params.orgId, params.lotId, membership!.role),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/lots/:lotId",
+      tag: "lots",
+      summary: "One lot: governing spec, analyses with stored verdicts, certificates, transit, deviations",
+      access: PARTIES,
+      params: orgParams.extend({ lotId: idParam }),
+    },
+    ({ params, membership }) => queries.getLot(params.orgId, params.lotId, membership!.role),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/lots/:lotId/analyses", tag: "lots", summary: "Submit one analysis; evaluated and stored at once (idempotent by key)", access: PRODUCER, params: orgParams.extend({ lotId: idParam }), body: analysisSubmissionSchema, status: 201, errors: { 409: "idempotency key reused with another body" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/lots/:lotId/analyses",
+      tag: "lots",
+      summary: "Submit one analysis; evaluated and stored at once (idempotent by key)",
+      access: PRODUCER,
+      params: orgParams.extend({ lotId: idParam }),
+      body: analysisSubmissionSchema,
+      status: 201,
+      errors: { 409: "idempotency key reused with another body" },
+    },
     async ({ params, user, body, res }) => idempotentAnswer(res, await submissions.submitAnalysis(params.orgId, params.lotId, user, body)),
   );
 
@@ -58,12 +105,35 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/contracts/:contractId/imports", tag: "lots", summary: "Import a batch of analyses from a CSV (idempotent by key)", access: PRODUCER, params: orgParams.extend({ contractId: idParam }), body: importBatchSchema, status: 201, errors: { 409: "idempotency key reused, or a lot's vintage differs" } },
-    async ({ params, user, body, res }) => idempotentAnswer(res, await submissions.importAnalyses(params.orgId, params.contractId, user, body)),
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/contracts/:contractId/imports",
+      tag: "lots",
+      summary: "Import a batch of analyses from a CSV (idempotent by key)",
+      access: PRODUCER,
+      params: orgParams.extend({ contractId: idParam }),
+      body: importBatchSchema,
+      status: 201,
+      errors: { 409: "idempotency key reused, or a lot's vintage differs" },
+    },
+    async ({ params, user, body, res }) =>
+      idempotentAnswer(res, await submissions.importAnalyses(params.orgId, params.contractId, user, body)),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/analyses/:analysisId/certificates", tag: "lots", summary: "Upload the laboratory's certificate (PDF, PNG or JPEG, checked by content): the producer for its analyses, the audit laboratory for its own", access: orgMember("producer_quality", "lab_analyst"), params: orgParams.extend({ analysisId: idParam }), consumes: "multipart/form-data", before: upload, status: 201, errors: { 413: "file too large", 415: "not a PDF or image" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/analyses/:analysisId/certificates",
+      tag: "lots",
+      summary:
+        "Upload the laboratory's certificate (PDF, PNG or JPEG, checked by content): the producer for its analyses, the audit laboratory for its own",
+      access: orgMember("producer_quality", "lab_analyst"),
+      params: orgParams.extend({ analysisId: idParam }),
+      consumes: "multipart/form-data",
+      before: upload,
+      status: 201,
+      errors: { 413: "file too large", 415: "not a PDF or image" },
+    },
     ({ params, user, req }) => {
       if (!req.file) throw badRequest('Send the certificate as multipart/form-data in the field "file".');
       return storeCertificate(params.orgId, params.analysisId, user, req.file);
@@ -71,7 +141,15 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/certificates/:certificateId", tag: "lots", summary: "Download a certificate", access: orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin"), params: orgParams.extend({ certificateId: idParam }), produces: "application/octet-stream" },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/certificates/:certificateId",
+      tag: "lots",
+      summary: "Download a certificate",
+      access: orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin"),
+      params: orgParams.extend({ certificateId: idParam }),
+      produces: "application/octet-stream",
+    },
     async ({ params, res }) => {
       const c = await readCertificate(params.orgId, params.certificateId);
       res.status(200).type(c.mime).attachment(c.filename).setHeader("X-Content-Type-Options", "nosniff");
@@ -80,19 +158,44 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/lots/:lotId/conformity.pdf", tag: "lots", summary: "The lot's certificate of conformity, or its analysis statement when the lot's status allows no certificate", access: PARTIES, params: orgParams.extend({ lotId: idParam }), produces: "application/pdf", errors: { 409: "no results judged yet" } },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/lots/:lotId/conformity.pdf",
+      tag: "lots",
+      summary: "The lot's certificate of conformity, or its analysis statement when the lot's status allows no certificate",
+      access: PARTIES,
+      params: orgParams.extend({ lotId: idParam }),
+      produces: "application/pdf",
+      errors: { 409: "no results judged yet" },
+    },
     async ({ params, user, membership, res }) => {
       const { filename, pdf } = await lotDocument(params.orgId, params.lotId, user!, membership!.role);
       res.status(200).type("application/pdf").attachment(filename).send(pdf);
     },
   );
 
-  r.add({ method: "get", path: "/api/orgs/:orgId/readiness", tag: "lots", summary: "Lots approaching filling or shipment: what is missing, what fails", access: PARTIES, params: orgParams }, ({ params }) =>
-    queries.readiness(params.orgId),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/readiness",
+      tag: "lots",
+      summary: "Lots approaching filling or shipment: what is missing, what fails",
+      access: PARTIES,
+      params: orgParams,
+    },
+    ({ params }) => queries.readiness(params.orgId),
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/contracts/:contractId/trend", tag: "lots", summary: "One parameter across the contract's lots and vintages", access: PARTIES, params: orgParams.extend({ contractId: idParam }), query: z.object({ parameter: z.enum(PARAMETERS.map((p) => p.id) as [string, ...string[]], { error: "Choose a parameter." }) }) },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/contracts/:contractId/trend",
+      tag: "lots",
+      summary: "One parameter across the contract's lots and vintages",
+      access: PARTIES,
+      params: orgParams.extend({ contractId: idParam }),
+      query: z.object({ parameter: z.enum(PARAMETERS.map((p) => p.id) as [string, ...string[]], { error: "Choose a parameter." }) }),
+    },
     ({ params, query }) => queries.trend(params.orgId, params.contractId, query.parameter),
   );
 }

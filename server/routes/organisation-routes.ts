@@ -13,35 +13,86 @@ const memberParams = orgParams.extend({ membershipId: idParam });
 const invitationParams = orgParams.extend({ invitationId: idParam });
 
 export function registerOrganisationRoutes(r: RouteRegistry): void {
-  r.add({ method: "get", path: "/api/orgs/:orgId", tag: "organisations", summary: "Your organisation", access: orgMember(), params: orgParams }, ({ params }) =>
-    organisations.getOrganisation(params.orgId),
-  );
-
-  r.add({ method: "get", path: "/api/orgs/:orgId/members", tag: "members", summary: "Members of your organisation", access: orgMember(), params: orgParams }, ({ params }) =>
-    members.listMembers(params.orgId),
+  r.add(
+    { method: "get", path: "/api/orgs/:orgId", tag: "organisations", summary: "Your organisation", access: orgMember(), params: orgParams },
+    ({ params }) => organisations.getOrganisation(params.orgId),
   );
 
   r.add(
-    { method: "patch", path: "/api/orgs/:orgId/members/:membershipId", tag: "members", summary: "Change a member's role", access: orgMember("org_admin"), params: memberParams, body: changeRoleSchema, errors: { 409: "would leave no admin" } },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/members",
+      tag: "members",
+      summary: "Members of your organisation",
+      access: orgMember(),
+      params: orgParams,
+    },
+    ({ params }) => members.listMembers(params.orgId),
+  );
+
+  r.add(
+    {
+      method: "patch",
+      path: "/api/orgs/:orgId/members/:membershipId",
+      tag: "members",
+      summary: "Change a member's role",
+      access: orgMember("org_admin"),
+      params: memberParams,
+      body: changeRoleSchema,
+      errors: { 409: "would leave no admin" },
+    },
     ({ params, body, user }) => members.changeRole(params.orgId, params.membershipId, body.role, user.id),
   );
 
   r.add(
-    { method: "delete", path: "/api/orgs/:orgId/members/:membershipId", tag: "members", summary: "Remove a member", access: orgMember("org_admin"), params: memberParams, errors: { 409: "would leave no admin" } },
+    {
+      method: "delete",
+      path: "/api/orgs/:orgId/members/:membershipId",
+      tag: "members",
+      summary: "Remove a member",
+      access: orgMember("org_admin"),
+      params: memberParams,
+      errors: { 409: "would leave no admin" },
+    },
     ({ params, user }) => members.removeMember(params.orgId, params.membershipId, user.id),
   );
 
-  r.add({ method: "get", path: "/api/orgs/:orgId/invitations", tag: "members", summary: "Open invitations", access: orgMember("org_admin"), params: orgParams }, ({ params }) =>
-    invitations.listOpenInvitations(params.orgId),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/invitations",
+      tag: "members",
+      summary: "Open invitations",
+      access: orgMember("org_admin"),
+      params: orgParams,
+    },
+    ({ params }) => invitations.listOpenInvitations(params.orgId),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/invitations", tag: "members", summary: "Invite someone by e-mail", access: orgMember("org_admin"), params: orgParams, body: inviteSchema, status: 201, errors: { 409: "already a member or invited" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/invitations",
+      tag: "members",
+      summary: "Invite someone by e-mail",
+      access: orgMember("org_admin"),
+      params: orgParams,
+      body: inviteSchema,
+      status: 201,
+      errors: { 409: "already a member or invited" },
+    },
     ({ params, body, user }) => invitations.invite(params.orgId, user, body.email, body.role),
   );
 
   r.add(
-    { method: "delete", path: "/api/orgs/:orgId/invitations/:invitationId", tag: "members", summary: "Revoke an open invitation", access: orgMember("org_admin"), params: invitationParams },
+    {
+      method: "delete",
+      path: "/api/orgs/:orgId/invitations/:invitationId",
+      tag: "members",
+      summary: "Revoke an open invitation",
+      access: orgMember("org_admin"),
+      params: invitationParams,
+    },
     ({ params, user }) => invitations.revokeInvitation(params.orgId, params.invitationId, user.id),
   );
 
@@ -50,11 +101,27 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
   );
 
   r.add(
-    { method: "post", path: "/api/platform/organisations", tag: "platform", summary: "Open an organisation and invite its first admin", access: PLATFORM_ADMIN, body: createOrganisationSchema, status: 201, errors: { 409: "name taken" } },
+    {
+      method: "post",
+      path: "/api/platform/organisations",
+      tag: "platform",
+      summary: "Open an organisation and invite its first admin",
+      access: PLATFORM_ADMIN,
+      body: createOrganisationSchema,
+      status: 201,
+      errors: { 409: "name taken" },
+    },
     ({ body, user }) => organisations.createOrganisation(body, user),
   );
 
-  r.add({ method: "get", path: "/api/platform/trail/verify", tag: "platform", summary: "Verify the whole trail's hash chain", access: PLATFORM_ADMIN }, () =>
-    verifyTrailChain(),
+  r.add(
+    {
+      method: "get",
+      path: "/api/platform/trail/verify",
+      tag: "platform",
+      summary: "Verify the whole trail's hash chain",
+      access: PLATFORM_ADMIN,
+    },
+    () => verifyTrailChain(),
   );
 }

@@ -8,7 +8,15 @@ export const STRIPE_WEBHOOK_PATH = "/api/webhooks/stripe";
 
 export function registerPaymentWebhookRoutes(r: RouteRegistry): void {
   r.add(
-    { method: "post", path: STRIPE_WEBHOOK_PATH, tag: "payments", summary: "Stripe's events (signed; each applied once, duplicates answered 200)", access: PUBLIC, consumes: "application/json", errors: { 400: "missing, wrong or stale (over 300 s) signature" } },
+    {
+      method: "post",
+      path: STRIPE_WEBHOOK_PATH,
+      tag: "payments",
+      summary: "Stripe's events (signed; each applied once, duplicates answered 200)",
+      access: PUBLIC,
+      consumes: "application/json",
+      errors: { 400: "missing, wrong or stale (over 300 s) signature" },
+    },
     async ({ req }) => {
       const event = verifiedEvent(req.body, req.get("stripe-signature"));
       return { received: true, ...(await applyStripeEvent(event)) };

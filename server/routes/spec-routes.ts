@@ -3,7 +3,14 @@ import type { RouteRegistry } from "../http/route-registry.ts";
 import { orgMember } from "../http/access.ts";
 import { validationFailed } from "../errors.ts";
 import { idParam } from "../../shared/ids.ts";
-import { commentSchema, newContractSchema, newVersionSchema, requestChangesSchema, specDraftSchema, specListQuerySchema } from "../../shared/specs/schemas.ts";
+import {
+  commentSchema,
+  newContractSchema,
+  newVersionSchema,
+  requestChangesSchema,
+  specDraftSchema,
+  specListQuerySchema,
+} from "../../shared/specs/schemas.ts";
 import * as queries from "../services/specs/spec-queries.ts";
 import * as lifecycle from "../services/specs/spec-lifecycle.ts";
 import { specSheetPdf } from "../services/specs/spec-pdf.ts";
@@ -19,81 +26,231 @@ const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quali
 const COMMENTERS = orgMember("buyer_technologist", "producer_quality");
 
 export function registerSpecRoutes(r: RouteRegistry): void {
-  r.add({ method: "get", path: "/api/orgs/:orgId/contracts", tag: "specs", summary: "Contracts your organisation is party to, with their versions", access: PARTIES, params: orgParams }, ({ params }) =>
-    queries.listContracts(params.orgId),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/contracts",
+      tag: "specs",
+      summary: "Contracts your organisation is party to, with their versions",
+      access: PARTIES,
+      params: orgParams,
+    },
+    ({ params }) => queries.listContracts(params.orgId),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/contracts", tag: "specs", summary: "Open a contract for a wine bought from a producer", access: BUYER, params: orgParams, body: newContractSchema, status: 201, errors: { 409: "reference taken" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/contracts",
+      tag: "specs",
+      summary: "Open a contract for a wine bought from a producer",
+      access: BUYER,
+      params: orgParams,
+      body: newContractSchema,
+      status: 201,
+      errors: { 409: "reference taken" },
+    },
     ({ params, body, user, membership }) => {
-      if (membership!.organisationKind !== "retailer") throw validationFailed([{ path: "(body)", message: "Only a retailer opens purchasing contracts." }]);
+      if (membership!.organisationKind !== "retailer")
+        throw validationFailed([{ path: "(body)", message: "Only a retailer opens purchasing contracts." }]);
       return createContract(params.orgId, user, body);
     },
   );
 
-  r.add({ method: "get", path: "/api/orgs/:orgId/producers", tag: "specs", summary: "Producers a buyer can contract with", access: BUYER, params: orgParams }, () => listProducers());
-
-  r.add({ method: "get", path: "/api/orgs/:orgId/contracts/:contractId", tag: "specs", summary: "One contract with its spec versions", access: PARTIES, params: contractParams }, ({ params, membership }) =>
-    queries.getContract(params.orgId, params.contractId, membership!.role),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/producers",
+      tag: "specs",
+      summary: "Producers a buyer can contract with",
+      access: BUYER,
+      params: orgParams,
+    },
+    () => listProducers(),
   );
 
   r.add(
-    { method: "put", path: "/api/orgs/:orgId/contracts/:contractId/law-facts", tag: "specs", summary: "State the wine's facts the law asks (organic, PDO/PGI, listings for higher limits)", access: BUYER, params: contractParams, body: lawFactsUpdateSchema, errors: { 403: "not the buyer" } },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/contracts/:contractId",
+      tag: "specs",
+      summary: "One contract with its spec versions",
+      access: PARTIES,
+      params: contractParams,
+    },
+    ({ params, membership }) => queries.getContract(params.orgId, params.contractId, membership!.role),
+  );
+
+  r.add(
+    {
+      method: "put",
+      path: "/api/orgs/:orgId/contracts/:contractId/law-facts",
+      tag: "specs",
+      summary: "State the wine's facts the law asks (organic, PDO/PGI, listings for higher limits)",
+      access: BUYER,
+      params: contractParams,
+      body: lawFactsUpdateSchema,
+      errors: { 403: "not the buyer" },
+    },
     ({ params, body, user }) => updateLawFacts(params.orgId, params.contractId, user, body.lawFacts),
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/contracts/:contractId/results", tag: "specs", summary: "Past results of the contract's lots (for backtests)", access: PARTIES, params: contractParams },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/contracts/:contractId/results",
+      tag: "specs",
+      summary: "Past results of the contract's lots (for backtests)",
+      access: PARTIES,
+      params: contractParams,
+    },
     ({ params }) => queries.pastResults(params.orgId, params.contractId),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/contracts/:contractId/specs", tag: "specs", summary: "Start a new draft version: blank, from a template or from an earlier version", access: BUYER, params: contractParams, body: newVersionSchema, status: 201 },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/contracts/:contractId/specs",
+      tag: "specs",
+      summary: "Start a new draft version: blank, from a template or from an earlier version",
+      access: BUYER,
+      params: contractParams,
+      body: newVersionSchema,
+      status: 201,
+    },
     ({ params, body, user }) => lifecycle.createVersion(params.orgId, params.contractId, user, body),
   );
 
-  r.add({ method: "get", path: "/api/orgs/:orgId/specs", tag: "specs", summary: "Spec versions, filtered by wine, producer, market, status or text", access: PARTIES, params: orgParams, query: specListQuerySchema }, ({ params, query }) =>
-    queries.listSpecs(params.orgId, query),
-  );
-
-  r.add({ method: "get", path: "/api/orgs/:orgId/specs/:specId", tag: "specs", summary: "One version with its requirements, comments and what you may do", access: PARTIES, params: specParams }, ({ params, membership }) =>
-    queries.getVersion(params.orgId, params.specId, membership!.role),
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/specs",
+      tag: "specs",
+      summary: "Spec versions, filtered by wine, producer, market, status or text",
+      access: PARTIES,
+      params: orgParams,
+      query: specListQuerySchema,
+    },
+    ({ params, query }) => queries.listSpecs(params.orgId, query),
   );
 
   r.add(
-    { method: "put", path: "/api/orgs/:orgId/specs/:specId", tag: "specs", summary: "Save a draft (optimistic locking on lockVersion)", access: BUYER, params: specParams, body: specDraftSchema, errors: { 409: "stale save, or the version was sent" } },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/specs/:specId",
+      tag: "specs",
+      summary: "One version with its requirements, comments and what you may do",
+      access: PARTIES,
+      params: specParams,
+    },
+    ({ params, membership }) => queries.getVersion(params.orgId, params.specId, membership!.role),
+  );
+
+  r.add(
+    {
+      method: "put",
+      path: "/api/orgs/:orgId/specs/:specId",
+      tag: "specs",
+      summary: "Save a draft (optimistic locking on lockVersion)",
+      access: BUYER,
+      params: specParams,
+      body: specDraftSchema,
+      errors: { 409: "stale save, or the version was sent" },
+    },
     ({ params, body, user }) => lifecycle.saveDraft(params.orgId, params.specId, user, body),
   );
 
-  r.add({ method: "post", path: "/api/orgs/:orgId/specs/:specId/send", tag: "specs", summary: "Send a draft to the producer; it can no longer change", access: BUYER, params: specParams, errors: { 409: "not a draft" } }, ({ params, user }) =>
-    lifecycle.sendToProducer(params.orgId, params.specId, user),
-  );
-
-  r.add({ method: "post", path: "/api/orgs/:orgId/specs/:specId/withdraw", tag: "specs", summary: "Withdraw a sent or agreed version", access: BUYER, params: specParams, errors: { 409: "not withdrawable" } }, ({ params, user }) =>
-    lifecycle.withdraw(params.orgId, params.specId, user),
-  );
-
-  r.add({ method: "post", path: "/api/orgs/:orgId/specs/:specId/agree", tag: "specs", summary: "Agree to a version (producer)", access: PRODUCER, params: specParams, errors: { 409: "not waiting for the producer" } }, ({ params, user }) =>
-    lifecycle.agree(params.orgId, params.specId, user),
+  r.add(
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/specs/:specId/send",
+      tag: "specs",
+      summary: "Send a draft to the producer; it can no longer change",
+      access: BUYER,
+      params: specParams,
+      errors: { 409: "not a draft" },
+    },
+    ({ params, user }) => lifecycle.sendToProducer(params.orgId, params.specId, user),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/specs/:specId/request-changes", tag: "specs", summary: "Ask the buyer for changes (producer)", access: PRODUCER, params: specParams, body: requestChangesSchema, errors: { 409: "not waiting for the producer" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/specs/:specId/withdraw",
+      tag: "specs",
+      summary: "Withdraw a sent or agreed version",
+      access: BUYER,
+      params: specParams,
+      errors: { 409: "not withdrawable" },
+    },
+    ({ params, user }) => lifecycle.withdraw(params.orgId, params.specId, user),
+  );
+
+  r.add(
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/specs/:specId/agree",
+      tag: "specs",
+      summary: "Agree to a version (producer)",
+      access: PRODUCER,
+      params: specParams,
+      errors: { 409: "not waiting for the producer" },
+    },
+    ({ params, user }) => lifecycle.agree(params.orgId, params.specId, user),
+  );
+
+  r.add(
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/specs/:specId/request-changes",
+      tag: "specs",
+      summary: "Ask the buyer for changes (producer)",
+      access: PRODUCER,
+      params: specParams,
+      body: requestChangesSchema,
+      errors: { 409: "not waiting for the producer" },
+    },
     ({ params, body, user }) => lifecycle.requestChanges(params.orgId, params.specId, user, body.reason),
   );
 
   r.add(
-    { method: "post", path: "/api/orgs/:orgId/specs/:specId/comments", tag: "specs", summary: "Comment on a version or one of its rows", access: COMMENTERS, params: specParams, body: commentSchema, status: 201, errors: { 409: "comments closed" } },
+    {
+      method: "post",
+      path: "/api/orgs/:orgId/specs/:specId/comments",
+      tag: "specs",
+      summary: "Comment on a version or one of its rows",
+      access: COMMENTERS,
+      params: specParams,
+      body: commentSchema,
+      status: 201,
+      errors: { 409: "comments closed" },
+    },
     ({ params, body, user }) => lifecycle.addComment(params.orgId, params.specId, user, body),
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/specs/:specId/diff", tag: "specs", summary: "Diff against another version of the same contract", access: PARTIES, params: specParams, query: z.object({ against: idParam }) },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/specs/:specId/diff",
+      tag: "specs",
+      summary: "Diff against another version of the same contract",
+      access: PARTIES,
+      params: specParams,
+      query: z.object({ against: idParam }),
+    },
     ({ params, query }) => queries.diffVersions(params.orgId, params.specId, query.against),
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/specs/:specId/pdf", tag: "specs", summary: "The spec sheet as a PDF", access: PARTIES, params: specParams, produces: "application/pdf" },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/specs/:specId/pdf",
+      tag: "specs",
+      summary: "The spec sheet as a PDF",
+      access: PARTIES,
+      params: specParams,
+      produces: "application/pdf",
+    },
     async ({ params, membership, res }) => {
       const { filename, pdf } = await specSheetPdf(params.orgId, params.specId, membership!.role);
       res.status(200).type("application/pdf").attachment(filename).send(pdf);

@@ -6,11 +6,21 @@ import { readDevInbox } from "../integrations/mail/dev-inbox.ts";
 import { upstreamFailed } from "../errors.ts";
 
 export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; devInboxUrl?: string }): void {
-  r.add({ method: "get", path: "/api/health", tag: "system", summary: "Service and database state", access: PUBLIC, errors: { 503: "database down" } }, async ({ res }) => {
-    const db = await databaseHealth();
-    if (db.status !== "up") res.locals.status = 503;
-    return { status: db.status === "up" ? "ok" : "degraded", version: opts.version, database: db };
-  });
+  r.add(
+    {
+      method: "get",
+      path: "/api/health",
+      tag: "system",
+      summary: "Service and database state",
+      access: PUBLIC,
+      errors: { 503: "database down" },
+    },
+    async ({ res }) => {
+      const db = await databaseHealth();
+      if (db.status !== "up") res.locals.status = 503;
+      return { status: db.status === "up" ? "ok" : "degraded", version: opts.version, database: db };
+    },
+  );
 
   r.add({ method: "get", path: "/api/openapi.json", tag: "system", summary: "This API's OpenAPI 3.1 document", access: PUBLIC }, () =>
     buildOpenApi(r.routes, opts.version),
@@ -19,7 +29,14 @@ export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; 
   if (opts.devInboxUrl) {
     const url = opts.devInboxUrl;
     r.add(
-      { method: "get", path: "/api/dev/inbox", tag: "system", summary: "Mail caught by the local SMTP fake (demo and development only)", access: PUBLIC, errors: { 502: "the mail fake is not running" } },
+      {
+        method: "get",
+        path: "/api/dev/inbox",
+        tag: "system",
+        summary: "Mail caught by the local SMTP fake (demo and development only)",
+        access: PUBLIC,
+        errors: { 502: "the mail fake is not running" },
+      },
       async () => {
         try {
           return await readDevInbox(url);

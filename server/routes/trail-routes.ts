@@ -12,19 +12,50 @@ import { HISTORY_ENTITY_TYPES } from "../../shared/trail/history.ts";
 const orgParams = z.object({ orgId: idParam });
 const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin");
 
-
 export function registerTrailRoutes(r: RouteRegistry): void {
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/trail", tag: "trail", summary: "Your organisation's trail with filters; format=csv or json downloads it", access: orgMember("org_admin"), params: orgParams, query: trailQuerySchema },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/trail",
+      tag: "trail",
+      summary: "Your organisation's trail with filters; format=csv or json downloads it",
+      access: orgMember("org_admin"),
+      params: orgParams,
+      query: trailQuerySchema,
+    },
     async ({ params, query, res }) => {
-      const rows = await listOrganisationTrail(params.orgId, { action: query.action, entityType: query.entityType, entityId: query.entityId, actorUserId: query.actor, from: query.from, to: query.to, limit: query.limit });
+      const rows = await listOrganisationTrail(params.orgId, {
+        action: query.action,
+        entityType: query.entityType,
+        entityId: query.entityId,
+        actorUserId: query.actor,
+        from: query.from,
+        to: query.to,
+        limit: query.limit,
+      });
       if (query.format === "csv") {
-        const csv = Papa.unparse(rows.map((e) => ({ seq: e.seq, occurred_at: e.occurredAt, actor: e.actorName ?? "", action: e.action, what: actionLabel(e.action), entity_type: e.entityType, entity_id: e.entityId ?? "", details: detailsText(e.details), hash: e.hash })));
+        const csv = Papa.unparse(
+          rows.map((e) => ({
+            seq: e.seq,
+            occurred_at: e.occurredAt,
+            actor: e.actorName ?? "",
+            action: e.action,
+            what: actionLabel(e.action),
+            entity_type: e.entityType,
+            entity_id: e.entityId ?? "",
+            details: detailsText(e.details),
+            hash: e.hash,
+          })),
+        );
         res.status(200).type("text/csv").attachment(`audit-${params.orgId}.csv`).send(`\uFEFF${csv}`);
         return;
       }
       if (query.format === "json") {
-        res.status(200).type("application/json").attachment(`audit-${params.orgId}.json`).send(JSON.stringify(rows, null, 2));
+        res
+          .status(200)
+          .type("application/json")
+          .attachment(`audit-${params.orgId}.json`)
+          .send(JSON.stringify(rows, null, 2));
         return;
       }
       return rows;
@@ -32,9 +63,26 @@ export function registerTrailRoutes(r: RouteRegistry): void {
   );
 
   r.add(
-    { method: "get", path: "/api/orgs/:orgId/history/:entityType/:entityId", tag: "trail", summary: "The recorded history of a spec version, lot, deviation, contract or audit order you are party to", access: PARTIES, params: orgParams.extend({ entityType: z.enum(HISTORY_ENTITY_TYPES), entityId: idParam }) },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/history/:entityType/:entityId",
+      tag: "trail",
+      summary: "The recorded history of a spec version, lot, deviation, contract or audit order you are party to",
+      access: PARTIES,
+      params: orgParams.extend({ entityType: z.enum(HISTORY_ENTITY_TYPES), entityId: idParam }),
+    },
     ({ params }) => historyFor(params.orgId, params.entityType, params.entityId),
   );
 
-  r.add({ method: "get", path: "/api/orgs/:orgId/trail/verify", tag: "trail", summary: "Verify the whole hash chain and report the first broken entry", access: PARTIES, params: orgParams }, () => verifyTrailChain());
+  r.add(
+    {
+      method: "get",
+      path: "/api/orgs/:orgId/trail/verify",
+      tag: "trail",
+      summary: "Verify the whole hash chain and report the first broken entry",
+      access: PARTIES,
+      params: orgParams,
+    },
+    () => verifyTrailChain(),
+  );
 }

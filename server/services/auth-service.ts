@@ -75,7 +75,13 @@ export async function requestPasswordReset(email: string): Promise<void> {
         expiresMinutes: RESET_MINUTES,
       }),
     );
-    await recordTrail(t, { actorUserId: null, organisationId: null, action: "auth.reset_requested", entityType: "user", entityId: user.id });
+    await recordTrail(t, {
+      actorUserId: null,
+      organisationId: null,
+      action: "auth.reset_requested",
+      entityType: "user",
+      entityId: user.id,
+    });
   });
 }
 
@@ -92,7 +98,13 @@ export async function resetPassword(token: string, password: string): Promise<vo
     const user = await User.findByPk(reset.userId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw gone("The account no longer exists.");
     await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction: t });
-    await recordTrail(t, { actorUserId: user.id, organisationId: null, action: "auth.password_reset", entityType: "user", entityId: user.id });
+    await recordTrail(t, {
+      actorUserId: user.id,
+      organisationId: null,
+      action: "auth.password_reset",
+      entityType: "user",
+      entityId: user.id,
+    });
   });
 }
 
@@ -105,7 +117,13 @@ export async function changePassword(userId: number, current: string, next: stri
   return inTransaction(async (t) => {
     const sessionVersion = user.sessionVersion + 1;
     await user.update({ passwordHash, sessionVersion }, { transaction: t });
-    await recordTrail(t, { actorUserId: userId, organisationId: null, action: "auth.password_changed", entityType: "user", entityId: userId });
+    await recordTrail(t, {
+      actorUserId: userId,
+      organisationId: null,
+      action: "auth.password_changed",
+      entityType: "user",
+      entityId: userId,
+    });
     return sessionVersion;
   });
 }

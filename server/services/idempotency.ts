@@ -8,7 +8,12 @@ import { inTransaction } from "../db/database.ts";
 import { canonicalJson, sha256 } from "../lib/crypto.ts";
 import { conflict } from "../errors.ts";
 
-export async function idempotent<T>(organisationId: number, key: string, body: unknown, work: (t: Transaction) => Promise<T>): Promise<{ replayed: boolean; response: T }> {
+export async function idempotent<T>(
+  organisationId: number,
+  key: string,
+  body: unknown,
+  work: (t: Transaction) => Promise<T>,
+): Promise<{ replayed: boolean; response: T }> {
   const requestHash = sha256(canonicalJson(body));
   const replay = async () => {
     const stored = await IdempotencyKey.findOne({ where: { organisationId, key } });

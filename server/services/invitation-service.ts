@@ -29,7 +29,10 @@ const view = (i: Invitation): InvitationView => ({
 export function assertRoleFits(role: Role, org: Organisation): void {
   if (!roleFitsKind(role, org.kind)) {
     throw validationFailed([
-      { path: "role", message: `${ROLE_LABELS[role]} is not a role in a ${ORGANISATION_KIND_LABELS[org.kind].toLowerCase()} organisation.` },
+      {
+        path: "role",
+        message: `${ROLE_LABELS[role]} is not a role in a ${ORGANISATION_KIND_LABELS[org.kind].toLowerCase()} organisation.`,
+      },
     ]);
   }
 }
@@ -80,7 +83,14 @@ export async function invite(orgId: number, inviter: SessionUser, email: string,
     });
     if (open) throw conflict(`${email} already has an open invitation; revoke it first to send a new one.`);
     const invitation = await createInvitation(t, { organisation, email, role, invitedBy: inviter }, (link) =>
-      invitationMail({ to: email, organisationName: organisation.name, role, inviterName: inviter.name, link, expiresDays: INVITATION_DAYS }),
+      invitationMail({
+        to: email,
+        organisationName: organisation.name,
+        role,
+        inviterName: inviter.name,
+        link,
+        expiresDays: INVITATION_DAYS,
+      }),
     );
     return view(invitation);
   });
@@ -99,7 +109,13 @@ export async function revokeInvitation(orgId: number, invitationId: number, acto
     const inv = await Invitation.findOne({ where: { id: invitationId, organisationId: orgId }, transaction: t, lock: t.LOCK.UPDATE });
     if (!inv || inv.acceptedAt || inv.revokedAt) throw notFound("The invitation");
     await inv.update({ revokedAt: new Date() }, { transaction: t });
-    await recordTrail(t, { actorUserId: actorId, organisationId: orgId, action: "invitation.revoked", entityType: "invitation", entityId: inv.id });
+    await recordTrail(t, {
+      actorUserId: actorId,
+      organisationId: orgId,
+      action: "invitation.revoked",
+      entityType: "invitation",
+      entityId: inv.id,
+    });
   });
 }
 
@@ -132,7 +148,11 @@ export async function previewInvitation(token: string) {
  * Accepting creates the account and the membership in one transaction. A link never sets the
  * password of an account that already has one, so a leaked link cannot take an account over.
  */
-export async function acceptInvitation(token: string, name: string, password: string): Promise<{ user: SessionUser; sessionVersion: number }> {
+export async function acceptInvitation(
+  token: string,
+  name: string,
+  password: string,
+): Promise<{ user: SessionUser; sessionVersion: number }> {
   const passwordHash = await hashPassword(password);
   const user = await inTransaction(async (t) => {
     const inv = await findUsable(token, t);

@@ -10,8 +10,6 @@ import type { Role } from "../../shared/auth/roles.ts";
 import type { Transaction } from "sequelize";
 import type { MemberView } from "../../shared/auth/views.ts";
 
-
-
 export async function listMembers(orgId: number): Promise<MemberView[]> {
   const rows = await Membership.findAll({
     where: { organisationId: orgId },

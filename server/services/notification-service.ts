@@ -31,7 +31,11 @@ export async function setPreferences(userId: number, prefs: NotificationPreferen
 
 /** Users holding one of these roles in one of these organisations. */
 export async function usersWithRoles(organisationIds: number[], roles: string[], t?: Transaction): Promise<number[]> {
-  const rows = await Membership.findAll({ where: { organisationId: organisationIds, role: roles }, attributes: ["userId"], transaction: t });
+  const rows = await Membership.findAll({
+    where: { organisationId: organisationIds, role: roles },
+    attributes: ["userId"],
+    transaction: t,
+  });
   return [...new Set(rows.map((r) => r.userId))];
 }
 
@@ -43,19 +47,44 @@ export async function notify(
 ): Promise<void> {
   const targets = [...new Set(userIds)].filter((id) => id !== exceptUserId);
   if (!targets.length) return;
-  await Notification.bulkCreate(targets.map((userId) => ({ userId, kind: n.kind, title: n.title, body: n.body, link: n.link })), { transaction: t });
+  await Notification.bulkCreate(
+    targets.map((userId) => ({ userId, kind: n.kind, title: n.title, body: n.body, link: n.link })),
+    { transaction: t },
+  );
   const users = await User.findAll({ where: { id: targets }, attributes: ["id", "email"], transaction: t });
   for (const u of users) {
     const prefs = await preferencesOf(u.id, t);
     if (prefs.emailMode !== "immediate" || !prefs.kinds.includes(n.kind)) continue;
-    await enqueueMail(t, { to: u.email, subject: n.title, text: `${n.body}\n\n${serviceSettings().appUrl}${n.link}\n\nYou can change which notifications reach you by e-mail on your Cellarpact profile page.` });
+    await enqueueMail(t, {
+      to: u.email,
+      subject: n.title,
+      text: `${n.body}\n\n${serviceSettings().appUrl}${n.link}\n\nYou can change which notifications reach you by e-mail on your Cellarpact profile page.`,
+    });
   }
 }
 
 export async function listNotifications(userId: number, limit = 50) {
-  const rows = await Notification.findAll({ where: { userId }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
+  const rows = await Notification.findAll({
+    where: { userId },
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
+    limit,
+  });
   const unread = await Notification.count({ where: { userId, readAt: null } });
-  return { unread, items: rows.map((r) => ({ id: r.id, kind: r.kind, title: r.title, body: r.body, link: r.link, read: r.readAt !== null, createdAt: r.createdAt.toISOString() })) };
+  return {
+    unread,
+    items: rows.map((r) => ({
+      id: r.id,
+      kind: r.kind,
+      title: r.title,
+      body: r.body,
+      link: r.link,
+      read: r.readAt !== null,
+      createdAt: r.createdAt.toISOString(),
+    })),
+  };
 }
 
 export async function markRead(userId: number, ids: number[] | "all"): Promise<void> {
@@ -68,11 +97,18 @@ export async function markRead(userId: number, ids: number[] | "all"): Promise<v
  */
 export async function sendDigests(now = new Date()): Promise<number> {
   const dayAgo = new Date(now.getTime() - 86_400_000);
-  const prefs = await NotificationPreference.findAll({ where: { emailMode: "daily_digest", [Op.or]: [{ lastDigestAt: null }, { lastDigestAt: { [Op.lte]: dayAgo } }] } });
+  const prefs = await NotificationPreference.findAll({
+    where: { emailMode: "daily_digest", [Op.or]: [{ lastDigestAt: null }, { lastDigestAt: { [Op.lte]: dayAgo } }] },
+  });
   let sent = 0;
   for (const p of prefs) {
     await database().transaction(async (t) => {
-      const pending = await Notification.findAll({ where: { userId: p.userId, digestedAt: null, kind: p.kinds }, order: [["createdAt", "ASC"]], transaction: t, lock: t.LOCK.UPDATE });
+      const pending = await Notification.findAll({
+        where: { userId: p.userId, digestedAt: null, kind: p.kinds },
+        order: [["createdAt", "ASC"]],
+        transaction: t,
+        lock: t.LOCK.UPDATE,
+      });
       await p.update({ lastDigestAt: now }, { transaction: t });
       if (!pending.length) return;
       const user = await User.findByPk(p.userId, { transaction: t });

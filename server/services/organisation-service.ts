@@ -56,6 +56,13 @@ export async function createOrganisation(input: CreateOrganisationInput, actor: 
     await createInvitation(t, { organisation, email: input.adminEmail, role: "org_admin", invitedBy: actor }, (link) =>
       organisationWelcomeMail({ to: input.adminEmail, organisationName: organisation.name, link, expiresDays: INVITATION_DAYS }),
     );
-    return { id: organisation.id, name: organisation.name, kind: organisation.kind, country: organisation.country, memberCount: 0, createdAt: organisation.createdAt.toISOString() };
+    return {
+      id: organisation.id,
+      name: organisation.name,
+      kind: organisation.kind,
+      country: organisation.country,
+      memberCount: 0,
+      createdAt: organisation.createdAt.toISOString(),
+    };
   });
 }

@@ -15,7 +15,11 @@ export interface FormCell {
 
 export const cellKey = (lotId: number, parameter: string) => `${lotId}:${parameter}`;
 
-export function cellsFromSamples(samples: readonly ImportSample[], lots: readonly { lotId: number; lotCode: string }[], parameters: readonly string[]) {
+export function cellsFromSamples(
+  samples: readonly ImportSample[],
+  lots: readonly { lotId: number; lotCode: string }[],
+  parameters: readonly string[],
+) {
   const cells: Record<string, FormCell> = {};
   const skipped: string[] = [];
   const byCode = new Map(lots.map((l) => [l.lotCode.toLowerCase(), l.lotId]));

@@ -28,7 +28,14 @@ export function quoteAudit(prices: PriceListItem[], lotCount: number, parameters
   for (const parameter of parameters) {
     const unitCents = byParameter.get(parameter);
     if (unitCents === undefined) unpriced.push(parameter);
-    else lines.push({ parameter, name: findParameter(parameter)?.name ?? parameter, unitCents, lots: lotCount, totalCents: unitCents * lotCount });
+    else
+      lines.push({
+        parameter,
+        name: findParameter(parameter)?.name ?? parameter,
+        unitCents,
+        lots: lotCount,
+        totalCents: unitCents * lotCount,
+      });
   }
   return { lines, totalCents: lines.reduce((s, l) => s + l.totalCents, 0), unpriced };
 }

@@ -33,7 +33,11 @@ export const priceListSchema = z.object({
     .array(
       z.object({
         parameter: z.enum(parameterIds, { error: "Unknown parameter." }),
-        priceCents: z.number({ error: "Enter a price." }).int({ error: "Prices are in whole cents." }).min(100, { error: "A price is at least 1.00." }).max(1_000_000, { error: "A price is at most 10,000.00." }),
+        priceCents: z
+          .number({ error: "Enter a price." })
+          .int({ error: "Prices are in whole cents." })
+          .min(100, { error: "A price is at least 1.00." })
+          .max(1_000_000, { error: "A price is at most 10,000.00." }),
       }),
     )
     .max(60)
@@ -47,7 +51,12 @@ export const labResultsSchema = z.object({
   accreditation: z.string().trim().max(60).nullish(),
   reportReference: z.string().trim().max(80).nullish(),
   lots: z
-    .array(z.object({ lotId: z.number().int().positive(), results: z.array(resultEntrySchema).min(1, { error: "Enter at least one result." }).max(40) }))
+    .array(
+      z.object({
+        lotId: z.number().int().positive(),
+        results: z.array(resultEntrySchema).min(1, { error: "Enter at least one result." }).max(40),
+      }),
+    )
     .min(1)
     .max(AUDIT_MAX_LOTS),
 });

@@ -2,13 +2,7 @@
 export const ORGANISATION_KINDS = ["retailer", "producer", "laboratory"] as const;
 export type OrganisationKind = (typeof ORGANISATION_KINDS)[number];
 
-export const ROLES = [
-  "buyer_technologist",
-  "buyer_finance",
-  "producer_quality",
-  "lab_analyst",
-  "org_admin",
-] as const;
+export const ROLES = ["buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin"] as const;
 export type Role = (typeof ROLES)[number];
 
 export const ROLE_LABELS: Record<Role, string> = {

@@ -26,4 +26,3 @@ export interface OrganisationView {
   memberCount: number;
   createdAt: string;
 }
-

@@ -17,7 +17,13 @@ export const quoteSchema = z.object({ analysisId: z.number().int().positive(), p
 
 export const messageSchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("comment"), parentId: z.number().int().positive().nullish(), body, quote: quoteSchema.nullish() }),
-  z.object({ kind: z.literal("proposal"), parentId: z.number().int().positive().nullish(), body, proposal: proposalSchema, quote: quoteSchema.nullish() }),
+  z.object({
+    kind: z.literal("proposal"),
+    parentId: z.number().int().positive().nullish(),
+    body,
+    proposal: proposalSchema,
+    quote: quoteSchema.nullish(),
+  }),
   z.object({ kind: z.literal("acceptance"), parentId: z.number({ error: "Say which proposal you accept." }).int().positive(), body }),
 ]);
 export type MessageInput = z.infer<typeof messageSchema>;

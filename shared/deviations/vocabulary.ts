@@ -17,7 +17,12 @@ export const DEVIATION_STATUS_LABELS: Record<DeviationStatus, string> = {
 /** What opened a deviation: a failing result, drift in transit, a person, or an independent audit that disagreed. */
 export const DEVIATION_KINDS = ["result", "transit", "manual", "audit"] as const;
 export type DeviationKind = (typeof DEVIATION_KINDS)[number];
-export const DEVIATION_KIND_LABELS: Record<DeviationKind, string> = { result: "Result", transit: "Transit", manual: "Manual", audit: "Audit" };
+export const DEVIATION_KIND_LABELS: Record<DeviationKind, string> = {
+  result: "Result",
+  transit: "Transit",
+  manual: "Manual",
+  audit: "Audit",
+};
 
 export const DEVIATION_OUTCOMES = ["concession", "rejected", "retest_passed", "spec_change"] as const;
 export type DeviationOutcome = (typeof DEVIATION_OUTCOMES)[number];
@@ -50,7 +55,9 @@ export interface DeviationProposal {
 /** A proposal in words, with every condition: "Concession for this lot, on condition of: re-test: …". */
 export function proposalText(p: DeviationProposal): string {
   const label = DEVIATION_OUTCOME_LABELS[p.outcome];
-  return p.conditions.length ? `${label}, on condition of: ${p.conditions.map((c) => `${CONDITION_LABELS[c.kind].toLowerCase()}: ${c.detail}`).join("; ")}` : label;
+  return p.conditions.length
+    ? `${label}, on condition of: ${p.conditions.map((c) => `${CONDITION_LABELS[c.kind].toLowerCase()}: ${c.detail}`).join("; ")}`
+    : label;
 }
 
 export interface DeviationDecision extends DeviationProposal {

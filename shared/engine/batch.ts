@@ -24,7 +24,11 @@ export interface CompiledRequirement {
   factor: number;
 }
 
-export function compileRequirement(req: GoverningRequirement, inputUnit: UnitId, opts: { densityGPerMl?: number } = {}): CompiledRequirement {
+export function compileRequirement(
+  req: GoverningRequirement,
+  inputUnit: UnitId,
+  opts: { densityGPerMl?: number } = {},
+): CompiledRequirement {
   const def = parameter(req.parameter);
   const d = "defaultUncertainty" in def ? def.defaultUncertainty : undefined;
   return {

@@ -39,7 +39,10 @@ export interface EwmaPoint {
  * (NIST/SEMATECH e-Handbook of Statistical Methods, 6.3.2.4). exact = true uses the time-varying
  * factor √(λ/(2 − λ)·(1 − (1 − λ)^(2t))) instead of the asymptotic one.
  */
-export function ewmaChart(values: readonly number[], opts: { lambda?: number; target: number; sigma: number; k?: number; exact?: boolean }): EwmaPoint[] {
+export function ewmaChart(
+  values: readonly number[],
+  opts: { lambda?: number; target: number; sigma: number; k?: number; exact?: boolean },
+): EwmaPoint[] {
   const lambda = opts.lambda ?? 0.3;
   const k = opts.k ?? 3;
   if (!(lambda > 0 && lambda <= 1)) throw new RangeError("λ must be in (0, 1]");
@@ -76,11 +79,14 @@ export function westernElectricSignals(values: readonly number[], centre: number
       const s = side === "above" ? 1 : -1;
       if (s * zi > 3) signals.push({ rule: 1, index: i, side, description: "one point beyond 3σ" });
       const w3 = window(i, 3);
-      if (w3.length === 3 && w3.filter((v) => s * v > 2).length >= 2 && s * zi > 2) signals.push({ rule: 2, index: i, side, description: "2 of 3 points beyond 2σ on one side" });
+      if (w3.length === 3 && w3.filter((v) => s * v > 2).length >= 2 && s * zi > 2)
+        signals.push({ rule: 2, index: i, side, description: "2 of 3 points beyond 2σ on one side" });
       const w5 = window(i, 5);
-      if (w5.length === 5 && w5.filter((v) => s * v > 1).length >= 4 && s * zi > 1) signals.push({ rule: 3, index: i, side, description: "4 of 5 points beyond 1σ on one side" });
+      if (w5.length === 5 && w5.filter((v) => s * v > 1).length >= 4 && s * zi > 1)
+        signals.push({ rule: 3, index: i, side, description: "4 of 5 points beyond 1σ on one side" });
       const w8 = window(i, 8);
-      if (w8.length === 8 && w8.every((v) => s * v > 0)) signals.push({ rule: 4, index: i, side, description: "8 points in a row on one side of the centre line" });
+      if (w8.length === 8 && w8.every((v) => s * v > 0))
+        signals.push({ rule: 4, index: i, side, description: "8 points in a row on one side of the centre line" });
     }
   });
   return signals;
@@ -117,7 +123,11 @@ export interface DriftWarning {
  * Early warning (common practice): the EWMA has covered more than half the way from the centre
  * line to a spec limit, or the last 6 results move steadily toward it.
  */
-export function driftWarning(values: readonly number[], spec: { lower?: number; upper?: number }, opts: { lambda?: number } = {}): DriftWarning | null {
+export function driftWarning(
+  values: readonly number[],
+  spec: { lower?: number; upper?: number },
+  opts: { lambda?: number } = {},
+): DriftWarning | null {
   if (values.length < 3) return null;
   const lambda = opts.lambda ?? 0.3;
   const centre = mean(values.slice(0, Math.max(2, Math.floor(values.length / 2))));
@@ -132,7 +142,11 @@ export function driftWarning(values: readonly number[], spec: { lower?: number; 
     if (span === 0) return null;
     const progress = (towards === "upper" ? ewma - centre : centre - ewma) / span;
     if (progress > 0.5 || trend) {
-      return { towards, progress, message: `Results are drifting toward the ${towards} limit (${Math.round(progress * 100)} % of the way from the usual level${trend ? "; 6 results in a row moved that way" : ""}).` };
+      return {
+        towards,
+        progress,
+        message: `Results are drifting toward the ${towards} limit (${Math.round(progress * 100)} % of the way from the usual level${trend ? "; 6 results in a row moved that way" : ""}).`,
+      };
     }
     return null;
   };

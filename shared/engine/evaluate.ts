@@ -58,7 +58,10 @@ export interface Verdict {
 }
 
 function boundText(parameterId: string, b: GoverningBound, unitId: UnitId, factor: number): string {
-  const where = b.source.kind === "buyer" ? "the buyer's specification" : `${b.source.limit.marketName}: ${b.source.limit.citation.document}, ${b.source.limit.citation.article}`;
+  const where =
+    b.source.kind === "buyer"
+      ? "the buyer's specification"
+      : `${b.source.limit.marketName}: ${b.source.limit.citation.document}, ${b.source.limit.citation.article}`;
   return `${displayValue(parameterId, b.value * factor, unitId)} ${UNITS[unitId].label} (${where})`;
 }
 
@@ -92,29 +95,44 @@ function textsFor(req: GoverningRequirement, displayUnit: UnitId): Wording {
 }
 
 /** The standard uncertainty of a result in the parameter's canonical unit: the laboratory's, else the catalogue default. */
-export function usedUncertainty(parameterId: ParameterId, canonicalUnit: UnitId, value: number, input: Pick<ResultInput, "unit" | "uncertainty" | "densityGPerMl">): UsedUncertainty {
+export function usedUncertainty(
+  parameterId: ParameterId,
+  canonicalUnit: UnitId,
+  value: number,
+  input: Pick<ResultInput, "unit" | "uncertainty" | "densityGPerMl">,
+): UsedUncertainty {
   const def = parameter(parameterId);
   if (input.uncertainty && input.uncertainty.value >= 0) {
     const k = input.uncertainty.kind === "standard" ? 1 : (input.uncertainty.k ?? 2);
     if (!(k > 0)) throw new RangeError(`A coverage factor must be above 0; k = ${k} was given.`);
     if (input.uncertainty.kind === "relative") {
-      return { u: (Math.abs(value) * input.uncertainty.value) / 100 / k, source: "laboratory", basis: `laboratory's relative expanded uncertainty of ${input.uncertainty.value} % with k = ${k}` };
+      return {
+        u: (Math.abs(value) * input.uncertainty.value) / 100 / k,
+        source: "laboratory",
+        basis: `laboratory's relative expanded uncertainty of ${input.uncertainty.value} % with k = ${k}`,
+      };
     }
     const inCanonical = convert(input.uncertainty.value, input.unit, canonicalUnit, { densityGPerMl: input.densityGPerMl });
     return {
       u: Math.abs(inCanonical) / k,
       source: "laboratory",
-      basis: input.uncertainty.kind === "expanded" ? `laboratory's expanded uncertainty U with k = ${k}` : "laboratory's standard uncertainty",
+      basis:
+        input.uncertainty.kind === "expanded" ? `laboratory's expanded uncertainty U with k = ${k}` : "laboratory's standard uncertainty",
     };
   }
   if ("defaultUncertainty" in def && def.defaultUncertainty) {
     const d = def.defaultUncertainty;
-    return { u: d.kind === "absolute" ? d.u : d.u * Math.abs(value), source: "default", basis: `no uncertainty reported; default used: ${d.basis}` };
+    return {
+      u: d.kind === "absolute" ? d.u : d.u * Math.abs(value),
+      source: "default",
+      basis: `no uncertainty reported; default used: ${d.basis}`,
+    };
   }
   return { u: 0, source: "none", basis: "no uncertainty reported and no default exists for this parameter; the result is taken as exact" };
 }
 
-const uncertaintyFor = (req: GoverningRequirement, value: number, input: ResultInput) => usedUncertainty(req.parameter, req.unit, value, input);
+const uncertaintyFor = (req: GoverningRequirement, value: number, input: ResultInput) =>
+  usedUncertainty(req.parameter, req.unit, value, input);
 
 /** Overall statement for a value: the worse of the two sides, and which side decided. */
 function statementAt(req: GoverningRequirement, x: number, w: number): { statement: Statement; side: "lower" | "upper" | null } {
@@ -161,13 +179,19 @@ function makeVerdict(req: GoverningRequirement, ruleText: string, d: Decided, in
  * ctx.displayUnit (one of the parameter's units, e.g. the unit the buyer wrote the spec in) is the
  * unit of the explanation and resultText; value, bounds and uncertainty stay in the canonical unit.
  */
-export function evaluate(req: GoverningRequirement, input: ResultInput | null, ctx: { requiredAtStage: boolean; displayUnit?: UnitId } = { requiredAtStage: true }): Verdict {
+export function evaluate(
+  req: GoverningRequirement,
+  input: ResultInput | null,
+  ctx: { requiredAtStage: boolean; displayUnit?: UnitId } = { requiredAtStage: true },
+): Verdict {
   const def = parameter(req.parameter);
   const texts = textsFor(req, ctx.displayUnit ?? req.unit);
   if (!input) {
     return makeVerdict(req, texts.ruleText, {
       outcome: ctx.requiredAtStage ? "missing" : "not required",
-      explanation: ctx.requiredAtStage ? `No result for ${def.name}, which this stage requires.` : `${def.name} is not required at this stage.`,
+      explanation: ctx.requiredAtStage
+        ? `No result for ${def.name}, which this stage requires.`
+        : `${def.name} is not required at this stage.`,
       resultText: null,
       value: null,
       decidingSide: null,
@@ -182,7 +206,16 @@ export function evaluate(req: GoverningRequirement, input: ResultInput | null, c
   return makeVerdict(req, texts.ruleText, { ...d, outcome: "not required", explanation }, d.outcome);
 }
 
-function decided(outcome: Outcome, explanation: string, resultText: string | null, value: number | null, decidingSide: "lower" | "upper" | null, uncertainty: UsedUncertainty | null, guardBand: number | null, conformanceProbability: number | null): Decided {
+function decided(
+  outcome: Outcome,
+  explanation: string,
+  resultText: string | null,
+  value: number | null,
+  decidingSide: "lower" | "upper" | null,
+  uncertainty: UsedUncertainty | null,
+  guardBand: number | null,
+  conformanceProbability: number | null,
+): Decided {
   return { outcome, explanation, resultText, value, decidingSide, uncertainty, guardBand, conformanceProbability };
 }
 
@@ -208,20 +241,39 @@ function decide(req: GoverningRequirement, input: ResultInput, texts: Wording): 
     const decidedBy = side ? ` The ${side} limit decides: ${side === "upper" ? upperText : lowerText}.` : "";
     const guard = w > 0 ? ` Guard band w = ${trim(w * show)} ${unitLabel}.` : "";
     const shown = trim(x * show);
-    const hopeless = w > 0 && guardLeavesNothing(req, w) ? ` Warning: with this uncertainty no result can show conformity under this rule (the guard band leaves no acceptance zone); a method with a smaller uncertainty is needed.` : "";
-    return decided(statement, `${shown} ${unitLabel} against ${limitsText || "no limit"}: ${statement}.${decidedBy}${guard}${hopeless}`, shown, x, side, unc, w, p);
+    const hopeless =
+      w > 0 && guardLeavesNothing(req, w)
+        ? ` Warning: with this uncertainty no result can show conformity under this rule (the guard band leaves no acceptance zone); a method with a smaller uncertainty is needed.`
+        : "";
+    return decided(
+      statement,
+      `${shown} ${unitLabel} against ${limitsText || "no limit"}: ${statement}.${decidedBy}${guard}${hopeless}`,
+      shown,
+      x,
+      side,
+      unc,
+      w,
+      p,
+    );
   }
 
   // Censored: the true value lies in an interval; decide only if every value in it gives the same kind of answer.
   const canonicalText = formatReading(
-    r.kind === "below" ? { kind: "below", limit: r.limit === null ? null : r.limit * factor * show } : { kind: "above", limit: r.limit * factor * show },
+    r.kind === "below"
+      ? { kind: "below", limit: r.limit === null ? null : r.limit * factor * show }
+      : { kind: "above", limit: r.limit * factor * show },
     parameter(req.parameter).digits,
   );
   if (r.kind === "below" && r.limit === null) {
     return decided(
       "inconclusive",
       "Reported as not detected without a limit of quantification, so conformity cannot be shown. Ask the laboratory for its limit of quantification.",
-      canonicalText, null, null, null, null, null,
+      canonicalText,
+      null,
+      null,
+      null,
+      null,
+      null,
     );
   }
   const lo = r.kind === "below" ? 0 : r.limit * factor;
@@ -229,7 +281,16 @@ function decide(req: GoverningRequirement, input: ResultInput, texts: Wording): 
   // Every value the result allows meets the limits ("<1.0" against "not more than 1.0"): it conforms,
   // whatever the guard band, for the band is about a measured value and there is none here.
   if ((!req.upper || hi <= req.upper.value) && (!req.lower || lo >= req.lower.value)) {
-    return decided("pass", `${canonicalText} ${unitLabel}: every value in that range meets ${limitsText}.`, canonicalText, null, null, null, 0, null);
+    return decided(
+      "pass",
+      `${canonicalText} ${unitLabel}: every value in that range meets ${limitsText}.`,
+      canonicalText,
+      null,
+      null,
+      null,
+      0,
+      null,
+    );
   }
   // The reporting limit carries no usable uncertainty; the guard band uses the default for a value at the limit.
   const unc = uncertaintyFor(req, r.kind === "below" ? hi : lo, { ...input, uncertainty: null });
@@ -241,11 +302,39 @@ function decide(req: GoverningRequirement, input: ResultInput, texts: Wording): 
   const best = candidates.reduce((a, b) => (worse(a, b) === a ? b : a));
   const side = ends.find((e) => e.statement === worst)?.side ?? null;
   if (passing(worst)) {
-    return decided(worst, `${canonicalText} ${unitLabel}: every value below the reporting limit meets ${limitsText}.`, canonicalText, null, worst === "pass" ? null : side, null, w, null);
+    return decided(
+      worst,
+      `${canonicalText} ${unitLabel}: every value below the reporting limit meets ${limitsText}.`,
+      canonicalText,
+      null,
+      worst === "pass" ? null : side,
+      null,
+      w,
+      null,
+    );
   }
   if (!passing(best)) {
-    return decided(best, `${canonicalText} ${unitLabel}: every value in that range breaks ${limitsText}.`, canonicalText, null, side, null, w, null);
+    return decided(
+      best,
+      `${canonicalText} ${unitLabel}: every value in that range breaks ${limitsText}.`,
+      canonicalText,
+      null,
+      side,
+      null,
+      w,
+      null,
+    );
   }
-  const advice = r.kind === "below" ? "A method with a lower limit of quantification is needed." : "Dilute and re-analyse within the method's range.";
-  return decided("inconclusive", `${canonicalText} ${unitLabel} cannot be decided against ${limitsText}: the true value may lie on either side. ${advice}`, canonicalText, null, side, null, w, null);
+  const advice =
+    r.kind === "below" ? "A method with a lower limit of quantification is needed." : "Dilute and re-analyse within the method's range.";
+  return decided(
+    "inconclusive",
+    `${canonicalText} ${unitLabel} cannot be decided against ${limitsText}: the true value may lie on either side. ${advice}`,
+    canonicalText,
+    null,
+    side,
+    null,
+    w,
+    null,
+  );
 }

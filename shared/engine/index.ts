@@ -61,7 +61,16 @@ export {
   usTaxClass,
   sulphiteStatement,
 } from "./labelling.ts";
-export type { Citation, WineCategory, StillSugarTerm, SparklingSugarTerm, SugarTermResult, AlcoholCheck, SulphiteTrigger, SulphiteMarket } from "./labelling.ts";
+export type {
+  Citation,
+  WineCategory,
+  StillSugarTerm,
+  SparklingSugarTerm,
+  SugarTermResult,
+  AlcoholCheck,
+  SulphiteTrigger,
+  SulphiteMarket,
+} from "./labelling.ts";
 
 /** Market rule packs: which limits apply to this wine in this market, and why. */
 export { MARKET_PACKS, MARKET_IDS, MarketError, applicableLimits, citationConfirmed, undeterminedText } from "./markets/index.ts";
@@ -100,7 +109,15 @@ export { diffSpecs, backtest, backtestSteps } from "./spec-compare.ts";
 export type { ParameterDiff, SideChange, DiffKind, PastResult, BacktestChange, BacktestSummary } from "./spec-compare.ts";
 
 /** zod schemas for the plain-data inputs above. */
-export { buyerRequirementSchema, decisionRuleSchema, guardBandSchema, wineProfileSchema, readingSchema, resultInputSchema, resultForParameterSchema } from "./schemas.ts";
+export {
+  buyerRequirementSchema,
+  decisionRuleSchema,
+  guardBandSchema,
+  wineProfileSchema,
+  readingSchema,
+  resultInputSchema,
+  resultForParameterSchema,
+} from "./schemas.ts";
 
 /** Fast path for large volumes: compiled requirements over columns of values. */
 export { STATEMENT_CODES, compileRequirement, evaluateMany } from "./batch.ts";

@@ -77,17 +77,49 @@ const outcomeOf = (en: ScoreReading, z: ScoreReading | null): ComparisonOutcome 
  * z uses σ_pt = the catalogue's standard uncertainty at the reference value, a fitness-for-purpose choice
  * (ISO 13528 allows σ_pt "by perception of experts"; Cellarpact's choice, stated on every comparison).
  */
-export function compareWithReference(parameterId: ParameterId, declared: ComparedResult | null, independent: ComparedResult): ResultComparison {
+export function compareWithReference(
+  parameterId: ParameterId,
+  declared: ComparedResult | null,
+  independent: ComparedResult,
+): ResultComparison {
   const def = parameter(parameterId);
   const unit = def.unit;
   const displayUnit = independent.unit;
-  const empty = { unit, displayUnit, declared: null, independent: null, difference: null, declaredU: null, independentU: null, uncertaintySources: null, en: null, z: null, sigmaPt: null };
-  if (!declared) return { parameter: parameterId, outcome: "not comparable", ...empty, explanation: "The producer declared no result for this parameter at this stage." };
+  const empty = {
+    unit,
+    displayUnit,
+    declared: null,
+    independent: null,
+    difference: null,
+    declaredU: null,
+    independentU: null,
+    uncertaintySources: null,
+    en: null,
+    z: null,
+    sigmaPt: null,
+  };
+  if (!declared)
+    return {
+      parameter: parameterId,
+      outcome: "not comparable",
+      ...empty,
+      explanation: "The producer declared no result for this parameter at this stage.",
+    };
   if (declared.reading.kind !== "value" || independent.reading.kind !== "value") {
     const bothBelow = declared.reading.kind === "below" && independent.reading.kind === "below";
-    const samePresence = declared.reading.kind === "presence" && independent.reading.kind === "presence" && declared.reading.present === independent.reading.present;
-    if (bothBelow || samePresence) return { parameter: parameterId, outcome: "agrees", ...empty, explanation: "Both laboratories report the same qualitative result." };
-    return { parameter: parameterId, outcome: "not comparable", ...empty, explanation: "At least one result is not a number (below a limit, above a range, or presence/absence), so no score can be computed; compare the reports by hand." };
+    const samePresence =
+      declared.reading.kind === "presence" &&
+      independent.reading.kind === "presence" &&
+      declared.reading.present === independent.reading.present;
+    if (bothBelow || samePresence)
+      return { parameter: parameterId, outcome: "agrees", ...empty, explanation: "Both laboratories report the same qualitative result." };
+    return {
+      parameter: parameterId,
+      outcome: "not comparable",
+      ...empty,
+      explanation:
+        "At least one result is not a number (below a limit, above a range, or presence/absence), so no score can be computed; compare the reports by hand.",
+    };
   }
   const x = convert(declared.reading.value, declared.unit, unit);
   const ref = convert(independent.reading.value, independent.unit, unit);
@@ -97,7 +129,13 @@ export function compareWithReference(parameterId: ParameterId, declared: Compare
   const sources = { declared: uDeclared.source, independent: uRef.source };
   const values = { unit, displayUnit, declared: x, independent: ref, difference: x - ref, uncertaintySources: sources };
   if (uDeclared.u === 0 && uRef.u === 0) {
-    return { parameter: parameterId, outcome: "not comparable", ...empty, ...values, explanation: "Neither result carries an uncertainty and the catalogue has no default for this parameter, so En cannot be computed." };
+    return {
+      parameter: parameterId,
+      outcome: "not comparable",
+      ...empty,
+      ...values,
+      explanation: "Neither result carries an uncertainty and the catalogue has no default for this parameter, so En cannot be computed.",
+    };
   }
   const en = enNumber(x, COVERAGE * uDeclared.u, ref, COVERAGE * uRef.u);
   const z = fitness.u > 0 ? zScore(x, ref, fitness.u) : null;
@@ -107,7 +145,9 @@ export function compareWithReference(parameterId: ParameterId, declared: Compare
   const explanation =
     `Declared ${shown(x)} against independent ${shown(ref)} ${UNITS[displayUnit].label}: En = ${fmt(en.en)} (|En| ≤ 1 agrees)` +
     (z ? `, z = ${fmt(z.z)} with σ_pt = ${shown(fitness.u)} (|z| ≤ 2 agrees, 2–3 questionable, ≥ 3 discrepant).` : ".") +
-    (uDeclared.source === "default" || uRef.source === "default" ? " A catalogue default uncertainty stood in where a laboratory reported none." : "");
+    (uDeclared.source === "default" || uRef.source === "default"
+      ? " A catalogue default uncertainty stood in where a laboratory reported none."
+      : "");
   return {
     parameter: parameterId,
     outcome,

@@ -77,8 +77,20 @@ export function euSparklingSugarTerms(sugarGPerL: number): SugarTermResult<Spark
 /** Allowed difference between the labelled and the analysed sugar content. */
 export function euSugarLabelTolerance(category: "still" | "sparkling"): { gPerL: number; citation: Citation; confirmed: string } {
   return category === "still"
-    ? { gPerL: 1, citation: { document: "Commission Delegated Regulation (EU) 2019/33", article: "Article 52(3)", edition: "OJ L 9, 11.1.2019" }, confirmed: "read in the German text" }
-    : { gPerL: 3, citation: { document: "Commission Regulation (EC) No 607/2009", article: "Article 58", edition: "predecessor text; the 2019/33 article is from memory" }, confirmed: "secondary source" };
+    ? {
+        gPerL: 1,
+        citation: { document: "Commission Delegated Regulation (EU) 2019/33", article: "Article 52(3)", edition: "OJ L 9, 11.1.2019" },
+        confirmed: "read in the German text",
+      }
+    : {
+        gPerL: 3,
+        citation: {
+          document: "Commission Regulation (EC) No 607/2009",
+          article: "Article 58",
+          edition: "predecessor text; the 2019/33 article is from memory",
+        },
+        confirmed: "secondary source",
+      };
 }
 
 // ---------------------------------------------------------------- alcohol
@@ -98,20 +110,31 @@ export interface AlcoholCheck {
  * analysis by 0.5 % vol, or 0.8 % vol for sparkling, semi-sparkling and liqueur wines and PDO/PGI
  * wines kept more than 3 years in bottle (607/2009 Art. 54(1); 2019/33 Art. 44 keeps it).
  */
-export function euAlcoholLabelCheck(labelled: number, measured: number, category: WineCategory, opts: { agedInBottleOver3Years?: boolean } = {}): AlcoholCheck {
+export function euAlcoholLabelCheck(
+  labelled: number,
+  measured: number,
+  category: WineCategory,
+  opts: { agedInBottleOver3Years?: boolean } = {},
+): AlcoholCheck {
   const wide = category !== "still" || opts.agedInBottleOver3Years === true;
   const tolerance = wide ? 0.8 : 0.5;
   const problems: string[] = [];
-  if (Math.abs(labelled * 2 - Math.round(labelled * 2)) > 1e-9) problems.push(`The label must state whole or half units of % vol; ${labelled} is neither.`);
+  if (Math.abs(labelled * 2 - Math.round(labelled * 2)) > 1e-9)
+    problems.push(`The label must state whole or half units of % vol; ${labelled} is neither.`);
   const allowed = { min: round(labelled - tolerance), max: round(labelled + tolerance) };
   const within = measured >= allowed.min - 1e-9 && measured <= allowed.max + 1e-9;
-  if (!within) problems.push(`The analysis (${measured} % vol) is outside ${allowed.min}–${allowed.max} % vol for a label of ${labelled} % vol.`);
+  if (!within)
+    problems.push(`The analysis (${measured} % vol) is outside ${allowed.min}–${allowed.max} % vol for a label of ${labelled} % vol.`);
   return {
     withinTolerance: within,
     tolerance,
     allowed,
     problems,
-    citation: { document: "Commission Delegated Regulation (EU) 2019/33", article: "Article 44 (tolerance as in Reg. (EC) 607/2009 Art. 54(1))", edition: "OJ L 9, 11.1.2019" },
+    citation: {
+      document: "Commission Delegated Regulation (EU) 2019/33",
+      article: "Article 44 (tolerance as in Reg. (EC) 607/2009 Art. 54(1))",
+      edition: "OJ L 9, 11.1.2019",
+    },
   };
 }
 
@@ -127,7 +150,10 @@ export function usTaxClass(abv: number): "not over 16%" | "over 16% to 21%" | "o
  * US: 1.5 percentage points for wines of 14 % or less, 1.0 point above 14 %; and whatever the
  * tolerance, the analysis must fall in the same tax class as the label (27 CFR 4.36).
  */
-export function usAlcoholLabelCheck(labelled: number, measured: number): AlcoholCheck & { taxClassLabel: string; taxClassMeasured: string } {
+export function usAlcoholLabelCheck(
+  labelled: number,
+  measured: number,
+): AlcoholCheck & { taxClassLabel: string; taxClassMeasured: string } {
   const tolerance = labelled <= 14 ? 1.5 : 1.0;
   const allowed = { min: round(labelled - tolerance), max: round(labelled + tolerance) };
   const problems: string[] = [];
@@ -171,22 +197,42 @@ export function sulphiteStatement(market: SulphiteMarket, totalSo2: Reading): Su
   const eu = market === "EU";
   const threshold = 10;
   const base = eu
-    ? { thresholdMgPerL: threshold, wording: "Contains sulphites", citation: { document: "Regulation (EU) No 1169/2011", article: "Annex II, item 12", edition: "OJ L 304, 22.11.2011" } }
-    : { thresholdMgPerL: threshold, wording: "Contains sulfites", citation: { document: "27 CFR", article: "§ 4.32(e)", edition: "current" } };
+    ? {
+        thresholdMgPerL: threshold,
+        wording: "Contains sulphites",
+        citation: { document: "Regulation (EU) No 1169/2011", article: "Annex II, item 12", edition: "OJ L 304, 22.11.2011" },
+      }
+    : {
+        thresholdMgPerL: threshold,
+        wording: "Contains sulfites",
+        citation: { document: "27 CFR", article: "§ 4.32(e)", edition: "current" },
+      };
   const triggers = (x: number) => (eu ? x > threshold : x >= threshold);
   switch (totalSo2.kind) {
     case "value":
-      return { ...base, required: triggers(totalSo2.value), reason: `total SO2 ${totalSo2.value} mg/L ${triggers(totalSo2.value) ? "reaches" : "stays under"} the ${eu ? "more than 10" : "10 or more"} mg/L trigger` };
+      return {
+        ...base,
+        required: triggers(totalSo2.value),
+        reason: `total SO2 ${totalSo2.value} mg/L ${triggers(totalSo2.value) ? "reaches" : "stays under"} the ${eu ? "more than 10" : "10 or more"} mg/L trigger`,
+      };
     case "below":
       if (totalSo2.limit !== null && totalSo2.limit <= threshold) {
         return { ...base, required: false, reason: `total SO2 below ${totalSo2.limit} mg/L, so under the trigger` };
       }
-      return { ...base, required: "undetermined", reason: "the reported limit of quantification is above the trigger; ask for a more sensitive method" };
+      return {
+        ...base,
+        required: "undetermined",
+        reason: "the reported limit of quantification is above the trigger; ask for a more sensitive method",
+      };
     case "above":
       // "> 8" could be 9 or 12: only a reading above the threshold itself settles it.
       return totalSo2.limit >= threshold
         ? { ...base, required: true, reason: `total SO2 above ${totalSo2.limit} mg/L, so over the trigger` }
-        : { ...base, required: "undetermined", reason: `total SO2 above ${totalSo2.limit} mg/L may lie on either side of the ${eu ? "more than 10" : "10 or more"} mg/L trigger; ask for the value` };
+        : {
+            ...base,
+            required: "undetermined",
+            reason: `total SO2 above ${totalSo2.limit} mg/L may lie on either side of the ${eu ? "more than 10" : "10 or more"} mg/L trigger; ask for the value`,
+          };
     case "presence":
       return { ...base, required: "undetermined", reason: "total SO2 must be reported as a number" };
   }

@@ -37,14 +37,20 @@ export interface ParseOptions {
   unit?: UnitId | string;
 }
 
-const NOT_DETECTED = /^(n\.?\s?d\.?|not detected|non détecté|non rilevato|no detectado|nicht nachweisbar|not quantified|n\.?\s?q\.?|tr\.?|traces?|< ?loq|< ?lod|< ?lq|< ?ld|< ?l\.?o\.?q\.?)$/i;
+const NOT_DETECTED =
+  /^(n\.?\s?d\.?|not detected|non détecté|non rilevato|no detectado|nicht nachweisbar|not quantified|n\.?\s?q\.?|tr\.?|traces?|< ?loq|< ?lod|< ?lq|< ?ld|< ?l\.?o\.?q\.?)$/i;
 /** "< LOQ (0.5)", "<LQ 0,5", "< LOD = 0.2": the reporting limit named, then given. */
 const NAMED_LIMIT = /^(?:<|≤|<=)\s*(?:l\.?o\.?q\.?|l\.?o\.?d\.?|l\.?q\.?|l\.?d\.?)\s*[(=:]?\s*([^)]+?)\s*\)?$/i;
 const PRESENT = /^(present|detected|positive|yes|crystals?|deposit)$/i;
 const ABSENT = /^(absent|none|negative|no|no deposit|clear)$/i;
 const MINUS = /[\u2212\u2012\u2013]/g;
 
-const UNIT_BY_TEXT = new Map(Object.keys(UNITS).flatMap((id) => [[id.toLowerCase(), id as UnitId], [UNITS[id as UnitId].label.toLowerCase(), id as UnitId]]));
+const UNIT_BY_TEXT = new Map(
+  Object.keys(UNITS).flatMap((id) => [
+    [id.toLowerCase(), id as UnitId],
+    [UNITS[id as UnitId].label.toLowerCase(), id as UnitId],
+  ]),
+);
 
 /**
  * One number written with a point or a comma as decimal mark. Thousands may be grouped with spaces
@@ -54,7 +60,10 @@ const UNIT_BY_TEXT = new Map(Object.keys(UNITS).flatMap((id) => [[id.toLowerCase
  * typing one result means it.
  */
 export function readNumber(text: string, format?: NumberFormat): { value: number } | { error: "unreadable" } {
-  let t = text.trim().replace(MINUS, "-").replace(/[\u00a0\u202f\u2009 ](?=\d{3}(\D|$))/g, "");
+  let t = text
+    .trim()
+    .replace(MINUS, "-")
+    .replace(/[\u00a0\u202f\u2009 ](?=\d{3}(\D|$))/g, "");
   if (!/^[+-]?[\d.,]+([eE][+-]?\d+)?$/.test(t) || !/\d/.test(t)) return { error: "unreadable" };
   const points = (t.match(/\./g) ?? []).length;
   const commas = (t.match(/,/g) ?? []).length;
@@ -63,7 +72,8 @@ export function readNumber(text: string, format?: NumberFormat): { value: number
     const decimal = t.lastIndexOf(".") > t.lastIndexOf(",") ? "." : ",";
     const thousands = decimal === "." ? "," : ".";
     const [whole, frac] = [t.slice(0, t.lastIndexOf(decimal)), t.slice(t.lastIndexOf(decimal) + 1)];
-    if (!new RegExp(`^[+-]?\\d{1,3}(\\${thousands}\\d{3})*$`).test(whole) || !/^\d+([eE][+-]?\d+)?$/.test(frac)) return { error: "unreadable" };
+    if (!new RegExp(`^[+-]?\\d{1,3}(\\${thousands}\\d{3})*$`).test(whole) || !/^\d+([eE][+-]?\d+)?$/.test(frac))
+      return { error: "unreadable" };
     t = `${whole.replaceAll(thousands, "")}.${frac}`;
   } else if (points + commas > 1) {
     const mark = points ? "." : ",";
@@ -101,7 +111,10 @@ function trailingUnit(text: string, whole: string, expected: string | undefined)
   if (!m) return { rest: text };
   const unit = UNIT_BY_TEXT.get(m[2]!.trim().replace("μ", "µ").toLowerCase());
   if (!unit) return { error: `"${whole}": "${m[2]!.trim()}" is not a unit Cellarpact knows.` };
-  if (expected && unit !== expected) return { error: `"${whole}" is in ${unit}, but this result is expected in ${UNITS[expected as UnitId]?.label ?? expected}; convert it or choose that unit.` };
+  if (expected && unit !== expected)
+    return {
+      error: `"${whole}" is in ${unit}, but this result is expected in ${UNITS[expected as UnitId]?.label ?? expected}; convert it or choose that unit.`,
+    };
   return { rest: m[1]!, unit };
 }
 
@@ -120,7 +133,8 @@ export function parseReading(raw: string, opts: ParseOptions = {}): ParseResult 
   if (pm) {
     const value = parseReading(pm[1]!, opts);
     if (!value.ok) return value;
-    if (value.reading.kind !== "value") return { ok: false, error: `"${text}": an uncertainty goes with a measured value, not a censored one.` };
+    if (value.reading.kind !== "value")
+      return { ok: false, error: `"${text}": an uncertainty goes with a measured value, not a censored one.` };
     const u = trailingUnit(pm[2]!, text, opts.unit ?? value.unit);
     if ("error" in u) return { ok: false, error: u.error };
     const n = readNumber(u.rest, opts.numberFormat);

@@ -4,7 +4,14 @@
  */
 import { acceptsUnit, findParameter, type ParameterId } from "./parameters.ts";
 import { convert, UNITS, type UnitId } from "./units.ts";
-import { applicableLimits, undeterminedText, type AppliedLimit, type MarketId, type UndeterminedLimit, type WineProfile } from "./markets/index.ts";
+import {
+  applicableLimits,
+  undeterminedText,
+  type AppliedLimit,
+  type MarketId,
+  type UndeterminedLimit,
+  type WineProfile,
+} from "./markets/index.ts";
 import type { DecisionRule } from "./decision.ts";
 
 export interface BuyerRequirement {
@@ -59,19 +66,32 @@ export function validateBuyerRequirement(row: BuyerRequirement): RequirementIssu
   const { lower, upper, target } = row;
   const has = (x: number | null | undefined): x is number => typeof x === "number" && Number.isFinite(x);
   if (p.kind === "presence") {
-    if (has(lower) || has(upper) || has(target)) issues.push({ severity: "error", field: "upper", message: `${p.name} is a present/absent result; it takes no numeric limits.` });
+    if (has(lower) || has(upper) || has(target))
+      issues.push({ severity: "error", field: "upper", message: `${p.name} is a present/absent result; it takes no numeric limits.` });
     return issues;
   }
-  if (!has(lower) && !has(upper)) issues.push({ severity: "error", field: "upper", message: "Give a lower limit, an upper limit, or both." });
-  if (has(lower) && has(upper) && lower > upper) issues.push({ severity: "error", field: "lower", message: `The lower limit (${fmt(lower)}) is above the upper limit (${fmt(upper)}).` });
+  if (!has(lower) && !has(upper))
+    issues.push({ severity: "error", field: "upper", message: "Give a lower limit, an upper limit, or both." });
+  if (has(lower) && has(upper) && lower > upper)
+    issues.push({
+      severity: "error",
+      field: "lower",
+      message: `The lower limit (${fmt(lower)}) is above the upper limit (${fmt(upper)}).`,
+    });
   if (has(target) && ((has(lower) && target < lower) || (has(upper) && target > upper))) {
     issues.push({ severity: "error", field: "target", message: "The target lies outside the range." });
   }
-  for (const [field, v] of [["lower", lower], ["upper", upper], ["target", target]] as const) {
+  for (const [field, v] of [
+    ["lower", lower],
+    ["upper", upper],
+    ["target", target],
+  ] as const) {
     if (has(v) && v < 0 && p.unit !== "pH") issues.push({ severity: "error", field, message: `${p.name} cannot be negative.` });
   }
-  if (has(lower) && p.bounds === "upper") issues.push({ severity: "warning", field: "lower", message: `${p.name} usually has only an upper limit.` });
-  if (has(upper) && p.bounds === "lower") issues.push({ severity: "warning", field: "upper", message: `${p.name} usually has only a lower limit.` });
+  if (has(lower) && p.bounds === "upper")
+    issues.push({ severity: "warning", field: "lower", message: `${p.name} usually has only an upper limit.` });
+  if (has(upper) && p.bounds === "lower")
+    issues.push({ severity: "warning", field: "upper", message: `${p.name} usually has only a lower limit.` });
   if (row.rule.kind !== "simple" && !(row.rule.guard.k > 0 && row.rule.guard.k <= 5)) {
     issues.push({ severity: "error", field: "rule", message: "The guard band factor k must be above 0 and at most 5." });
   }
@@ -105,7 +125,11 @@ export function buildRequirement(
   const lawMax = strictest("max");
   const lawMin = strictest("min");
 
-  const pick = (buyer: number | undefined, law: AppliedLimit | undefined, stricter: (a: number, b: number) => boolean): GoverningBound | undefined => {
+  const pick = (
+    buyer: number | undefined,
+    law: AppliedLimit | undefined,
+    stricter: (a: number, b: number) => boolean,
+  ): GoverningBound | undefined => {
     if (buyer === undefined && !law) return undefined;
     if (law && (buyer === undefined || stricter(law.value, buyer))) return { value: law.value, source: { kind: "law", limit: law } };
     return { value: buyer!, source: { kind: "buyer" } };
@@ -129,10 +153,25 @@ export function buildRequirement(
     });
   }
   if (upper && lower && lower.value > upper.value) {
-    issues.push({ severity: "error", field: "lower", message: "With the legal limits applied, the lower limit lies above the upper limit: no wine could conform." });
+    issues.push({
+      severity: "error",
+      field: "lower",
+      message: "With the legal limits applied, the lower limit lies above the upper limit: no wine could conform.",
+    });
   }
-  for (const u of undetermined) issues.push({ severity: "warning", field: "parameter", message: `${undeterminedText(u)} State it on the contract to decide.` });
-  return { parameter: id, unit: p.unit, lower, upper, target: toCanonical(row.target), rule: row.rule, legalLimits: limits, undetermined, issues };
+  for (const u of undetermined)
+    issues.push({ severity: "warning", field: "parameter", message: `${undeterminedText(u)} State it on the contract to decide.` });
+  return {
+    parameter: id,
+    unit: p.unit,
+    lower,
+    upper,
+    target: toCanonical(row.target),
+    rule: row.rule,
+    legalLimits: limits,
+    undetermined,
+    issues,
+  };
 }
 
 export class RequirementError extends Error {

@@ -68,7 +68,11 @@ export const resultInputSchema = z.object({
   reading: readingSchema,
   unit: z.enum(unitIds),
   uncertainty: z
-    .object({ kind: z.enum(["expanded", "standard", "relative"]), value: finite.min(0), k: z.number().gt(0, { error: "A coverage factor k must be above 0." }).lte(5).optional() })
+    .object({
+      kind: z.enum(["expanded", "standard", "relative"]),
+      value: finite.min(0),
+      k: z.number().gt(0, { error: "A coverage factor k must be above 0." }).lte(5).optional(),
+    })
     .nullish(),
   densityGPerMl: z.number().gt(0.5).lt(2).optional(),
 });
@@ -80,7 +84,11 @@ export function resultForParameterSchema(parameterId: string) {
     if (!p) return ctx.addIssue({ code: "custom", path: ["unit"], message: `Unknown parameter "${parameterId}".` });
     if (!acceptsUnit(p, r.unit)) ctx.addIssue({ code: "custom", path: ["unit"], message: `${r.unit} is not a unit for ${p.name}.` });
     if ((p.kind === "presence") !== (r.reading.kind === "presence")) {
-      ctx.addIssue({ code: "custom", path: ["reading"], message: p.kind === "presence" ? `${p.name} is reported as present or absent.` : `${p.name} needs a numeric result.` });
+      ctx.addIssue({
+        code: "custom",
+        path: ["reading"],
+        message: p.kind === "presence" ? `${p.name} is reported as present or absent.` : `${p.name} needs a numeric result.`,
+      });
     }
   });
 }

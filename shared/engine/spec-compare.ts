@@ -51,7 +51,10 @@ export function diffSpecs(before: readonly BuyerRequirement[], after: readonly B
     const y = b.get(id);
     if (!x) return { parameter: id, name, kind: "added", sides: [], otherChanges: [] };
     if (!y) return { parameter: id, name, kind: "removed", sides: [], otherChanges: [] };
-    const sides = [sideChange("lower", canonical(x, x.lower), canonical(y, y.lower)), sideChange("upper", canonical(x, x.upper), canonical(y, y.upper))];
+    const sides = [
+      sideChange("lower", canonical(x, x.lower), canonical(y, y.lower)),
+      sideChange("upper", canonical(x, x.upper), canonical(y, y.upper)),
+    ];
     const t = sides.some((s) => s.change === "tightened");
     const l = sides.some((s) => s.change === "loosened");
     const otherChanges: string[] = [];
@@ -134,7 +137,12 @@ export function* backtestSteps(
     if (passingOutcome(after) && failing(before)) newlyPassing.push(change);
     if ((i + 1) % stepSize === 0) yield { done: i + 1, total: results.length };
   }
-  return { checked: results.length, newlyFailing, newlyPassing, sentences: summarise(newlyFailing, "fail").concat(summarise(newlyPassing, "pass")) };
+  return {
+    checked: results.length,
+    newlyFailing,
+    newlyPassing,
+    sentences: summarise(newlyFailing, "fail").concat(summarise(newlyPassing, "pass")),
+  };
 }
 
 export function backtest(...args: Parameters<typeof backtestSteps>): BacktestSummary {

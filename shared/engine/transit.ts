@@ -22,7 +22,12 @@ const PRACTICE = "Cellarpact default (common practice; no published source)";
  * up to 4 mg/L of free SO2 (AWRI, "Gas adjustment"), so a 2.5 mg/L oxygen pick-up costs about 10 mg/L.
  */
 export const DEFAULT_DRIFT_ALLOWANCES: readonly DriftAllowance[] = [
-  { parameter: "free_so2", direction: "decrease", allowed: 10, basis: `${PRACTICE}; about 2.5 mg/L of O2 at up to 4 mg/L SO2 per mg/L O2 (AWRI)` },
+  {
+    parameter: "free_so2",
+    direction: "decrease",
+    allowed: 10,
+    basis: `${PRACTICE}; about 2.5 mg/L of O2 at up to 4 mg/L SO2 per mg/L O2 (AWRI)`,
+  },
   { parameter: "total_so2", direction: "decrease", allowed: 15, basis: PRACTICE },
   { parameter: "dissolved_oxygen", direction: "increase", allowed: 1, basis: PRACTICE },
   { parameter: "volatile_acidity", direction: "increase", allowed: 1.7, basis: `${PRACTICE}; about 0.1 g/L as acetic acid` },
@@ -83,4 +88,3 @@ export function compareTransit(
   }
   return findings;
 }
-

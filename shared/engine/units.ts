@@ -93,6 +93,11 @@ export function convert(value: number, from: UnitId, to: UnitId, opts: { density
   }
 }
 
-export function convertQuantity<F extends UnitId, T extends UnitId>(q: Quantity<F>, from: F, to: T, opts?: { densityGPerMl?: number }): Quantity<T> {
+export function convertQuantity<F extends UnitId, T extends UnitId>(
+  q: Quantity<F>,
+  from: F,
+  to: T,
+  opts?: { densityGPerMl?: number },
+): Quantity<T> {
   return convert(q, from, to, opts) as Quantity<T>;
 }

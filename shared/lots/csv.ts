@@ -3,7 +3,17 @@
  * headers or from their own column, "value ± U" cells, and row-by-row errors. Parsing the file
  * itself is papaparse's job; this module only sees rows of strings.
  */
-import { acceptsUnit, findParameter, implausibility, isUnit, parseDecimal, parseReading, PARAMETERS, type NumberFormat, type UnitId } from "../engine/index.ts";
+import {
+  acceptsUnit,
+  findParameter,
+  implausibility,
+  isUnit,
+  parseDecimal,
+  parseReading,
+  PARAMETERS,
+  type NumberFormat,
+  type UnitId,
+} from "../engine/index.ts";
 import { foldHeader, parameterForHeaderName } from "./header-synonyms.ts";
 import { resultEntrySchema, type ResultEntry } from "./schemas.ts";
 
@@ -37,9 +47,43 @@ export interface RowError {
 }
 
 const UNIT_ALIASES: Record<string, UnitId> = {
-  "mg/l": "mg/L", "mg/dm3": "mg/L", "g/l": "g/L", "g/dm3": "g/L", "ug/l": "µg/L", "µg/l": "µg/L", "mcg/l": "µg/L", "ng/l": "ng/L", ppm: "ppm", "mg/kg": "mg/kg", "µg/kg": "µg/kg", "ug/kg": "µg/kg",
-  "%vol": "% vol", "% vol": "% vol", "% vol.": "% vol", "%v/v": "% vol", "% v/v": "% vol", "vol%": "% vol", "vol.%": "% vol", "% vol%": "% vol", "%abv": "% vol", "% abv": "% vol", "meq/l": "meq/L", "mequiv/l": "meq/L",
-  ntu: "NTU", "cfu/ml": "CFU/mL", "ufc/ml": "CFU/mL", "kbe/ml": "CFU/mL", "cfu/100ml": "CFU/100 mL", "cfu/100 ml": "CFU/100 mL", "ufc/100ml": "CFU/100 mL", "cfu/l": "CFU/L", ph: "pH", "g/ml": "g/mL", "g/cm3": "g/mL", "kg/m3": "kg/m³", "%": "%",
+  "mg/l": "mg/L",
+  "mg/dm3": "mg/L",
+  "g/l": "g/L",
+  "g/dm3": "g/L",
+  "ug/l": "µg/L",
+  "µg/l": "µg/L",
+  "mcg/l": "µg/L",
+  "ng/l": "ng/L",
+  ppm: "ppm",
+  "mg/kg": "mg/kg",
+  "µg/kg": "µg/kg",
+  "ug/kg": "µg/kg",
+  "%vol": "% vol",
+  "% vol": "% vol",
+  "% vol.": "% vol",
+  "%v/v": "% vol",
+  "% v/v": "% vol",
+  "vol%": "% vol",
+  "vol.%": "% vol",
+  "% vol%": "% vol",
+  "%abv": "% vol",
+  "% abv": "% vol",
+  "meq/l": "meq/L",
+  "mequiv/l": "meq/L",
+  ntu: "NTU",
+  "cfu/ml": "CFU/mL",
+  "ufc/ml": "CFU/mL",
+  "kbe/ml": "CFU/mL",
+  "cfu/100ml": "CFU/100 mL",
+  "cfu/100 ml": "CFU/100 mL",
+  "ufc/100ml": "CFU/100 mL",
+  "cfu/l": "CFU/L",
+  ph: "pH",
+  "g/ml": "g/mL",
+  "g/cm3": "g/mL",
+  "kg/m3": "kg/m³",
+  "%": "%",
   "g/l ethanol": "g/L ethanol",
 };
 
@@ -60,7 +104,9 @@ const squash = (s: string) => foldHeader(s).replace(/\s*\/\s*/g, "/");
 export function normaliseUnit(text: string): UnitId | null {
   const t = text.trim();
   if (isUnit(t)) return t;
-  const plain = squash(t).replace(/[()[\]]/g, "").trim();
+  const plain = squash(t)
+    .replace(/[()[\]]/g, "")
+    .trim();
   if (UNIT_ALIASES[plain]) return UNIT_ALIASES[plain];
   const acid = ACID_EXPRESSIONS.find(([re]) => re.test(plain))?.[1];
   if (acid) {
@@ -109,13 +155,21 @@ export function guessMapping(headers: readonly string[]): ColumnRole[] {
   const roles = headers.map((h): ColumnRole => {
     const t = foldHeader(h);
     // The usual column names in English, French, Italian, Spanish, German and Portuguese (folded: no accents).
-    if (/^(lot|lot code|lot no\.?|lot number|batch|sample id|sample|lotto|lote|partie|charge|numero de lot|n° lot)$/.test(t)) return { kind: "lot" };
+    if (/^(lot|lot code|lot no\.?|lot number|batch|sample id|sample|lotto|lote|partie|charge|numero de lot|n° lot)$/.test(t))
+      return { kind: "lot" };
     if (/^(vintage|harvest|harvest year|millesime|annata|vendemmia|cosecha|anada|jahrgang|colheita)$/.test(t)) return { kind: "vintage" };
-    if (/^(date|sample date|sampling date|sampled|date de prelevement|date d'analyse|data|data prelievo|data di campionamento|fecha|fecha de muestreo|datum|probenahmedatum|data de amostragem|data da colheita da amostra)$/.test(t)) return { kind: "date" };
-    if (/^(parameter|analyte|determinand|test|parametre|parametro|parameter name|analyse|analisi|analisis|analise)$/.test(t)) return { kind: "parameter-name" };
+    if (
+      /^(date|sample date|sampling date|sampled|date de prelevement|date d'analyse|data|data prelievo|data di campionamento|fecha|fecha de muestreo|datum|probenahmedatum|data de amostragem|data da colheita da amostra)$/.test(
+        t,
+      )
+    )
+      return { kind: "date" };
+    if (/^(parameter|analyte|determinand|test|parametre|parametro|parameter name|analyse|analisi|analisis|analise)$/.test(t))
+      return { kind: "parameter-name" };
     if (/^(value|result|valeur|resultat|valore|risultato|valor|resultado|wert|ergebnis)$/.test(t)) return { kind: "value" };
     if (/^(unit|units|unite|unita|unidad|einheit|unidade)$/.test(t)) return { kind: "unit" };
-    if (/^(uncertainty|u|expanded uncertainty|±|\+\/-|incertitude|incertezza|incertidumbre|messunsicherheit|incerteza)$/.test(t)) return { kind: "uncertainty" };
+    if (/^(uncertainty|u|expanded uncertainty|±|\+\/-|incertitude|incertezza|incertidumbre|messunsicherheit|incerteza)$/.test(t))
+      return { kind: "uncertainty" };
     if (/^(method|method ref(erence)?|methode|metodo|methode ref)$/.test(t)) return { kind: "method" };
     const { parameter, unit, unitText } = parseHeader(h);
     if (parameter) return { kind: "parameter", parameter, unit: statedUnit(parameter, unit), headerUnit: unitText };
@@ -147,11 +201,23 @@ export function splitPlusMinus(cell: string): { raw: string; uncertainty: number
   return { raw: m[1]!.trim(), uncertainty: parseDecimal(m[2]!) };
 }
 
-function entry(parameter: string, cell: string, unit: UnitId, extra: { uncertainty?: string; method?: string }): { ok: true; value: ResultEntry } | { ok: false; message: string } {
+function entry(
+  parameter: string,
+  cell: string,
+  unit: UnitId,
+  extra: { uncertainty?: string; method?: string },
+): { ok: true; value: ResultEntry } | { ok: false; message: string } {
   const { raw, uncertainty } = splitPlusMinus(cell);
   const u = extra.uncertainty?.trim() ? parseDecimal(extra.uncertainty) : uncertainty;
-  if ((extra.uncertainty?.trim() && u === null) || (uncertainty === null && /±|\+\/-/.test(cell))) return { ok: false, message: `"${cell}": the uncertainty is not a number.` };
-  const parsed = resultEntrySchema.safeParse({ parameter, raw, unit, uncertainty: u === null ? null : { kind: "expanded", value: u, k: 2 }, method: extra.method?.trim() || null });
+  if ((extra.uncertainty?.trim() && u === null) || (uncertainty === null && /±|\+\/-/.test(cell)))
+    return { ok: false, message: `"${cell}": the uncertainty is not a number.` };
+  const parsed = resultEntrySchema.safeParse({
+    parameter,
+    raw,
+    unit,
+    uncertainty: u === null ? null : { kind: "expanded", value: u, k: 2 },
+    method: extra.method?.trim() || null,
+  });
   if (!parsed.success) return { ok: false, message: parsed.error.issues.map((i) => i.message).join(" ") };
   return { ok: true, value: parsed.data };
 }
@@ -171,7 +237,10 @@ export function buildSamples(
   const implausible: RowError[] = [];
   let rowFlags: RowError[] = [];
   const check = (r: ResultEntry, rowNo: number, column: string | null) => {
-    const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence", ...(defaults.numberFormat ? { numberFormat: defaults.numberFormat } : {}) });
+    const parsed = parseReading(r.raw, {
+      presence: findParameter(r.parameter)?.kind === "presence",
+      ...(defaults.numberFormat ? { numberFormat: defaults.numberFormat } : {}),
+    });
     const why = parsed.ok ? implausibility(r.parameter, parsed.reading, r.unit) : null;
     if (why) rowFlags.push({ row: rowNo, column, message: why });
   };
@@ -179,8 +248,10 @@ export function buildSamples(
   const lotCol = col("lot");
   if (lotCol < 0) return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map one column to the lot code." }] };
   const long = col("parameter-name") >= 0;
-  if (long && col("value") < 0) return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map one column to the result value." }] };
-  if (!long && !mapping.some((m) => m.kind === "parameter")) return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map at least one column to a parameter." }] };
+  if (long && col("value") < 0)
+    return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map one column to the result value." }] };
+  if (!long && !mapping.some((m) => m.kind === "parameter"))
+    return { samples: [], implausible, errors: [{ row: 0, column: null, message: "Map at least one column to a parameter." }] };
   const unitless = mapping.flatMap((m, c) => (m.kind === "parameter" && m.unit === null ? [c] : []));
   if (unitless.length) {
     return {
@@ -188,8 +259,14 @@ export function buildSamples(
       implausible,
       errors: unitless.map((c) => {
         const m = mapping[c] as Extract<ColumnRole, { kind: "parameter" }>;
-        const said = m.headerUnit ? `the header says "${m.headerUnit}", which is not a unit ${findParameter(m.parameter)!.name} can be read in` : "the header does not say";
-        return { row: 0, column: headers[c] ?? null, message: `Choose the unit of column "${headers[c]}": ${said}. Cellarpact never guesses a unit.` };
+        const said = m.headerUnit
+          ? `the header says "${m.headerUnit}", which is not a unit ${findParameter(m.parameter)!.name} can be read in`
+          : "the header does not say";
+        return {
+          row: 0,
+          column: headers[c] ?? null,
+          message: `Choose the unit of column "${headers[c]}": ${said}. Cellarpact never guesses a unit.`,
+        };
       }),
     };
   }
@@ -206,10 +283,16 @@ export function buildSamples(
     if (!lotCode) return errors.push({ row: rowNo, column: headers[lotCol] ?? null, message: "The lot code is empty." });
     const vintageText = vintageCol >= 0 ? (cells[vintageCol] ?? "").trim() : "";
     const vintage = vintageText ? Number(vintageText) : null;
-    if (vintageText && !(Number.isInteger(vintage) && vintage! >= 1950 && vintage! <= 2100)) return errors.push({ row: rowNo, column: headers[vintageCol] ?? null, message: `"${vintageText}" is not a vintage.` });
+    if (vintageText && !(Number.isInteger(vintage) && vintage! >= 1950 && vintage! <= 2100))
+      return errors.push({ row: rowNo, column: headers[vintageCol] ?? null, message: `"${vintageText}" is not a vintage.` });
     const dateText = dateCol >= 0 ? (cells[dateCol] ?? "").trim() : "";
     const sampleDate = dateText ? normaliseDate(dateText) : defaults.sampleDate;
-    if (!sampleDate) return errors.push({ row: rowNo, column: headers[dateCol] ?? null, message: `"${dateText}" is not a date; use 2026-03-31 or 31/03/2026.` });
+    if (!sampleDate)
+      return errors.push({
+        row: rowNo,
+        column: headers[dateCol] ?? null,
+        message: `"${dateText}" is not a date; use 2026-03-31 or 31/03/2026.`,
+      });
 
     const results: ResultEntry[] = [];
     let bad = false;
@@ -219,14 +302,27 @@ export function buildSamples(
       const unitText = col("unit") >= 0 ? (cells[col("unit")] ?? "").trim() : "";
       const unit = parameter ? statedUnit(parameter, unitText ? normaliseUnit(unitText) : null) : null;
       if (!parameter) {
-        errors.push({ row: rowNo, column: headers[col("parameter-name")] ?? null, message: `"${name}" is not a parameter Cellarpact knows.` });
+        errors.push({
+          row: rowNo,
+          column: headers[col("parameter-name")] ?? null,
+          message: `"${name}" is not a parameter Cellarpact knows.`,
+        });
         bad = true;
       } else if (!unit) {
         const name = findParameter(parameter)!.name;
-        errors.push({ row: rowNo, column: headers[col("unit")] ?? null, message: unitText ? `"${unitText}" is not a unit ${name} can be read in.` : `No unit for ${name}: map the column that holds each result's unit.` });
+        errors.push({
+          row: rowNo,
+          column: headers[col("unit")] ?? null,
+          message: unitText
+            ? `"${unitText}" is not a unit ${name} can be read in.`
+            : `No unit for ${name}: map the column that holds each result's unit.`,
+        });
         bad = true;
       } else {
-        const r = entry(parameter, cells[col("value")] ?? "", unit, { uncertainty: col("uncertainty") >= 0 ? cells[col("uncertainty")] : undefined, method: col("method") >= 0 ? cells[col("method")] : undefined });
+        const r = entry(parameter, cells[col("value")] ?? "", unit, {
+          uncertainty: col("uncertainty") >= 0 ? cells[col("uncertainty")] : undefined,
+          method: col("method") >= 0 ? cells[col("method")] : undefined,
+        });
         if (r.ok) {
           results.push(r.value);
           check(r.value, rowNo, headers[col("value")] ?? null);
@@ -259,7 +355,11 @@ export function buildSamples(
     const sample = byKey.get(key) ?? { lotCode, vintage, sampleDate, results: [], rows: [] };
     for (const r of results) {
       if (sample.results.some((x) => x.parameter === r.parameter)) {
-        errors.push({ row: rowNo, column: null, message: `${findParameter(r.parameter)!.name} appears twice for lot ${lotCode} on ${sampleDate}.` });
+        errors.push({
+          row: rowNo,
+          column: null,
+          message: `${findParameter(r.parameter)!.name} appears twice for lot ${lotCode} on ${sampleDate}.`,
+        });
         return;
       }
     }

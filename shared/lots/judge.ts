@@ -41,15 +41,32 @@ export interface ReadResult {
 }
 
 /** `numberFormat`: how the laboratory writes numbers, when it said; it decides a number that reads two ways ("1.234"). */
-export function readResult(r: { parameter: string; raw: string; unit: string; uncertainty?: ReportedUncertainty | null }, numberFormat?: NumberFormat | null): ReadResult {
-  const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence", unit: r.unit, ...(numberFormat ? { numberFormat } : {}) });
+export function readResult(
+  r: { parameter: string; raw: string; unit: string; uncertainty?: ReportedUncertainty | null },
+  numberFormat?: NumberFormat | null,
+): ReadResult {
+  const parsed = parseReading(r.raw, {
+    presence: findParameter(r.parameter)?.kind === "presence",
+    unit: r.unit,
+    ...(numberFormat ? { numberFormat } : {}),
+  });
   const base = { parameter: r.parameter, raw: r.raw, unit: r.unit, uncertainty: r.uncertainty ?? null };
   // "0.82 ± 0.05" carries its own expanded uncertainty.
-  return parsed.ok ? { ...base, uncertainty: base.uncertainty ?? parsed.uncertainty ?? null, reading: parsed.reading } : { ...base, reading: null, error: parsed.error };
+  return parsed.ok
+    ? { ...base, uncertainty: base.uncertainty ?? parsed.uncertainty ?? null, reading: parsed.reading }
+    : { ...base, reading: null, error: parsed.error };
 }
 
 /** From best to worst: a missing required result outweighs a conditional pass, a fail outweighs everything. */
-export const OUTCOME_RANK: readonly Outcome[] = ["not required", "pass", "conditional pass", "missing", "inconclusive", "conditional fail", "fail"];
+export const OUTCOME_RANK: readonly Outcome[] = [
+  "not required",
+  "pass",
+  "conditional pass",
+  "missing",
+  "inconclusive",
+  "conditional fail",
+  "fail",
+];
 
 export const worstOf = (outcomes: Iterable<Outcome>): Outcome => {
   let w: Outcome = "not required";
@@ -95,7 +112,15 @@ function withDensity(judge: Judge, densityGPerMl: number): Judge {
   let cache = BY_DENSITY.get(judge);
   if (!cache) BY_DENSITY.set(judge, (cache = new Map()));
   let j = cache.get(densityGPerMl);
-  if (!j) cache.set(densityGPerMl, (j = { ...judge, densityGPerMl, built: new Map(judge.rows.map((r) => [r.parameter, buildRequirement(r, judge.markets, judge.profile, { densityGPerMl })])) }));
+  if (!j)
+    cache.set(
+      densityGPerMl,
+      (j = {
+        ...judge,
+        densityGPerMl,
+        built: new Map(judge.rows.map((r) => [r.parameter, buildRequirement(r, judge.markets, judge.profile, { densityGPerMl })])),
+      }),
+    );
   return j;
 }
 
@@ -109,13 +134,22 @@ function measuredDensity(results: readonly ReadResult[]): number | undefined {
 
 function storedBound(b: GoverningBound | undefined): StoredBound | null {
   if (!b) return null;
-  return b.source.kind === "buyer" ? { value: b.value, source: "buyer" } : { value: b.value, source: "law", market: b.source.limit.market, citation: b.source.limit.citation };
+  return b.source.kind === "buyer"
+    ? { value: b.value, source: "buyer" }
+    : { value: b.value, source: "law", market: b.source.limit.market, citation: b.source.limit.citation };
 }
 
 /** The verdict of one spec row, given the result for it (or none). */
 export function judgeRow(judge: Judge, row: RequirementView, stage: AnalysisStage, result: ReadResult | undefined): StoredVerdict {
   const req = judge.built.get(row.parameter)!;
-  const input = result?.reading ? { reading: result.reading, unit: result.unit as UnitId, uncertainty: result.uncertainty, ...(judge.densityGPerMl ? { densityGPerMl: judge.densityGPerMl } : {}) } : null;
+  const input = result?.reading
+    ? {
+        reading: result.reading,
+        unit: result.unit as UnitId,
+        uncertainty: result.uncertainty,
+        ...(judge.densityGPerMl ? { densityGPerMl: judge.densityGPerMl } : {}),
+      }
+    : null;
   const v = evaluate(req, input, { requiredAtStage: row.stages.includes(specStageFor(stage)), displayUnit: row.unit as UnitId });
   return {
     parameter: row.parameter,
@@ -134,7 +168,13 @@ export function judgeRow(judge: Judge, row: RequirementView, stage: AnalysisStag
     guardBand: v.guardBand,
     conformanceProbability: v.conformanceProbability,
     ruleText: v.ruleText,
-    legalLimits: req.legalLimits.map((l) => ({ market: l.market, side: l.side, value: l.value, citation: l.citation, confirmed: l.confirmed })),
+    legalLimits: req.legalLimits.map((l) => ({
+      market: l.market,
+      side: l.side,
+      value: l.value,
+      citation: l.citation,
+      confirmed: l.confirmed,
+    })),
   };
 }
 
@@ -167,7 +207,12 @@ export interface Judgement {
  * Judges one analysis. `onlyReported` is for an independent audit, which speaks only for the
  * parameters ordered: the spec's other rows are then not "missing" from it.
  */
-export function judgeAnalysis(judge0: Judge, stage: AnalysisStage, results: readonly ReadResult[], opts: { onlyReported?: boolean } = {}): Judgement {
+export function judgeAnalysis(
+  judge0: Judge,
+  stage: AnalysisStage,
+  results: readonly ReadResult[],
+  opts: { onlyReported?: boolean } = {},
+): Judgement {
   const density = measuredDensity(results);
   const judge = density !== undefined && density !== 1 ? withDensity(judge0, density) : judge0;
   const byParameter = new Map(results.map((r) => [r.parameter, r]));
@@ -184,13 +229,17 @@ export function judgeAnalysis(judge0: Judge, stage: AnalysisStage, results: read
 }
 
 /** The values of one analysis in canonical units, for comparing arrival with pre-shipment. */
-export function transitValues(results: readonly { parameter: string; reading: Reading | null; unit: string; uncertainty?: ReportedUncertainty | null }[]) {
+export function transitValues(
+  results: readonly { parameter: string; reading: Reading | null; unit: string; uncertainty?: ReportedUncertainty | null }[],
+) {
   const out: Partial<Record<ParameterId, TransitValue>> = {};
   for (const r of results) {
     const p = findParameter(r.parameter);
     if (!p || r.reading?.kind !== "value") continue;
     const value = convert(r.reading.value, r.unit as UnitId, p.unit);
-    const u = r.uncertainty ? convert(r.uncertainty.value, r.unit as UnitId, p.unit) / (r.uncertainty.kind === "expanded" ? (r.uncertainty.k ?? 2) : 1) : undefined;
+    const u = r.uncertainty
+      ? convert(r.uncertainty.value, r.unit as UnitId, p.unit) / (r.uncertainty.kind === "expanded" ? (r.uncertainty.k ?? 2) : 1)
+      : undefined;
     out[p.id as ParameterId] = u === undefined ? { value } : { value, u };
   }
   return out;

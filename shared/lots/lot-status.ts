@@ -8,7 +8,15 @@ import type { DeviationCondition, DeviationDecision, DeviationKind, DeviationSta
 import { isFailing, worstOf } from "./judge.ts";
 import { specStageFor, type AnalysisStage } from "./vocabulary.ts";
 
-export const LOT_STATUSES = ["awaiting_results", "incomplete", "conforms", "conforms_conditionally", "does_not_conform", "concession", "rejected"] as const;
+export const LOT_STATUSES = [
+  "awaiting_results",
+  "incomplete",
+  "conforms",
+  "conforms_conditionally",
+  "does_not_conform",
+  "concession",
+  "rejected",
+] as const;
 export type LotStatusCode = (typeof LOT_STATUSES)[number];
 
 export const LOT_STATUS_LABELS: Record<LotStatusCode, string> = {
@@ -61,7 +69,8 @@ export interface LotStatus {
 
 const isDecided = (d: StatusDeviation) => (d.status === "decided" || d.status === "closed") && d.decision !== null;
 /** Not yet decided: open, in discussion, or agreed between the parties but not yet recorded by the buyer. */
-export const isOpenDeviation = (d: { status: DeviationStatus }) => d.status === "open" || d.status === "in_discussion" || d.status === "agreed";
+export const isOpenDeviation = (d: { status: DeviationStatus }) =>
+  d.status === "open" || d.status === "in_discussion" || d.status === "agreed";
 
 /**
  * The analyses a status rests on: the latest judged analysis of each spec stage (a re-test stands
@@ -81,7 +90,11 @@ function words(code: LotStatusCode, reason: string, rest: Omit<LotStatus, "code"
   return { code, label: LOT_STATUS_LABELS[code], reason, ...rest };
 }
 
-export function lotStatus(analyses: readonly StatusAnalysis[], deviations: readonly StatusDeviation[], names: (parameter: string) => string = (p) => p): LotStatus {
+export function lotStatus(
+  analyses: readonly StatusAnalysis[],
+  deviations: readonly StatusDeviation[],
+  names: (parameter: string) => string = (p) => p,
+): LotStatus {
   const counting = countingAnalyses(analyses);
   const verdicts = counting.flatMap((a) => a.evaluation!.verdicts);
   const failing = [...new Set(verdicts.filter((v) => isFailing(v.outcome)).map((v) => v.parameter))];
@@ -96,11 +109,21 @@ export function lotStatus(analyses: readonly StatusAnalysis[], deviations: reado
   const list = (ps: string[]) => ps.map(names).join(", ");
 
   const rejected = deviations.find((d) => isDecided(d) && d.decision!.outcome === "rejected");
-  if (rejected) return words("rejected", `Rejected by the buyer's decision on deviation #${rejected.id}: ${rejected.decision!.reason}`, { ...base, rejection: { deviationId: rejected.id, reason: rejected.decision!.reason } });
+  if (rejected)
+    return words("rejected", `Rejected by the buyer's decision on deviation #${rejected.id}: ${rejected.decision!.reason}`, {
+      ...base,
+      rejection: { deviationId: rejected.id, reason: rejected.decision!.reason },
+    });
 
   if (!verdicts.length || worstOf(verdicts.map((v) => v.outcome)) === "not required") {
     const unjudged = analyses.length > 0 && counting.length === 0;
-    return words("awaiting_results", unjudged ? "Results are stored, but no agreed specification covers this vintage, so none has been judged." : "No result has yet been judged against an agreed specification at a stage that requires it.", base);
+    return words(
+      "awaiting_results",
+      unjudged
+        ? "Results are stored, but no agreed specification covers this vintage, so none has been judged."
+        : "No result has yet been judged against an agreed specification at a stage that requires it.",
+      base,
+    );
   }
 
   const concessions = deviations.filter((d) => isDecided(d) && d.decision!.outcome === "concession");
@@ -114,16 +137,30 @@ export function lotStatus(analyses: readonly StatusAnalysis[], deviations: reado
   }
   if (worst === "missing" || worst === "inconclusive") {
     const open = [...new Set(unconceded.filter((v) => v.outcome === worst).map((v) => v.parameter))];
-    return words("incomplete", worst === "missing" ? `Required results are missing: ${list(open)}.` : `Results cannot be decided against their limits: ${list(open)}.`, base);
+    return words(
+      "incomplete",
+      worst === "missing"
+        ? `Required results are missing: ${list(open)}.`
+        : `Results cannot be decided against their limits: ${list(open)}.`,
+      base,
+    );
   }
   if (failing.length) {
     const d = concededBy(failing[0]!)!;
     const conditions = concessions.filter((c) => failing.some((p) => c.parameters.includes(p))).flatMap((c) => c.decision!.conditions);
-    return words("concession", `${list(failing)} outside the governing limits, accepted under concession on deviation #${d.id}: ${d.decision!.reason}`, { ...base, concession: { deviationId: d.id, reason: d.decision!.reason, conditions } });
+    return words(
+      "concession",
+      `${list(failing)} outside the governing limits, accepted under concession on deviation #${d.id}: ${d.decision!.reason}`,
+      { ...base, concession: { deviationId: d.id, reason: d.decision!.reason, conditions } },
+    );
   }
   if (worst === "conditional pass") {
     const near = [...new Set(verdicts.filter((v) => v.outcome === "conditional pass").map((v) => v.parameter))];
-    return words("conforms_conditionally", `Every required result meets its limit; ${list(near)} ${near.length > 1 ? "lie" : "lies"} within the measurement uncertainty of a limit (ILAC-G8 conditional pass).`, base);
+    return words(
+      "conforms_conditionally",
+      `Every required result meets its limit; ${list(near)} ${near.length > 1 ? "lie" : "lies"} within the measurement uncertainty of a limit (ILAC-G8 conditional pass).`,
+      base,
+    );
   }
   return words("conforms", "Every required result meets its governing limit under the agreed decision rule.", base);
 }

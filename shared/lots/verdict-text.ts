@@ -12,13 +12,21 @@ export function verdictText(v: StoredVerdict): { result: string; limits: string;
   const factor = convert(1, v.unit as UnitId, display);
   const unit = unitLabel(display);
   const shown = (x: number) => displayValue(v.parameter, x, display);
-  const limits = [v.lower && `min ${boundText(v.parameter, v.lower, factor, display)}`, v.upper && `max ${boundText(v.parameter, v.upper, factor, display)}`].filter(Boolean).join("; ") || "—";
+  const limits =
+    [
+      v.lower && `min ${boundText(v.parameter, v.lower, factor, display)}`,
+      v.upper && `max ${boundText(v.parameter, v.upper, factor, display)}`,
+    ]
+      .filter(Boolean)
+      .join("; ") || "—";
   const u = v.uncertainty && v.uncertainty.source !== "none" ? v.uncertainty : null;
   const value = v.value === null ? v.resultText : shown(v.value * factor);
   return {
     result: value === null ? "not reported" : `${value}${u ? ` ± ${shown(2 * u.u * factor)}` : ""} ${unit}`,
     limits,
-    uncertainty: u ? `U = ${shown(2 * u.u * factor)} ${unit}, k = 2 (${u.source === "laboratory" ? "laboratory" : "Cellarpact default"})` : "none stated",
+    uncertainty: u
+      ? `U = ${shown(2 * u.u * factor)} ${unit}, k = 2 (${u.source === "laboratory" ? "laboratory" : "Cellarpact default"})`
+      : "none stated",
   };
 }
 
@@ -30,8 +38,14 @@ export function governingCitations(verdicts: readonly StoredVerdict[]): { market
       if (!b || b.source !== "law" || !b.citation) continue;
       const text = `${b.citation.document}, ${b.citation.article} (${b.citation.edition})`;
       if (seen.has(text)) continue;
-      const confirmed = v.legalLimits.find((l) => l.citation.document === b.citation!.document && l.citation.article === b.citation!.article)?.confirmed;
-      seen.set(text, { market: b.market ?? "", text, unconfirmed: confirmed && !citationConfirmed(confirmed) ? confirmed.replace(/^citation not yet confirmed: /, "") : null });
+      const confirmed = v.legalLimits.find(
+        (l) => l.citation.document === b.citation!.document && l.citation.article === b.citation!.article,
+      )?.confirmed;
+      seen.set(text, {
+        market: b.market ?? "",
+        text,
+        unconfirmed: confirmed && !citationConfirmed(confirmed) ? confirmed.replace(/^citation not yet confirmed: /, "") : null,
+      });
     }
   }
   return [...seen.values()];

@@ -4,7 +4,14 @@
  * the rules that need it are shown as undetermined.
  */
 import { z } from "zod";
-import { OIV_SULPHATE_CASES, PROFILE_FACT_LABELS, wineProfileSchema, type MarketId, type WineCategory, type WineProfile } from "../engine/index.ts";
+import {
+  OIV_SULPHATE_CASES,
+  PROFILE_FACT_LABELS,
+  wineProfileSchema,
+  type MarketId,
+  type WineCategory,
+  type WineProfile,
+} from "../engine/index.ts";
 
 export const LAW_FACT_KEYS = [
   "organic",
@@ -24,7 +31,9 @@ export const LAW_FACT_KEYS = [
 export type LawFactKey = (typeof LAW_FACT_KEYS)[number];
 export type WineLawFacts = Partial<Pick<WineProfile, LawFactKey>>;
 
-export const wineLawFactsSchema = wineProfileSchema.pick(Object.fromEntries(LAW_FACT_KEYS.map((k) => [k, true])) as { [K in LawFactKey]: true }).strict();
+export const wineLawFactsSchema = wineProfileSchema
+  .pick(Object.fromEntries(LAW_FACT_KEYS.map((k) => [k, true])) as { [K in LawFactKey]: true })
+  .strict();
 
 const YES_NO = [
   { value: true, label: "Yes" },
@@ -54,7 +63,11 @@ export const LAW_FACT_CHOICES: Record<LawFactKey, readonly { value: string | num
   oivSweetWhiteSo2Exception: YES_NO,
   oivSulphateCase: OIV_SULPHATE_CASES.map((v) => ({
     value: v,
-    label: { none: "None of the raised cases", "cask-sweetened-or-fortified": "Cask-aged 2 years, sweetened or fortified", "concentrated-must-or-naturally-sweet": "Concentrated must added, or naturally sweet" }[v],
+    label: {
+      none: "None of the raised cases",
+      "cask-sweetened-or-fortified": "Cask-aged 2 years, sweetened or fortified",
+      "concentrated-must-or-naturally-sweet": "Concentrated must added, or naturally sweet",
+    }[v],
   })),
   cryoliteTreatedVineyard: YES_NO,
   usHighBrixJuice: YES_NO,
@@ -91,7 +104,11 @@ const ASKED_BY: Record<LawFactKey, { markets: readonly MarketId[]; categories?: 
 };
 
 /** The facts worth asking for this wine: those its markets' rules use, and any already stated. */
-export function relevantLawFacts(wine: { markets: readonly MarketId[]; category: WineCategory; lawFacts: WineLawFacts | null }): LawFactKey[] {
+export function relevantLawFacts(wine: {
+  markets: readonly MarketId[];
+  category: WineCategory;
+  lawFacts: WineLawFacts | null;
+}): LawFactKey[] {
   return LAW_FACT_KEYS.filter((k) => {
     if (wine.lawFacts?.[k] !== undefined) return true;
     const asked = ASKED_BY[k];
@@ -103,7 +120,13 @@ export function relevantLawFacts(wine: { markets: readonly MarketId[]; category:
 export const lawFactsFormSchema = z.object({
   lawFacts: z
     .object(Object.fromEntries(LAW_FACT_KEYS.map((k) => [k, z.string().optional()])) as Record<LawFactKey, z.ZodOptional<z.ZodString>>)
-    .transform((v) => Object.fromEntries(Object.entries(v).filter(([, x]) => x !== undefined && x !== "").map(([k, x]) => [k, JSON.parse(x!)])))
+    .transform((v) =>
+      Object.fromEntries(
+        Object.entries(v)
+          .filter(([, x]) => x !== undefined && x !== "")
+          .map(([k, x]) => [k, JSON.parse(x!)]),
+      ),
+    )
     .pipe(wineLawFactsSchema),
 });
 

@@ -25,6 +25,11 @@ export function wineProfile(wine: WineFacts, vintage: number): WineProfile {
 /** Whether a stored verdict was read with other facts than the wine has now (key order does not count). */
 export function profileDiffers(stored: WineProfile | null, current: WineProfile): boolean {
   if (!stored) return false;
-  const canonical = (p: WineProfile) => JSON.stringify(Object.entries(p).filter(([, v]) => v !== undefined).sort(([a], [b]) => a.localeCompare(b)));
+  const canonical = (p: WineProfile) =>
+    JSON.stringify(
+      Object.entries(p)
+        .filter(([, v]) => v !== undefined)
+        .sort(([a], [b]) => a.localeCompare(b)),
+    );
   return canonical(stored) !== canonical(current);
 }

@@ -16,7 +16,11 @@ export const specRowSchema = buyerRequirementSchema.and(
 );
 export type SpecRowInput = z.infer<typeof specRowSchema>;
 
-const year = z.number({ error: "Enter a year." }).int({ error: "Enter a whole year." }).min(1950, { error: "Enter a year from 1950." }).max(2100, { error: "Enter a year up to 2100." });
+const year = z
+  .number({ error: "Enter a year." })
+  .int({ error: "Enter a whole year." })
+  .min(1950, { error: "Enter a year from 1950." })
+  .max(2100, { error: "Enter a year up to 2100." });
 
 export const specDraftSchema = z
   .object({
@@ -33,10 +37,12 @@ export const specDraftSchema = z
     }
     const seen = new Set<string>();
     d.rows.forEach((row, i) => {
-      if (seen.has(row.parameter)) ctx.addIssue({ code: "custom", path: ["rows", i, "parameter"], message: "This parameter is already in the sheet." });
+      if (seen.has(row.parameter))
+        ctx.addIssue({ code: "custom", path: ["rows", i, "parameter"], message: "This parameter is already in the sheet." });
       seen.add(row.parameter);
       row.stages.forEach((s) => {
-        if (!d.stages.includes(s)) ctx.addIssue({ code: "custom", path: ["rows", i, "stages"], message: "A row can only require stages this version covers." });
+        if (!d.stages.includes(s))
+          ctx.addIssue({ code: "custom", path: ["rows", i, "stages"], message: "A row can only require stages this version covers." });
       });
     });
   });
@@ -82,7 +88,12 @@ const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: "Use a date lik
 
 export const newContractSchema = z
   .object({
-    reference: z.string().trim().min(3, { error: "Use at least 3 characters." }).max(40, { error: "At most 40 characters." }).regex(/^[A-Za-z0-9._/-]+$/, { error: "Use letters, digits and . _ / - only." }),
+    reference: z
+      .string()
+      .trim()
+      .min(3, { error: "Use at least 3 characters." })
+      .max(40, { error: "At most 40 characters." })
+      .regex(/^[A-Za-z0-9._/-]+$/, { error: "Use letters, digits and . _ / - only." }),
     producerOrgId: z.number({ error: "Choose the producer." }).int().positive({ error: "Choose the producer." }),
     startsOn: isoDate,
     endsOn: isoDate.nullish(),

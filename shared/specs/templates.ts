@@ -25,12 +25,20 @@ export const SPEC_TEMPLATES: readonly SpecTemplate[] = [
   {
     id: "still-white",
     name: "Still white or rosé",
-    description: "Typical ranges for a dry still white or rosé (common practice; AWRI bottling guidance for oxygen, heat stability and turbidity).",
+    description:
+      "Typical ranges for a dry still white or rosé (common practice; AWRI bottling guidance for oxygen, heat stability and turbidity).",
     rows: [
       row({ parameter: "alcohol", unit: "% vol", lower: 11, upper: 13.5, method: "OIV-MA-AS312-01", severity: "critical" }),
       row({ parameter: "free_so2", unit: "mg/L", lower: 25, upper: 40, method: "OIV-MA-AS323-04A", stages: [...all] }),
       row({ parameter: "total_so2", unit: "mg/L", upper: 150, method: "OIV-MA-AS323-04A", severity: "critical" }),
-      row({ parameter: "volatile_acidity", unit: "g/L as acetic acid", upper: 0.6, method: "OIV-MA-AS313-02", severity: "critical", stages: [...all] }),
+      row({
+        parameter: "volatile_acidity",
+        unit: "g/L as acetic acid",
+        upper: 0.6,
+        method: "OIV-MA-AS313-02",
+        severity: "critical",
+        stages: [...all],
+      }),
       row({ parameter: "residual_sugar", unit: "g/L", upper: 4, method: "OIV-MA-AS311-02" }),
       row({ parameter: "total_acidity", unit: "g/L as tartaric acid", lower: 5.5, upper: 7.5, method: "OIV-MA-AS313-01" }),
       row({ parameter: "ph", unit: "pH", lower: 3.1, upper: 3.4 }),
@@ -52,7 +60,14 @@ export const SPEC_TEMPLATES: readonly SpecTemplate[] = [
       row({ parameter: "alcohol", unit: "% vol", lower: 12.5, upper: 14.5, method: "OIV-MA-AS312-01", severity: "critical" }),
       row({ parameter: "free_so2", unit: "mg/L", lower: 20, upper: 35, method: "OIV-MA-AS323-04A", stages: [...all] }),
       row({ parameter: "total_so2", unit: "mg/L", upper: 120, method: "OIV-MA-AS323-04A", severity: "critical" }),
-      row({ parameter: "volatile_acidity", unit: "g/L as acetic acid", upper: 0.7, method: "OIV-MA-AS313-02", severity: "critical", stages: [...all] }),
+      row({
+        parameter: "volatile_acidity",
+        unit: "g/L as acetic acid",
+        upper: 0.7,
+        method: "OIV-MA-AS313-02",
+        severity: "critical",
+        stages: [...all],
+      }),
       row({ parameter: "residual_sugar", unit: "g/L", upper: 3, method: "OIV-MA-AS311-02" }),
       row({ parameter: "total_acidity", unit: "g/L as tartaric acid", lower: 5, upper: 6.5, method: "OIV-MA-AS313-01" }),
       row({ parameter: "ph", unit: "pH", lower: 3.4, upper: 3.8 }),

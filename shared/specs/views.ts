@@ -23,7 +23,17 @@ export interface ContractView {
   endsOn: string | null;
   retailer: { id: number; name: string };
   producer: { id: number; name: string };
-  wine: { id: number; name: string; colour: Colour; category: WineCategory; region: string; markets: MarketId[]; nominalSugarGPerL: number | null; nominalAlcoholPercentVol: number | null; lawFacts: WineLawFacts | null };
+  wine: {
+    id: number;
+    name: string;
+    colour: Colour;
+    category: WineCategory;
+    region: string;
+    markets: MarketId[];
+    nominalSugarGPerL: number | null;
+    nominalAlcoholPercentVol: number | null;
+    lawFacts: WineLawFacts | null;
+  };
 }
 
 export interface VersionSummary {

@@ -109,8 +109,18 @@ export function detailsText(details: Record<string, unknown> | null | undefined)
   return Object.entries(details)
     .filter(([k, v]) => v !== null && v !== undefined && k !== "currency")
     .map(([k, v]) => {
-      const label = FIELD_LABELS[k] ?? k.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/_/g, " ").replace(/^./, (c) => c.toUpperCase());
-      const list = (xs: unknown[]) => xs.map((x) => (PARAMETER_FIELDS.has(k) && typeof x === "string" ? (findParameter(x)?.name ?? x) : ID_LIST_FIELDS.has(k) ? `#${x}` : String(x))).join(", ") || "none";
+      const label =
+        FIELD_LABELS[k] ??
+        k
+          .replace(/([a-z])([A-Z])/g, "$1 $2")
+          .replace(/_/g, " ")
+          .replace(/^./, (c) => c.toUpperCase());
+      const list = (xs: unknown[]) =>
+        xs
+          .map((x) =>
+            PARAMETER_FIELDS.has(k) && typeof x === "string" ? (findParameter(x)?.name ?? x) : ID_LIST_FIELDS.has(k) ? `#${x}` : String(x),
+          )
+          .join(", ") || "none";
       const value =
         k.endsWith("Cents") && typeof v === "number"
           ? formatMoney(v, currency)

@@ -4,13 +4,25 @@ import { Notice } from "./ui/states.tsx";
 import { errorMessage } from "../lib/api-client.ts";
 
 /** Attaches a signed certificate or report to an analysis; the page says what to refresh afterwards. */
-export function CertificateUpload({ orgId, analysisId, label = "Attach the laboratory's certificate", onUploaded }: { orgId: number; analysisId: number; label?: string; onUploaded: () => Promise<unknown> }) {
+export function CertificateUpload({
+  orgId,
+  analysisId,
+  label = "Attach the laboratory's certificate",
+  onUploaded,
+}: {
+  orgId: number;
+  analysisId: number;
+  label?: string;
+  onUploaded: () => Promise<unknown>;
+}) {
   const [state, setState] = useState<{ tone: "success" | "error"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
   const id = `certificate-${analysisId}`;
   return (
     <div className="flex flex-col gap-1 text-sm">
-      <label htmlFor={id} className="font-semibold">{label} (PDF, PNG or JPEG, at most 10 MB)</label>
+      <label htmlFor={id} className="font-semibold">
+        {label} (PDF, PNG or JPEG, at most 10 MB)
+      </label>
       <input
         id={id}
         type="file"

@@ -15,7 +15,13 @@ export function ComparisonTable({ comparisons, caption }: { comparisons: ResultC
       <table className="w-full text-left text-sm">
         <caption className="mb-2 text-left text-sm text-ink-500">{caption}</caption>
         <thead className="border-b border-line text-ink-500">
-          <tr>{["Parameter", "Declared ± U", "Independent ± U", "En", "z", "Reading"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+          <tr>
+            {["Parameter", "Declared ± U", "Independent ± U", "En", "z", "Reading"].map((h) => (
+              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody>
           {comparisons.map((c) => {
@@ -26,13 +32,19 @@ export function ComparisonTable({ comparisons, caption }: { comparisons: ResultC
             const v = (x: number | null, digits?: number) => n(x === null ? null : x * f, digits);
             return (
               <tr key={c.parameter} className="border-b border-line/60 align-top">
-                <th scope="row" className="py-2 pr-3 font-normal">{findParameter(c.parameter)?.name ?? c.parameter}</th>
+                <th scope="row" className="py-2 pr-3 font-normal">
+                  {findParameter(c.parameter)?.name ?? c.parameter}
+                </th>
                 <td className="py-2 pr-3 tabular-nums">{c.declared === null ? "—" : `${v(c.declared)} ± ${v(c.declaredU, 2)} ${unit}`}</td>
-                <td className="py-2 pr-3 tabular-nums">{c.independent === null ? "—" : `${v(c.independent)} ± ${v(c.independentU, 2)} ${unit}`}</td>
+                <td className="py-2 pr-3 tabular-nums">
+                  {c.independent === null ? "—" : `${v(c.independent)} ± ${v(c.independentU, 2)} ${unit}`}
+                </td>
                 <td className="py-2 pr-3 tabular-nums">{n(c.en)}</td>
                 <td className="py-2 pr-3 tabular-nums">{n(c.z)}</td>
                 <td className="py-2 pr-3">
-                  <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[c.outcome]}`}>{c.outcome}</span>
+                  <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[c.outcome]}`}>
+                    {c.outcome}
+                  </span>
                   <span className="mt-1 block max-w-md text-xs text-ink-500">{c.explanation}</span>
                 </td>
               </tr>

@@ -18,7 +18,9 @@ export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; e
         <ol className="mb-3 flex flex-col gap-1 text-sm" aria-label="Recorded events">
           {history.data.map((e) => (
             <li key={e.seq} className="flex flex-wrap gap-x-3">
-              <span className="tabular-nums text-ink-500">#{e.seq} · {e.occurredAt.replace("T", " ").slice(0, 19)} UTC</span>
+              <span className="tabular-nums text-ink-500">
+                #{e.seq} · {e.occurredAt.replace("T", " ").slice(0, 19)} UTC
+              </span>
               <span className="font-semibold">{actionLabel(e.action)}</span>
               <span>{e.actorName ?? "system"}</span>
               <span className="font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</span>
@@ -26,9 +28,23 @@ export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; e
           ))}
         </ol>
       )}
-      <Button variant="secondary" onClick={() => verify.mutate()} disabled={verify.isPending}>{verify.isPending ? "Verifying…" : "Verify the hash chain"}</Button>
-      {verify.data?.ok && <div className="mt-2"><Notice tone="success">The chain is intact: {verify.data.checked} entries recomputed, the last one matches the checkpoint.</Notice></div>}
-      {verify.data && !verify.data.ok && <div className="mt-2"><Notice tone="error">The chain is broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.</Notice></div>}
+      <Button variant="secondary" onClick={() => verify.mutate()} disabled={verify.isPending}>
+        {verify.isPending ? "Verifying…" : "Verify the hash chain"}
+      </Button>
+      {verify.data?.ok && (
+        <div className="mt-2">
+          <Notice tone="success">
+            The chain is intact: {verify.data.checked} entries recomputed, the last one matches the checkpoint.
+          </Notice>
+        </div>
+      )}
+      {verify.data && !verify.data.ok && (
+        <div className="mt-2">
+          <Notice tone="error">
+            The chain is broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.
+          </Notice>
+        </div>
+      )}
       {verify.isError && <ErrorState error={verify.error} />}
     </Card>
   );

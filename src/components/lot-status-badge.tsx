@@ -14,7 +14,11 @@ const TONE: Record<LotStatusCode, string> = {
 export function LotStatusBadge({ status, withReason = false }: { status: LotStatus; withReason?: boolean }) {
   return (
     <span className="inline-flex flex-col gap-0.5">
-      <span data-lot-status={status.code} title={status.reason} className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[status.code]}`}>
+      <span
+        data-lot-status={status.code}
+        title={status.reason}
+        className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[status.code]}`}
+      >
         {status.label}
       </span>
       {withReason && <span className="text-xs text-ink-500">{status.reason}</span>}

@@ -11,5 +11,7 @@ const TONE: Record<Outcome, string> = {
 };
 
 export function OutcomeBadge({ outcome }: { outcome: Outcome }) {
-  return <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[outcome]}`}>{outcome}</span>;
+  return (
+    <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[outcome]}`}>{outcome}</span>
+  );
 }

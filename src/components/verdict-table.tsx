@@ -3,7 +3,19 @@ import { citationConfirmed, convert, displayValue, findParameter, unitLabel, typ
 import type { ResultView, StoredBound, StoredVerdict } from "../../shared/lots/views.ts";
 import { OutcomeBadge } from "./outcome-badge.tsx";
 
-function Bound({ label, b, unit, factor, show }: { label: string; b: StoredBound | null; unit: string; factor: number; show: (x: number) => string }) {
+function Bound({
+  label,
+  b,
+  unit,
+  factor,
+  show,
+}: {
+  label: string;
+  b: StoredBound | null;
+  unit: string;
+  factor: number;
+  show: (x: number) => string;
+}) {
   if (!b) return null;
   return (
     <span className="block">
@@ -23,7 +35,9 @@ export function VerdictTable({ verdicts, reported = [] }: { verdicts: StoredVerd
         <thead className="border-b border-line text-ink-500">
           <tr>
             {["Parameter", "Result", "Verdict", "Governing limits", "Uncertainty and rule"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>
+              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                {h}
+              </th>
             ))}
           </tr>
         </thead>
@@ -38,16 +52,26 @@ export function VerdictTable({ verdicts, reported = [] }: { verdicts: StoredVerd
             const asReported = reported.find((r) => r.parameter === v.parameter);
             const differs = asReported && (asReported.unit !== display || asReported.rawText.trim() !== shown);
             return (
-              <tr key={v.parameter} className="border-b border-line/60 align-top" aria-label={findParameter(v.parameter)?.name ?? v.parameter}>
+              <tr
+                key={v.parameter}
+                className="border-b border-line/60 align-top"
+                aria-label={findParameter(v.parameter)?.name ?? v.parameter}
+              >
                 <td className="py-2 pr-3 font-semibold">{findParameter(v.parameter)?.name ?? v.parameter}</td>
                 <td className="py-2 pr-3 tabular-nums">
                   {shown === null ? "—" : `${shown} ${v.unit === "presence" ? "" : unit}`}
-                  {differs && <span className="block text-xs text-ink-500">reported: {asReported.rawText} {asReported.unit === "presence" ? "" : unitLabel(asReported.unit)}</span>}
+                  {differs && (
+                    <span className="block text-xs text-ink-500">
+                      reported: {asReported.rawText} {asReported.unit === "presence" ? "" : unitLabel(asReported.unit)}
+                    </span>
+                  )}
                 </td>
                 <td className="py-2 pr-3">
                   <OutcomeBadge outcome={v.outcome} />
                   {v.informativeOutcome && <span className="block text-xs text-ink-500">would be {v.informativeOutcome}</span>}
-                  {v.conformanceProbability !== null && <span className="block text-xs text-ink-500">P(conform) {(v.conformanceProbability * 100).toFixed(1)} %</span>}
+                  {v.conformanceProbability !== null && (
+                    <span className="block text-xs text-ink-500">P(conform) {(v.conformanceProbability * 100).toFixed(1)} %</span>
+                  )}
                 </td>
                 <td className="py-2 pr-3 text-xs">
                   <Bound label="min" b={v.lower} unit={unit} factor={factor} show={show} />
@@ -56,12 +80,18 @@ export function VerdictTable({ verdicts, reported = [] }: { verdicts: StoredVerd
                   {v.legalLimits.map((l) => (
                     <span key={`${l.market}-${l.side}`} className="mt-1 block text-ink-500">
                       Law, {l.market}: {l.side} {show(l.value * factor)} {unit} ({l.citation.document}, {l.citation.article})
-                      {l.confirmed && !citationConfirmed(l.confirmed) && <span className="block text-ochre-700">Citation not yet confirmed: {l.confirmed.replace(/^citation not yet confirmed: /, "")}</span>}
+                      {l.confirmed && !citationConfirmed(l.confirmed) && (
+                        <span className="block text-ochre-700">
+                          Citation not yet confirmed: {l.confirmed.replace(/^citation not yet confirmed: /, "")}
+                        </span>
+                      )}
                     </span>
                   ))}
                 </td>
                 <td className="py-2 pr-3 text-xs text-ink-700">
-                  {v.uncertainty && v.uncertainty.source !== "none" ? `U = ${show(2 * v.uncertainty.u * factor)} ${unit}, k = 2 (${v.uncertainty.source === "laboratory" ? "laboratory" : "default"})` : "no uncertainty"}
+                  {v.uncertainty && v.uncertainty.source !== "none"
+                    ? `U = ${show(2 * v.uncertainty.u * factor)} ${unit}, k = 2 (${v.uncertainty.source === "laboratory" ? "laboratory" : "default"})`
+                    : "no uncertainty"}
                   <span className="block text-ink-500">{v.explanation}</span>
                 </td>
               </tr>

@@ -12,6 +12,9 @@ export const contractKeys = {
   version: (orgId: number, id: number) => [...contractKeys.all(orgId), "version", id] as const,
 };
 
-export const contractsQuery = (orgId: number) => queryOptions({ queryKey: contractKeys.list(orgId), queryFn: () => api<ContractWithVersions[]>(`${base(orgId)}/contracts`) });
-export const contractQuery = (orgId: number, id: number) => queryOptions({ queryKey: contractKeys.detail(orgId, id), queryFn: () => api<ContractDetail>(`${base(orgId)}/contracts/${id}`) });
-export const specQuery = (orgId: number, id: number) => queryOptions({ queryKey: contractKeys.version(orgId, id), queryFn: () => api<SpecVersionDetail>(`${base(orgId)}/specs/${id}`) });
+export const contractsQuery = (orgId: number) =>
+  queryOptions({ queryKey: contractKeys.list(orgId), queryFn: () => api<ContractWithVersions[]>(`${base(orgId)}/contracts`) });
+export const contractQuery = (orgId: number, id: number) =>
+  queryOptions({ queryKey: contractKeys.detail(orgId, id), queryFn: () => api<ContractDetail>(`${base(orgId)}/contracts/${id}`) });
+export const specQuery = (orgId: number, id: number) =>
+  queryOptions({ queryKey: contractKeys.version(orgId, id), queryFn: () => api<SpecVersionDetail>(`${base(orgId)}/specs/${id}`) });

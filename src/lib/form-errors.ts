@@ -2,7 +2,11 @@
 import type { FieldValues, Path, UseFormSetError } from "react-hook-form";
 import { ApiError, errorMessage } from "./api-client.ts";
 
-export function applyServerErrors<T extends FieldValues>(err: unknown, setError: UseFormSetError<T>, fields: readonly string[]): string | null {
+export function applyServerErrors<T extends FieldValues>(
+  err: unknown,
+  setError: UseFormSetError<T>,
+  fields: readonly string[],
+): string | null {
   if (err instanceof ApiError && err.errors.length) {
     const unmatched = err.errors.filter((e) => !fields.includes(e.path));
     for (const e of err.errors) if (fields.includes(e.path)) setError(e.path as Path<T>, { message: e.message });

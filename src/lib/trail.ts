@@ -10,6 +10,9 @@ export const historyKeys = {
 };
 
 export const historyQuery = (orgId: number, type: HistoryEntityType, id: number) =>
-  queryOptions({ queryKey: historyKeys.of(orgId, type, id), queryFn: () => api<TrailEntryView[]>(`/api/orgs/${orgId}/history/${type}/${id}`) });
+  queryOptions({
+    queryKey: historyKeys.of(orgId, type, id),
+    queryFn: () => api<TrailEntryView[]>(`/api/orgs/${orgId}/history/${type}/${id}`),
+  });
 
 export const verifyChain = (orgId: number) => api<ChainVerification>(`/api/orgs/${orgId}/trail/verify`);

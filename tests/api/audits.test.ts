@@ -27,15 +27,26 @@ const B = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
 const L = (p: string) => `/api/orgs/${ORG.lab}${p}`;
 const expanded = (value: number) => ({ kind: "expanded", value, k: 2 });
 const labResults = (over: Partial<Record<string, string>> = {}) => [
-  { parameter: "volatile_acidity", raw: over.volatile_acidity ?? "0.48", unit: "g/L as acetic acid", uncertainty: expanded(0.03), method: "OIV-MA-AS313-02" },
+  {
+    parameter: "volatile_acidity",
+    raw: over.volatile_acidity ?? "0.48",
+    unit: "g/L as acetic acid",
+    uncertainty: expanded(0.03),
+    method: "OIV-MA-AS313-02",
+  },
   { parameter: "free_so2", raw: over.free_so2 ?? "31", unit: "mg/L", uncertainty: expanded(3) },
   { parameter: "alcohol", raw: "12.55", unit: "% vol", uncertainty: expanded(0.1) },
 ];
 
 beforeAll(async () => {
   t = buildTestApp({ STRIPE_WEBHOOK_SECRET: TEST_WEBHOOK_SECRET });
-  [producer, finance, tech, lab] = (await Promise.all([DEMO.producerQuality, DEMO.buyerFinance, DEMO.buyerTechnologist, DEMO.labAnalyst].map((e) => signInAs(t.app, e)))) as [SignedInAgent, SignedInAgent, SignedInAgent, SignedInAgent];
-  const lot = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode, volumeLitres: 9000, container: "bottles", plannedDate: "2027-02-01", market: "EU" });
+  [producer, finance, tech, lab] = (await Promise.all(
+    [DEMO.producerQuality, DEMO.buyerFinance, DEMO.buyerTechnologist, DEMO.labAnalyst].map((e) => signInAs(t.app, e)),
+  )) as [SignedInAgent, SignedInAgent, SignedInAgent, SignedInAgent];
+  const lot = await producer.agent
+    .post(P("/lots"))
+    .set("x-csrf-token", producer.csrf)
+    .send({ contractId: 1, vintage: 2025, lotCode, volumeLitres: 9000, container: "bottles", plannedDate: "2027-02-01", market: "EU" });
   expect(lot.status).toBe(201);
   lotId = lot.body.id;
   const declared = await producer.agent
@@ -56,7 +67,14 @@ beforeAll(async () => {
   const order = await finance.agent
     .post(B("/audit-orders"))
     .set("x-csrf-token", finance.csrf)
-    .send({ idempotencyKey: randomUUID(), contractId: 1, laboratoryOrgId: ORG.lab, lotIds: [lotId], parameters: ["volatile_acidity", "free_so2", "alcohol"], stage: "pre_filling" });
+    .send({
+      idempotencyKey: randomUUID(),
+      contractId: 1,
+      laboratoryOrgId: ORG.lab,
+      lotIds: [lotId],
+      parameters: ["volatile_acidity", "free_so2", "alcohol"],
+      stage: "pre_filling",
+    });
   expect(order.status).toBe(201);
   orderId = order.body.id;
   amount = order.body.amountCents;
@@ -65,7 +83,11 @@ afterAll(() => t.close());
 
 async function pay() {
   const { payload, header } = signed(succeededEvent(orderId, amount));
-  const res = await request(t.app).post("/api/webhooks/stripe").set("content-type", "application/json").set("stripe-signature", header).send(payload);
+  const res = await request(t.app)
+    .post("/api/webhooks/stripe")
+    .set("content-type", "application/json")
+    .set("stripe-signature", header)
+    .send(payload);
   expect(res.status).toBe(200);
 }
 
@@ -89,27 +111,56 @@ describe("the laboratory's side", () => {
   });
 
   it("refuses results that miss an ordered parameter or add one not ordered, naming it", async () => {
-    const missing = await lab.agent.post(L(`/audit-orders/${orderId}/results`)).set("x-csrf-token", lab.csrf).send({ idempotencyKey: randomUUID(), sampleDate: "2026-11-28", lots: [{ lotId, results: labResults().slice(0, 2) }] });
+    const missing = await lab.agent
+      .post(L(`/audit-orders/${orderId}/results`))
+      .set("x-csrf-token", lab.csrf)
+      .send({ idempotencyKey: randomUUID(), sampleDate: "2026-11-28", lots: [{ lotId, results: labResults().slice(0, 2) }] });
     expect(missing.status).toBe(400);
     expect(missing.body.errors).toContainEqual({ path: "lots.0.results", message: "Missing Actual alcoholic strength." });
     const extra = await lab.agent
       .post(L(`/audit-orders/${orderId}/results`))
       .set("x-csrf-token", lab.csrf)
-      .send({ idempotencyKey: randomUUID(), sampleDate: "2026-11-28", lots: [{ lotId, results: [...labResults(), { parameter: "ph", raw: "3.2", unit: "pH" }] }] });
+      .send({
+        idempotencyKey: randomUUID(),
+        sampleDate: "2026-11-28",
+        lots: [{ lotId, results: [...labResults(), { parameter: "ph", raw: "3.2", unit: "pH" }] }],
+      });
     expect(extra.status).toBe(400);
     expect(extra.body.errors[0].message).toBe("pH was not ordered.");
-    expect((await producer.agent.post(P(`/audit-orders/${orderId}/results`)).set("x-csrf-token", producer.csrf).send({})).status).toBe(403);
+    expect(
+      (
+        await producer.agent
+          .post(P(`/audit-orders/${orderId}/results`))
+          .set("x-csrf-token", producer.csrf)
+          .send({})
+      ).status,
+    ).toBe(403);
   });
 
   it("submits once (a retry with the same key gets the same answer); a discrepancy opens an audit deviation", async () => {
-    const body = { idempotencyKey: randomUUID(), sampleDate: "2026-11-28", accreditation: "ISO/IEC 17025 no. 4471", reportReference: "NG-26-1187", lots: [{ lotId, results: labResults() }] };
-    const first = await lab.agent.post(L(`/audit-orders/${orderId}/results`)).set("x-csrf-token", lab.csrf).send(body);
+    const body = {
+      idempotencyKey: randomUUID(),
+      sampleDate: "2026-11-28",
+      accreditation: "ISO/IEC 17025 no. 4471",
+      reportReference: "NG-26-1187",
+      lots: [{ lotId, results: labResults() }],
+    };
+    const first = await lab.agent
+      .post(L(`/audit-orders/${orderId}/results`))
+      .set("x-csrf-token", lab.csrf)
+      .send(body);
     expect(first.status).toBe(201);
     expect(first.body.discrepancies).toEqual([{ lotId, parameters: ["volatile_acidity"] }]);
-    const retry = await lab.agent.post(L(`/audit-orders/${orderId}/results`)).set("x-csrf-token", lab.csrf).send(body);
+    const retry = await lab.agent
+      .post(L(`/audit-orders/${orderId}/results`))
+      .set("x-csrf-token", lab.csrf)
+      .send(body);
     expect(retry.status).toBe(200);
     expect(retry.body).toEqual(first.body);
-    const again = await lab.agent.post(L(`/audit-orders/${orderId}/results`)).set("x-csrf-token", lab.csrf).send({ ...body, idempotencyKey: randomUUID() });
+    const again = await lab.agent
+      .post(L(`/audit-orders/${orderId}/results`))
+      .set("x-csrf-token", lab.csrf)
+      .send({ ...body, idempotencyKey: randomUUID() });
     expect(again.status).toBe(409);
   });
 
@@ -142,9 +193,19 @@ describe("the laboratory's side", () => {
     expect(detail.status).toBe(200);
     expect(detail.body.side).toBe("laboratory");
     expect(Object.values(detail.body.actions).every((a) => a === false)).toBe(true);
-    expect((await lab.agent.post(L(`/deviations/${audit.id}/messages`)).set("x-csrf-token", lab.csrf).send({ kind: "comment", body: "Our result stands." })).status).toBe(403);
+    expect(
+      (
+        await lab.agent
+          .post(L(`/deviations/${audit.id}/messages`))
+          .set("x-csrf-token", lab.csrf)
+          .send({ kind: "comment", body: "Our result stands." })
+      ).status,
+    ).toBe(403);
     // A deviation that no audit of this laboratory opened stays invisible to it.
-    const other = await producer.agent.post(P("/deviations")).set("x-csrf-token", producer.csrf).send({ lotId, parameters: ["ph"], reason: "Capsule batch changed on the line; checking the lot." });
+    const other = await producer.agent
+      .post(P("/deviations"))
+      .set("x-csrf-token", producer.csrf)
+      .send({ lotId, parameters: ["ph"], reason: "Capsule batch changed on the line; checking the lot." });
     expect(other.status).toBe(201);
     expect((await lab.agent.get(L(`/deviations/${other.body.id}`))).status).toBe(404);
     expect((await lab.agent.get(L("/deviations"))).body.map((d: { id: number }) => d.id)).not.toContain(other.body.id);
@@ -159,11 +220,21 @@ describe("the laboratory's side", () => {
     const audited = lot.body.analyses.filter((a: { auditOrderId: number | null }) => a.auditOrderId === orderId);
     expect(audited).toHaveLength(1);
     // Judged on the ordered parameters only: the spec's other rows are not "missing" from an audit.
-    expect(audited[0].evaluation.verdicts.map((v: { parameter: string }) => v.parameter).sort()).toEqual(["alcohol", "free_so2", "volatile_acidity"]);
-    const upload = await producer.agent.post(P(`/analyses/${audited[0].id}/certificates`)).set("x-csrf-token", producer.csrf).attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "report.pdf");
+    expect(audited[0].evaluation.verdicts.map((v: { parameter: string }) => v.parameter).sort()).toEqual([
+      "alcohol",
+      "free_so2",
+      "volatile_acidity",
+    ]);
+    const upload = await producer.agent
+      .post(P(`/analyses/${audited[0].id}/certificates`))
+      .set("x-csrf-token", producer.csrf)
+      .attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "report.pdf");
     expect(upload.status).toBe(403);
     // The laboratory attaches its own report to its analysis; both parties can then read it.
-    const report = await lab.agent.post(L(`/analyses/${audited[0].id}/certificates`)).set("x-csrf-token", lab.csrf).attach("file", Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n"), "NG-26-1187.pdf");
+    const report = await lab.agent
+      .post(L(`/analyses/${audited[0].id}/certificates`))
+      .set("x-csrf-token", lab.csrf)
+      .attach("file", Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n"), "NG-26-1187.pdf");
     expect(report.status).toBe(201);
     const withReport = await producer.agent.get(P(`/lots/${lotId}`));
     const cert = withReport.body.analyses.find((a: { id: number }) => a.id === audited[0].id).certificates[0];
@@ -172,13 +243,22 @@ describe("the laboratory's side", () => {
     expect((await lab.agent.get(L(`/certificates/${cert.id}`))).status).toBe(200);
     // Regression: the laboratory reads back the values it sent, and the buyer's order links its signed report.
     const labView = (await lab.agent.get(L(`/audit-orders/${orderId}`))).body;
-    const sentValues = Object.fromEntries(labView.lots[0].verdicts.map((v: { parameter: string; resultText: string }) => [v.parameter, v.resultText]));
+    const sentValues = Object.fromEntries(
+      labView.lots[0].verdicts.map((v: { parameter: string; resultText: string }) => [v.parameter, v.resultText]),
+    );
     expect(sentValues).toEqual({ free_so2: "31", volatile_acidity: "0.48", alcohol: "12.55" });
     const buyerView = (await tech.agent.get(B(`/audit-orders/${orderId}`))).body;
     expect(buyerView.lots[0].reports).toEqual([{ id: cert.id, originalName: "NG-26-1187.pdf" }]);
     // Not on the producer's own analyses, though.
     const declaredId = withReport.body.analyses.find((a: { auditOrderId: number | null }) => a.auditOrderId === null).id;
-    expect((await lab.agent.post(L(`/analyses/${declaredId}/certificates`)).set("x-csrf-token", lab.csrf).attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "x.pdf")).status).toBe(404);
+    expect(
+      (
+        await lab.agent
+          .post(L(`/analyses/${declaredId}/certificates`))
+          .set("x-csrf-token", lab.csrf)
+          .attach("file", Buffer.from("%PDF-1.4\n%%EOF\n"), "x.pdf")
+      ).status,
+    ).toBe(404);
   });
 });
 
@@ -219,7 +299,17 @@ describe("the lot's document", () => {
   });
 
   it("when a lot has no judged results, then no document is issued", async () => {
-    const empty = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode: `SB-EMPTY-${randomUUID().slice(0, 6)}`, volumeLitres: 100, container: "bottles", market: "EU" });
+    const empty = await producer.agent
+      .post(P("/lots"))
+      .set("x-csrf-token", producer.csrf)
+      .send({
+        contractId: 1,
+        vintage: 2025,
+        lotCode: `SB-EMPTY-${randomUUID().slice(0, 6)}`,
+        volumeLitres: 100,
+        container: "bottles",
+        market: "EU",
+      });
     const res = await producer.agent.get(P(`/lots/${empty.body.id}/conformity.pdf`));
     expect(res.status).toBe(409);
     expect(res.body.detail).toMatch(/no results judged against an agreed specification/);
@@ -252,7 +342,10 @@ describe("finance dashboard and price lists", () => {
     const put = await admin.agent.put(L("/price-list")).set("x-csrf-token", admin.csrf).send({ items: changed });
     expect(put.status).toBe(200);
     expect(put.body.items.find((i: { parameter: string }) => i.parameter === "ph").priceCents).toBe(950);
-    const bad = await admin.agent.put(L("/price-list")).set("x-csrf-token", admin.csrf).send({ items: [{ parameter: "ph", priceCents: 9.5 }] });
+    const bad = await admin.agent
+      .put(L("/price-list"))
+      .set("x-csrf-token", admin.csrf)
+      .send({ items: [{ parameter: "ph", priceCents: 9.5 }] });
     expect(bad.status).toBe(400);
     expect(bad.body.errors[0].message).toBe("Prices are in whole cents.");
     expect((await lab.agent.put(L("/price-list")).set("x-csrf-token", lab.csrf).send({ items: current })).status).toBe(403);

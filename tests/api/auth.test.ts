@@ -40,7 +40,13 @@ describe("sign-in", () => {
   it("when one account fails too often, then further attempts are refused with 429 even with the right password", async () => {
     const email = DEMO.bulkProducerQuality;
     for (let i = 0; i < 5; i++) {
-      expect((await request(t.app).post("/api/auth/sign-in").send({ email, password: `wrong-${i}` })).status).toBe(401);
+      expect(
+        (
+          await request(t.app)
+            .post("/api/auth/sign-in")
+            .send({ email, password: `wrong-${i}` })
+        ).status,
+      ).toBe(401);
     }
     const blocked = await request(t.app).post("/api/auth/sign-in").send({ email, password: DEMO_PASSWORD });
     expect(blocked.status).toBe(429);
@@ -69,7 +75,10 @@ describe("session tokens and CSRF", () => {
 
   it("when the user signs out, then the old cookie no longer works", async () => {
     const res = await request(t.app).post("/api/auth/sign-in").send({ email: DEMO.labAnalyst, password: DEMO_PASSWORD });
-    const oldCookie = ([] as string[]).concat(res.headers["set-cookie"] ?? []).find((c) => c.startsWith("cp_session="))!.split(";")[0]!;
+    const oldCookie = ([] as string[])
+      .concat(res.headers["set-cookie"] ?? [])
+      .find((c) => c.startsWith("cp_session="))!
+      .split(";")[0]!;
     expect((await request(t.app).get("/api/orgs/5/members").set("Cookie", oldCookie)).status).toBe(200);
     const { agent, csrf } = await signInAs(t.app, DEMO.labAnalyst);
     expect((await agent.post("/api/auth/sign-out").set("x-csrf-token", csrf)).status).toBe(204);
@@ -96,7 +105,13 @@ describe("password reset by mailed one-time link", () => {
     // Put the demo password back for the browser tests.
     await request(t.app).post("/api/auth/password-reset/request").send({ email });
     await mail.deliver();
-    const again = linkIn(mail.to(email).filter((m) => m.subject === "Reset your Cellarpact password").at(-1)!.text, "/reset-password");
+    const again = linkIn(
+      mail
+        .to(email)
+        .filter((m) => m.subject === "Reset your Cellarpact password")
+        .at(-1)!.text,
+      "/reset-password",
+    );
     expect((await request(t.app).post("/api/auth/password-reset").send({ token: again, password: DEMO_PASSWORD })).status).toBe(200);
   });
 

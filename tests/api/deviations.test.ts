@@ -25,14 +25,27 @@ afterAll(async () => {
 
 /** A lot of Sentier Blanc whose pre-filling analysis fails volatile acidity: one open deviation. */
 async function failingLot() {
-  const lot = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode: `SB-DV-${randomUUID().slice(0, 6)}`, volumeLitres: 5000, container: "bottles", market: "EU" });
-  const a = await producer.agent.post(P(`/lots/${lot.body.id}/analyses`)).set("x-csrf-token", producer.csrf).send({
-    idempotencyKey: randomUUID(),
-    stage: "pre_filling",
-    laboratoryName: "Domaine des Trois Sentes cellar laboratory",
-    sampleDate: "2026-11-30",
-    results: [{ parameter: "volatile_acidity", raw: "0.74", unit: "g/L as acetic acid" }],
-  });
+  const lot = await producer.agent
+    .post(P("/lots"))
+    .set("x-csrf-token", producer.csrf)
+    .send({
+      contractId: 1,
+      vintage: 2025,
+      lotCode: `SB-DV-${randomUUID().slice(0, 6)}`,
+      volumeLitres: 5000,
+      container: "bottles",
+      market: "EU",
+    });
+  const a = await producer.agent
+    .post(P(`/lots/${lot.body.id}/analyses`))
+    .set("x-csrf-token", producer.csrf)
+    .send({
+      idempotencyKey: randomUUID(),
+      stage: "pre_filling",
+      laboratoryName: "Domaine des Trois Sentes cellar laboratory",
+      sampleDate: "2026-11-30",
+      results: [{ parameter: "volatile_acidity", raw: "0.74", unit: "g/L as acetic acid" }],
+    });
   return { lotId: lot.body.id as number, analysisId: a.body.analysisId as number, deviationId: a.body.deviationIds[0] as number };
 }
 
@@ -43,39 +56,110 @@ describe("deviations", () => {
     expect(d0).toMatchObject({ status: "open", kind: "result", parameters: ["volatile_acidity"] });
     expect(d0.verdicts[0].outcome).toBe("fail");
 
-    const ask = await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "proposal", body: "We ask a concession: the wine is sound. @tessa.marlow", proposal: { outcome: "concession", conditions: [] }, quote: { analysisId, parameter: "volatile_acidity" } });
+    const ask = await producer.agent
+      .post(P(`/deviations/${deviationId}/messages`))
+      .set("x-csrf-token", producer.csrf)
+      .send({
+        kind: "proposal",
+        body: "We ask a concession: the wine is sound. @tessa.marlow",
+        proposal: { outcome: "concession", conditions: [] },
+        quote: { analysisId, parameter: "volatile_acidity" },
+      });
     expect(ask.status).toBe(201);
-    const counter = await buyer.agent.post(B(`/deviations/${deviationId}/messages`)).set("x-csrf-token", buyer.csrf).send({ kind: "proposal", parentId: ask.body.id, body: "Acceptable if an accredited re-test confirms below 0.8 g/L.", proposal: { outcome: "concession", conditions: [{ kind: "retest", detail: "Accredited re-test below 0.8 g/L as acetic acid" }] } });
+    const counter = await buyer.agent
+      .post(B(`/deviations/${deviationId}/messages`))
+      .set("x-csrf-token", buyer.csrf)
+      .send({
+        kind: "proposal",
+        parentId: ask.body.id,
+        body: "Acceptable if an accredited re-test confirms below 0.8 g/L.",
+        proposal: { outcome: "concession", conditions: [{ kind: "retest", detail: "Accredited re-test below 0.8 g/L as acetic acid" }] },
+      });
     expect(counter.status).toBe(201);
     // Nobody accepts their own proposal.
-    expect((await buyer.agent.post(B(`/deviations/${deviationId}/messages`)).set("x-csrf-token", buyer.csrf).send({ kind: "acceptance", parentId: counter.body.id, body: "ok" })).status).toBe(400);
-    expect((await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "acceptance", parentId: counter.body.id, body: "We accept the re-test condition." })).status).toBe(201);
+    expect(
+      (
+        await buyer.agent
+          .post(B(`/deviations/${deviationId}/messages`))
+          .set("x-csrf-token", buyer.csrf)
+          .send({ kind: "acceptance", parentId: counter.body.id, body: "ok" })
+      ).status,
+    ).toBe(400);
+    expect(
+      (
+        await producer.agent
+          .post(P(`/deviations/${deviationId}/messages`))
+          .set("x-csrf-token", producer.csrf)
+          .send({ kind: "acceptance", parentId: counter.body.id, body: "We accept the re-test condition." })
+      ).status,
+    ).toBe(201);
     // Regression: an accepted proposal settles the discussion; nobody can accept again, and the acceptance states the conditions.
     const agreed = (await buyer.agent.get(B(`/deviations/${deviationId}`))).body;
     expect(agreed.status).toBe("agreed");
     expect(agreed.actions.accept).toBe(false);
     expect(agreed.actions.decide).toBe(true);
-    expect(agreed.messages.at(-1).body).toBe("Accepted: Concession for this lot, on condition of: re-test: Accredited re-test below 0.8 g/L as acetic acid. We accept the re-test condition.");
-    expect((await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "acceptance", parentId: counter.body.id, body: "Again." })).status).toBe(409);
+    expect(agreed.messages.at(-1).body).toBe(
+      "Accepted: Concession for this lot, on condition of: re-test: Accredited re-test below 0.8 g/L as acetic acid. We accept the re-test condition.",
+    );
+    expect(
+      (
+        await producer.agent
+          .post(P(`/deviations/${deviationId}/messages`))
+          .set("x-csrf-token", producer.csrf)
+          .send({ kind: "acceptance", parentId: counter.body.id, body: "Again." })
+      ).status,
+    ).toBe(409);
     // Producers propose; only the buyer's technologist decides, and a decision needs a reason.
-    expect((await producer.agent.post(P(`/deviations/${deviationId}/decision`)).set("x-csrf-token", producer.csrf).send({ outcome: "concession", conditions: [], reason: "We decide ourselves." })).status).toBe(403);
-    const noReason = await buyer.agent.post(B(`/deviations/${deviationId}/decision`)).set("x-csrf-token", buyer.csrf).send({ outcome: "concession", conditions: [] });
+    expect(
+      (
+        await producer.agent
+          .post(P(`/deviations/${deviationId}/decision`))
+          .set("x-csrf-token", producer.csrf)
+          .send({ outcome: "concession", conditions: [], reason: "We decide ourselves." })
+      ).status,
+    ).toBe(403);
+    const noReason = await buyer.agent
+      .post(B(`/deviations/${deviationId}/decision`))
+      .set("x-csrf-token", buyer.csrf)
+      .send({ outcome: "concession", conditions: [] });
     expect(noReason.body.errors[0]).toMatchObject({ path: "reason" });
-    const decided = await buyer.agent.post(B(`/deviations/${deviationId}/decision`)).set("x-csrf-token", buyer.csrf).send({ outcome: "concession", conditions: [{ kind: "retest", detail: "Accredited re-test below 0.8 g/L as acetic acid" }], reason: "Sound wine; VA below the legal limit; re-test agreed." });
+    const decided = await buyer.agent
+      .post(B(`/deviations/${deviationId}/decision`))
+      .set("x-csrf-token", buyer.csrf)
+      .send({
+        outcome: "concession",
+        conditions: [{ kind: "retest", detail: "Accredited re-test below 0.8 g/L as acetic acid" }],
+        reason: "Sound wine; VA below the legal limit; re-test agreed.",
+      });
     expect(decided.status).toBe(200);
     const d1 = (await buyer.agent.get(B(`/deviations/${deviationId}`))).body;
     expect(d1.status).toBe("decided");
     expect(d1.messages.map((m: { kind: string }) => m.kind)).toEqual(["proposal", "proposal", "acceptance", "decision"]);
     expect(d1.messages[0].mentions).toEqual(["tessa.marlow"]);
     expect(d1.messages[0].quote).toMatchObject({ parameter: "volatile_acidity", outcome: "fail" });
-    expect((await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "comment", body: "late" })).status).toBe(409);
+    expect(
+      (
+        await producer.agent
+          .post(P(`/deviations/${deviationId}/messages`))
+          .set("x-csrf-token", producer.csrf)
+          .send({ kind: "comment", body: "late" })
+      ).status,
+    ).toBe(409);
 
     await mail.deliver();
     expect(mail.to(DEMO.buyerTechnologist).some((m) => m.subject.startsWith("Élise Carbonnel mentioned you on deviation"))).toBe(true);
-    expect(mail.to(DEMO.producerQuality).some((m) => m.subject === `Deviation #${deviationId} decided: Concession for this lot`)).toBe(true);
+    expect(mail.to(DEMO.producerQuality).some((m) => m.subject === `Deviation #${deviationId} decided: Concession for this lot`)).toBe(
+      true,
+    );
 
     const history = (await producer.agent.get(P(`/history/deviation/${deviationId}`))).body as { action: string }[];
-    expect(history.map((h) => h.action)).toEqual(["deviation.opened", "deviation.proposed", "deviation.proposed", "deviation.accepted", "deviation.decided"]);
+    expect(history.map((h) => h.action)).toEqual([
+      "deviation.opened",
+      "deviation.proposed",
+      "deviation.proposed",
+      "deviation.accepted",
+      "deviation.decided",
+    ]);
     expect((await buyer.agent.get(B("/trail/verify"))).body.ok).toBe(true);
   });
 
@@ -94,18 +178,34 @@ describe("deviations", () => {
 
   it("when a producer attaches a PDF to a message and the record is printed, then the file is kept with its hash and the PDF holds the discussion", async () => {
     const { deviationId } = await failingLot();
-    const m = await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "comment", body: "Our lab report is attached." });
+    const m = await producer.agent
+      .post(P(`/deviations/${deviationId}/messages`))
+      .set("x-csrf-token", producer.csrf)
+      .send({ kind: "comment", body: "Our lab report is attached." });
     const pdf = Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n");
-    const up = await producer.agent.post(P(`/deviations/${deviationId}/messages/${m.body.id}/attachments`)).set("x-csrf-token", producer.csrf).attach("file", pdf, "lab-report.pdf");
+    const up = await producer.agent
+      .post(P(`/deviations/${deviationId}/messages/${m.body.id}/attachments`))
+      .set("x-csrf-token", producer.csrf)
+      .attach("file", pdf, "lab-report.pdf");
     expect(up.status).toBe(201);
-    expect((await buyer.agent.post(B(`/deviations/${deviationId}/messages/${m.body.id}/attachments`)).set("x-csrf-token", buyer.csrf).attach("file", pdf, "x.pdf")).status).toBe(403);
+    expect(
+      (
+        await buyer.agent
+          .post(B(`/deviations/${deviationId}/messages/${m.body.id}/attachments`))
+          .set("x-csrf-token", buyer.csrf)
+          .attach("file", pdf, "x.pdf")
+      ).status,
+    ).toBe(403);
     const detail = (await buyer.agent.get(B(`/deviations/${deviationId}`))).body;
     expect(detail.messages[0].attachments[0]).toMatchObject({ originalName: "lab-report.pdf", sha256: up.body.sha256 });
-    const record = await buyer.agent.get(B(`/deviations/${deviationId}/pdf`)).buffer(true).parse((r, cb) => {
-      const c: Buffer[] = [];
-      r.on("data", (x: Buffer) => c.push(x));
-      r.on("end", () => cb(null, Buffer.concat(c)));
-    });
+    const record = await buyer.agent
+      .get(B(`/deviations/${deviationId}/pdf`))
+      .buffer(true)
+      .parse((r, cb) => {
+        const c: Buffer[] = [];
+        r.on("data", (x: Buffer) => c.push(x));
+        r.on("end", () => cb(null, Buffer.concat(c)));
+      });
     expect(record.headers["content-type"]).toBe("application/pdf");
     const { execFileSync } = await import("node:child_process");
     const text = execFileSync("pdftotext", ["-", "-"], { input: record.body as Buffer, encoding: "utf8" });
@@ -119,9 +219,26 @@ describe("deviations", () => {
 
   it("when a message is edited, then its earlier wording is kept; only its author may edit", async () => {
     const { deviationId } = await failingLot();
-    const m = await producer.agent.post(P(`/deviations/${deviationId}/messages`)).set("x-csrf-token", producer.csrf).send({ kind: "comment", body: "First wording" });
-    expect((await producer.agent.patch(P(`/deviations/${deviationId}/messages/${m.body.id}`)).set("x-csrf-token", producer.csrf).send({ body: "Second wording" })).status).toBe(204);
-    expect((await buyer.agent.patch(B(`/deviations/${deviationId}/messages/${m.body.id}`)).set("x-csrf-token", buyer.csrf).send({ body: "Hijack" })).status).toBe(403);
+    const m = await producer.agent
+      .post(P(`/deviations/${deviationId}/messages`))
+      .set("x-csrf-token", producer.csrf)
+      .send({ kind: "comment", body: "First wording" });
+    expect(
+      (
+        await producer.agent
+          .patch(P(`/deviations/${deviationId}/messages/${m.body.id}`))
+          .set("x-csrf-token", producer.csrf)
+          .send({ body: "Second wording" })
+      ).status,
+    ).toBe(204);
+    expect(
+      (
+        await buyer.agent
+          .patch(B(`/deviations/${deviationId}/messages/${m.body.id}`))
+          .set("x-csrf-token", buyer.csrf)
+          .send({ body: "Hijack" })
+      ).status,
+    ).toBe(403);
     const msg = (await buyer.agent.get(B(`/deviations/${deviationId}`))).body.messages[0];
     expect(msg.body).toBe("Second wording");
     expect(msg.edits).toEqual([{ previousBody: "First wording", editedAt: expect.any(String) }]);
@@ -130,8 +247,18 @@ describe("deviations", () => {
   it("when a user chose the daily digest, then notifications wait for one summary mail a day", async () => {
     await mail.deliver();
     const owen = await signInAs(t.app, DEMO.producerAdmin);
-    expect((await owen.agent.put("/api/me/notification-preferences").set("x-csrf-token", owen.csrf).send({ emailMode: "daily_digest", kinds: ["deviation_opened", "comment", "mention", "decision", "deadline"] })).status).toBe(200);
-    await t.sequelize.query("INSERT INTO notifications (user_id, kind, title, body, link, created_at) VALUES (?, 'comment', 'Digest test', 'x', '/deviations/1', NOW(3))", { replacements: [owen.userId], type: QueryTypes.INSERT });
+    expect(
+      (
+        await owen.agent
+          .put("/api/me/notification-preferences")
+          .set("x-csrf-token", owen.csrf)
+          .send({ emailMode: "daily_digest", kinds: ["deviation_opened", "comment", "mention", "decision", "deadline"] })
+      ).status,
+    ).toBe(200);
+    await t.sequelize.query(
+      "INSERT INTO notifications (user_id, kind, title, body, link, created_at) VALUES (?, 'comment', 'Digest test', 'x', '/deviations/1', NOW(3))",
+      { replacements: [owen.userId], type: QueryTypes.INSERT },
+    );
     expect(await sendDigests()).toBeGreaterThanOrEqual(1);
     expect(await sendDigests()).toBe(0); // at most one a day
     await mail.deliver();
@@ -156,7 +283,10 @@ describe("deviations opened by hand", () => {
     const { lotId } = await failingLot();
     const bad = await buyer.agent.post(B("/deviations")).set("x-csrf-token", buyer.csrf).send({ lotId, parameters: [], reason: "short" });
     expect(bad.body.errors[0]).toMatchObject({ path: "reason" });
-    const ok = await buyer.agent.post(B("/deviations")).set("x-csrf-token", buyer.csrf).send({ lotId, parameters: ["turbidity"], reason: "Visible haze in the retained sample at our tasting panel." });
+    const ok = await buyer.agent
+      .post(B("/deviations"))
+      .set("x-csrf-token", buyer.csrf)
+      .send({ lotId, parameters: ["turbidity"], reason: "Visible haze in the retained sample at our tasting panel." });
     expect(ok.status).toBe(201);
     const seen = (await producer.agent.get(P(`/deviations/${ok.body.id}`))).body;
     expect(seen).toMatchObject({ kind: "manual", status: "open", parameters: ["turbidity"] });

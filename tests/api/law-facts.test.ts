@@ -38,19 +38,36 @@ describe("the wine's facts for the law", () => {
     const contract = (await tech.agent.get(B(`/contracts/${SENTIER_BLANC}`))).body as ContractDetail;
     expect(contract.wine.lawFacts).toMatchObject({ organic: true, protectedOrigin: "pdo" });
 
-    const history = (await tech.agent.get(B(`/history/contract/${SENTIER_BLANC}`))).body as { action: string; details: Record<string, unknown> }[];
+    const history = (await tech.agent.get(B(`/history/contract/${SENTIER_BLANC}`))).body as {
+      action: string;
+      details: Record<string, unknown>;
+    }[];
     expect(history.map((h) => h.action)).toContain("wine.law_facts_changed");
 
     const lot = await producer.agent
       .post(P("/lots"))
       .set("x-csrf-token", producer.csrf)
-      .send({ contractId: SENTIER_BLANC, vintage: 2025, lotCode: `LF-${randomUUID().slice(0, 5)}`, volumeLitres: 5000, container: "bottles", plannedDate: "2027-01-15", market: "EU" });
+      .send({
+        contractId: SENTIER_BLANC,
+        vintage: 2025,
+        lotCode: `LF-${randomUUID().slice(0, 5)}`,
+        volumeLitres: 5000,
+        container: "bottles",
+        plannedDate: "2027-01-15",
+        market: "EU",
+      });
     expect(lot.status).toBe(201);
     const planned = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
     const sent = await producer.agent
       .post(P(`/lots/${lot.body.id}/analyses`))
       .set("x-csrf-token", producer.csrf)
-      .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Domaine des Trois Sentes cellar laboratory", sampleDate: "2026-11-25", results: passingResults(planned.governing!.requirements, "pre_filling", {}) });
+      .send({
+        idempotencyKey: randomUUID(),
+        stage: "pre_filling",
+        laboratoryName: "Domaine des Trois Sentes cellar laboratory",
+        sampleDate: "2026-11-25",
+        results: passingResults(planned.governing!.requirements, "pre_filling", {}),
+      });
     expect(sent.status).toBe(201);
     const detail = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
     const so2 = detail.analyses[0]!.evaluation!.verdicts.find((v) => v.parameter === "total_so2")!;

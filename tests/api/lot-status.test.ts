@@ -43,17 +43,39 @@ describe("one status per lot", () => {
     // A decided deviation is not counted as open; its outcome is shown instead.
     expect(conceded.status.openDeviations).toBe(0);
     expect(conceded.decidedDeviations).toEqual([{ id: expect.any(Number), outcome: "concession" }]);
-    expect(conceded.status.concession).toMatchObject({ conditions: [{ kind: "price_adjustment", detail: "4 % off the invoice for this lot" }] });
+    expect(conceded.status.concession).toMatchObject({
+      conditions: [{ kind: "price_adjustment", detail: "4 % off the invoice for this lot" }],
+    });
     expect(board.find((l) => l.id === lots.bad.id)!.status.openDeviations).toBe(1);
-    expect((await tech.agent.get(B(`/lots/${lots.bad.id}`))).body.status.reason).toBe("Volatile acidity falls outside the governing limits.");
+    expect((await tech.agent.get(B(`/lots/${lots.bad.id}`))).body.status.reason).toBe(
+      "Volatile acidity falls outside the governing limits.",
+    );
   });
 
   it("when the lot conforms or was conceded, then its document is a certificate of conformity that names the concession and its conditions", async () => {
     const good = await getPdf(tech.agent, B(`/lots/${lots.good.id}/conformity.pdf`));
     expect(good.status).toBe(200);
-    for (const needle of ["Certificate of conformity", "Status: Conforms", "Identification", "Object", "Requirements referred to", "Limitations", "Issued on", "Tessa Marlow", "judged against spec version 1", "Laid out after ISO/IEC 17050-1:2004"]) expect(good.text).toContain(needle);
+    for (const needle of [
+      "Certificate of conformity",
+      "Status: Conforms",
+      "Identification",
+      "Object",
+      "Requirements referred to",
+      "Limitations",
+      "Issued on",
+      "Tessa Marlow",
+      "judged against spec version 1",
+      "Laid out after ISO/IEC 17050-1:2004",
+    ])
+      expect(good.text).toContain(needle);
     const conceded = await getPdf(tech.agent, B(`/lots/${lots.conceded.id}/conformity.pdf`));
-    for (const needle of ["Certificate of conformity", "Status: Accepted under concession", "Concession: deviation #", "Sound on tasting; VA stable over four weeks.", "Condition, price adjustment: 4 % off the invoice for this lot"]) {
+    for (const needle of [
+      "Certificate of conformity",
+      "Status: Accepted under concession",
+      "Concession: deviation #",
+      "Sound on tasting; VA stable over four weeks.",
+      "Condition, price adjustment: 4 % off the invoice for this lot",
+    ]) {
       expect(conceded.text).toContain(needle);
     }
   });
@@ -62,7 +84,13 @@ describe("one status per lot", () => {
     const bad = await getPdf(tech.agent, B(`/lots/${lots.bad.id}/conformity.pdf`));
     expect(bad.status).toBe(200);
     expect(bad.text).not.toContain("Certificate of conformity");
-    for (const needle of ["Analysis statement", "Status: Does not conform", "Volatile acidity falls outside the governing limits.", "This is not a certificate of conformity"]) expect(bad.text).toContain(needle);
+    for (const needle of [
+      "Analysis statement",
+      "Status: Does not conform",
+      "Volatile acidity falls outside the governing limits.",
+      "This is not a certificate of conformity",
+    ])
+      expect(bad.text).toContain(needle);
   });
 
   it("when an analysis is stored, then the answer counts its verdicts by outcome exactly as stored", async () => {
@@ -72,7 +100,13 @@ describe("one status per lot", () => {
     const submitted = await producer.agent
       .post(P(`/lots/${lots.bad.id}/analyses`))
       .set("x-csrf-token", producer.csrf)
-      .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Domaine des Trois Sentes cellar laboratory", sampleDate: "2026-11-26", results: [{ parameter: "volatile_acidity", raw: "0.40", unit: "g/L as acetic acid", uncertainty: null }] });
+      .send({
+        idempotencyKey: randomUUID(),
+        stage: "pre_filling",
+        laboratoryName: "Domaine des Trois Sentes cellar laboratory",
+        sampleDate: "2026-11-26",
+        results: [{ parameter: "volatile_acidity", raw: "0.40", unit: "g/L as acetic acid", uncertainty: null }],
+      });
     const after = (await producer.agent.get(P(`/lots/${lots.bad.id}`))).body as LotDetail;
     const verdicts = after.analyses.at(-1)!.evaluation!.verdicts.filter((v) => v.outcome !== "not required");
     const counted: Record<string, number> = {};
@@ -86,10 +120,18 @@ describe("one status per lot", () => {
 
 describe("a lot's market", () => {
   it("when a producer registers or corrects a lot for a market its contract does not name, then it is refused on the market field (regression)", async () => {
-    const bad = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({ contractId: 1, vintage: 2025, lotCode: `ST-US-${tag}`, volumeLitres: 100, container: "bottles", market: "US" });
+    const bad = await producer.agent
+      .post(P("/lots"))
+      .set("x-csrf-token", producer.csrf)
+      .send({ contractId: 1, vintage: 2025, lotCode: `ST-US-${tag}`, volumeLitres: 100, container: "bottles", market: "US" });
     expect(bad.status).toBe(400);
-    expect(bad.body.errors).toEqual([{ path: "market", message: "Contract HG-C-2024-017 covers GB, EU, OIV; choose one of those markets." }]);
-    const fix = await producer.agent.patch(P(`/lots/${lots.good.id}`)).set("x-csrf-token", producer.csrf).send({ volumeLitres: 9000, container: "bottles", plannedDate: null, market: "CN" });
+    expect(bad.body.errors).toEqual([
+      { path: "market", message: "Contract HG-C-2024-017 covers GB, EU, OIV; choose one of those markets." },
+    ]);
+    const fix = await producer.agent
+      .patch(P(`/lots/${lots.good.id}`))
+      .set("x-csrf-token", producer.csrf)
+      .send({ volumeLitres: 9000, container: "bottles", plannedDate: null, market: "CN" });
     expect(fix.status).toBe(400);
     expect((await producer.agent.get(P(`/lots/${lots.good.id}`))).body.market).toBe("EU");
   });
@@ -102,7 +144,12 @@ describe("trends", () => {
     const d = res.body as TrendData;
     // Sentier Blanc's version 1 writes volatile acidity in g/L as acetic acid with a maximum of 0.6 (the still-white template),
     // stricter than the EU's 18 meq/L (2019/934 Annex I Part C), so the buyer's limit governs.
-    expect([d.unit, d.upper, d.lower, d.digits]).toEqual(["g/L as acetic acid", { value: expect.closeTo(0.6, 9), source: "buyer" }, null, 2]);
+    expect([d.unit, d.upper, d.lower, d.digits]).toEqual([
+      "g/L as acetic acid",
+      { value: expect.closeTo(0.6, 9), source: "buyer" },
+      null,
+      2,
+    ]);
     expect(d.points.length).toBeGreaterThan(3);
     for (const p of d.points.filter((x) => x.value !== null)) {
       expect(p.value!).toBeLessThan(2);
@@ -123,15 +170,64 @@ describe("trends with the law governing", () => {
   it("when the buyer's row is looser than the law, then the trend draws the law's limit and says which market sets it", async () => {
     const valsorda = await signInAs(t.app, DEMO.valsordaQuality);
     const V = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
-    const c = await tech.agent.post(B("/contracts")).set("x-csrf-token", tech.csrf).send({ reference: `HG-LAW-${tag}`, producerOrgId: ORG.valsorda, startsOn: "2026-01-01", endsOn: null, wine: { name: "Valsorda Rosso", colour: "red", category: "still", region: "Veneto", markets: ["EU"], nominalSugarGPerL: 2, nominalAlcoholPercentVol: 13 } });
-    const draft = await tech.agent.post(B(`/contracts/${c.body.id}/specs`)).set("x-csrf-token", tech.csrf).send({ from: "blank" });
+    const c = await tech.agent
+      .post(B("/contracts"))
+      .set("x-csrf-token", tech.csrf)
+      .send({
+        reference: `HG-LAW-${tag}`,
+        producerOrgId: ORG.valsorda,
+        startsOn: "2026-01-01",
+        endsOn: null,
+        wine: {
+          name: "Valsorda Rosso",
+          colour: "red",
+          category: "still",
+          region: "Veneto",
+          markets: ["EU"],
+          nominalSugarGPerL: 2,
+          nominalAlcoholPercentVol: 13,
+        },
+      });
+    const draft = await tech.agent
+      .post(B(`/contracts/${c.body.id}/specs`))
+      .set("x-csrf-token", tech.csrf)
+      .send({ from: "blank" });
     const v = (await tech.agent.get(B(`/specs/${draft.body.id}`))).body;
-    const row = { parameter: "volatile_acidity", unit: "g/L as acetic acid", lower: null, upper: 1.5, target: null, rule: { kind: "simple" }, severity: "major", stages: ["pre_filling"], method: null };
-    expect((await tech.agent.put(B(`/specs/${v.id}`)).set("x-csrf-token", tech.csrf).send({ lockVersion: v.lockVersion, title: "Loose VA", vintageFrom: 2025, vintageTo: null, stages: ["pre_filling"], rows: [row] })).status).toBe(200);
+    const row = {
+      parameter: "volatile_acidity",
+      unit: "g/L as acetic acid",
+      lower: null,
+      upper: 1.5,
+      target: null,
+      rule: { kind: "simple" },
+      severity: "major",
+      stages: ["pre_filling"],
+      method: null,
+    };
+    expect(
+      (
+        await tech.agent
+          .put(B(`/specs/${v.id}`))
+          .set("x-csrf-token", tech.csrf)
+          .send({ lockVersion: v.lockVersion, title: "Loose VA", vintageFrom: 2025, vintageTo: null, stages: ["pre_filling"], rows: [row] })
+      ).status,
+    ).toBe(200);
     expect((await tech.agent.post(B(`/specs/${v.id}/send`)).set("x-csrf-token", tech.csrf)).status).toBe(204);
     expect((await valsorda.agent.post(V(`/specs/${v.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
-    const lot = await valsorda.agent.post(V("/lots")).set("x-csrf-token", valsorda.csrf).send({ contractId: c.body.id, vintage: 2025, lotCode: `VR-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
-    await valsorda.agent.post(V(`/lots/${lot.body.id}/analyses`)).set("x-csrf-token", valsorda.csrf).send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Valsorda lab", sampleDate: "2026-11-20", results: [{ parameter: "volatile_acidity", raw: "0.62", unit: "g/L as acetic acid", uncertainty: null }] });
+    const lot = await valsorda.agent
+      .post(V("/lots"))
+      .set("x-csrf-token", valsorda.csrf)
+      .send({ contractId: c.body.id, vintage: 2025, lotCode: `VR-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
+    await valsorda.agent
+      .post(V(`/lots/${lot.body.id}/analyses`))
+      .set("x-csrf-token", valsorda.csrf)
+      .send({
+        idempotencyKey: randomUUID(),
+        stage: "pre_filling",
+        laboratoryName: "Valsorda lab",
+        sampleDate: "2026-11-20",
+        results: [{ parameter: "volatile_acidity", raw: "0.62", unit: "g/L as acetic acid", uncertainty: null }],
+      });
     const d = (await tech.agent.get(B(`/contracts/${c.body.id}/trend?parameter=volatile_acidity`))).body as TrendData;
     // EU: 20 meq/L for red wine, 18 for white and rosé (Delegated Reg. (EU) 2019/934, Annex I Part C); 20 × 60.05 / 1000 = 1.201 g/L as acetic acid.
     expect(d.upper).toEqual({ value: expect.closeTo(1.201, 4), source: "law, EU" });
@@ -143,19 +239,75 @@ describe("a later version and a recorded re-judgement", () => {
   it("when a stricter version is agreed, then nothing is re-judged silently; a re-judgement is a new recorded analysis and the first verdict stays reproducible", async () => {
     const valsorda = await signInAs(t.app, DEMO.valsordaQuality);
     const V = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
-    const c = await tech.agent.post(B("/contracts")).set("x-csrf-token", tech.csrf).send({ reference: `HG-RJ-${tag}`, producerOrgId: ORG.valsorda, startsOn: "2026-01-01", endsOn: null, wine: { name: "Valsorda Bianco", colour: "white", category: "still", region: "Veneto", markets: ["EU"], nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12 } });
+    const c = await tech.agent
+      .post(B("/contracts"))
+      .set("x-csrf-token", tech.csrf)
+      .send({
+        reference: `HG-RJ-${tag}`,
+        producerOrgId: ORG.valsorda,
+        startsOn: "2026-01-01",
+        endsOn: null,
+        wine: {
+          name: "Valsorda Bianco",
+          colour: "white",
+          category: "still",
+          region: "Veneto",
+          markets: ["EU"],
+          nominalSugarGPerL: 2,
+          nominalAlcoholPercentVol: 12,
+        },
+      });
     const agreeVersion = async (from: object, upper: number) => {
-      const draft = await tech.agent.post(B(`/contracts/${c.body.id}/specs`)).set("x-csrf-token", tech.csrf).send(from);
+      const draft = await tech.agent
+        .post(B(`/contracts/${c.body.id}/specs`))
+        .set("x-csrf-token", tech.csrf)
+        .send(from);
       const v = (await tech.agent.get(B(`/specs/${draft.body.id}`))).body;
-      const row = { parameter: "volatile_acidity", unit: "g/L as acetic acid", lower: null, upper, target: null, rule: { kind: "simple" }, severity: "major", stages: ["pre_filling"], method: null };
-      expect((await tech.agent.put(B(`/specs/${v.id}`)).set("x-csrf-token", tech.csrf).send({ lockVersion: v.lockVersion, title: `VA ≤ ${upper}`, vintageFrom: 2025, vintageTo: null, stages: ["pre_filling"], rows: [row] })).status).toBe(200);
+      const row = {
+        parameter: "volatile_acidity",
+        unit: "g/L as acetic acid",
+        lower: null,
+        upper,
+        target: null,
+        rule: { kind: "simple" },
+        severity: "major",
+        stages: ["pre_filling"],
+        method: null,
+      };
+      expect(
+        (
+          await tech.agent
+            .put(B(`/specs/${v.id}`))
+            .set("x-csrf-token", tech.csrf)
+            .send({
+              lockVersion: v.lockVersion,
+              title: `VA ≤ ${upper}`,
+              vintageFrom: 2025,
+              vintageTo: null,
+              stages: ["pre_filling"],
+              rows: [row],
+            })
+        ).status,
+      ).toBe(200);
       expect((await tech.agent.post(B(`/specs/${v.id}/send`)).set("x-csrf-token", tech.csrf)).status).toBe(204);
       expect((await valsorda.agent.post(V(`/specs/${v.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
       return v;
     };
     const v1 = await agreeVersion({ from: "blank" }, 0.9);
-    const lot = await valsorda.agent.post(V("/lots")).set("x-csrf-token", valsorda.csrf).send({ contractId: c.body.id, vintage: 2025, lotCode: `VB-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
-    await valsorda.agent.post(V(`/lots/${lot.body.id}/analyses`)).set("x-csrf-token", valsorda.csrf).send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Valsorda lab", sampleDate: "2026-11-20", results: [{ parameter: "volatile_acidity", raw: "0.70", unit: "g/L as acetic acid", uncertainty: null }] });
+    const lot = await valsorda.agent
+      .post(V("/lots"))
+      .set("x-csrf-token", valsorda.csrf)
+      .send({ contractId: c.body.id, vintage: 2025, lotCode: `VB-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
+    await valsorda.agent
+      .post(V(`/lots/${lot.body.id}/analyses`))
+      .set("x-csrf-token", valsorda.csrf)
+      .send({
+        idempotencyKey: randomUUID(),
+        stage: "pre_filling",
+        laboratoryName: "Valsorda lab",
+        sampleDate: "2026-11-20",
+        results: [{ parameter: "volatile_acidity", raw: "0.70", unit: "g/L as acetic acid", uncertainty: null }],
+      });
     const first = (await tech.agent.get(B(`/lots/${lot.body.id}`))).body as LotDetail;
     expect(first.status.label).toBe("Conforms");
     const v2 = await agreeVersion({ from: "version", versionId: v1.id }, 0.6);
@@ -174,14 +326,24 @@ describe("a later version and a recorded re-judgement", () => {
     expect(after.analyses).toHaveLength(2);
     // The first verdict is kept exactly as stored.
     expect(after.analyses[0]!.evaluation).toEqual(before.analyses[0]!.evaluation);
-    expect(after.analyses[1]).toMatchObject({ rejudgedFromId: before.analyses[0]!.id, evaluation: { specVersion: { id: v2.id, number: v2.number }, worstOutcome: "fail" } });
+    expect(after.analyses[1]).toMatchObject({
+      rejudgedFromId: before.analyses[0]!.id,
+      evaluation: { specVersion: { id: v2.id, number: v2.number }, worstOutcome: "fail" },
+    });
     expect(after.deviations).toHaveLength(1);
-    expect((await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status).toBe(409);
-    expect((await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${after.analyses[1]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status).toBe(409);
+    expect(
+      (await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status,
+    ).toBe(409);
+    expect(
+      (await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${after.analyses[1]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status,
+    ).toBe(409);
     const trail = (await tech.agent.get(B(`/history/lot/${lot.body.id}`))).body as { action: string }[];
     expect(trail.map((e) => e.action)).toContain("analysis.rejudged");
     // Another organisation cannot re-judge.
-    expect((await producer.agent.post(P(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", producer.csrf)).status).toBe(404);
+    expect(
+      (await producer.agent.post(P(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", producer.csrf))
+        .status,
+    ).toBe(404);
   });
 });
 
@@ -191,7 +353,15 @@ describe("a laboratory's number format", () => {
       producer.agent
         .post(P("/contracts/1/imports"))
         .set("x-csrf-token", producer.csrf)
-        .send({ idempotencyKey: randomUUID(), stage: "pre_filling", laboratoryName: "Laboratoire Vauclair", numberFormat, samples: [{ lotCode, vintage: 2025, sampleDate: "2026-11-27", results: [{ parameter: "yeast_count", raw: "1.200", unit: "CFU/mL" }] }] });
+        .send({
+          idempotencyKey: randomUUID(),
+          stage: "pre_filling",
+          laboratoryName: "Laboratoire Vauclair",
+          numberFormat,
+          samples: [
+            { lotCode, vintage: 2025, sampleDate: "2026-11-27", results: [{ parameter: "yeast_count", raw: "1.200", unit: "CFU/mL" }] },
+          ],
+        });
     const comma = await send(`NF-C-${tag}`, "comma");
     const point = await send(`NF-P-${tag}`, "point");
     expect([comma.status, point.status]).toEqual([201, 201]);

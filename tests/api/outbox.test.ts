@@ -18,7 +18,10 @@ describe("mail outbox (transactional outbox pattern, from memory)", () => {
 
     const admin = await signInAs(t.app, DEMO.producerAdmin);
     const email = uniqueEmail("outage");
-    const res = await admin.agent.post(`/api/orgs/${ORG.troisSentes}/invitations`).set("x-csrf-token", admin.csrf).send({ email, role: "producer_quality" });
+    const res = await admin.agent
+      .post(`/api/orgs/${ORG.troisSentes}/invitations`)
+      .set("x-csrf-token", admin.csrf)
+      .send({ email, role: "producer_quality" });
     expect(res.status).toBe(201);
 
     // The relay is down: the attempt fails and the message stays queued with the error recorded.

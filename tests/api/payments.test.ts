@@ -44,7 +44,8 @@ afterAll(async () => {
 });
 
 const B = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
-const q = async <T extends object>(sql: string, replacements: unknown[] = []) => t.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+const q = async <T extends object>(sql: string, replacements: unknown[] = []) =>
+  t.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
 const countOf = async (sql: string, replacements: unknown[] = []) => Number((await q<{ n: number }>(sql, replacements))[0]!.n);
 
 async function waitFor<T>(what: string, probe: () => Promise<T | null | undefined | false>, ms = 8000): Promise<T> {
@@ -75,7 +76,11 @@ async function placeOrder(parameters = ["volatile_acidity", "free_so2"]) {
 
 const order = async (id: number) => (await finance.agent.get(B(`/audit-orders/${id}`))).body;
 const post = (payload: string, header?: string) =>
-  fetch(`${base}/api/webhooks/stripe`, { method: "POST", headers: { "content-type": "application/json", ...(header ? { "stripe-signature": header } : {}) }, body: payload });
+  fetch(`${base}/api/webhooks/stripe`, {
+    method: "POST",
+    headers: { "content-type": "application/json", ...(header ? { "stripe-signature": header } : {}) },
+    body: payload,
+  });
 describe("ordering and paying an audit", () => {
   it("prices the order from the laboratory's list, in integer cents", async () => {
     const labs = await finance.agent.get(B("/laboratories"));
@@ -91,12 +96,26 @@ describe("ordering and paying an audit", () => {
 
   it("refuses a parameter the laboratory does not price, and lets only finance order", async () => {
     const lotId = await anyLotOfContract(1);
-    const body = { idempotencyKey: randomUUID(), contractId: 1, laboratoryOrgId: ORG.lab, lotIds: [lotId], parameters: ["cold_stability_deposit"], stage: "pre_filling" };
+    const body = {
+      idempotencyKey: randomUUID(),
+      contractId: 1,
+      laboratoryOrgId: ORG.lab,
+      lotIds: [lotId],
+      parameters: ["cold_stability_deposit"],
+      stage: "pre_filling",
+    };
     const unpriced = await finance.agent.post(B("/audit-orders")).set("x-csrf-token", finance.csrf).send(body);
     expect(unpriced.status).toBe(400);
     expect(unpriced.body.errors[0].message).toMatch(/does not offer Cold stability/i);
     const tech = await signInAs(t.app, DEMO.buyerTechnologist);
-    expect((await tech.agent.post(B("/audit-orders")).set("x-csrf-token", tech.csrf).send({ ...body, parameters: ["alcohol"] })).status).toBe(403);
+    expect(
+      (
+        await tech.agent
+          .post(B("/audit-orders"))
+          .set("x-csrf-token", tech.csrf)
+          .send({ ...body, parameters: ["alcohol"] })
+      ).status,
+    ).toBe(403);
     const other = await signInAs(t.app, DEMO.valsordaQuality);
     const placed = await placeOrder();
     expect((await other.agent.get(`/api/orgs/${ORG.valsorda}/audit-orders/${placed.id}`)).status).toBe(404);
@@ -108,7 +127,9 @@ describe("ordering and paying an audit", () => {
   it("opens one Checkout Session per order however often Pay is pressed", async () => {
     const placed = await placeOrder();
     const sessionsBefore = fake.state.sessions.size;
-    const [a, b] = await Promise.all([1, 2].map(() => finance.agent.post(B(`/audit-orders/${placed.id}/checkout`)).set("x-csrf-token", finance.csrf)));
+    const [a, b] = await Promise.all(
+      [1, 2].map(() => finance.agent.post(B(`/audit-orders/${placed.id}/checkout`)).set("x-csrf-token", finance.csrf)),
+    );
     expect(a!.status).toBe(200);
     expect(b!.status).toBe(200);
     expect(a!.body.url).toBe(b!.body.url);
@@ -121,13 +142,21 @@ describe("ordering and paying an audit", () => {
   it("a declined card is recorded as a failure; a good card then pays, with one receipt; a refund comes back through the webhook", async () => {
     const placed = await placeOrder();
     const { url } = (await finance.agent.post(B(`/audit-orders/${placed.id}/checkout`)).set("x-csrf-token", finance.csrf)).body;
-    const pay = (card: string) => fetch(url, { method: "POST", redirect: "manual", headers: { "content-type": "application/x-www-form-urlencoded" }, body: new URLSearchParams({ card, exp: "12 / 34", cvc: "123", name: "Owen Pryce" }) });
+    const pay = (card: string) =>
+      fetch(url, {
+        method: "POST",
+        redirect: "manual",
+        headers: { "content-type": "application/x-www-form-urlencoded" },
+        body: new URLSearchParams({ card, exp: "12 / 34", cvc: "123", name: "Owen Pryce" }),
+      });
 
     const declined = await pay("4000 0000 0000 0002");
     expect(declined.status).toBe(402);
     expect(await declined.text()).toContain("Your card was declined.");
     await waitFor("the decline", async () => (await order(placed.id)).status === "payment_failed");
-    expect(await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action = 'payment.failed' AND entity_id = ?", [String(placed.id)])).toBe(1);
+    expect(
+      await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action = 'payment.failed' AND entity_id = ?", [String(placed.id)]),
+    ).toBe(1);
 
     const paid = await pay("4242 4242 4242 4242");
     expect(paid.status).toBe(303);
@@ -140,9 +169,16 @@ describe("ordering and paying an audit", () => {
     expect(o.payments.filter((p: { kind: string }) => p.kind === "payment")).toHaveLength(1);
     expect(o.payments.filter((p: { kind: string }) => p.kind === "failure")).toHaveLength(1);
     // checkout.session.completed and payment_intent.succeeded both report it: still one payment.
-    const events = fake.state.events.filter((e) => (e.data.object as { metadata?: { auditOrderId?: string } }).metadata?.auditOrderId === String(placed.id)).map((e) => e.type);
-    expect(events).toEqual(expect.arrayContaining(["checkout.session.completed", "payment_intent.succeeded", "payment_intent.payment_failed"]));
-    await waitFor("every event applied", async () => fake.webhooks.attempts.filter((a) => a.status === 200).length >= fake.state.events.length - 2);
+    const events = fake.state.events
+      .filter((e) => (e.data.object as { metadata?: { auditOrderId?: string } }).metadata?.auditOrderId === String(placed.id))
+      .map((e) => e.type);
+    expect(events).toEqual(
+      expect.arrayContaining(["checkout.session.completed", "payment_intent.succeeded", "payment_intent.payment_failed"]),
+    );
+    await waitFor(
+      "every event applied",
+      async () => fake.webhooks.attempts.filter((a) => a.status === 200).length >= fake.state.events.length - 2,
+    );
     expect(await countOf("SELECT COUNT(*) AS n FROM audit_payments WHERE audit_order_id = ? AND kind = 'payment'", [placed.id])).toBe(1);
 
     await mail.deliver();
@@ -156,15 +192,26 @@ describe("ordering and paying an audit", () => {
     expect(text).toContain(`Receipt for independent audit ${placed.reference}`);
     expect(text).toContain("Declined attempt");
 
-    const refund = await finance.agent.post(B(`/audit-orders/${placed.id}/refund`)).set("x-csrf-token", finance.csrf).send({ reason: "Ordered twice by mistake" });
+    const refund = await finance.agent
+      .post(B(`/audit-orders/${placed.id}/refund`))
+      .set("x-csrf-token", finance.csrf)
+      .send({ reason: "Ordered twice by mistake" });
     expect(refund.status).toBe(202);
     const r = await waitFor("the refund", async () => {
       const x = await order(placed.id);
       return x.status === "refunded" && x;
     });
     expect(r.refundedCents).toBe(placed.amountCents);
-    expect(await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action IN ('payment.refunded', 'audit_order.refund_requested') AND entity_id = ?", [String(placed.id)])).toBe(2);
-    const second = await finance.agent.post(B(`/audit-orders/${placed.id}/refund`)).set("x-csrf-token", finance.csrf).send({ reason: "again" });
+    expect(
+      await countOf(
+        "SELECT COUNT(*) AS n FROM trail_entries WHERE action IN ('payment.refunded', 'audit_order.refund_requested') AND entity_id = ?",
+        [String(placed.id)],
+      ),
+    ).toBe(2);
+    const second = await finance.agent
+      .post(B(`/audit-orders/${placed.id}/refund`))
+      .set("x-csrf-token", finance.csrf)
+      .send({ reason: "again" });
     expect(second.status).toBe(409);
 
     // The order's trail, in order, for the buyer only.
@@ -172,7 +219,9 @@ describe("ordering and paying an audit", () => {
     const actions = history.body.map((e: { action: string }) => e.action);
     expect(actions.indexOf("payment.failed")).toBeLessThan(actions.indexOf("payment.succeeded"));
     expect(actions.indexOf("payment.succeeded")).toBeLessThan(actions.indexOf("payment.refunded"));
-    expect(actions).toEqual(expect.arrayContaining(["audit_order.created", "audit_order.checkout_started", "audit_order.refund_requested"]));
+    expect(actions).toEqual(
+      expect.arrayContaining(["audit_order.created", "audit_order.checkout_started", "audit_order.refund_requested"]),
+    );
     const lab = await signInAs(t.app, DEMO.labAnalyst);
     expect((await lab.agent.get(`/api/orgs/${ORG.lab}/history/audit_order/${placed.id}`)).status).toBe(404);
   });
@@ -187,7 +236,9 @@ describe("webhooks", () => {
     const bodies = await Promise.all(answers.map((a) => a.json()));
     expect(bodies.filter((b) => !b.duplicate)).toHaveLength(1);
     expect(await countOf("SELECT COUNT(*) AS n FROM audit_payments WHERE audit_order_id = ?", [placed.id])).toBe(1);
-    expect(await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action = 'payment.succeeded' AND entity_id = ?", [String(placed.id)])).toBe(1);
+    expect(
+      await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action = 'payment.succeeded' AND entity_id = ?", [String(placed.id)]),
+    ).toBe(1);
     await mail.deliver();
     expect(mail.to(DEMO.buyerFinance).filter((m) => m.subject.startsWith(`Receipt for audit ${placed.reference}`))).toHaveLength(1);
     expect((await order(placed.id)).status).toBe("paid");
@@ -201,7 +252,12 @@ describe("webhooks", () => {
     const wrongSecret = Stripe.webhooks.generateTestHeaderString({ payload: good.payload, secret: "whsec_someone_else_entirely" });
     const stale = signed(event, Math.floor(Date.now() / 1000) - 301);
     const tampered = good.payload.replace(`"amount":${placed.amountCents}`, `"amount":1`);
-    for (const [payload, header] of [[good.payload, wrongSecret], [stale.payload, stale.header], [tampered, good.header], [good.payload, undefined]] as const) {
+    for (const [payload, header] of [
+      [good.payload, wrongSecret],
+      [stale.payload, stale.header],
+      [tampered, good.header],
+      [good.payload, undefined],
+    ] as const) {
       const res = await post(payload, header);
       expect(res.status).toBe(400);
       expect((await res.json()).detail).toMatch(/signature/i);
@@ -219,9 +275,31 @@ describe("webhooks", () => {
     const refunded = {
       ...succeededEvent(placed.id, placed.amountCents, pi),
       type: "charge.refunded",
-      data: { object: { id: "ch_x", object: "charge", payment_intent: pi, amount: placed.amountCents, amount_refunded: placed.amountCents, metadata: { auditOrderId: String(placed.id) }, refunds: { object: "list", data: [{ id: `re_${randomUUID().slice(0, 8)}`, object: "refund", amount: placed.amountCents }] } } },
+      data: {
+        object: {
+          id: "ch_x",
+          object: "charge",
+          payment_intent: pi,
+          amount: placed.amountCents,
+          amount_refunded: placed.amountCents,
+          metadata: { auditOrderId: String(placed.id) },
+          refunds: { object: "list", data: [{ id: `re_${randomUUID().slice(0, 8)}`, object: "refund", amount: placed.amountCents }] },
+        },
+      },
     };
-    const failed = { ...succeededEvent(placed.id, placed.amountCents, pi), type: "payment_intent.payment_failed", data: { object: { id: pi, object: "payment_intent", amount: placed.amountCents, metadata: { auditOrderId: String(placed.id) }, last_payment_error: { charge: "ch_late", message: "Your card was declined." } } } };
+    const failed = {
+      ...succeededEvent(placed.id, placed.amountCents, pi),
+      type: "payment_intent.payment_failed",
+      data: {
+        object: {
+          id: pi,
+          object: "payment_intent",
+          amount: placed.amountCents,
+          metadata: { auditOrderId: String(placed.id) },
+          last_payment_error: { charge: "ch_late", message: "Your card was declined." },
+        },
+      },
+    };
     for (const e of [refunded, succeededEvent(placed.id, placed.amountCents, pi), failed]) {
       const s = signed(e);
       expect((await post(s.payload, s.header)).status).toBe(200);
@@ -237,7 +315,12 @@ describe("webhooks", () => {
     const { url } = (await finance.agent.post(B(`/audit-orders/${placed.id}/checkout`)).set("x-csrf-token", finance.csrf)).body;
     // Point the fake at a closed port first: every attempt fails until it is pointed back.
     fake.webhooks.point("http://127.0.0.1:9/api/webhooks/stripe");
-    const res = await fetch(url, { method: "POST", redirect: "manual", headers: { "content-type": "application/x-www-form-urlencoded" }, body: new URLSearchParams({ card: "4242424242424242", exp: "12/34", cvc: "123", name: "O P" }) });
+    const res = await fetch(url, {
+      method: "POST",
+      redirect: "manual",
+      headers: { "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ card: "4242424242424242", exp: "12/34", cvc: "123", name: "O P" }),
+    });
     expect(res.status).toBe(303);
     await waitFor("a failed attempt", async () => fake.webhooks.attempts.some((a) => a.error !== null));
     // Paid at Stripe but not yet confirmed here: pressing Pay again must not open a second payment.
@@ -254,15 +337,26 @@ describe("the Stripe fake through the SDK", () => {
   it("20 concurrent requests with one idempotency key make one charge; the key with another body is an error", async () => {
     const before = fake.state.charges.length;
     const key = `cellarpact-test-${randomUUID()}`;
-    const intents = await Promise.all(Array.from({ length: 20 }, () => sdk.paymentIntents.create({ amount: 4200, currency: "eur", confirm: true, payment_method: "pm_card_visa" }, { idempotencyKey: key })));
+    const intents = await Promise.all(
+      Array.from({ length: 20 }, () =>
+        sdk.paymentIntents.create(
+          { amount: 4200, currency: "eur", confirm: true, payment_method: "pm_card_visa" },
+          { idempotencyKey: key },
+        ),
+      ),
+    );
     expect(new Set(intents.map((i) => i.id)).size).toBe(1);
     expect(intents[0]!.status).toBe("succeeded");
     expect(fake.state.charges.length).toBe(before + 1);
-    await expect(sdk.paymentIntents.create({ amount: 9900, currency: "eur" }, { idempotencyKey: key })).rejects.toBeInstanceOf(Stripe.errors.StripeIdempotencyError);
+    await expect(sdk.paymentIntents.create({ amount: 9900, currency: "eur" }, { idempotencyKey: key })).rejects.toBeInstanceOf(
+      Stripe.errors.StripeIdempotencyError,
+    );
   });
 
   it("a declined card raises the SDK's card error with Stripe's codes", async () => {
-    const err = await sdk.paymentIntents.create({ amount: 1500, currency: "eur", confirm: true, payment_method: "pm_card_chargeDeclined" }).catch((e: unknown) => e);
+    const err = await sdk.paymentIntents
+      .create({ amount: 1500, currency: "eur", confirm: true, payment_method: "pm_card_chargeDeclined" })
+      .catch((e: unknown) => e);
     expect(err).toBeInstanceOf(Stripe.errors.StripeCardError);
     expect((err as Stripe.errors.StripeCardError).code).toBe("card_declined");
     expect((err as Stripe.errors.StripeCardError).decline_code).toBe("generic_decline");

@@ -28,12 +28,18 @@ const producerUrl = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
 const valsordaUrl = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
 
 async function newDraft(from: object = { from: "template", templateId: "still-red" }) {
-  const res = await buyer.agent.post(buyerUrl(`/contracts/${VALSORDA}/specs`)).set("x-csrf-token", buyer.csrf).send(from);
+  const res = await buyer.agent
+    .post(buyerUrl(`/contracts/${VALSORDA}/specs`))
+    .set("x-csrf-token", buyer.csrf)
+    .send(from);
   expect(res.status).toBe(201);
   return (await buyer.agent.get(buyerUrl(`/specs/${res.body.id}`))).body;
 }
 
-const draftBody = (v: { lockVersion: number; vintageFrom: number; stages: string[]; requirements: Record<string, unknown>[] }, rows = v.requirements) => ({
+const draftBody = (
+  v: { lockVersion: number; vintageFrom: number; stages: string[]; requirements: Record<string, unknown>[] },
+  rows = v.requirements,
+) => ({
   lockVersion: v.lockVersion,
   title: "Test",
   vintageFrom: v.vintageFrom,
@@ -51,17 +57,26 @@ describe("spec sheet lifecycle and authorization", () => {
     expect((await valsorda.agent.get(valsordaUrl(`/specs/${v.id}`))).status).toBe(404);
     expect((await producer.agent.get(producerUrl(`/specs/${v.id}`))).status).toBe(404);
 
-    const saved = await buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(draftBody(v));
+    const saved = await buyer.agent
+      .put(buyerUrl(`/specs/${v.id}`))
+      .set("x-csrf-token", buyer.csrf)
+      .send(draftBody(v));
     expect(saved.status).toBe(200);
     expect(saved.body.lockVersion).toBe(v.lockVersion + 1);
 
     expect((await buyer.agent.post(buyerUrl(`/specs/${v.id}/send`)).set("x-csrf-token", buyer.csrf)).status).toBe(204);
-    const again = await buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(draftBody({ ...v, lockVersion: saved.body.lockVersion }));
+    const again = await buyer.agent
+      .put(buyerUrl(`/specs/${v.id}`))
+      .set("x-csrf-token", buyer.csrf)
+      .send(draftBody({ ...v, lockVersion: saved.body.lockVersion }));
     expect(again.status).toBe(409);
 
     const seen = (await valsorda.agent.get(valsordaUrl(`/specs/${v.id}`))).body;
     expect(seen.actions).toMatchObject({ decide: true, comment: true, edit: false });
-    const comment = await valsorda.agent.post(valsordaUrl(`/specs/${v.id}/comments`)).set("x-csrf-token", valsorda.csrf).send({ requirementId: seen.requirements[0].id, body: "Our 2024 lots ran at 13.8 % vol." });
+    const comment = await valsorda.agent
+      .post(valsordaUrl(`/specs/${v.id}/comments`))
+      .set("x-csrf-token", valsorda.csrf)
+      .send({ requirementId: seen.requirements[0].id, body: "Our 2024 lots ran at 13.8 % vol." });
     expect(comment.status).toBe(201);
     // The buyer cannot agree on the producer's behalf: wrong role.
     expect((await buyer.agent.post(buyerUrl(`/specs/${v.id}/agree`)).set("x-csrf-token", buyer.csrf)).status).toBe(403);
@@ -84,9 +99,23 @@ describe("spec sheet lifecycle and authorization", () => {
 
   it("when only the owning buyer may edit, then the producer gets 403 for the role and 404 for a draft it cannot see", async () => {
     const v = await newDraft({ from: "blank" });
-    expect((await valsorda.agent.put(valsordaUrl(`/specs/${v.id}`)).set("x-csrf-token", valsorda.csrf).send(draftBody(v))).status).toBe(403);
+    expect(
+      (
+        await valsorda.agent
+          .put(valsordaUrl(`/specs/${v.id}`))
+          .set("x-csrf-token", valsorda.csrf)
+          .send(draftBody(v))
+      ).status,
+    ).toBe(403);
     const finance = await signInAs(t.app, DEMO.buyerFinance);
-    expect((await finance.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", finance.csrf).send(draftBody(v))).status).toBe(403);
+    expect(
+      (
+        await finance.agent
+          .put(buyerUrl(`/specs/${v.id}`))
+          .set("x-csrf-token", finance.csrf)
+          .send(draftBody(v))
+      ).status,
+    ).toBe(403);
   });
 
   it("when two saves race on one draft, then exactly one succeeds and the other gets 409 with nothing overwritten", async () => {
@@ -94,13 +123,21 @@ describe("spec sheet lifecycle and authorization", () => {
     const rowsA = v.requirements.slice(0, 3);
     const rowsB = v.requirements.slice(0, 5);
     const [a, b] = await Promise.all([
-      buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(draftBody(v, rowsA)),
-      buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(draftBody(v, rowsB)),
+      buyer.agent
+        .put(buyerUrl(`/specs/${v.id}`))
+        .set("x-csrf-token", buyer.csrf)
+        .send(draftBody(v, rowsA)),
+      buyer.agent
+        .put(buyerUrl(`/specs/${v.id}`))
+        .set("x-csrf-token", buyer.csrf)
+        .send(draftBody(v, rowsB)),
     ]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
     const winner = a.status === 200 ? rowsA : rowsB;
     const stored = (await buyer.agent.get(buyerUrl(`/specs/${v.id}`))).body;
-    expect(stored.requirements.map((r: { parameter: string }) => r.parameter)).toEqual(winner.map((r: { parameter: string }) => r.parameter));
+    expect(stored.requirements.map((r: { parameter: string }) => r.parameter)).toEqual(
+      winner.map((r: { parameter: string }) => r.parameter),
+    );
     expect((a.status === 409 ? a : b).body.detail).toMatch(/Reload to see their changes/);
   });
 });
@@ -122,7 +159,10 @@ describe("bad input: the API enforces every editor validation with the same mess
       const client = specDraftSchema.safeParse(body);
       expect(client.success).toBe(false);
       const clientMessages = client.error!.issues.map((i) => i.message).sort();
-      const res = await buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(body);
+      const res = await buyer.agent
+        .put(buyerUrl(`/specs/${v.id}`))
+        .set("x-csrf-token", buyer.csrf)
+        .send(body);
       expect(res.status).toBe(400);
       expect((res.body.errors as { message: string }[]).map((e) => e.message).sort()).toEqual(clientMessages);
     });
@@ -130,8 +170,26 @@ describe("bad input: the API enforces every editor validation with the same mess
 
   it("when a draft's range becomes impossible with the law applied, then sending is refused per row", async () => {
     const v = await newDraft({ from: "blank" });
-    const body = draftBody(v, [{ parameter: "total_acidity", unit: "g/L as tartaric acid", lower: 2, upper: 3, rule: { kind: "simple" }, severity: "major", stages: ["pre_filling"], method: null }]);
-    expect((await buyer.agent.put(buyerUrl(`/specs/${v.id}`)).set("x-csrf-token", buyer.csrf).send(body)).status).toBe(200);
+    const body = draftBody(v, [
+      {
+        parameter: "total_acidity",
+        unit: "g/L as tartaric acid",
+        lower: 2,
+        upper: 3,
+        rule: { kind: "simple" },
+        severity: "major",
+        stages: ["pre_filling"],
+        method: null,
+      },
+    ]);
+    expect(
+      (
+        await buyer.agent
+          .put(buyerUrl(`/specs/${v.id}`))
+          .set("x-csrf-token", buyer.csrf)
+          .send(body)
+      ).status,
+    ).toBe(200);
     const sent = await buyer.agent.post(buyerUrl(`/specs/${v.id}/send`)).set("x-csrf-token", buyer.csrf);
     expect(sent.status).toBe(400);
     expect(sent.body.errors[0]).toMatchObject({ path: "rows.0.lower", message: expect.stringMatching(/no wine could conform/) });
@@ -142,11 +200,14 @@ describe("PDF", () => {
   it("when the PDF of a version is downloaded, then pdftotext finds every parameter, the version and the parties", async () => {
     const contract = (await buyer.agent.get(buyerUrl(`/contracts/1`))).body;
     const v = (await buyer.agent.get(buyerUrl(`/specs/${contract.versions[0].id}`))).body;
-    const res = await buyer.agent.get(buyerUrl(`/specs/${v.id}/pdf`)).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on("data", (c: Buffer) => chunks.push(c));
-      r.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await buyer.agent
+      .get(buyerUrl(`/specs/${v.id}/pdf`))
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on("data", (c: Buffer) => chunks.push(c));
+        r.on("end", () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers["content-type"]).toBe("application/pdf");
     const file = path.join(mkdtempSync(path.join(os.tmpdir(), "spec-pdf-")), "spec.pdf");
@@ -168,7 +229,15 @@ describe("contracts", () => {
     producerOrgId,
     startsOn: "2026-01-01",
     endsOn: null,
-    wine: { name: "Valsorda Bianco", colour: "white", category: "still", region: "Veneto", markets: ["EU"], nominalSugarGPerL: 3, nominalAlcoholPercentVol: 12 },
+    wine: {
+      name: "Valsorda Bianco",
+      colour: "white",
+      category: "still",
+      region: "Veneto",
+      markets: ["EU"],
+      nominalSugarGPerL: 3,
+      nominalAlcoholPercentVol: 12,
+    },
   });
 
   it("when the buyer opens a contract, then it is listed for both parties and the reference cannot be reused", async () => {
@@ -180,11 +249,19 @@ describe("contracts", () => {
   });
 
   it("when the producer named is not a producer, or the caller is not a buyer, then the contract is refused", async () => {
-    const bad = await buyer.agent.post(buyerUrl("/contracts")).set("x-csrf-token", buyer.csrf).send(contract(`HG-X-${Date.now()}`, ORG.lab));
+    const bad = await buyer.agent
+      .post(buyerUrl("/contracts"))
+      .set("x-csrf-token", buyer.csrf)
+      .send(contract(`HG-X-${Date.now()}`, ORG.lab));
     expect(bad.status).toBe(400);
     expect(bad.body.errors[0]).toEqual({ path: "producerOrgId", message: "Choose a producer organisation." });
-    expect((await valsorda.agent.post(valsordaUrl("/contracts")).set("x-csrf-token", valsorda.csrf).send(contract("X-1"))).status).toBe(403);
-    const ends = await buyer.agent.post(buyerUrl("/contracts")).set("x-csrf-token", buyer.csrf).send({ ...contract("HG-Y"), endsOn: "2025-01-01" });
+    expect((await valsorda.agent.post(valsordaUrl("/contracts")).set("x-csrf-token", valsorda.csrf).send(contract("X-1"))).status).toBe(
+      403,
+    );
+    const ends = await buyer.agent
+      .post(buyerUrl("/contracts"))
+      .set("x-csrf-token", buyer.csrf)
+      .send({ ...contract("HG-Y"), endsOn: "2025-01-01" });
     expect(ends.body.errors).toEqual([{ path: "endsOn", message: "The contract cannot end before it starts." }]);
   });
 });
@@ -192,7 +269,10 @@ describe("contracts", () => {
 describe("regressions found by using the spec sheets", () => {
   it("when the buyer starts a new version from an agreed one, then the copy is valid as it opens, so autosave can run", async () => {
     // Sentier Blanc's version 1 has rows that also require the on-arrival stage, which the version did not list.
-    const res = await buyer.agent.post(buyerUrl("/contracts/1/specs")).set("x-csrf-token", buyer.csrf).send({ from: "version", versionId: 1 });
+    const res = await buyer.agent
+      .post(buyerUrl("/contracts/1/specs"))
+      .set("x-csrf-token", buyer.csrf)
+      .send({ from: "version", versionId: 1 });
     expect(res.status).toBe(201);
     const v = (await buyer.agent.get(buyerUrl(`/specs/${res.body.id}`))).body;
     const parsed = specDraftSchema.safeParse(draftBody(v));
@@ -200,14 +280,35 @@ describe("regressions found by using the spec sheets", () => {
   });
 
   it("when a version is sent, commented on, sent back or agreed, then the other side is notified in the app", async () => {
-    const titles = async (who: SignedInAgent) => ((await who.agent.get("/api/me/notifications")).body.items as { title: string; link: string }[]).map((n) => `${n.title} → ${n.link}`);
+    const titles = async (who: SignedInAgent) =>
+      ((await who.agent.get("/api/me/notifications")).body.items as { title: string; link: string }[]).map((n) => `${n.title} → ${n.link}`);
     const v = await newDraft();
     expect((await buyer.agent.post(buyerUrl(`/specs/${v.id}/send`)).set("x-csrf-token", buyer.csrf)).status).toBe(204);
-    expect(await titles(valsorda)).toContain(`Spec HG-C-2025-030 v${v.number} for Valsorda Rosato Frizzante is waiting for your review → /specs/${v.id}`);
+    expect(await titles(valsorda)).toContain(
+      `Spec HG-C-2025-030 v${v.number} for Valsorda Rosato Frizzante is waiting for your review → /specs/${v.id}`,
+    );
     const row = v.requirements[0];
-    expect((await valsorda.agent.post(valsordaUrl(`/specs/${v.id}/comments`)).set("x-csrf-token", valsorda.csrf).send({ requirementId: row.id, body: "Could this be 0.5?" })).status).toBe(201);
-    expect((await titles(buyer)).some((t) => t.startsWith(`Giulia Ferrante commented on spec HG-C-2025-030 v${v.number} (${findParameter(row.parameter)!.name})`))).toBe(true);
-    expect((await valsorda.agent.post(valsordaUrl(`/specs/${v.id}/request-changes`)).set("x-csrf-token", valsorda.csrf).send({ reason: "Alcohol range too narrow for our 2025." })).status).toBe(204);
+    expect(
+      (
+        await valsorda.agent
+          .post(valsordaUrl(`/specs/${v.id}/comments`))
+          .set("x-csrf-token", valsorda.csrf)
+          .send({ requirementId: row.id, body: "Could this be 0.5?" })
+      ).status,
+    ).toBe(201);
+    expect(
+      (await titles(buyer)).some((t) =>
+        t.startsWith(`Giulia Ferrante commented on spec HG-C-2025-030 v${v.number} (${findParameter(row.parameter)!.name})`),
+      ),
+    ).toBe(true);
+    expect(
+      (
+        await valsorda.agent
+          .post(valsordaUrl(`/specs/${v.id}/request-changes`))
+          .set("x-csrf-token", valsorda.csrf)
+          .send({ reason: "Alcohol range too narrow for our 2025." })
+      ).status,
+    ).toBe(204);
     expect(await titles(buyer)).toContain(`Cantina Valsorda asked for changes to spec HG-C-2025-030 v${v.number} → /specs/${v.id}`);
     const again = await newDraft();
     expect((await buyer.agent.post(buyerUrl(`/specs/${again.id}/send`)).set("x-csrf-token", buyer.csrf)).status).toBe(204);

@@ -41,7 +41,16 @@ let base: Snapshot;
 beforeAll(async () => {
   for (let i = 0; i < 5; i++) {
     await inTransaction((tx) =>
-      recordTrail(tx, { actorUserId: 2, organisationId: 1, action: "user.profile_updated", entityType: "thing", entityId: i, before: { v: i }, after: { v: i + 1 }, details: { i } }),
+      recordTrail(tx, {
+        actorUserId: 2,
+        organisationId: 1,
+        action: "user.profile_updated",
+        entityType: "thing",
+        entityId: i,
+        before: { v: i },
+        after: { v: i + 1 },
+        details: { i },
+      }),
     );
   }
   base = await snapshot();

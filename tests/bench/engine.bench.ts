@@ -22,13 +22,17 @@ let seed = 42;
 const rand = () => (seed = (seed * 1664525 + 1013904223) >>> 0) / 2 ** 32;
 
 const requirements: GoverningRequirement[] = params.map((p) =>
-  buildRequirement({ parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : 1, upper: 100, rule: DEFAULT_DECISION_RULE }, ["EU", "US"], {
-    colour: "red",
-    category: "still",
-    sugarGPerL: 2,
-    harvestYear: 2024,
-    alcoholPercentVol: 13,
-  }),
+  buildRequirement(
+    { parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : 1, upper: 100, rule: DEFAULT_DECISION_RULE },
+    ["EU", "US"],
+    {
+      colour: "red",
+      category: "still",
+      sugarGPerL: 2,
+      harvestYear: 2024,
+      alcoholPercentVol: 13,
+    },
+  ),
 );
 const values = requirements.map(() => Float64Array.from({ length: LOTS }, () => rand() * 120));
 const uncertainties = requirements.map(() => Float64Array.from({ length: LOTS }, () => rand() * 2));
@@ -62,7 +66,11 @@ function fullVerdicts(sampleLots: number): number {
   let notPass = 0;
   for (let r = 0; r < requirements.length; r++) {
     for (let i = 0; i < sampleLots; i++) {
-      const v = evaluate(requirements[r]!, { reading: { kind: "value", value: values[r]![i]! }, unit: params[r]!.unit, uncertainty: { kind: "standard", value: uncertainties[r]![i]! } });
+      const v = evaluate(requirements[r]!, {
+        reading: { kind: "value", value: values[r]![i]! },
+        unit: params[r]!.unit,
+        uncertainty: { kind: "standard", value: uncertainties[r]![i]! },
+      });
       if (v.outcome !== STATEMENT_CODES[0]) notPass++;
     }
   }
@@ -94,5 +102,9 @@ const barePerResult = median(runs.bare) / (LOTS * requirements.length);
 
 console.log(`engine benchmark: ${LOTS} lots × ${requirements.length} requirements = ${LOTS * requirements.length} results`);
 console.log(`  bare comparisons      ${median(runs.bare).toFixed(1)} ms`);
-console.log(`  evaluateMany (batch)  ${median(runs.batch).toFixed(1)} ms   ratio ${(median(runs.batch) / median(runs.bare)).toFixed(2)}× (goal ≤ 3×), same counts: ${agree}`);
-console.log(`  evaluate (full verdict with explanation, ${SAMPLE} lots sampled)  ${(fullPerResult * 1e6).toFixed(0)} ns/result   ratio ${(fullPerResult / barePerResult).toFixed(0)}×`);
+console.log(
+  `  evaluateMany (batch)  ${median(runs.batch).toFixed(1)} ms   ratio ${(median(runs.batch) / median(runs.bare)).toFixed(2)}× (goal ≤ 3×), same counts: ${agree}`,
+);
+console.log(
+  `  evaluate (full verdict with explanation, ${SAMPLE} lots sampled)  ${(fullPerResult * 1e6).toFixed(0)} ns/result   ratio ${(fullPerResult / barePerResult).toFixed(0)}×`,
+);

@@ -24,14 +24,23 @@ execFileSync("bash", ["server/scripts/db.sh", "start"], { cwd: root, stdio: "ign
 const config = loadConfig({ ...process.env, DB_NAME: "cellarpact_bench", LOG_LEVEL: "silent" });
 const sequelize = createSequelize(config);
 useDatabase(sequelize);
-useServiceSettings({ appUrl: "http://127.0.0.1", bcryptCost: 4, certificateDir: path.join(root, ".data/bench-certificates"), stripe: { secretKey: "sk_test_bench", webhookSecret: "whsec_bench_not_used", host: "127.0.0.1", port: 12111, protocol: "http" } });
+useServiceSettings({
+  appUrl: "http://127.0.0.1",
+  bcryptCost: 4,
+  certificateDir: path.join(root, ".data/bench-certificates"),
+  stripe: { secretKey: "sk_test_bench", webhookSecret: "whsec_bench_not_used", host: "127.0.0.1", port: 12111, protocol: "http" },
+});
 await dropAllTables(sequelize);
 await createMigrator(sequelize).up();
 await createSeeder(sequelize).up();
 
-const lines = ["Lot;Vintage;Sample date;Alcohol (% vol);Free SO2 (mg/L);Total SO2 (mg/L);VA (g/L acetic);Residual sugar (g/L);Total acidity (g/L tartaric);pH;Cu (mg/L)"];
+const lines = [
+  "Lot;Vintage;Sample date;Alcohol (% vol);Free SO2 (mg/L);Total SO2 (mg/L);VA (g/L acetic);Residual sugar (g/L);Total acidity (g/L tartaric);pH;Cu (mg/L)",
+];
 for (let i = 0; i < ROWS; i++) {
-  lines.push(`BX-${i};2025;01/12/2026;12,${i % 9};${22 + (i % 18)};${90 + (i % 60)};0,${35 + (i % 40)};${(1 + (i % 30) / 10).toFixed(1).replace(".", ",")};6,${i % 9};3,${20 + (i % 20)};0,${10 + (i % 30)}`);
+  lines.push(
+    `BX-${i};2025;01/12/2026;12,${i % 9};${22 + (i % 18)};${90 + (i % 60)};0,${35 + (i % 40)};${(1 + (i % 30) / 10).toFixed(1).replace(".", ",")};6,${i % 9};3,${20 + (i % 20)};0,${10 + (i % 30)}`,
+  );
 }
 const csv = lines.join("\n");
 
@@ -58,7 +67,15 @@ async function fullImport() {
     producerOrgId: 2,
     startsOn: "2026-01-01",
     endsOn: null,
-    wine: { name: `Bench white ${run}`, colour: "white", category: "still", region: "Loire Valley", markets: ["EU"], nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12.5 },
+    wine: {
+      name: `Bench white ${run}`,
+      colour: "white",
+      category: "still",
+      region: "Loire Valley",
+      markets: ["EU"],
+      nominalSugarGPerL: 2,
+      nominalAlcoholPercentVol: 12.5,
+    },
   });
   const t0 = performance.now();
   const parsed = Papa.parse<string[]>(csv, { skipEmptyLines: "greedy" });
@@ -88,6 +105,8 @@ const full = await time(fullImport);
 console.log(`CSV import benchmark: ${ROWS} rows × 8 parameters`);
 console.log(`  papaparse parse only          ${parseMs.toFixed(1)} ms`);
 console.log(`  parse + validate + evaluate + store (MariaDB)  ${full.ms.toFixed(0)} ms, ${full.result} analyses stored`);
-console.log(`    of which parse ${phases.parse.toFixed(0)} ms, map + validate ${phases.validate.toFixed(0)} ms, evaluate + store ${phases.store.toFixed(0)} ms`);
+console.log(
+  `    of which parse ${phases.parse.toFixed(0)} ms, map + validate ${phases.validate.toFixed(0)} ms, evaluate + store ${phases.store.toFixed(0)} ms`,
+);
 console.log(`  ratio full import / parse alone: ${(full.ms / parseMs).toFixed(0)}× (quality target: within 4×)`);
 await sequelize.close();

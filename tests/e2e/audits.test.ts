@@ -33,7 +33,15 @@ async function asSignedIn(path: string, body: unknown) {
 describe("a paid independent audit", () => {
   it("given a lot whose producer declared its results", async () => {
     await signInThroughForm(s.page, s.baseUrl, DEMO.producerQuality);
-    const lot = await asSignedIn(`/api/orgs/${ORG.troisSentes}/lots`, { contractId: 1, vintage: 2025, lotCode, volumeLitres: 11000, container: "bottles", plannedDate: "2027-01-20", market: "EU" });
+    const lot = await asSignedIn(`/api/orgs/${ORG.troisSentes}/lots`, {
+      contractId: 1,
+      vintage: 2025,
+      lotCode,
+      volumeLitres: 11000,
+      container: "bottles",
+      plannedDate: "2027-01-20",
+      market: "EU",
+    });
     await asSignedIn(`/api/orgs/${ORG.troisSentes}/lots/${lot.id}/analyses`, {
       idempotencyKey: randomUUID(),
       stage: "pre_filling",
@@ -83,7 +91,10 @@ describe("a paid independent audit", () => {
     await page.getByText("Payment declined").first().waitFor();
     await expectAccessible(page, "audit order (finance)");
     await screenshot(page, "audit-paid");
-    const receipt = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Download the receipt (PDF)" }).click()]).then(([d]) => d.path());
+    const receipt = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("link", { name: "Download the receipt (PDF)" }).click(),
+    ]).then(([d]) => d.path());
     expect(execFileSync("pdftotext", [receipt, "-"], { encoding: "utf8" })).toContain("Receipt for independent audit");
     await signOut(page);
   });
@@ -93,7 +104,10 @@ describe("a paid independent audit", () => {
     await signInThroughForm(page, baseUrl, DEMO.labAnalyst);
     await nav("Audits");
     await page.getByRole("heading", { level: 1, name: "Audits" }).waitFor();
-    await page.getByRole("link", { name: /^AUD-\d{5}$/ }).first().waitFor();
+    await page
+      .getByRole("link", { name: /^AUD-\d{5}$/ })
+      .first()
+      .waitFor();
     await page.goto(orderUrl);
     await page.getByRole("heading", { name: "Your results" }).waitFor();
     await page.getByLabel("Report reference").fill("NG-26-2041");
@@ -107,7 +121,10 @@ describe("a paid independent audit", () => {
     await expectAccessible(page, "audit order (laboratory)");
     await screenshot(page, "audit-lab-results");
     await page.getByRole("button", { name: "Send the results" }).click();
-    await page.getByRole("dialog", { name: /^Send the results for AUD-\d{5}\?$/ }).getByRole("button", { name: "Send the results" }).click();
+    await page
+      .getByRole("dialog", { name: /^Send the results for AUD-\d{5}\?$/ })
+      .getByRole("button", { name: "Send the results" })
+      .click();
     // Either the confirmation or an error message: say which, so a failure names its cause.
     const outcome = page.getByText(/Results sent\./).or(page.getByRole("alert"));
     await outcome.first().waitFor({ timeout: 20_000 });
@@ -127,14 +144,24 @@ describe("a paid independent audit", () => {
     const { page, baseUrl } = s;
     await signInThroughForm(page, baseUrl, DEMO.buyerTechnologist);
     await nav("Audits");
-    await page.getByRole("link", { name: /^AUD-\d{5}$/ }).first().waitFor();
+    await page
+      .getByRole("link", { name: /^AUD-\d{5}$/ })
+      .first()
+      .waitFor();
     await page.goto(orderUrl);
     const row = page.getByRole("row").filter({ has: page.getByRole("rowheader", { name: "Volatile acidity" }) });
     await row.getByText("discrepant", { exact: true }).waitFor();
-    await page.getByRole("row").filter({ has: page.getByRole("rowheader", { name: "Free SO2" }) }).getByText("agrees", { exact: true }).waitFor();
+    await page
+      .getByRole("row")
+      .filter({ has: page.getByRole("rowheader", { name: "Free SO2" }) })
+      .getByText("agrees", { exact: true })
+      .waitFor();
     await expectAccessible(page, "audit order (buyer)");
     await screenshot(page, "audit-comparison");
-    const download = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Conformity document (PDF)" }).first().click()]).then(([d]) => d);
+    const download = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("link", { name: "Conformity document (PDF)" }).first().click(),
+    ]).then(([d]) => d);
     // The declared analysis gives two of the spec's rows, so the lot's status is "Results incomplete".
     expect(download.suggestedFilename()).toBe(`analysis-statement-${lotCode}.pdf`);
     const text = execFileSync("pdftotext", [await download.path(), "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
@@ -143,6 +170,10 @@ describe("a paid independent audit", () => {
     expect(text).toContain("Northgate Oenology Laboratory");
     expect(text).toContain("report NG-26-2041");
     expect(text).toContain("does not replace the test report of an accredited laboratory");
-    expect(readFileSync(await download.path()).subarray(0, 5).toString()).toBe("%PDF-");
+    expect(
+      readFileSync(await download.path())
+        .subarray(0, 5)
+        .toString(),
+    ).toBe("%PDF-");
   });
 });

@@ -26,7 +26,11 @@ describe("a deviation negotiated to a recorded decision", () => {
     await page.getByRole("heading", { level: 1, name: "Lot SB-25-D1" }).waitFor();
     await page.getByLabel("Laboratory", { exact: true }).fill("Domaine des Trois Sentes cellar laboratory");
     await page.getByRole("textbox", { name: "Volatile acidity", exact: true }).fill("0,74");
-    await page.getByRole("row").filter({ has: page.getByRole("textbox", { name: "Volatile acidity", exact: true }) }).getByText("fail", { exact: true }).waitFor();
+    await page
+      .getByRole("row")
+      .filter({ has: page.getByRole("textbox", { name: "Volatile acidity", exact: true }) })
+      .getByText("fail", { exact: true })
+      .waitFor();
     await page.getByRole("textbox", { name: "Free SO2", exact: true }).fill("31");
     await page.getByRole("button", { name: "Submit the analysis" }).click();
     await page.getByText(/A deviation was opened/).waitFor();
@@ -37,7 +41,9 @@ describe("a deviation negotiated to a recorded decision", () => {
     await page.getByLabel("Kind of message").selectOption("proposal");
     await page.getByLabel("Outcome").selectOption("concession");
     await page.getByLabel("Quote a result").selectOption({ index: 1 });
-    await page.getByLabel("Message", { exact: true }).fill("The wine is sound and VA stays well below the legal 18 meq/L; we ask a concession for this lot. @tessa.marlow");
+    await page
+      .getByLabel("Message", { exact: true })
+      .fill("The wine is sound and VA stays well below the legal 18 meq/L; we ask a concession for this lot. @tessa.marlow");
     await page.getByRole("button", { name: "Send the proposal" }).click();
     await page.getByRole("article", { name: /proposal by Élise Carbonnel/ }).waitFor();
     await expectAccessible(page, "deviation (producer)");
@@ -60,9 +66,14 @@ describe("a deviation negotiated to a recorded decision", () => {
 
     await signInThroughForm(page, baseUrl, DEMO.producerQuality);
     await page.goto(deviationUrl);
-    await page.getByRole("article", { name: /proposal by Tessa Marlow/ }).getByRole("button", { name: "Accept this proposal" }).click();
+    await page
+      .getByRole("article", { name: /proposal by Tessa Marlow/ })
+      .getByRole("button", { name: "Accept this proposal" })
+      .click();
     const accepting = page.getByRole("dialog", { name: "Accept Tessa Marlow's proposal?" });
-    await accepting.getByText("Concession for this lot, on condition of: re-test: Accredited re-test confirms VA below 0.8 g/L as acetic acid.").waitFor();
+    await accepting
+      .getByText("Concession for this lot, on condition of: re-test: Accredited re-test confirms VA below 0.8 g/L as acetic acid.")
+      .waitFor();
     await accepting.getByRole("button", { name: "Accept the proposal" }).click();
     await page.getByRole("article", { name: /acceptance by Élise Carbonnel/ }).waitFor();
     await signOut(page);
@@ -71,7 +82,10 @@ describe("a deviation negotiated to a recorded decision", () => {
     await page.goto(deviationUrl);
     await page.getByLabel("Reason").fill("Sound wine, VA under the legal limit; concession with the agreed accredited re-test.");
     await page.getByRole("button", { name: "Record the decision" }).click();
-    await page.getByRole("dialog", { name: /^Record the decision on deviation #\d+\?$/ }).getByRole("button", { name: "Record the decision" }).click();
+    await page
+      .getByRole("dialog", { name: /^Record the decision on deviation #\d+\?$/ })
+      .getByRole("button", { name: "Record the decision" })
+      .click();
     await page.getByRole("heading", { name: "Decision" }).waitFor();
     await page.getByText("Re-test: Accredited re-test confirms VA below 0.8 g/L as acetic acid").first().waitFor();
     await expectAccessible(page, "deviation decided");
@@ -83,7 +97,8 @@ describe("a deviation negotiated to a recorded decision", () => {
     const id = deviationUrl.split("/").pop();
     const trail = page.getByRole("list", { name: "Recorded events" });
     // The trail speaks in words, not action codes.
-    for (const action of ["Deviation opened", "Outcome proposed", "Proposal accepted", "Deviation decided"]) await trail.getByText(action, { exact: true }).first().waitFor();
+    for (const action of ["Deviation opened", "Outcome proposed", "Proposal accepted", "Deviation decided"])
+      await trail.getByText(action, { exact: true }).first().waitFor();
     expect(await trail.getByText("deviation.decided").count()).toBe(0);
     expect(await trail.getByText("Outcome proposed", { exact: true }).count()).toBe(2);
     await page.getByRole("button", { name: "Verify the hash chain" }).click();
@@ -92,8 +107,14 @@ describe("a deviation negotiated to a recorded decision", () => {
     await signOut(page);
 
     await page.goto(`${baseUrl}/dev/inbox`);
-    await page.getByRole("heading", { name: `Deviation #${id} decided: Concession for this lot` }).first().waitFor({ timeout: 15_000 });
-    await page.getByRole("heading", { name: `Élise Carbonnel mentioned you on deviation #${id}` }).first().waitFor();
+    await page
+      .getByRole("heading", { name: `Deviation #${id} decided: Concession for this lot` })
+      .first()
+      .waitFor({ timeout: 15_000 });
+    await page
+      .getByRole("heading", { name: `Élise Carbonnel mentioned you on deviation #${id}` })
+      .first()
+      .waitFor();
     await screenshot(page, "deviation-inbox");
   });
 });

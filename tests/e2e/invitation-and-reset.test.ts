@@ -12,7 +12,10 @@ afterAll(() => s?.stop());
 async function followMailLink(subject: string, linkPath: string) {
   const { page, baseUrl } = s;
   await page.goto(`${baseUrl}/dev/inbox`);
-  const mail = page.getByRole("article").filter({ has: page.getByRole("heading", { name: subject }) }).first();
+  const mail = page
+    .getByRole("article")
+    .filter({ has: page.getByRole("heading", { name: subject }) })
+    .first();
   await mail.waitFor({ timeout: 15_000 });
   await expectAccessible(page, "dev inbox");
   await screenshot(page, `inbox-${linkPath.replace(/\W/g, "")}`);
@@ -65,7 +68,10 @@ describe("an admin invites a colleague by e-mail", () => {
     expect(await page.getByLabel("Role of Inès Fauvel").inputValue()).toBe("producer_quality");
     await page.getByLabel("Role of Inès Fauvel").selectOption("org_admin");
     const changed = page.waitForResponse((r) => r.url().includes("/members/") && r.request().method() === "PATCH");
-    await page.getByRole("dialog", { name: "Make Inès Fauvel organisation admin?" }).getByRole("button", { name: "Change the role" }).click();
+    await page
+      .getByRole("dialog", { name: "Make Inès Fauvel organisation admin?" })
+      .getByRole("button", { name: "Change the role" })
+      .click();
     expect((await changed).status()).toBe(200);
     await page.reload();
     expect(await page.getByLabel("Role of Inès Fauvel").inputValue()).toBe("org_admin");

@@ -60,7 +60,10 @@ describe("one status per lot, on every screen and document", () => {
       const link = page.getByRole("link", { name: /^(Certificate of conformity|Analysis statement) \(PDF\)$/ });
       const download = await Promise.all([page.waitForEvent("download"), link.click()]).then(([d]) => d);
       const text = execFileSync("pdftotext", [await download.path(), "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
-      const said = text.match(/Status: (Conforms with conditional results|Conforms|Does not conform|Accepted under concession|Results incomplete|Rejected)/)?.[1] ?? "none";
+      const said =
+        text.match(
+          /Status: (Conforms with conditional results|Conforms|Does not conform|Accepted under concession|Results incomplete|Rejected)/,
+        )?.[1] ?? "none";
       seen[key]!.push(said);
       if (key === "conceded") {
         await expectAccessible(page, "lot page accepted under concession");

@@ -78,7 +78,11 @@ describe("lots and results: import, certificate, verdicts and trends", () => {
     await va.getByText("fail", { exact: true }).waitFor();
     await va.getByText(/max 0\.60 g\/L as acetic acid \(buyer's spec\)/).waitFor();
     // 18 meq/L for white wine, shown in the buyer's unit (Oxford Companion: 1 meq = 0.060 g acetic acid → 1.08 g/L); the lot is for Great Britain, where 2019/934 is retained.
-    await va.getByText(/Law, GB: max 1\.08\d* g\/L as acetic acid \(Commission Delegated Regulation \(EU\) 2019\/934 as retained in the law of Great Britain/).waitFor();
+    await va
+      .getByText(
+        /Law, GB: max 1\.08\d* g\/L as acetic acid \(Commission Delegated Regulation \(EU\) 2019\/934 as retained in the law of Great Britain/,
+      )
+      .waitFor();
     await page.getByRole("row", { name: "Free SO2", exact: true }).getByText("fail", { exact: true }).waitFor();
     await page.getByRole("link", { name: /Certificate: northgate-certificate.pdf/ }).waitFor();
     await expectAccessible(page, "lot page (buyer)");

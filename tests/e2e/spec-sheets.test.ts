@@ -32,7 +32,10 @@ describe.sequential("spec sheets from draft to agreed version, then a tightened 
     // The live check beside volatile acidity shows the EU limit with its citation.
     const va = page.getByRole("row", { name: "Volatile acidity", exact: true });
     await va.getByText("EU: at most 20 meq/L").waitFor();
-    await va.getByText(/Commission Delegated Regulation \(EU\) 2019\/934/).first().waitFor();
+    await va
+      .getByText(/Commission Delegated Regulation \(EU\) 2019\/934/)
+      .first()
+      .waitFor();
 
     // An impossible range is flagged at once, and nothing is saved until it is fixed.
     const ph = page.getByRole("row", { name: "pH", exact: true });
@@ -70,7 +73,10 @@ describe.sequential("spec sheets from draft to agreed version, then a tightened 
     await expectAccessible(page, "spec review");
     await screenshot(page, "spec-review-producer");
     await page.getByRole("button", { name: "Agree to this version" }).click();
-    await page.getByRole("dialog", { name: /^Agree to version \d+\?$/ }).getByRole("button", { name: "Agree to this version" }).click();
+    await page
+      .getByRole("dialog", { name: /^Agree to version \d+\?$/ })
+      .getByRole("button", { name: "Agree to this version" })
+      .click();
     await page.getByText(/this version governs the lots/).waitFor();
     await signOut(page);
   });
@@ -90,7 +96,9 @@ describe.sequential("spec sheets from draft to agreed version, then a tightened 
     await vaRow.getByText("tightened").waitFor();
     await page.getByRole("button", { name: "Run backtest" }).click();
     await page.getByText("3 lots of the 2024 vintage would now fail Volatile acidity.").waitFor();
-    expect(await page.getByRole("progressbar", { name: "Backtest progress" }).getAttribute("value")).toBe(await page.getByRole("progressbar", { name: "Backtest progress" }).getAttribute("max"));
+    expect(await page.getByRole("progressbar", { name: "Backtest progress" }).getAttribute("value")).toBe(
+      await page.getByRole("progressbar", { name: "Backtest progress" }).getAttribute("max"),
+    );
     await expectAccessible(page, "compare");
     await screenshot(page, "spec-compare-backtest");
 

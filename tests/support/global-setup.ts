@@ -13,7 +13,10 @@ export default async function setup() {
   try {
     await sequelize.authenticate();
   } catch (err) {
-    throw new Error(`MariaDB is not reachable on ${config.DB_HOST}:${config.DB_PORT}; run "bash server/scripts/db.sh start" first (${(err as Error).message})`, { cause: err });
+    throw new Error(
+      `MariaDB is not reachable on ${config.DB_HOST}:${config.DB_PORT}; run "bash server/scripts/db.sh start" first (${(err as Error).message})`,
+      { cause: err },
+    );
   }
   await dropAllTables(sequelize);
   const migrator = createMigrator(sequelize);

@@ -5,7 +5,13 @@ import { deliverDueMail } from "../../server/integrations/mail/outbox.ts";
 
 export async function startTestMail(port?: number) {
   const fake: MailFake = await startMailFake({ smtpPort: port });
-  const transport = nodemailer.createTransport({ host: "127.0.0.1", port: fake.smtpPort, secure: false, ignoreTLS: true, connectionTimeout: 2000 });
+  const transport = nodemailer.createTransport({
+    host: "127.0.0.1",
+    port: fake.smtpPort,
+    secure: false,
+    ignoreTLS: true,
+    connectionTimeout: 2000,
+  });
   return {
     fake,
     transport,

@@ -12,6 +12,11 @@ export function passingResults(requirements: readonly RequirementView[], stage: 
     .map((r) => {
       const presence = findParameter(r.parameter)?.kind === "presence";
       const mid = r.lower !== null && r.upper !== null ? (r.lower + r.upper) / 2 : r.upper !== null ? r.upper / 2 : (r.lower ?? 1) * 1.5;
-      return { parameter: r.parameter, raw: overrides[r.parameter] ?? (presence ? "absent" : String(Number(mid.toPrecision(3)))), unit: r.unit, uncertainty: null };
+      return {
+        parameter: r.parameter,
+        raw: overrides[r.parameter] ?? (presence ? "absent" : String(Number(mid.toPrecision(3)))),
+        unit: r.unit,
+        uncertainty: null,
+      };
     });
 }

@@ -45,7 +45,8 @@ export interface Stack {
 }
 
 export async function startStack(): Promise<Stack> {
-  if (!existsSync(path.join(root, "dist", "index.html"))) throw new Error("dist/ is missing: run `npx vite build` before the browser tests");
+  if (!existsSync(path.join(root, "dist", "index.html")))
+    throw new Error("dist/ is missing: run `npx vite build` before the browser tests");
   const mail = await startMailFake();
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
@@ -81,7 +82,16 @@ export async function startStack(): Promise<Stack> {
     executablePath: chromiumPath(),
     headless: true,
     viewport: { width: 1280, height: 860 },
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
   });
   const page = context.pages()[0] ?? (await context.newPage());
   // Fail a step well before the test times out, so the report names the locator that was missing.

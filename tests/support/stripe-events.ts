@@ -16,7 +16,17 @@ export function succeededEvent(orderId: number, amount: number, pi = id("pi")) {
     livemode: false,
     pending_webhooks: 1,
     request: { id: null, idempotency_key: null },
-    data: { object: { id: pi, object: "payment_intent", amount, amount_received: amount, currency: "eur", status: "succeeded", metadata: { auditOrderId: String(orderId) } } },
+    data: {
+      object: {
+        id: pi,
+        object: "payment_intent",
+        amount,
+        amount_received: amount,
+        currency: "eur",
+        status: "succeeded",
+        metadata: { auditOrderId: String(orderId) },
+      },
+    },
   };
 }
 

@@ -15,19 +15,31 @@ const U = (v: number) => ({ kind: "expanded" as const, value: v, k: 2 });
 
 describe("comparing a declared result with the independent laboratory's", () => {
   it("gives the same En whichever unit each laboratory reports in (total acidity, g/L as tartaric acid vs meq/L)", () => {
-    const inGrams = compareWithReference("total_acidity", { reading: value(6.0), unit: "g/L as tartaric acid", uncertainty: U(0.2) }, { reading: value(6.04), unit: "g/L as tartaric acid", uncertainty: U(0.2) });
+    const inGrams = compareWithReference(
+      "total_acidity",
+      { reading: value(6.0), unit: "g/L as tartaric acid", uncertainty: U(0.2) },
+      { reading: value(6.04), unit: "g/L as tartaric acid", uncertainty: U(0.2) },
+    );
     // (6.00 − 6.04) / √(0.2² + 0.2²) = −0.1414 by hand.
     expect(inGrams.en).toBeCloseTo(-0.1414, 4);
     const labInMeq = convert(6.04, "g/L as tartaric acid", "meq/L");
     const uInMeq = convert(0.2, "g/L as tartaric acid", "meq/L");
-    const mixed = compareWithReference("total_acidity", { reading: value(6.0), unit: "g/L as tartaric acid", uncertainty: U(0.2) }, { reading: value(labInMeq), unit: "meq/L", uncertainty: U(uInMeq) });
+    const mixed = compareWithReference(
+      "total_acidity",
+      { reading: value(6.0), unit: "g/L as tartaric acid", uncertainty: U(0.2) },
+      { reading: value(labInMeq), unit: "meq/L", uncertainty: U(uInMeq) },
+    );
     expect(mixed.en).toBeCloseTo(inGrams.en!, 10);
     expect(mixed.outcome).toBe("agrees");
   });
 
   it("stands in the catalogue's default uncertainty where a laboratory gave none, and says so", () => {
     // Free SO2 default: 10 % relative standard uncertainty, so U = 2 × 0.1 × value.
-    const c = compareWithReference("free_so2", { reading: value(30), unit: "mg/L" }, { reading: value(36), unit: "mg/L", uncertainty: U(3) });
+    const c = compareWithReference(
+      "free_so2",
+      { reading: value(30), unit: "mg/L" },
+      { reading: value(36), unit: "mg/L", uncertainty: U(3) },
+    );
     expect(c.declaredU).toBeCloseTo(6, 10);
     expect(c.en).toBeCloseTo(-6 / Math.hypot(6, 3), 10);
     expect(c.uncertaintySources).toEqual({ declared: "default", independent: "laboratory" });
@@ -36,16 +48,30 @@ describe("comparing a declared result with the independent laboratory's", () => 
 
   it("flags a discrepancy by En alone or by z alone", () => {
     // Wide uncertainties keep |En| ≤ 1, but z = (40 − 30)/(0.1 × 30) = 3.33 is unsatisfactory.
-    const byZ = compareWithReference("free_so2", { reading: value(40), unit: "mg/L", uncertainty: U(12) }, { reading: value(30), unit: "mg/L", uncertainty: U(12) });
+    const byZ = compareWithReference(
+      "free_so2",
+      { reading: value(40), unit: "mg/L", uncertainty: U(12) },
+      { reading: value(30), unit: "mg/L", uncertainty: U(12) },
+    );
     expect(Math.abs(byZ.en!)).toBeLessThanOrEqual(1);
     expect(byZ.z).toBeCloseTo(3.333, 3);
     expect(byZ.outcome).toBe("discrepant");
     // z = (34 − 30)/3 = 1.33 but tight uncertainties give En = 4/√(1² + 1²) = 2.83.
-    const byEn = compareWithReference("free_so2", { reading: value(34), unit: "mg/L", uncertainty: U(1) }, { reading: value(30), unit: "mg/L", uncertainty: U(1) });
+    const byEn = compareWithReference(
+      "free_so2",
+      { reading: value(34), unit: "mg/L", uncertainty: U(1) },
+      { reading: value(30), unit: "mg/L", uncertainty: U(1) },
+    );
     expect(byEn.en).toBeCloseTo(2.828, 3);
     expect(byEn.outcome).toBe("discrepant");
     // z = (37 − 30)/3 = 2.33: questionable, En = 7/√(5² + 5²) = 0.99.
-    expect(compareWithReference("free_so2", { reading: value(37), unit: "mg/L", uncertainty: U(5) }, { reading: value(30), unit: "mg/L", uncertainty: U(5) }).outcome).toBe("questionable");
+    expect(
+      compareWithReference(
+        "free_so2",
+        { reading: value(37), unit: "mg/L", uncertainty: U(5) },
+        { reading: value(30), unit: "mg/L", uncertainty: U(5) },
+      ).outcome,
+    ).toBe("questionable");
   });
 
   it("does not score what is not a number, and says what was missing", () => {
@@ -60,7 +86,14 @@ describe("comparing a declared result with the independent laboratory's", () => 
 
 describe("pricing and the order's status", () => {
   it("prices each parameter once per lot in integer cents, and names what the laboratory does not offer", () => {
-    const q = quoteAudit([{ parameter: "free_so2", priceCents: 1400 }, { parameter: "volatile_acidity", priceCents: 1650 }], 3, ["free_so2", "volatile_acidity", "tca"]);
+    const q = quoteAudit(
+      [
+        { parameter: "free_so2", priceCents: 1400 },
+        { parameter: "volatile_acidity", priceCents: 1650 },
+      ],
+      3,
+      ["free_so2", "volatile_acidity", "tca"],
+    );
     expect(q.totalCents).toBe(3 * 1400 + 3 * 1650);
     expect(q.lines.map((l) => l.totalCents)).toEqual([4200, 4950]);
     expect(q.unpriced).toEqual(["tca"]);

@@ -2,7 +2,15 @@ import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { readCsv } from "../support/csv.ts";
-import { ambiguousNumbers, buildSamples, guessMapping, normaliseDate, normaliseUnit, parseHeader, splitPlusMinus } from "../../shared/lots/csv.ts";
+import {
+  ambiguousNumbers,
+  buildSamples,
+  guessMapping,
+  normaliseDate,
+  normaliseUnit,
+  parseHeader,
+  splitPlusMinus,
+} from "../../shared/lots/csv.ts";
 import { HEADER_SYNONYMS } from "../../shared/lots/header-synonyms.ts";
 import { convert, implausibility, parseReading } from "../../shared/engine/index.ts";
 
@@ -38,7 +46,11 @@ describe("CSV import: lab exports as they come", () => {
 
   it("when headers, dates and ± cells vary, then they are normalised", () => {
     expect(parseHeader("Free SO2 [mg/l]")).toEqual({ parameter: "free_so2", unit: "mg/L", unitText: "mg/l" });
-    expect(parseHeader("Total acidity (g/L tartaric)")).toEqual({ parameter: "total_acidity", unit: "g/L as tartaric acid", unitText: "g/L tartaric" });
+    expect(parseHeader("Total acidity (g/L tartaric)")).toEqual({
+      parameter: "total_acidity",
+      unit: "g/L as tartaric acid",
+      unitText: "g/L tartaric",
+    });
     expect(normaliseDate("03.11.2026")).toBe("2026-11-03");
     expect(normaliseDate("2026-02-29")).toBeNull();
     expect(splitPlusMinus("12,4 +/- 0,3")).toEqual({ raw: "12,4", uncertainty: 0.3 });
@@ -73,7 +85,10 @@ describe("CSV import: a number keeps the meaning the file gives it", () => {
     // 0.36 g/L as H2SO4 is 0.36 / 49.04 × 1000 = 7.34 meq/L (equivalent mass of sulfuric acid 98.08 / 2, common practice),
     // not 0.36 meq/L: the value keeps the file's expression.
     expect(convert(0.36, va.unit, "meq/L")).toBeCloseTo(7.341, 3);
-    expect(samples[1]!.results.find((r) => r.parameter === "volatile_acidity")).toMatchObject({ raw: "0,41", uncertainty: { value: 0.03 } });
+    expect(samples[1]!.results.find((r) => r.parameter === "volatile_acidity")).toMatchObject({
+      raw: "0,41",
+      uncertainty: { value: 0.03 },
+    });
     // The alcohol of 125 % vol is held back for confirmation, with its row and column.
     expect(implausible).toHaveLength(1);
     expect(implausible[0]).toMatchObject({ row: 3, column: "TAV (% vol)" });
@@ -121,15 +136,54 @@ describe("CSV import: a number keeps the meaning the file gives it", () => {
 
   it("when a lab names a parameter in English, French, Italian, Spanish, German or Portuguese, then the synonyms table finds it (common practice wording)", () => {
     const cases: [string, string][] = [
-      ["Free SO2 (mg/L)", "free_so2"], ["SO2 libre (mg/l)", "free_so2"], ["SO2 libera", "free_so2"], ["Anhídrido sulfuroso libre", "free_so2"], ["Freie schweflige Säure", "free_so2"], ["Dióxido de enxofre livre", "free_so2"],
-      ["Total SO2", "total_so2"], ["Anhydride sulfureux total", "total_so2"], ["Anidride solforosa totale", "total_so2"], ["SO2 total", "total_so2"], ["Gesamte schweflige Säure", "total_so2"], ["Dióxido de enxofre total", "total_so2"],
-      ["Volatile acidity", "volatile_acidity"], ["Acidité volatile", "volatile_acidity"], ["Acidità volatile", "volatile_acidity"], ["Acidez volátil", "volatile_acidity"], ["Flüchtige Säure", "volatile_acidity"],
-      ["Acidité totale", "total_acidity"], ["Acidità totale", "total_acidity"], ["Acidez total", "total_acidity"], ["Gesamtsäure", "total_acidity"],
-      ["TAV", "alcohol"], ["Titolo alcolometrico", "alcohol"], ["Grado alcohólico", "alcohol"], ["Vorhandener Alkohol", "alcohol"], ["Teor alcoólico", "alcohol"],
-      ["Sucres résiduels", "residual_sugar"], ["Zuccheri residui", "residual_sugar"], ["Azúcares residuales", "residual_sugar"], ["Restzucker", "residual_sugar"], ["Açúcares residuais", "residual_sugar"],
-      ["Oxygène dissous", "dissolved_oxygen"], ["Ossigeno disciolto", "dissolved_oxygen"], ["Oxígeno disuelto", "dissolved_oxygen"], ["Gelöster Sauerstoff", "dissolved_oxygen"], ["Oxigénio dissolvido", "dissolved_oxygen"],
-      ["Cuivre", "copper"], ["Rame", "copper"], ["Kupfer", "copper"], ["Fer", "iron"], ["Eisen", "iron"], ["Hierro", "iron"],
-      ["Acide malique", "malic_acid"], ["Äpfelsäure", "malic_acid"], ["Gaz carbonique", "carbon_dioxide"], ["Kohlendioxid", "carbon_dioxide"], ["Turbidité", "turbidity"], ["Trübung", "turbidity"],
+      ["Free SO2 (mg/L)", "free_so2"],
+      ["SO2 libre (mg/l)", "free_so2"],
+      ["SO2 libera", "free_so2"],
+      ["Anhídrido sulfuroso libre", "free_so2"],
+      ["Freie schweflige Säure", "free_so2"],
+      ["Dióxido de enxofre livre", "free_so2"],
+      ["Total SO2", "total_so2"],
+      ["Anhydride sulfureux total", "total_so2"],
+      ["Anidride solforosa totale", "total_so2"],
+      ["SO2 total", "total_so2"],
+      ["Gesamte schweflige Säure", "total_so2"],
+      ["Dióxido de enxofre total", "total_so2"],
+      ["Volatile acidity", "volatile_acidity"],
+      ["Acidité volatile", "volatile_acidity"],
+      ["Acidità volatile", "volatile_acidity"],
+      ["Acidez volátil", "volatile_acidity"],
+      ["Flüchtige Säure", "volatile_acidity"],
+      ["Acidité totale", "total_acidity"],
+      ["Acidità totale", "total_acidity"],
+      ["Acidez total", "total_acidity"],
+      ["Gesamtsäure", "total_acidity"],
+      ["TAV", "alcohol"],
+      ["Titolo alcolometrico", "alcohol"],
+      ["Grado alcohólico", "alcohol"],
+      ["Vorhandener Alkohol", "alcohol"],
+      ["Teor alcoólico", "alcohol"],
+      ["Sucres résiduels", "residual_sugar"],
+      ["Zuccheri residui", "residual_sugar"],
+      ["Azúcares residuales", "residual_sugar"],
+      ["Restzucker", "residual_sugar"],
+      ["Açúcares residuais", "residual_sugar"],
+      ["Oxygène dissous", "dissolved_oxygen"],
+      ["Ossigeno disciolto", "dissolved_oxygen"],
+      ["Oxígeno disuelto", "dissolved_oxygen"],
+      ["Gelöster Sauerstoff", "dissolved_oxygen"],
+      ["Oxigénio dissolvido", "dissolved_oxygen"],
+      ["Cuivre", "copper"],
+      ["Rame", "copper"],
+      ["Kupfer", "copper"],
+      ["Fer", "iron"],
+      ["Eisen", "iron"],
+      ["Hierro", "iron"],
+      ["Acide malique", "malic_acid"],
+      ["Äpfelsäure", "malic_acid"],
+      ["Gaz carbonique", "carbon_dioxide"],
+      ["Kohlendioxid", "carbon_dioxide"],
+      ["Turbidité", "turbidity"],
+      ["Trübung", "turbidity"],
     ];
     for (const [header, parameter] of cases) expect([header, parseHeader(header).parameter]).toEqual([header, parameter]);
     // Every language of every entry names a parameter the catalogue knows.
@@ -157,7 +211,24 @@ describe("CSV import: numbers that read two ways", () => {
   it("when result cells hold a single mark followed by three digits, then the import must ask for the laboratory's number format; other numbers do not need it", () => {
     const headers = ["Lot", "Levures (UFC/ml)", "pH"];
     const mapping = guessMapping(headers);
-    expect(ambiguousNumbers([["L1", "1.200", "3,30"], ["L2", "0,455", "3,31"], ["L3", "< 1.500", "3,2"]], mapping)).toEqual(["1.200", "1.500"]);
-    expect(ambiguousNumbers([["L1", "120", "3,30"], ["L2", "12,5", "3,31"]], mapping)).toEqual([]);
+    expect(
+      ambiguousNumbers(
+        [
+          ["L1", "1.200", "3,30"],
+          ["L2", "0,455", "3,31"],
+          ["L3", "< 1.500", "3,2"],
+        ],
+        mapping,
+      ),
+    ).toEqual(["1.200", "1.500"]);
+    expect(
+      ambiguousNumbers(
+        [
+          ["L1", "120", "3,30"],
+          ["L2", "12,5", "3,31"],
+        ],
+        mapping,
+      ),
+    ).toEqual([]);
   });
 });

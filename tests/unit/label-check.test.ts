@@ -10,7 +10,14 @@ import { describe, expect, it } from "vitest";
 import { labelCheck } from "../../shared/lots/label-check.ts";
 
 const value = (parameter: string, v: number, unit: string) => ({ parameter, reading: { kind: "value" as const, value: v }, unit });
-const base = [value("free_so2", 40, "mg/L"), value("total_so2", 110, "mg/L"), value("ph", 3.5, "pH"), value("residual_sugar", 6, "g/L"), value("total_acidity", 5, "g/L as tartaric acid"), value("alcohol", 12.9, "% vol")];
+const base = [
+  value("free_so2", 40, "mg/L"),
+  value("total_so2", 110, "mg/L"),
+  value("ph", 3.5, "pH"),
+  value("residual_sugar", 6, "g/L"),
+  value("total_acidity", 5, "g/L as tartaric acid"),
+  value("alcohol", 12.9, "% vol"),
+];
 
 describe("label check", () => {
   it("when a still wine is sold in the EU and the US, then each market's tolerance, sulphite rule and the EU sugar term are stated with their sources", () => {
@@ -29,7 +36,12 @@ describe("label check", () => {
   });
 
   it("when the label is 0.6 % vol off for an EU still wine, then the check reports the problem; at exactly 10 mg/L total SO2 the EU and US differ", () => {
-    const lines = labelCheck({ category: "still", markets: ["EU", "US"], labelledAlcoholPercentVol: 13.5, results: [value("total_so2", 10, "mg/L"), value("alcohol", 12.9, "% vol")] });
+    const lines = labelCheck({
+      category: "still",
+      markets: ["EU", "US"],
+      labelledAlcoholPercentVol: 13.5,
+      results: [value("total_so2", 10, "mg/L"), value("alcohol", 12.9, "% vol")],
+    });
     expect(lines.find((l) => l.topic === "Alcohol on the label" && l.market === "EU")!.status).toBe("problem");
     expect(lines.find((l) => l.topic === "Alcohol on the label" && l.market === "US")!.status).toBe("ok");
     expect(lines.find((l) => l.topic === "Sulphite statement" && l.market === "EU")!.text).toMatch(/^Not required/);
@@ -39,18 +51,33 @@ describe("label check", () => {
   it("when the wine is sold in Great Britain, then the EU labelling checks apply as retained there, and say so", () => {
     const lines = labelCheck({ category: "still", markets: ["GB"], labelledAlcoholPercentVol: 12.5, results: base });
     expect(lines.find((l) => l.topic === "Alcohol on the label")).toMatchObject({ market: "GB", status: "ok" });
-    expect(lines.find((l) => l.topic === "Sulphite statement")!.citation!.document).toBe("Regulation (EU) No 1169/2011 as retained in the law of Great Britain");
+    expect(lines.find((l) => l.topic === "Sulphite statement")!.citation!.document).toBe(
+      "Regulation (EU) No 1169/2011 as retained in the law of Great Britain",
+    );
     expect(lines.find((l) => l.topic === "Sugar-content term")).toMatchObject({ market: "GB" });
   });
 
   it("when a wine is under 7 % vol, then the US line says 27 CFR part 4 does not apply (27 CFR 4.6)", () => {
-    const lines = labelCheck({ category: "still", markets: ["US"], labelledAlcoholPercentVol: 5.5, results: [value("alcohol", 5.5, "% vol"), value("total_so2", 40, "mg/L")] });
-    expect(lines.filter((l) => l.market === "US")).toEqual([expect.objectContaining({ status: "info", text: "27 CFR part 4 does not apply: it covers wine of 7 to 24 % vol, and this one has 5.50 % vol." })]);
+    const lines = labelCheck({
+      category: "still",
+      markets: ["US"],
+      labelledAlcoholPercentVol: 5.5,
+      results: [value("alcohol", 5.5, "% vol"), value("total_so2", 40, "mg/L")],
+    });
+    expect(lines.filter((l) => l.market === "US")).toEqual([
+      expect.objectContaining({
+        status: "info",
+        text: "27 CFR part 4 does not apply: it covers wine of 7 to 24 % vol, and this one has 5.50 % vol.",
+      }),
+    ]);
   });
 
   it("when the label's alcohol is unknown or a market has no rules, then the line says what is missing instead of guessing", () => {
     const lines = labelCheck({ category: "still", markets: ["EU", "CN"], labelledAlcoholPercentVol: null, results: base });
-    expect(lines.find((l) => l.topic === "Alcohol on the label")).toMatchObject({ status: "undetermined", text: "Enter the labelled alcohol on the lot to check it against the analysis." });
+    expect(lines.find((l) => l.topic === "Alcohol on the label")).toMatchObject({
+      status: "undetermined",
+      text: "Enter the labelled alcohol on the lot to check it against the analysis.",
+    });
     expect(lines.find((l) => l.market === "CN")).toMatchObject({ status: "undetermined" });
   });
 });

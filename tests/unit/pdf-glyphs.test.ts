@@ -16,7 +16,11 @@ const SIGNS = "≤ ≥ ± µ ° ‰ – · → é è ü ß ć ő";
 describe("PDF glyphs", () => {
   it("when a PDF prints limit signs, units and accented names in both weights, then pdftotext reads each back and every font is embedded", async () => {
     registerPdfFonts();
-    const doc = h(Document, null, h(Page, { size: "A4", style: base.page }, h(View, null, h(Text, null, SIGNS), h(Text, { style: { fontWeight: 600 } }, SIGNS))));
+    const doc = h(
+      Document,
+      null,
+      h(Page, { size: "A4", style: base.page }, h(View, null, h(Text, null, SIGNS), h(Text, { style: { fontWeight: 600 } }, SIGNS))),
+    );
     const pdf = await renderToBuffer(doc);
     const text = execFileSync("pdftotext", ["-", "-"], { input: pdf, encoding: "utf8" });
     // pdftotext may drop the spaces where the font changes; the characters themselves must all be there.

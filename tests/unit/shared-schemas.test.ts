@@ -25,7 +25,9 @@ describe("the trail in words", () => {
   it("when an event's details hold money in cents, codes and lists, then they read as words (regression: raw field names were shown)", () => {
     expect(actionLabel("payment.succeeded")).toBe("Payment received");
     expect(detailsText({ paymentIntent: "pi_123", amountCents: 4500, currency: "eur" })).toBe("Payment reference: pi_123 · Amount: €45.00");
-    expect(detailsText({ lotCode: "SB-25-11", failing: ["volatile_acidity"], deviations: [] })).toBe("Lot: SB-25-11 · Failing: Volatile acidity · Deviations opened: none");
+    expect(detailsText({ lotCode: "SB-25-11", failing: ["volatile_acidity"], deviations: [] })).toBe(
+      "Lot: SB-25-11 · Failing: Volatile acidity · Deviations opened: none",
+    );
     expect(detailsText({ stage: "pre_filling", deviations: [3, 4] })).toBe("Stage: Pre-filling · Deviations opened: #3, #4");
     expect(detailsText({ someNewField: 3 })).toBe("Some New Field: 3");
   });

@@ -105,7 +105,13 @@ export class FakeState {
   charges: Charge[] = [];
   events: StripeEventObject[] = [];
 
-  createPaymentIntent(p: { amount: number; currency: string; metadata: Metadata; description?: string | null; receiptEmail?: string | null }): PaymentIntent {
+  createPaymentIntent(p: {
+    amount: number;
+    currency: string;
+    metadata: Metadata;
+    description?: string | null;
+    receiptEmail?: string | null;
+  }): PaymentIntent {
     const pi: PaymentIntent = {
       id: newId("pi"),
       object: "payment_intent",
@@ -150,7 +156,18 @@ export class FakeState {
   }
 
   refund(charge: Charge, amount: number, reason: string | null): Refund {
-    const r: Refund = { id: newId("re"), object: "refund", amount, charge: charge.id, payment_intent: charge.payment_intent, currency: charge.currency, reason, status: "succeeded", metadata: charge.metadata, created: now() };
+    const r: Refund = {
+      id: newId("re"),
+      object: "refund",
+      amount,
+      charge: charge.id,
+      payment_intent: charge.payment_intent,
+      currency: charge.currency,
+      reason,
+      status: "succeeded",
+      metadata: charge.metadata,
+      created: now(),
+    };
     charge.amount_refunded += amount;
     charge.refunded = charge.amount_refunded >= charge.amount;
     charge.refunds.data.unshift(r);

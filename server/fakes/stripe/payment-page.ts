@@ -2,11 +2,15 @@
 import type { CheckoutSession } from "./objects.ts";
 
 const escape = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
-const money = (cents: number, currency: string) => new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
+const money = (cents: number, currency: string) =>
+  new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
 
 export function paymentPage(s: CheckoutSession, error?: string): string {
   const lines = s.line_items_summary
-    .map((l) => `<tr><td>${escape(l.name)}</td><td class="n">${l.quantity} ×</td><td class="n">${money(l.amount * l.quantity, s.currency)}</td></tr>`)
+    .map(
+      (l) =>
+        `<tr><td>${escape(l.name)}</td><td class="n">${l.quantity} ×</td><td class="n">${money(l.amount * l.quantity, s.currency)}</td></tr>`,
+    )
     .join("");
   const body =
     s.status === "open"

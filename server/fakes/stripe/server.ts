@@ -8,7 +8,15 @@ import express, { type Request, type Response, type NextFunction } from "express
 import http from "node:http";
 import { createHash } from "node:crypto";
 import type { AddressInfo } from "node:net";
-import { FakeState, TEST_CARDS, TEST_PAYMENT_METHODS, newId, type CheckoutSession, type PaymentError, type PaymentIntent } from "./objects.ts";
+import {
+  FakeState,
+  TEST_CARDS,
+  TEST_PAYMENT_METHODS,
+  newId,
+  type CheckoutSession,
+  type PaymentError,
+  type PaymentIntent,
+} from "./objects.ts";
 import { WebhookSender, type WebhookEndpoint } from "./webhooks.ts";
 import { paymentPage } from "./payment-page.ts";
 
@@ -34,16 +42,20 @@ class ApiError extends Error {
     super(String(body.message));
   }
 }
-const invalid = (message: string, param?: string) => new ApiError(400, { type: "invalid_request_error", message, ...(param ? { param } : {}) });
-const missing = (kind: string, id: string) => new ApiError(404, { type: "invalid_request_error", code: "resource_missing", message: `No such ${kind}: '${id}'`, param: "id" });
+const invalid = (message: string, param?: string) =>
+  new ApiError(400, { type: "invalid_request_error", message, ...(param ? { param } : {}) });
+const missing = (kind: string, id: string) =>
+  new ApiError(404, { type: "invalid_request_error", code: "resource_missing", message: `No such ${kind}: '${id}'`, param: "id" });
 
 const int = (v: unknown, param: string) => {
   const n = typeof v === "string" && /^\d+$/.test(v) ? Number(v) : NaN;
   if (!Number.isSafeInteger(n)) throw invalid(`Invalid integer: ${String(v ?? "")}`, param);
   return n;
 };
-const metadataOf = (v: unknown): Record<string, string> => (v && typeof v === "object" ? Object.fromEntries(Object.entries(v as Record<string, unknown>).map(([k, x]) => [k, String(x)])) : {});
-const listOf = (v: unknown): Record<string, unknown>[] => (Array.isArray(v) ? v : v && typeof v === "object" ? Object.values(v) : []) as Record<string, unknown>[];
+const metadataOf = (v: unknown): Record<string, string> =>
+  v && typeof v === "object" ? Object.fromEntries(Object.entries(v as Record<string, unknown>).map(([k, x]) => [k, String(x)])) : {};
+const listOf = (v: unknown): Record<string, unknown>[] =>
+  (Array.isArray(v) ? v : v && typeof v === "object" ? Object.values(v) : []) as Record<string, unknown>[];
 
 export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<StripeFake> {
   const state = new FakeState();
@@ -58,7 +70,8 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
 
   app.use("/v1", (req: Request, _res: Response, next: NextFunction) => {
     const auth = req.get("authorization") ?? "";
-    if (!/^Bearer sk_test_\w+$/.test(auth)) return next(new ApiError(401, { type: "invalid_request_error", message: "Invalid API Key provided." }));
+    if (!/^Bearer sk_test_\w+$/.test(auth))
+      return next(new ApiError(401, { type: "invalid_request_error", message: "Invalid API Key provided." }));
     next();
   });
 
@@ -68,11 +81,18 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     const key = req.get("idempotency-key");
     if (req.method !== "POST" || !key) return next();
     if (key.length > 255) return next(invalid("Idempotency keys can be at most 255 characters long."));
-    const requestHash = createHash("sha256").update(`${req.method} ${req.path} ${JSON.stringify(req.body)}`).digest("hex");
+    const requestHash = createHash("sha256")
+      .update(`${req.method} ${req.path} ${JSON.stringify(req.body)}`)
+      .digest("hex");
     const earlier = saved.get(key);
     if (earlier) {
       if (earlier.requestHash !== requestHash) {
-        return next(new ApiError(400, { type: "idempotency_error", message: `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.` }));
+        return next(
+          new ApiError(400, {
+            type: "idempotency_error",
+            message: `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`,
+          }),
+        );
       }
       res.setHeader("Idempotent-Replayed", "true");
       return res.status(earlier.status).json(earlier.body);
@@ -86,9 +106,18 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     next();
   });
 
-  const findIntent = (id: string) => state.paymentIntents.get(id) ?? (() => { throw missing("payment_intent", id); })();
-  const findSession = (id: string) => state.sessions.get(id) ?? (() => { throw missing("checkout.session", id); })();
-  const emit = (type: string, object: unknown, req?: Request) => webhooks.send(state.event(type, object, req?.get("idempotency-key") ?? null));
+  const findIntent = (id: string) =>
+    state.paymentIntents.get(id) ??
+    (() => {
+      throw missing("payment_intent", id);
+    })();
+  const findSession = (id: string) =>
+    state.sessions.get(id) ??
+    (() => {
+      throw missing("checkout.session", id);
+    })();
+  const emit = (type: string, object: unknown, req?: Request) =>
+    webhooks.send(state.event(type, object, req?.get("idempotency-key") ?? null));
 
   /** Charges the intent; a decline leaves it awaiting another payment method, as Stripe does. */
   function pay(pi: PaymentIntent, method: string, failure: PaymentError | null, req?: Request): PaymentError | null {
@@ -117,7 +146,8 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
   }
 
   function confirm(pi: PaymentIntent, method: unknown, req: Request) {
-    if (typeof method !== "string" || !(method in TEST_PAYMENT_METHODS)) throw invalid(`No such PaymentMethod: '${String(method ?? "")}'`, "payment_method");
+    if (typeof method !== "string" || !(method in TEST_PAYMENT_METHODS))
+      throw invalid(`No such PaymentMethod: '${String(method ?? "")}'`, "payment_method");
     const error = pay(pi, method, TEST_PAYMENT_METHODS[method]!, req);
     if (error) throw new ApiError(402, { ...error, payment_intent: pi, doc_url: "https://docs.stripe.com/error-codes/card-declined" });
     return pi;
@@ -128,12 +158,21 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     const amount = int(b.amount, "amount");
     if (amount < 50) throw invalid("Amount must be at least 50 cents.", "amount");
     if (typeof b.currency !== "string" || !/^[a-z]{3}$/.test(b.currency)) throw invalid("Missing required param: currency.", "currency");
-    const pi = state.createPaymentIntent({ amount, currency: b.currency, metadata: metadataOf(b.metadata), description: (b.description as string) ?? null, receiptEmail: (b.receipt_email as string) ?? null });
+    const pi = state.createPaymentIntent({
+      amount,
+      currency: b.currency,
+      metadata: metadataOf(b.metadata),
+      description: (b.description as string) ?? null,
+      receiptEmail: (b.receipt_email as string) ?? null,
+    });
     emit("payment_intent.created", pi, req);
     res.json(b.confirm === "true" ? confirm(pi, b.payment_method, req) : pi);
   });
   app.get("/v1/payment_intents/:id", (req, res) => void res.json(findIntent(req.params.id)));
-  app.post("/v1/payment_intents/:id/confirm", (req, res) => void res.json(confirm(findIntent(req.params.id), (req.body as Record<string, unknown>).payment_method, req)));
+  app.post(
+    "/v1/payment_intents/:id/confirm",
+    (req, res) => void res.json(confirm(findIntent(req.params.id), (req.body as Record<string, unknown>).payment_method, req)),
+  );
 
   app.post("/v1/checkout/sessions", (req, res) => {
     const b = req.body as Record<string, unknown>;
@@ -141,15 +180,27 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     if (typeof b.success_url !== "string") throw invalid("Missing required param: success_url.", "success_url");
     const items = listOf(b.line_items).map((li, i) => {
       const pd = (li.price_data ?? {}) as Record<string, unknown>;
-      return { name: String((pd.product_data as Record<string, unknown> | undefined)?.name ?? `Item ${i + 1}`), amount: int(pd.unit_amount, `line_items[${i}][price_data][unit_amount]`), quantity: int(li.quantity ?? "1", `line_items[${i}][quantity]`), currency: String(pd.currency ?? "") };
+      return {
+        name: String((pd.product_data as Record<string, unknown> | undefined)?.name ?? `Item ${i + 1}`),
+        amount: int(pd.unit_amount, `line_items[${i}][price_data][unit_amount]`),
+        quantity: int(li.quantity ?? "1", `line_items[${i}][quantity]`),
+        currency: String(pd.currency ?? ""),
+      };
     });
     if (!items.length) throw invalid("Missing required param: line_items.", "line_items");
     const currency = items[0]!.currency;
-    if (!/^[a-z]{3}$/.test(currency) || items.some((i) => i.currency !== currency)) throw invalid("All line items need the same three-letter currency.", "line_items");
+    if (!/^[a-z]{3}$/.test(currency) || items.some((i) => i.currency !== currency))
+      throw invalid("All line items need the same three-letter currency.", "line_items");
     const total = items.reduce((s, i) => s + i.amount * i.quantity, 0);
     const piData = (b.payment_intent_data ?? {}) as Record<string, unknown>;
     const metadata = metadataOf(b.metadata);
-    const pi = state.createPaymentIntent({ amount: total, currency, metadata: { ...metadata, ...metadataOf(piData.metadata) }, description: (piData.description as string) ?? null, receiptEmail: (b.customer_email as string) ?? null });
+    const pi = state.createPaymentIntent({
+      amount: total,
+      currency,
+      metadata: { ...metadata, ...metadataOf(piData.metadata) },
+      description: (piData.description as string) ?? null,
+      receiptEmail: (b.customer_email as string) ?? null,
+    });
     const id = newId("cs_test");
     const session: CheckoutSession = {
       id,
@@ -182,7 +233,8 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     if (!charge) throw invalid(`This PaymentIntent (${pi.id}) does not have a successful charge to refund.`, "payment_intent");
     const left = charge.amount - charge.amount_refunded;
     const amount = b.amount === undefined ? left : int(b.amount, "amount");
-    if (amount <= 0 || amount > left) throw invalid(`Refund amount (${amount}) is greater than unrefunded amount on charge (${left}).`, "amount");
+    if (amount <= 0 || amount > left)
+      throw invalid(`Refund amount (${amount}) is greater than unrefunded amount on charge (${left}).`, "amount");
     const refund = state.refund(charge, amount, (b.reason as string) ?? null);
     emit("charge.refunded", charge, req);
     res.json(refund);
@@ -199,7 +251,11 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     if (!s) return void res.status(404).type("text").send("No such payment session.");
     if (s.status !== "open") return void res.type("html").send(paymentPage(s));
     const card = String((req.body as Record<string, unknown>).card ?? "").replace(/\D/g, "");
-    if (!(card in TEST_CARDS)) return void res.status(400).type("html").send(paymentPage(s, "Your card number is incorrect. Use one of the test card numbers below."));
+    if (!(card in TEST_CARDS))
+      return void res
+        .status(400)
+        .type("html")
+        .send(paymentPage(s, "Your card number is incorrect. Use one of the test card numbers below."));
     const error = pay(findIntent(s.payment_intent), `pm_card_${card.slice(-4)}`, TEST_CARDS[card]!);
     if (error) return void res.status(402).type("html").send(paymentPage(s, error.message));
     res.redirect(303, s.success_url.replace("{CHECKOUT_SESSION_ID}", s.id));
@@ -209,7 +265,9 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
   app.get("/__fake/charges", (_req, res) => void res.json(state.charges));
   app.get("/__fake/events", (_req, res) => void res.json({ events: state.events, deliveries: webhooks.attempts }));
 
-  app.use((req: Request, _res: Response, next: NextFunction) => next(new ApiError(404, { type: "invalid_request_error", message: `Unrecognized request URL (${req.method}: ${req.path}).` })));
+  app.use((req: Request, _res: Response, next: NextFunction) =>
+    next(new ApiError(404, { type: "invalid_request_error", message: `Unrecognized request URL (${req.method}: ${req.path}).` })),
+  );
   app.use((err: unknown, _req: Request, res: Response, _next: NextFunction) => {
     if (err instanceof ApiError) return void res.status(err.status).json({ error: err.body });
     res.status(500).json({ error: { type: "api_error", message: err instanceof Error ? err.message : "Internal error" } });

@@ -50,7 +50,11 @@ export class WebhookSender {
     try {
       const res = await fetch(this.endpoint.url!, {
         method: "POST",
-        headers: { "Content-Type": "application/json; charset=utf-8", "Stripe-Signature": signatureHeader(payload, this.endpoint.secret), "User-Agent": "Stripe/1.0 (+https://stripe.com/docs/webhooks)" },
+        headers: {
+          "Content-Type": "application/json; charset=utf-8",
+          "Stripe-Signature": signatureHeader(payload, this.endpoint.secret),
+          "User-Agent": "Stripe/1.0 (+https://stripe.com/docs/webhooks)",
+        },
         body: payload,
         signal: AbortSignal.timeout(10_000),
       });
@@ -62,10 +66,13 @@ export class WebhookSender {
     this.attempts.push({ eventId: event.id, attempt, status, error, at: new Date().toISOString() });
     const delivered = status !== null && status >= 200 && status < 300;
     if (!delivered && attempt < this.endpoint.maxAttempts) {
-      const timer = setTimeout(() => {
-        this.timers.delete(timer);
-        this.send(event, attempt + 1);
-      }, this.endpoint.retryBaseMs * 2 ** (attempt - 1));
+      const timer = setTimeout(
+        () => {
+          this.timers.delete(timer);
+          this.send(event, attempt + 1);
+        },
+        this.endpoint.retryBaseMs * 2 ** (attempt - 1),
+      );
       this.timers.add(timer);
     }
   }

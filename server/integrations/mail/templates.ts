@@ -57,4 +57,3 @@ export function organisationWelcomeMail(p: { to: string; organisationName: strin
     ].join("\n"),
   };
 }
-

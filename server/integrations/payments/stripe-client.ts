@@ -10,7 +10,17 @@ export function stripe(): Stripe {
   const key = `${s.secretKey}@${s.protocol}://${s.host}:${s.port}`;
   if (client?.key !== key) {
     // Retries stay with us (idempotency keys make a retry safe); telemetry would leave the machine.
-    client = { key, stripe: new Stripe(s.secretKey, { host: s.host, port: s.port, protocol: s.protocol, maxNetworkRetries: 0, telemetry: false, timeout: 15_000 }) };
+    client = {
+      key,
+      stripe: new Stripe(s.secretKey, {
+        host: s.host,
+        port: s.port,
+        protocol: s.protocol,
+        maxNetworkRetries: 0,
+        telemetry: false,
+        timeout: 15_000,
+      }),
+    };
   }
   return client.stripe;
 }
@@ -30,6 +40,10 @@ export function verifiedEvent(rawBody: unknown, signature: string | undefined): 
 export function paymentServiceError(err: unknown): AppError {
   if (err instanceof AppError) return err;
   if (err instanceof Stripe.errors.StripeCardError) return paymentDeclined(err.message);
-  if (err instanceof Stripe.errors.StripeError) return upstreamFailed("Payment service error", `The payment service refused the request: ${err.message}`);
-  return upstreamFailed("Payment service unavailable", "The payment service could not be reached; nothing was charged. Try again in a moment.");
+  if (err instanceof Stripe.errors.StripeError)
+    return upstreamFailed("Payment service error", `The payment service refused the request: ${err.message}`);
+  return upstreamFailed(
+    "Payment service unavailable",
+    "The payment service could not be reached; nothing was charged. Try again in a moment.",
+  );
 }

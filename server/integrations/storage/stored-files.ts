@@ -26,7 +26,13 @@ export async function saveCheckedFile(file: { buffer: Buffer; originalname: stri
   await mkdir(dir, { recursive: true });
   const storedName = `${randomUUID()}.${ACCEPTED_TYPES[detected.mime]}`;
   await writeFile(path.join(dir, storedName), file.buffer, { flag: "wx" });
-  return { storedName, mime: detected.mime, sha256: sha256(file.buffer), sizeBytes: file.buffer.length, originalName: path.basename(file.originalname).slice(0, 200) };
+  return {
+    storedName,
+    mime: detected.mime,
+    sha256: sha256(file.buffer),
+    sizeBytes: file.buffer.length,
+    originalName: path.basename(file.originalname).slice(0, 200),
+  };
 }
 
 /** Removes a saved file when the database refused its row, so no orphan stays behind. */

@@ -12,7 +12,12 @@ export async function financeDashboard(buyerOrgId: number, f: { from?: string; t
   // Spend is what was paid, in the month it was paid: an unpaid order is outstanding, never spend.
   const paid = orders.filter((o) => o.paidAt !== null);
   for (const o of paid) {
-    const p = producers.get(o.contract.producer.name) ?? { producerName: o.contract.producer.name, paidOrders: 0, paidCents: 0, refundedCents: 0 };
+    const p = producers.get(o.contract.producer.name) ?? {
+      producerName: o.contract.producer.name,
+      paidOrders: 0,
+      paidCents: 0,
+      refundedCents: 0,
+    };
     p.paidOrders += 1;
     p.paidCents += o.paidCents;
     p.refundedCents += o.refundedCents;

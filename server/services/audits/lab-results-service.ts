@@ -19,7 +19,14 @@ import { contractFor } from "../specs/spec-access.ts";
 import { storeAnalyses } from "../lots/store-analyses.ts";
 import { openDeviations } from "../deviations/open-deviations.ts";
 import { orderFor } from "./order-access.ts";
-import { compareWithReference, findParameter, parseReading, type ParameterId, type ResultComparison, type UnitId } from "../../../shared/engine/index.ts";
+import {
+  compareWithReference,
+  findParameter,
+  parseReading,
+  type ParameterId,
+  type ResultComparison,
+  type UnitId,
+} from "../../../shared/engine/index.ts";
 import { orderReference, orderStatus } from "../../../shared/audits/vocabulary.ts";
 import type { LabResultsInput } from "../../../shared/audits/schemas.ts";
 import type { AnalysisStage } from "../../../shared/lots/vocabulary.ts";
@@ -32,7 +39,15 @@ type WithResults = Analysis & { results: AnalysisResult[] };
 async function declaredAnalysis(t: Transaction, lotId: number, stage: AnalysisStage): Promise<WithResults | null> {
   const stages = stage === "pre_filling" ? ["pre_filling", "retest"] : [stage];
   const find = (where: object) =>
-    Analysis.findOne({ where: { lotId, auditOrderId: null, ...where }, include: [{ model: AnalysisResult, as: "results" }], order: [["sampleDate", "DESC"], ["id", "DESC"]], transaction: t }) as Promise<WithResults | null>;
+    Analysis.findOne({
+      where: { lotId, auditOrderId: null, ...where },
+      include: [{ model: AnalysisResult, as: "results" }],
+      order: [
+        ["sampleDate", "DESC"],
+        ["id", "DESC"],
+      ],
+      transaction: t,
+    }) as Promise<WithResults | null>;
   return (await find({ stage: { [Op.in]: stages } })) ?? (await find({}));
 }
 
@@ -40,8 +55,16 @@ function compareLot(declared: WithResults | null, results: ResultEntry[]): Resul
   return results.map((r) => {
     const mine = declared?.results.find((d) => d.parameter === r.parameter);
     const parsed = parseReading(r.raw, { presence: findParameter(r.parameter)?.kind === "presence" });
-    const independent = { reading: parsed.ok ? parsed.reading : ({ kind: "below", limit: null } as const), unit: r.unit as UnitId, uncertainty: r.uncertainty ?? null };
-    return compareWithReference(r.parameter as ParameterId, mine ? { reading: mine.reading, unit: mine.unit as UnitId, uncertainty: mine.uncertainty } : null, independent);
+    const independent = {
+      reading: parsed.ok ? parsed.reading : ({ kind: "below", limit: null } as const),
+      unit: r.unit as UnitId,
+      uncertainty: r.uncertainty ?? null,
+    };
+    return compareWithReference(
+      r.parameter as ParameterId,
+      mine ? { reading: mine.reading, unit: mine.unit as UnitId, uncertainty: mine.uncertainty } : null,
+      independent,
+    );
   });
 }
 
@@ -52,10 +75,15 @@ function checkCoverage(order: AuditOrder, lotIds: number[], input: LabResultsInp
     if (!ordered.has(l.lotId)) errors.push({ path: `lots.${i}.lotId`, message: "This lot is not part of the order." });
     const given = new Set(l.results.map((r) => r.parameter));
     l.results.forEach((r, j) => {
-      if (!order.parameters.includes(r.parameter)) errors.push({ path: `lots.${i}.results.${j}.parameter`, message: `${findParameter(r.parameter)?.name ?? r.parameter} was not ordered.` });
+      if (!order.parameters.includes(r.parameter))
+        errors.push({
+          path: `lots.${i}.results.${j}.parameter`,
+          message: `${findParameter(r.parameter)?.name ?? r.parameter} was not ordered.`,
+        });
     });
     const missing = order.parameters.filter((p) => !given.has(p));
-    if (missing.length) errors.push({ path: `lots.${i}.results`, message: `Missing ${missing.map((p) => findParameter(p)?.name ?? p).join(", ")}.` });
+    if (missing.length)
+      errors.push({ path: `lots.${i}.results`, message: `Missing ${missing.map((p) => findParameter(p)?.name ?? p).join(", ")}.` });
   });
   const sent = new Set(input.lots.map((l) => l.lotId));
   if (sent.size !== input.lots.length) errors.push({ path: "lots", message: "A lot appears twice." });
@@ -68,9 +96,18 @@ export async function submitLabResults(labOrgId: number, orderId: number, user: 
   return idempotent(labOrgId, idempotencyKey, { orderId, ...body }, async (t) => {
     const { order, side } = await orderFor(labOrgId, orderId, t, true);
     if (side !== "laboratory") throw notFound("The audit order");
-    if (order.status !== "paid") throw conflict(order.resultsSubmittedAt ? "Results for this order are already in." : "This order is not awaiting results.");
-    const orderLots = await AuditOrderLot.findAll({ where: { auditOrderId: order.id }, include: [{ model: Lot, as: "lot" }], transaction: t });
-    const errors = checkCoverage(order, orderLots.map((l) => l.lotId), input);
+    if (order.status !== "paid")
+      throw conflict(order.resultsSubmittedAt ? "Results for this order are already in." : "This order is not awaiting results.");
+    const orderLots = await AuditOrderLot.findAll({
+      where: { auditOrderId: order.id },
+      include: [{ model: Lot, as: "lot" }],
+      transaction: t,
+    });
+    const errors = checkCoverage(
+      order,
+      orderLots.map((l) => l.lotId),
+      input,
+    );
     if (errors.length) throw validationFailed(errors);
 
     const lab = (await Organisation.findByPk(labOrgId, { transaction: t }))!;
@@ -80,7 +117,13 @@ export async function submitLabResults(labOrgId: number, orderId: number, user: 
       t,
       contract,
       user.id,
-      { stage: order.stage, laboratoryName: lab.name, accreditation: body.accreditation ?? null, auditOrderId: order.id, actingOrgId: labOrgId },
+      {
+        stage: order.stage,
+        laboratoryName: lab.name,
+        accreditation: body.accreditation ?? null,
+        auditOrderId: order.id,
+        actingOrgId: labOrgId,
+      },
       body.lots.map((l) => ({ lot: byLot.get(l.lotId)!.lot, sampleDate: body.sampleDate, results: l.results })),
     );
 
@@ -106,7 +149,11 @@ export async function submitLabResults(labOrgId: number, orderId: number, user: 
 
     const submittedAt = new Date();
     await order.update(
-      { resultsSubmittedAt: submittedAt, reportReference: body.reportReference ?? null, status: orderStatus({ ...order.get(), resultsSubmittedAt: submittedAt }) },
+      {
+        resultsSubmittedAt: submittedAt,
+        reportReference: body.reportReference ?? null,
+        status: orderStatus({ ...order.get(), resultsSubmittedAt: submittedAt }),
+      },
       { transaction: t },
     );
     const deviationIds = [...stored.deviationIds, ...discrepancyIds];
@@ -117,15 +164,33 @@ export async function submitLabResults(labOrgId: number, orderId: number, user: 
       entityType: "audit_order",
       entityId: order.id,
       after: body,
-      details: { reference: orderReference(order.id), lots: body.lots.length, failing: stored.failing.map((f) => f.parameters).flat(), discrepancies: discrepancies.flatMap((d) => d.parameters), deviations: deviationIds },
+      details: {
+        reference: orderReference(order.id),
+        lots: body.lots.length,
+        failing: stored.failing.map((f) => f.parameters).flat(),
+        discrepancies: discrepancies.flatMap((d) => d.parameters),
+        deviations: deviationIds,
+      },
     });
-    const readers = await usersWithRoles([order.buyerOrgId, order.producerOrgId], ["buyer_technologist", "buyer_finance", "producer_quality"], t);
+    const readers = await usersWithRoles(
+      [order.buyerOrgId, order.producerOrgId],
+      ["buyer_technologist", "buyer_finance", "producer_quality"],
+      t,
+    );
     await notify(t, readers, {
       kind: "audit",
       title: `Independent results in for ${orderReference(order.id)}: ${contract.wine.name}`,
-      body: discrepancies.length || stored.failing.length ? `${discrepancies.length} lot(s) disagree with the declared results; ${stored.failing.length} lot(s) fail the spec.` : "The independent results agree with the declared ones and meet the spec.",
+      body:
+        discrepancies.length || stored.failing.length
+          ? `${discrepancies.length} lot(s) disagree with the declared results; ${stored.failing.length} lot(s) fail the spec.`
+          : "The independent results agree with the declared ones and meet the spec.",
       link: orderPath(order.id),
     });
-    return { analysisIds: stored.analysisIds, failing: stored.failing, discrepancies: discrepancies.map((d) => ({ lotId: d.lotId, parameters: d.parameters })), deviationIds };
+    return {
+      analysisIds: stored.analysisIds,
+      failing: stored.failing,
+      discrepancies: discrepancies.map((d) => ({ lotId: d.lotId, parameters: d.parameters })),
+      deviationIds,
+    };
   });
 }

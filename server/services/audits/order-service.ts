@@ -30,13 +30,16 @@ export async function createOrder(buyerOrgId: number, user: SessionUser, input: 
     const { contract, side } = await contractFor(buyerOrgId, body.contractId, t);
     if (side !== "buyer") throw notFound("The contract");
     const lots = await Lot.findAll({ where: { id: body.lotIds, contractId: contract.id }, transaction: t });
-    if (lots.length !== body.lotIds.length) throw validationFailed([{ path: "lotIds", message: "Some of these lots are not under this contract." }]);
+    if (lots.length !== body.lotIds.length)
+      throw validationFailed([{ path: "lotIds", message: "Some of these lots are not under this contract." }]);
     const lab = await Organisation.findOne({ where: { id: body.laboratoryOrgId, kind: "laboratory" }, transaction: t });
     if (!lab) throw validationFailed([{ path: "laboratoryOrgId", message: "Choose one of the laboratories listed." }]);
     const prices = await LabPrice.findAll({ where: { organisationId: lab.id }, transaction: t });
     const quote = quoteAudit(prices, lots.length, body.parameters);
     if (quote.unpriced.length) {
-      throw validationFailed([{ path: "parameters", message: `${lab.name} does not offer ${quote.unpriced.map((p) => findParameter(p)?.name ?? p).join(", ")}.` }]);
+      throw validationFailed([
+        { path: "parameters", message: `${lab.name} does not offer ${quote.unpriced.map((p) => findParameter(p)?.name ?? p).join(", ")}.` },
+      ]);
     }
     const facts = { amountCents: quote.totalCents, paidCents: 0, refundedCents: 0, lastFailureAt: null, resultsSubmittedAt: null };
     const order = await AuditOrder.create(
@@ -56,7 +59,10 @@ export async function createOrder(buyerOrgId: number, user: SessionUser, input: 
       },
       { transaction: t },
     );
-    await AuditOrderLot.bulkCreate(lots.map((l) => ({ auditOrderId: order.id, lotId: l.id })), { transaction: t });
+    await AuditOrderLot.bulkCreate(
+      lots.map((l) => ({ auditOrderId: order.id, lotId: l.id })),
+      { transaction: t },
+    );
     await recordTrail(t, {
       actorUserId: user.id,
       organisationId: buyerOrgId,
@@ -64,7 +70,12 @@ export async function createOrder(buyerOrgId: number, user: SessionUser, input: 
       entityType: "audit_order",
       entityId: order.id,
       after: body,
-      details: { reference: orderReference(order.id), laboratory: lab.name, lots: lots.map((l) => l.lotCode), amountCents: quote.totalCents },
+      details: {
+        reference: orderReference(order.id),
+        laboratory: lab.name,
+        lots: lots.map((l) => l.lotCode),
+        amountCents: quote.totalCents,
+      },
     });
     return { id: order.id, reference: orderReference(order.id), amountCents: quote.totalCents };
   });
@@ -82,7 +93,11 @@ export async function listOrders(orgId: number, f: OrderFilters = {}) {
     ...(f.to ? { [Op.lt]: new Date(new Date(`${f.to}T00:00:00Z`).getTime() + 86_400_000) } : {}),
   };
   const orders = await loadOrders({
-    [Op.or]: [{ buyerOrgId: orgId }, { laboratoryOrgId: orgId, paidAt: { [Op.ne]: null } }, { producerOrgId: orgId, resultsSubmittedAt: { [Op.ne]: null } }],
+    [Op.or]: [
+      { buyerOrgId: orgId },
+      { laboratoryOrgId: orgId, paidAt: { [Op.ne]: null } },
+      { producerOrgId: orgId, resultsSubmittedAt: { [Op.ne]: null } },
+    ],
     ...(f.status ? { status: f.status } : {}),
     ...(f.from || f.to ? { createdAt: created } : {}),
   });
@@ -101,7 +116,8 @@ export async function getOrder(orgId: number, id: number, membership: SessionMem
 export async function startCheckout(buyerOrgId: number, id: number, user: SessionUser): Promise<{ url: string }> {
   const { order, side } = await orderFor(buyerOrgId, id);
   if (side !== "buyer") throw notFound("The audit order");
-  if (order.status !== "awaiting_payment" && order.status !== "payment_failed") throw conflict(`This order is ${order.status.replace("_", " ")}; there is nothing to pay.`);
+  if (order.status !== "awaiting_payment" && order.status !== "payment_failed")
+    throw conflict(`This order is ${order.status.replace("_", " ")}; there is nothing to pay.`);
   const client = stripe();
   const appUrl = serviceSettings().appUrl;
   try {
@@ -109,14 +125,22 @@ export async function startCheckout(buyerOrgId: number, id: number, user: Sessio
       const existing = await client.checkout.sessions.retrieve(order.checkoutSessionId);
       if (existing.status === "open" && existing.url) return { url: existing.url };
       // Paid, but Stripe's event has not reached us yet: a second session would charge twice.
-      if (existing.status === "complete") throw conflict("This order is already paid; the confirmation from the payment service is on its way.");
+      if (existing.status === "complete")
+        throw conflict("This order is already paid; the confirmation from the payment service is on its way.");
     }
     // After an expired session the key names the session it replaces, so concurrent retries still meet.
     const attempt = order.checkoutSessionId ? `${order.id}-after-${order.checkoutSessionId}` : String(order.id);
     const session = await client.checkout.sessions.create(
       {
         mode: "payment",
-        line_items: order.lines.map((l) => ({ quantity: l.lots, price_data: { currency: order.currency, unit_amount: l.unitCents, product_data: { name: `${l.name}, independent analysis per lot` } } })),
+        line_items: order.lines.map((l) => ({
+          quantity: l.lots,
+          price_data: {
+            currency: order.currency,
+            unit_amount: l.unitCents,
+            product_data: { name: `${l.name}, independent analysis per lot` },
+          },
+        })),
         success_url: `${appUrl}/audits/${order.id}?paid=1`,
         cancel_url: `${appUrl}/audits/${order.id}`,
         client_reference_id: String(order.id),
@@ -127,8 +151,18 @@ export async function startCheckout(buyerOrgId: number, id: number, user: Sessio
       { idempotencyKey: `cellarpact-audit-order-${attempt}-checkout` },
     );
     await inTransaction(async (t) => {
-      await AuditOrder.update({ checkoutSessionId: session.id, paymentIntentId: typeof session.payment_intent === "string" ? session.payment_intent : null }, { where: { id: order.id }, transaction: t });
-      await recordTrail(t, { actorUserId: user.id, organisationId: buyerOrgId, action: "audit_order.checkout_started", entityType: "audit_order", entityId: order.id, details: { session: session.id, amountCents: session.amount_total } });
+      await AuditOrder.update(
+        { checkoutSessionId: session.id, paymentIntentId: typeof session.payment_intent === "string" ? session.payment_intent : null },
+        { where: { id: order.id }, transaction: t },
+      );
+      await recordTrail(t, {
+        actorUserId: user.id,
+        organisationId: buyerOrgId,
+        action: "audit_order.checkout_started",
+        entityType: "audit_order",
+        entityId: order.id,
+        details: { session: session.id, amountCents: session.amount_total },
+      });
     });
     return { url: session.url! };
   } catch (err) {
@@ -147,7 +181,14 @@ export async function requestRefund(buyerOrgId: number, id: number, user: Sessio
       { idempotencyKey: `cellarpact-audit-order-${order.id}-refund` },
     );
     await inTransaction((t) =>
-      recordTrail(t, { actorUserId: user.id, organisationId: buyerOrgId, action: "audit_order.refund_requested", entityType: "audit_order", entityId: order.id, details: { refund: refund.id, amountCents: refund.amount, reason } }),
+      recordTrail(t, {
+        actorUserId: user.id,
+        organisationId: buyerOrgId,
+        action: "audit_order.refund_requested",
+        entityType: "audit_order",
+        entityId: order.id,
+        details: { refund: refund.id, amountCents: refund.amount, reason },
+      }),
     );
     return { refundId: refund.id, amountCents: refund.amount };
   } catch (err) {

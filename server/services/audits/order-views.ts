@@ -19,7 +19,12 @@ import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import type { Role } from "../../../shared/auth/roles.ts";
 import type { OrderSide } from "./order-access.ts";
 
-type Loaded = AuditOrder & { lots: (AuditOrderLot & { lot: Lot })[]; laboratory: Organisation; orderer: User; contract: ContractWithParties };
+type Loaded = AuditOrder & {
+  lots: (AuditOrderLot & { lot: Lot })[];
+  laboratory: Organisation;
+  orderer: User;
+  contract: ContractWithParties;
+};
 
 export const orderInclude = [
   { model: AuditOrderLot, as: "lots", include: [{ model: Lot, as: "lot" }] },
@@ -53,20 +58,48 @@ export function summaryOf(o: Loaded, forBuyer: boolean): AuditOrderSummary {
 }
 
 export async function loadOrders(where: Record<string, unknown>): Promise<Loaded[]> {
-  return (await AuditOrder.findAll({ where, include: orderInclude, order: [["createdAt", "DESC"], ["id", "DESC"]], limit: 1000 })) as Loaded[];
+  return (await AuditOrder.findAll({
+    where,
+    include: orderInclude,
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "DESC"],
+    ],
+    limit: 1000,
+  })) as Loaded[];
 }
 
 export async function detailOf(id: number, side: OrderSide, role: Role): Promise<AuditOrderDetail> {
   const o = (await AuditOrder.findByPk(id, { include: orderInclude })) as Loaded;
-  const payments = side === "buyer" ? await AuditPayment.findAll({ where: { auditOrderId: id }, order: [["createdAt", "ASC"], ["id", "ASC"]] }) : [];
+  const payments =
+    side === "buyer"
+      ? await AuditPayment.findAll({
+          where: { auditOrderId: id },
+          order: [
+            ["createdAt", "ASC"],
+            ["id", "ASC"],
+          ],
+        })
+      : [];
   const analysisIds = o.lots.map((l) => l.analysisId).filter((x): x is number => x !== null);
-  const evaluations = new Map((await AnalysisEvaluation.findAll({ where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } } })).map((e) => [e.analysisId, e.verdicts as StoredVerdict[]]));
+  const evaluations = new Map(
+    (await AnalysisEvaluation.findAll({ where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } } })).map((e) => [
+      e.analysisId,
+      e.verdicts as StoredVerdict[],
+    ]),
+  );
   const deviations = await Deviation.findAll({ where: { auditOrderId: id }, attributes: ["id"] });
   // The laboratory's signed reports, attached to its own analyses.
-  const reports = await Certificate.findAll({ where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } }, attributes: ["id", "analysisId", "originalName"], order: [["id", "ASC"]] });
+  const reports = await Certificate.findAll({
+    where: { analysisId: { [Op.in]: analysisIds.length ? analysisIds : [0] } },
+    attributes: ["id", "analysisId", "originalName"],
+    order: [["id", "ASC"]],
+  });
   // Results are asked for in the units the spec sheet speaks, the way both parties read them.
   const governing = o.lots[0] ? await governingVersion(o.contractId, o.lots[0].lot.vintage) : null;
-  const specUnits = Object.fromEntries((governing?.requirements ?? []).filter((r) => o.parameters.includes(r.parameter)).map((r) => [r.parameter, r.unit]));
+  const specUnits = Object.fromEntries(
+    (governing?.requirements ?? []).filter((r) => o.parameters.includes(r.parameter)).map((r) => [r.parameter, r.unit]),
+  );
   // The laboratory works blind: the producer's declared values stay hidden from it.
   const showComparisons = side !== "laboratory";
   return {
@@ -74,7 +107,13 @@ export async function detailOf(id: number, side: OrderSide, role: Role): Promise
     stage: o.stage,
     note: o.note,
     lines: side === "buyer" ? o.lines : [],
-    payments: payments.map((p) => ({ kind: p.kind, amountCents: p.amountCents, stripeRef: p.stripeRef, detail: p.detail, at: p.createdAt.toISOString() })),
+    payments: payments.map((p) => ({
+      kind: p.kind,
+      amountCents: p.amountCents,
+      stripeRef: p.stripeRef,
+      detail: p.detail,
+      at: p.createdAt.toISOString(),
+    })),
     lots: o.lots.map((l) => ({
       lotId: l.lotId,
       lotCode: l.lot.lotCode,

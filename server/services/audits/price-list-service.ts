@@ -9,7 +9,8 @@ import type { PriceListInput } from "../../../shared/audits/schemas.ts";
 import type { LaboratoryOffer } from "../../../shared/audits/views.ts";
 import type { SessionUser } from "../session-service.ts";
 
-const itemsOf = (rows: LabPrice[]) => rows.map((r) => ({ parameter: r.parameter, priceCents: r.priceCents })).sort((a, b) => a.parameter.localeCompare(b.parameter));
+const itemsOf = (rows: LabPrice[]) =>
+  rows.map((r) => ({ parameter: r.parameter, priceCents: r.priceCents })).sort((a, b) => a.parameter.localeCompare(b.parameter));
 
 export async function listLaboratories(): Promise<LaboratoryOffer[]> {
   const labs = await Organisation.findAll({ where: { kind: "laboratory" }, order: [["name", "ASC"]] });
@@ -28,8 +29,20 @@ export async function setPriceList(labOrgId: number, user: SessionUser, input: P
     if (lab?.kind !== "laboratory") throw forbidden("Only a laboratory keeps a price list.");
     const before = itemsOf(await LabPrice.findAll({ where: { organisationId: labOrgId }, transaction: t }));
     await LabPrice.destroy({ where: { organisationId: labOrgId }, transaction: t });
-    await LabPrice.bulkCreate(input.items.map((i) => ({ organisationId: labOrgId, parameter: i.parameter, priceCents: i.priceCents, currency: CURRENCY })), { transaction: t });
-    await recordTrail(t, { actorUserId: user.id, organisationId: labOrgId, action: "price_list.updated", entityType: "organisation", entityId: labOrgId, before, after: input.items, details: { items: input.items.length } });
+    await LabPrice.bulkCreate(
+      input.items.map((i) => ({ organisationId: labOrgId, parameter: i.parameter, priceCents: i.priceCents, currency: CURRENCY })),
+      { transaction: t },
+    );
+    await recordTrail(t, {
+      actorUserId: user.id,
+      organisationId: labOrgId,
+      action: "price_list.updated",
+      entityType: "organisation",
+      entityId: labOrgId,
+      before,
+      after: input.items,
+      details: { items: input.items.length },
+    });
     return { currency: CURRENCY, items: itemsOf(await LabPrice.findAll({ where: { organisationId: labOrgId }, transaction: t })) };
   });
 }

@@ -10,9 +10,15 @@ import { AuditOrder } from "../../models/audit-order.ts";
 import { type DeviationStatus } from "../../../shared/deviations/vocabulary.ts";
 
 export const CLOSED: DeviationStatus[] = ["decided", "closed"];
-export const isOverdue = (d: Deviation, now = Date.now()) => !CLOSED.includes(d.status) && d.respondBy !== null && d.respondBy.getTime() < now;
+export const isOverdue = (d: Deviation, now = Date.now()) =>
+  !CLOSED.includes(d.status) && d.respondBy !== null && d.respondBy.getTime() < now;
 
-export async function deviationFor(orgId: number, id: number, t?: Transaction, lock = false): Promise<{ deviation: Deviation; contract: ContractWithParties; side: Side | "laboratory" }> {
+export async function deviationFor(
+  orgId: number,
+  id: number,
+  t?: Transaction,
+  lock = false,
+): Promise<{ deviation: Deviation; contract: ContractWithParties; side: Side | "laboratory" }> {
   const deviation = await Deviation.findByPk(id, { transaction: t, lock: lock && t ? t.LOCK.UPDATE : undefined });
   if (!deviation) throw notFound("The deviation");
   const party = await contractFor(orgId, deviation.contractId, t).catch(() => null);
@@ -33,9 +39,18 @@ export async function partyDeviationFor(orgId: number, id: number, t?: Transacti
 
 /** Everyone who can take part: handles are the local part of their e-mail address (@tessa.marlow). */
 export async function participants(c: ContractWithParties, t?: Transaction) {
-  const rows = await Membership.findAll({ where: { organisationId: [c.retailerOrgId, c.producerOrgId] }, include: [{ model: User, as: "user" }], transaction: t });
+  const rows = await Membership.findAll({
+    where: { organisationId: [c.retailerOrgId, c.producerOrgId] },
+    include: [{ model: User, as: "user" }],
+    transaction: t,
+  });
   return rows.map((m) => {
     const u = (m as Membership & { user: User }).user;
-    return { userId: u.id, handle: u.email.split("@")[0]!.toLowerCase(), name: u.name, organisation: m.organisationId === c.retailerOrgId ? c.retailer.name : c.producer.name };
+    return {
+      userId: u.id,
+      handle: u.email.split("@")[0]!.toLowerCase(),
+      name: u.name,
+      organisation: m.organisationId === c.retailerOrgId ? c.retailer.name : c.producer.name,
+    };
   });
 }

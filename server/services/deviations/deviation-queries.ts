@@ -40,13 +40,21 @@ function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationS
   };
 }
 
-export async function listDeviations(orgId: number, f: { status?: DeviationStatus; lot?: number; contract?: number; overdue?: "true" | "false" }) {
+export async function listDeviations(
+  orgId: number,
+  f: { status?: DeviationStatus; lot?: number; contract?: number; overdue?: "true" | "false" },
+) {
   const labOrders = await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] });
-  const contracts = (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] }, include: contractInclude })) as ContractWithParties[];
+  const contracts = (await Contract.findAll({
+    where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] },
+    include: contractInclude,
+  })) as ContractWithParties[];
   const byId = new Map(contracts.map((c) => [c.id, c]));
   const own = contracts.filter((c) => c.retailerOrgId === orgId || c.producerOrgId === orgId).map((c) => c.id);
   const ids = f.contract ? [f.contract].filter((id) => own.includes(id)) : own;
-  const labWhere = labOrders.length ? [{ auditOrderId: labOrders.map((o) => o.id), ...(f.contract ? { contractId: f.contract } : {}) }] : [];
+  const labWhere = labOrders.length
+    ? [{ auditOrderId: labOrders.map((o) => o.id), ...(f.contract ? { contractId: f.contract } : {}) }]
+    : [];
   const rows = await Deviation.findAll({
     where: { [Op.or]: [{ contractId: ids }, ...labWhere], ...(f.status ? { status: f.status } : {}), ...(f.lot ? { lotId: f.lot } : {}) },
     include: [{ model: Lot, as: "lot" }],
@@ -64,8 +72,15 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
   const people = await participants(contract);
   const messages = (await DeviationMessage.findAll({
     where: { deviationId: id },
-    include: [{ model: User, as: "author", attributes: ["id", "name"] }, { model: DeviationMessageEdit, as: "edits" }, { model: DeviationAttachment, as: "attachments" }],
-    order: [["createdAt", "ASC"], ["id", "ASC"]],
+    include: [
+      { model: User, as: "author", attributes: ["id", "name"] },
+      { model: DeviationMessageEdit, as: "edits" },
+      { model: DeviationAttachment, as: "attachments" },
+    ],
+    order: [
+      ["createdAt", "ASC"],
+      ["id", "ASC"],
+    ],
   })) as (DeviationMessage & { author: User; edits: DeviationMessageEdit[]; attachments: DeviationAttachment[] })[];
   const decider = deviation.decidedBy ? await User.findByPk(deviation.decidedBy, { attributes: ["name"] }) : null;
   const open = !CLOSED.includes(deviation.status);
@@ -83,7 +98,12 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
       parentId: m.parentId,
       kind: m.kind,
       author: m.author.name,
-      organisation: m.organisationId === contract.retailerOrgId ? contract.retailer.name : m.organisationId === contract.producerOrgId ? contract.producer.name : "Laboratory",
+      organisation:
+        m.organisationId === contract.retailerOrgId
+          ? contract.retailer.name
+          : m.organisationId === contract.producerOrgId
+            ? contract.producer.name
+            : "Laboratory",
       side: m.organisationId === contract.retailerOrgId ? "buyer" : m.organisationId === contract.producerOrgId ? "producer" : "laboratory",
       body: m.body,
       proposal: m.proposal,

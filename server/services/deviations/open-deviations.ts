@@ -19,7 +19,12 @@ export interface NewDeviation {
 
 export const responseDeadline = (from = new Date()) => new Date(from.getTime() + RESPONSE_DAYS * 86_400_000);
 
-export async function openDeviations(t: Transaction, contract: ContractWithParties, actor: { userId: number; organisationId: number }, rows: NewDeviation[]): Promise<number[]> {
+export async function openDeviations(
+  t: Transaction,
+  contract: ContractWithParties,
+  actor: { userId: number; organisationId: number },
+  rows: NewDeviation[],
+): Promise<number[]> {
   if (!rows.length) return [];
   const created = await Deviation.bulkCreate(
     rows.map((r) => ({ ...r, contractId: contract.id, status: "open" as const, openedBy: actor.userId, respondBy: responseDeadline() })),
@@ -27,15 +32,36 @@ export async function openDeviations(t: Transaction, contract: ContractWithParti
   );
   const parties = await usersWithRoles([contract.retailerOrgId, contract.producerOrgId], ["buyer_technologist", "producer_quality"], t);
   for (const d of created) {
-    await recordTrail(t, { actorUserId: actor.userId, organisationId: actor.organisationId, action: "deviation.opened", entityType: "deviation", entityId: d.id, after: { kind: d.kind, parameters: d.parameters }, details: { lotId: d.lotId, kind: d.kind, parameters: d.parameters } });
+    await recordTrail(t, {
+      actorUserId: actor.userId,
+      organisationId: actor.organisationId,
+      action: "deviation.opened",
+      entityType: "deviation",
+      entityId: d.id,
+      after: { kind: d.kind, parameters: d.parameters },
+      details: { lotId: d.lotId, kind: d.kind, parameters: d.parameters },
+    });
   }
   // One notification per party for the whole batch keeps a large import from flooding inboxes.
   await notify(
     t,
     parties,
     created.length === 1
-      ? { kind: "deviation_opened", title: `New deviation #${created[0]!.id}: ${contract.wine.name}`, body: created[0]!.summary, link: deviationPath(created[0]!.id) }
-      : { kind: "deviation_opened", title: `${created.length} new deviations: ${contract.wine.name}`, body: created.slice(0, 20).map((d) => d.summary).join("\n"), link: `/deviations?contract=${contract.id}` },
+      ? {
+          kind: "deviation_opened",
+          title: `New deviation #${created[0]!.id}: ${contract.wine.name}`,
+          body: created[0]!.summary,
+          link: deviationPath(created[0]!.id),
+        }
+      : {
+          kind: "deviation_opened",
+          title: `${created.length} new deviations: ${contract.wine.name}`,
+          body: created
+            .slice(0, 20)
+            .map((d) => d.summary)
+            .join("\n"),
+          link: `/deviations?contract=${contract.id}`,
+        },
     actor.userId,
   );
   return created.map((d) => d.id);

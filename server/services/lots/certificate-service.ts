@@ -28,7 +28,12 @@ async function mayAttach(orgId: number, analysis: Analysis): Promise<void> {
   if (analysis.auditOrderId) throw forbidden("This analysis came from an independent audit; its report belongs to the laboratory.");
 }
 
-export async function storeCertificate(orgId: number, analysisId: number, user: SessionUser, file: { buffer: Buffer; originalname: string }) {
+export async function storeCertificate(
+  orgId: number,
+  analysisId: number,
+  user: SessionUser,
+  file: { buffer: Buffer; originalname: string },
+) {
   const analysis = await Analysis.findByPk(analysisId);
   if (!analysis) throw notFound("The analysis");
   await mayAttach(orgId, analysis);
@@ -36,7 +41,14 @@ export async function storeCertificate(orgId: number, analysisId: number, user: 
   try {
     return await inTransaction(async (t) => {
       const cert = await Certificate.create({ analysisId, ...saved, uploadedBy: user.id }, { transaction: t });
-      await recordTrail(t, { actorUserId: user.id, organisationId: orgId, action: "certificate.uploaded", entityType: "certificate", entityId: cert.id, details: { analysisId, sha256: saved.sha256, bytes: saved.sizeBytes, mime: saved.mime } });
+      await recordTrail(t, {
+        actorUserId: user.id,
+        organisationId: orgId,
+        action: "certificate.uploaded",
+        entityType: "certificate",
+        entityId: cert.id,
+        details: { analysisId, sha256: saved.sha256, bytes: saved.sizeBytes, mime: saved.mime },
+      });
       return { id: cert.id, sha256: saved.sha256, mime: saved.mime };
     });
   } catch (err) {

@@ -11,9 +11,15 @@ import { CERTIFIABLE } from "../../../shared/lots/lot-status.ts";
 import { ROLE_LABELS, type Role } from "../../../shared/auth/roles.ts";
 import type { SessionUser } from "../session-service.ts";
 
-export async function lotDocument(orgId: number, lotId: number, user: SessionUser, role: Role): Promise<{ filename: string; pdf: Buffer; kind: LotDocumentData["kind"] }> {
+export async function lotDocument(
+  orgId: number,
+  lotId: number,
+  user: SessionUser,
+  role: Role,
+): Promise<{ filename: string; pdf: Buffer; kind: LotDocumentData["kind"] }> {
   const lot = await getLot(orgId, lotId, role);
-  if (lot.status.code === "awaiting_results") throw conflict(`Lot ${lot.lotCode} has no results judged against an agreed specification yet, so there is nothing to declare.`);
+  if (lot.status.code === "awaiting_results")
+    throw conflict(`Lot ${lot.lotCode} has no results judged against an agreed specification yet, so there is nothing to declare.`);
   const counted = lot.analyses.filter((a) => lot.status.analysisIds.includes(a.id));
   const latestAudit = lot.audits[0] ?? null;
   const audit = latestAudit ? { ...latestAudit, analysis: lot.analyses.find((a) => a.id === latestAudit.analysisId) ?? null } : null;

@@ -1,6 +1,19 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
 import { literal, Op } from "sequelize";
-import { compareTransit, convert, displayDigits, displayValue, findParameter, formatReading, type GoverningBound, type MarketId, type Outcome, type Reading, type UnitId, type WineProfile } from "../../../shared/engine/index.ts";
+import {
+  compareTransit,
+  convert,
+  displayDigits,
+  displayValue,
+  findParameter,
+  formatReading,
+  type GoverningBound,
+  type MarketId,
+  type Outcome,
+  type Reading,
+  type UnitId,
+  type WineProfile,
+} from "../../../shared/engine/index.ts";
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
 import type { Stage } from "../../../shared/specs/vocabulary.ts";
@@ -29,7 +42,10 @@ const parameterName = (p: string) => findParameter(p)?.name ?? p;
 type LoadedAnalysis = Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null; certificates: Certificate[] };
 
 async function partyContracts(orgId: number) {
-  return (await Contract.findAll({ where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] }, include: contractInclude })) as ContractWithParties[];
+  return (await Contract.findAll({
+    where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] },
+    include: contractInclude,
+  })) as ContractWithParties[];
 }
 
 /** What a lot's status rests on, for many lots at once: their analyses (oldest first) and deviations. */
@@ -39,7 +55,10 @@ async function statusInputs(ids: number[]) {
       where: { lotId: ids },
       include: [{ model: AnalysisEvaluation, as: "evaluation", attributes: ["specVersionId", "verdicts"] }],
       attributes: ["id", "lotId", "stage", "sampleDate", "auditOrderId"],
-      order: [["sampleDate", "ASC"], ["id", "ASC"]],
+      order: [
+        ["sampleDate", "ASC"],
+        ["id", "ASC"],
+      ],
     }),
     Deviation.findAll({ where: { lotId: ids }, attributes: ["id", "lotId", "kind", "status", "parameters", "decision"] }),
   ]);
@@ -82,7 +101,8 @@ async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties
       container: l.container,
       plannedDate: l.plannedDate,
       market: l.market as MarketId,
-      labelledAlcoholPercentVol: l.labelledAlcoholPercentVol === null || l.labelledAlcoholPercentVol === undefined ? null : Number(l.labelledAlcoholPercentVol),
+      labelledAlcoholPercentVol:
+        l.labelledAlcoholPercentVol === null || l.labelledAlcoholPercentVol === undefined ? null : Number(l.labelledAlcoholPercentVol),
       latestStage: (last?.stage as AnalysisStage) ?? null,
       status: lotStatus(mine, ofLot, parameterName),
       decidedDeviations: ofLot.filter((d) => d.decision).map((d) => ({ id: d.id, outcome: d.decision!.outcome })),
@@ -94,8 +114,14 @@ export async function listLots(orgId: number, f: { contract?: number; q?: string
   const contracts = await partyContracts(orgId);
   const byId = new Map(contracts.map((c) => [c.id, c]));
   const lots = await Lot.findAll({
-    where: { contractId: f.contract ? [f.contract].filter((id) => byId.has(id)) : [...byId.keys()], ...(f.q ? { lotCode: { [Op.like]: `%${f.q.replace(/[%_]/g, "")}%` } } : {}) },
-    order: [["vintage", "DESC"], ["lotCode", "ASC"]],
+    where: {
+      contractId: f.contract ? [f.contract].filter((id) => byId.has(id)) : [...byId.keys()],
+      ...(f.q ? { lotCode: { [Op.like]: `%${f.q.replace(/[%_]/g, "")}%` } } : {}),
+    },
+    order: [
+      ["vintage", "DESC"],
+      ["lotCode", "ASC"],
+    ],
     limit: 500,
   });
   return summaries(lots, byId);
@@ -111,15 +137,35 @@ function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>, pr
     rejudgedFromId: a.rejudgedFromId ?? null,
     sampleDate: a.sampleDate,
     createdAt: a.createdAt.toISOString(),
-    results: a.results.map((r) => ({ parameter: r.parameter, rawText: r.rawText, reading: r.reading, unit: r.unit, uncertainty: r.uncertainty, method: r.method })),
+    results: a.results.map((r) => ({
+      parameter: r.parameter,
+      rawText: r.rawText,
+      reading: r.reading,
+      unit: r.unit,
+      uncertainty: r.uncertainty,
+      method: r.method,
+    })),
     evaluation: a.evaluation
       ? {
           specVersionId: a.evaluation.specVersionId,
-          specVersion: a.evaluation.specVersionId ? { id: a.evaluation.specVersionId, number: versionNumbers.get(a.evaluation.specVersionId) ?? 0 } : null,
-          engineVersion: a.evaluation.engineVersion, marketVersions: a.evaluation.marketVersions, worstOutcome: a.evaluation.worstOutcome as Outcome, verdicts: a.evaluation.verdicts,
-          factsChanged: profileDiffers(a.evaluation.profile ?? null, profileNow) }
+          specVersion: a.evaluation.specVersionId
+            ? { id: a.evaluation.specVersionId, number: versionNumbers.get(a.evaluation.specVersionId) ?? 0 }
+            : null,
+          engineVersion: a.evaluation.engineVersion,
+          marketVersions: a.evaluation.marketVersions,
+          worstOutcome: a.evaluation.worstOutcome as Outcome,
+          verdicts: a.evaluation.verdicts,
+          factsChanged: profileDiffers(a.evaluation.profile ?? null, profileNow),
+        }
       : null,
-    certificates: a.certificates.map((c) => ({ id: c.id, originalName: c.originalName, mime: c.mime, sizeBytes: c.sizeBytes, sha256: c.sha256, createdAt: c.createdAt.toISOString() })),
+    certificates: a.certificates.map((c) => ({
+      id: c.id,
+      originalName: c.originalName,
+      mime: c.mime,
+      sizeBytes: c.sizeBytes,
+      sha256: c.sha256,
+      createdAt: c.createdAt.toISOString(),
+    })),
   };
 }
 
@@ -128,12 +174,21 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
   const [summary] = await summaries([lot], new Map([[contract.id, contract]]));
   const analyses = (await Analysis.findAll({
     where: { lotId },
-    include: [{ model: AnalysisResult, as: "results" }, { model: AnalysisEvaluation, as: "evaluation" }, { model: Certificate, as: "certificates" }],
-    order: [["sampleDate", "ASC"], ["id", "ASC"]],
+    include: [
+      { model: AnalysisResult, as: "results" },
+      { model: AnalysisEvaluation, as: "evaluation" },
+      { model: Certificate, as: "certificates" },
+    ],
+    order: [
+      ["sampleDate", "ASC"],
+      ["id", "ASC"],
+    ],
   })) as LoadedAnalysis[];
   const governing = await governingVersion(contract.id, lot.vintage);
   const judgedIds = [...new Set(analyses.map((a) => a.evaluation?.specVersionId).filter((id): id is number => !!id))];
-  const versionNumbers = new Map((await SpecVersion.findAll({ where: { id: judgedIds }, attributes: ["id", "number"] })).map((v) => [v.id, v.number]));
+  const versionNumbers = new Map(
+    (await SpecVersion.findAll({ where: { id: judgedIds }, attributes: ["id", "number"] })).map((v) => [v.id, v.number]),
+  );
   const pre = [...analyses].reverse().find((a) => a.stage === "pre_shipment");
   const arrival = [...analyses].reverse().find((a) => a.stage === "on_arrival");
   const deviations = await Deviation.findAll({ where: { lotId }, order: [["createdAt", "DESC"]] });
@@ -146,7 +201,16 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
     governing: governing ? { ...versionSummary(governing.version), requirements: governing.requirements } : null,
     analyses: analyses.map((a) => analysisView(a, versionNumbers, wineProfile(contract.wine, lot.vintage))),
     transit: isBulk(lot.container) && pre && arrival ? compareTransit(transitValues(pre.results), transitValues(arrival.results)) : null,
-    deviations: deviations.map((d) => ({ id: d.id, kind: d.kind, status: d.status, parameters: d.parameters, summary: d.summary, analysisId: d.analysisId, decision: d.decision ?? null, createdAt: d.createdAt.toISOString() })),
+    deviations: deviations.map((d) => ({
+      id: d.id,
+      kind: d.kind,
+      status: d.status,
+      parameters: d.parameters,
+      summary: d.summary,
+      analysisId: d.analysisId,
+      decision: d.decision ?? null,
+      createdAt: d.createdAt.toISOString(),
+    })),
     audits,
   };
 }
@@ -155,7 +219,14 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
 export async function lotAudits(lotId: number, side: "buyer" | "producer"): Promise<LotAuditView[]> {
   const rows = (await AuditOrderLot.findAll({
     where: { lotId },
-    include: [{ model: AuditOrder, as: "order", where: side === "buyer" ? { paidAt: { [Op.ne]: null } } : { resultsSubmittedAt: { [Op.ne]: null } }, include: [{ model: Organisation, as: "laboratory" }] }],
+    include: [
+      {
+        model: AuditOrder,
+        as: "order",
+        where: side === "buyer" ? { paidAt: { [Op.ne]: null } } : { resultsSubmittedAt: { [Op.ne]: null } },
+        include: [{ model: Organisation, as: "laboratory" }],
+      },
+    ],
     order: [["id", "DESC"]],
   })) as (AuditOrderLot & { order: AuditOrder & { laboratory: Organisation } })[];
   return rows.map((r) => ({
@@ -179,11 +250,21 @@ export async function readiness(orgId: number, horizonDays = 120): Promise<Readi
   const lots = await Lot.findAll({
     where: { contractId: [...byId.keys()], [Op.or]: [{ plannedDate: null }, { plannedDate: { [Op.between]: [today, horizon] } }] },
     // Dated lots first, soonest first; undated ones after them (MariaDB sorts NULL first otherwise).
-    order: [[literal("planned_date IS NULL"), "ASC"], ["plannedDate", "ASC"], ["lotCode", "ASC"]],
+    order: [
+      [literal("planned_date IS NULL"), "ASC"],
+      ["plannedDate", "ASC"],
+      ["lotCode", "ASC"],
+    ],
     limit: 300,
   });
   const base = await summaries(lots, byId);
-  const analyses = (await Analysis.findAll({ where: { lotId: lots.map((l) => l.id) }, include: [{ model: AnalysisResult, as: "results", attributes: ["parameter"] }, { model: AnalysisEvaluation, as: "evaluation" }] })) as LoadedAnalysis[];
+  const analyses = (await Analysis.findAll({
+    where: { lotId: lots.map((l) => l.id) },
+    include: [
+      { model: AnalysisResult, as: "results", attributes: ["parameter"] },
+      { model: AnalysisEvaluation, as: "evaluation" },
+    ],
+  })) as LoadedAnalysis[];
   const governingCache = new Map<string, Awaited<ReturnType<typeof governingVersion>>>();
   const rows: ReadinessRow[] = [];
   for (const [i, lot] of lots.entries()) {
@@ -226,16 +307,40 @@ export async function trend(orgId: number, contractId: number, parameterId: stri
   const row = governing?.requirements.find((r) => r.parameter === parameterId);
   const unit = (row?.unit ?? p.unit) as UnitId;
   // The limits drawn are the governing ones, buyer's and law's together, as the judge builds them.
-  const built = row ? judgeFor({ wine: contract.wine, lot: { vintage: latestVintage, market: null }, requirements: [row] }).built.get(parameterId) : undefined;
-  const bound = (b: GoverningBound | undefined) => (b ? { value: convert(b.value, built!.unit, unit), source: b.source.kind === "buyer" ? "buyer" : `law, ${b.source.limit.market}` } : null);
+  const built = row
+    ? judgeFor({ wine: contract.wine, lot: { vintage: latestVintage, market: null }, requirements: [row] }).built.get(parameterId)
+    : undefined;
+  const bound = (b: GoverningBound | undefined) =>
+    b
+      ? { value: convert(b.value, built!.unit, unit), source: b.source.kind === "buyer" ? "buyer" : `law, ${b.source.limit.market}` }
+      : null;
   const points = results
     .map((r) => {
       const lot = lotById.get(r.analysis.lotId)!;
       const value = r.reading.kind === "value" ? convert(r.reading.value, r.unit as UnitId, unit) : null;
-      const censored = r.reading.kind === "below" || r.reading.kind === "above" ? { ...r.reading, limit: r.reading.limit === null ? null : convert(r.reading.limit, r.unit as UnitId, unit) } : r.reading;
-      const text = value !== null ? displayValue(parameterId, value, unit) : formatReading(censored as Reading, displayDigits(parameterId, unit));
-      return { lotId: lot.id, lotCode: lot.lotCode, vintage: lot.vintage, stage: r.analysis.stage, sampleDate: r.analysis.sampleDate, value, text };
+      const censored =
+        r.reading.kind === "below" || r.reading.kind === "above"
+          ? { ...r.reading, limit: r.reading.limit === null ? null : convert(r.reading.limit, r.unit as UnitId, unit) }
+          : r.reading;
+      const text =
+        value !== null ? displayValue(parameterId, value, unit) : formatReading(censored as Reading, displayDigits(parameterId, unit));
+      return {
+        lotId: lot.id,
+        lotCode: lot.lotCode,
+        vintage: lot.vintage,
+        stage: r.analysis.stage,
+        sampleDate: r.analysis.sampleDate,
+        value,
+        text,
+      };
     })
     .sort((a, b) => (a.sampleDate < b.sampleDate ? -1 : a.sampleDate > b.sampleDate ? 1 : a.lotCode.localeCompare(b.lotCode)));
-  return { parameter: parameterId, unit, digits: displayDigits(parameterId, unit), lower: bound(built?.lower), upper: bound(built?.upper), points };
+  return {
+    parameter: parameterId,
+    unit,
+    digits: displayDigits(parameterId, unit),
+    lower: bound(built?.lower),
+    upper: bound(built?.upper),
+    points,
+  };
 }

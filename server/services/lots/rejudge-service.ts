@@ -21,21 +21,46 @@ import type { SessionUser } from "../session-service.ts";
 export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: number, user: SessionUser): Promise<SubmissionResult> {
   return inTransaction(async (t) => {
     const { lot, contract } = await lotFor(orgId, lotId, t);
-    const analysis = (await Analysis.findOne({ where: { id: analysisId, lotId }, include: [{ model: AnalysisResult, as: "results" }, { model: AnalysisEvaluation, as: "evaluation" }], transaction: t })) as
-      | (Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null })
-      | null;
+    const analysis = (await Analysis.findOne({
+      where: { id: analysisId, lotId },
+      include: [
+        { model: AnalysisResult, as: "results" },
+        { model: AnalysisEvaluation, as: "evaluation" },
+      ],
+      transaction: t,
+    })) as (Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null }) | null;
     if (!analysis || analysis.auditOrderId !== null) throw notFound("The analysis");
     const governing = await governingVersion(contract.id, lot.vintage, t);
     if (!governing) throw conflict(`No agreed specification covers vintage ${lot.vintage}, so there is nothing to judge against.`);
     const sameFacts = !profileDiffers(analysis.evaluation?.profile ?? null, wineProfile(contract.wine, lot.vintage));
     if (analysis.evaluation?.specVersionId === governing.version.id && sameFacts) {
-      throw conflict(`This analysis was already judged against version ${governing.version.number}, the version in force, with the wine's facts as they stand.`);
+      throw conflict(
+        `This analysis was already judged against version ${governing.version.number}, the version in force, with the wine's facts as they stand.`,
+      );
     }
-    if (await Analysis.count({ where: { rejudgedFromId: analysis.id }, transaction: t })) throw conflict("This analysis has already been re-judged; see the re-judgement on the lot.");
-    const results = analysis.results.map((r) => ({ parameter: r.parameter, raw: r.rawText, unit: r.unit as UnitId, uncertainty: (r.uncertainty as ReportedUncertainty | null) ?? null, method: r.method }));
-    const stored = await storeAnalyses(t, contract, user.id, { stage: analysis.stage, laboratoryName: analysis.laboratoryName, accreditation: analysis.accreditation, actingOrgId: orgId, rejudgedFromId: analysis.id, numberFormat: analysis.numberFormat ?? null }, [
-      { lot, sampleDate: analysis.sampleDate, results },
-    ]);
+    if (await Analysis.count({ where: { rejudgedFromId: analysis.id }, transaction: t }))
+      throw conflict("This analysis has already been re-judged; see the re-judgement on the lot.");
+    const results = analysis.results.map((r) => ({
+      parameter: r.parameter,
+      raw: r.rawText,
+      unit: r.unit as UnitId,
+      uncertainty: (r.uncertainty as ReportedUncertainty | null) ?? null,
+      method: r.method,
+    }));
+    const stored = await storeAnalyses(
+      t,
+      contract,
+      user.id,
+      {
+        stage: analysis.stage,
+        laboratoryName: analysis.laboratoryName,
+        accreditation: analysis.accreditation,
+        actingOrgId: orgId,
+        rejudgedFromId: analysis.id,
+        numberFormat: analysis.numberFormat ?? null,
+      },
+      [{ lot, sampleDate: analysis.sampleDate, results }],
+    );
     const id = stored.analysisIds[0]!;
     await recordTrail(t, {
       actorUserId: user.id,
@@ -43,8 +68,21 @@ export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: 
       action: "analysis.rejudged",
       entityType: "lot",
       entityId: lot.id,
-      details: { lotCode: lot.lotCode, rejudged: analysis.id, analysis: id, fromVersion: analysis.evaluation?.specVersionId ?? null, version: governing.version.number, factsChanged: !sameFacts, failing: stored.failing[0]?.parameters ?? [] },
+      details: {
+        lotCode: lot.lotCode,
+        rejudged: analysis.id,
+        analysis: id,
+        fromVersion: analysis.evaluation?.specVersionId ?? null,
+        version: governing.version.number,
+        factsChanged: !sameFacts,
+        failing: stored.failing[0]?.parameters ?? [],
+      },
     });
-    return { analysisId: id, counts: stored.samples[0]!.counts, failing: stored.failing[0]?.parameters ?? [], deviationIds: stored.deviationIds };
+    return {
+      analysisId: id,
+      counts: stored.samples[0]!.counts,
+      failing: stored.failing[0]?.parameters ?? [],
+      deviationIds: stored.deviationIds,
+    };
   });
 }

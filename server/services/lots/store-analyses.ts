@@ -5,7 +5,15 @@
 import { Op, type QueryInterface, type Transaction } from "sequelize";
 import { database } from "../../db/database.ts";
 import { compareTransit, findParameter } from "../../../shared/engine/index.ts";
-import { judgeAnalysis, judgeFor, readResult, transitValues, type Judge, type OutcomeCounts, type ReadResult } from "../../../shared/lots/judge.ts";
+import {
+  judgeAnalysis,
+  judgeFor,
+  readResult,
+  transitValues,
+  type Judge,
+  type OutcomeCounts,
+  type ReadResult,
+} from "../../../shared/lots/judge.ts";
 import { ANALYSIS_STAGE_LABELS, isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { ResultEntry } from "../../../shared/lots/schemas.ts";
 import { Analysis } from "../../models/analysis.ts";
@@ -47,7 +55,13 @@ export interface StoredSummary {
   deviationIds: number[];
 }
 
-export async function storeAnalyses(t: Transaction, contract: ContractWithParties, userId: number, header: AnalysisHeader, samples: SampleToStore[]): Promise<StoredSummary> {
+export async function storeAnalyses(
+  t: Transaction,
+  contract: ContractWithParties,
+  userId: number,
+  header: AnalysisHeader,
+  samples: SampleToStore[],
+): Promise<StoredSummary> {
   const governingCache = new Map<number, Awaited<ReturnType<typeof governingVersion>>>();
   const governing = async (vintage: number) => {
     if (!governingCache.has(vintage)) governingCache.set(vintage, await governingVersion(contract.id, vintage, t));
@@ -96,7 +110,8 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
   const judges = new Map<string, Judge>();
   const judgeOf = (lot: Lot) => {
     const key = `${lot.vintage}|${lot.market}`;
-    if (!judges.has(key)) judges.set(key, judgeFor({ wine: contract.wine, lot, requirements: governingCache.get(lot.vintage)?.requirements ?? null }));
+    if (!judges.has(key))
+      judges.set(key, judgeFor({ wine: contract.wine, lot, requirements: governingCache.get(lot.vintage)?.requirements ?? null }));
     return judges.get(key)!;
   };
   const evaluations = samples.map((s, i) => {
@@ -104,7 +119,15 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     const e = judgeAnalysis(judgeOf(s.lot), header.stage, read[i]!, { onlyReported: !!header.auditOrderId });
     summary.samples.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, counts: e.counts });
     if (e.failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: e.failing });
-    return { analysisId: analyses[i]!.id, specVersionId: g?.version.id ?? null, engineVersion: e.engineVersion, marketVersions: e.marketVersions, worstOutcome: e.worst, verdicts: e.verdicts, profile: judgeOf(s.lot).profile };
+    return {
+      analysisId: analyses[i]!.id,
+      specVersionId: g?.version.id ?? null,
+      engineVersion: e.engineVersion,
+      marketVersions: e.marketVersions,
+      worstOutcome: e.worst,
+      verdicts: e.verdicts,
+      profile: judgeOf(s.lot).profile,
+    };
   });
   const now = new Date();
   await insertInChunks(
@@ -133,17 +156,30 @@ export async function storeAnalyses(t: Transaction, contract: ContractWithPartie
     auditOrderId: header.auditOrderId ?? null,
   }));
   if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analyses, read)));
-  summary.deviationIds = await openDeviations(t, contract, { userId, organisationId: header.actingOrgId ?? contract.producerOrgId }, deviations);
+  summary.deviationIds = await openDeviations(
+    t,
+    contract,
+    { userId, organisationId: header.actingOrgId ?? contract.producerOrgId },
+    deviations,
+  );
   return summary;
 }
 
-async function transitDeviations(t: Transaction, samples: SampleToStore[], analyses: Analysis[], read: ReadResult[][]): Promise<NewDeviation[]> {
+async function transitDeviations(
+  t: Transaction,
+  samples: SampleToStore[],
+  analyses: Analysis[],
+  read: ReadResult[][],
+): Promise<NewDeviation[]> {
   const bulk = samples.map((s, i) => ({ s, analysis: analyses[i]!, arrival: read[i]! })).filter((x) => isBulk(x.s.lot.container));
   if (!bulk.length) return [];
   const before = await Analysis.findAll({
     where: { lotId: bulk.map((b) => b.s.lot.id), stage: "pre_shipment", id: { [Op.notIn]: analyses.map((a) => a.id) } },
     include: [{ model: AnalysisResult, as: "results" }],
-    order: [["sampleDate", "DESC"], ["id", "DESC"]],
+    order: [
+      ["sampleDate", "DESC"],
+      ["id", "DESC"],
+    ],
     transaction: t,
   });
   const found: NewDeviation[] = [];

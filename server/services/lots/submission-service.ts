@@ -14,7 +14,12 @@ import type { SessionUser } from "../session-service.ts";
 /** A lot goes only to a market its contract names: the spec and the law were agreed for those. */
 function assertContractMarket(contract: ContractWithParties, market: string) {
   if (!contract.wine.markets.includes(market as MarketId)) {
-    throw validationFailed([{ path: "market", message: `Contract ${contract.reference} covers ${contract.wine.markets.join(", ")}; choose one of those markets.` }]);
+    throw validationFailed([
+      {
+        path: "market",
+        message: `Contract ${contract.reference} covers ${contract.wine.markets.join(", ")}; choose one of those markets.`,
+      },
+    ]);
   }
 }
 
@@ -26,8 +31,24 @@ export async function registerLot(orgId: number, user: SessionUser, input: LotIn
     if (await Lot.findOne({ where: { contractId: contract.id, lotCode: input.lotCode }, transaction: t })) {
       throw validationFailed([{ path: "lotCode", message: `Lot ${input.lotCode} is already registered under this contract.` }]);
     }
-    const lot = await Lot.create({ ...input, volumeLitres: String(input.volumeLitres), plannedDate: input.plannedDate ?? null, labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol) }, { transaction: t });
-    await recordTrail(t, { actorUserId: user.id, organisationId: orgId, action: "lot.registered", entityType: "lot", entityId: lot.id, after: input, details: { lotCode: input.lotCode, contractId: contract.id } });
+    const lot = await Lot.create(
+      {
+        ...input,
+        volumeLitres: String(input.volumeLitres),
+        plannedDate: input.plannedDate ?? null,
+        labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol),
+      },
+      { transaction: t },
+    );
+    await recordTrail(t, {
+      actorUserId: user.id,
+      organisationId: orgId,
+      action: "lot.registered",
+      entityType: "lot",
+      entityId: lot.id,
+      after: input,
+      details: { lotCode: input.lotCode, contractId: contract.id },
+    });
     return { id: lot.id };
   });
 }
@@ -37,12 +58,33 @@ export async function updateLot(orgId: number, lotId: number, user: SessionUser,
     const { lot, contract, side } = await lotFor(orgId, lotId, t);
     if (side !== "producer") throw notFound("The lot");
     assertContractMarket(contract, input.market);
-    const before = { volumeLitres: Number(lot.volumeLitres), container: lot.container, plannedDate: lot.plannedDate, market: lot.market, labelledAlcoholPercentVol: lot.labelledAlcoholPercentVol === null ? null : Number(lot.labelledAlcoholPercentVol) };
+    const before = {
+      volumeLitres: Number(lot.volumeLitres),
+      container: lot.container,
+      plannedDate: lot.plannedDate,
+      market: lot.market,
+      labelledAlcoholPercentVol: lot.labelledAlcoholPercentVol === null ? null : Number(lot.labelledAlcoholPercentVol),
+    };
     await lot.update(
-      { volumeLitres: String(input.volumeLitres), container: input.container, plannedDate: input.plannedDate ?? null, market: input.market, labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol) },
+      {
+        volumeLitres: String(input.volumeLitres),
+        container: input.container,
+        plannedDate: input.plannedDate ?? null,
+        market: input.market,
+        labelledAlcoholPercentVol: input.labelledAlcoholPercentVol == null ? null : String(input.labelledAlcoholPercentVol),
+      },
       { transaction: t },
     );
-    await recordTrail(t, { actorUserId: user.id, organisationId: orgId, action: "lot.updated", entityType: "lot", entityId: lot.id, before, after: input, details: { lotCode: lot.lotCode } });
+    await recordTrail(t, {
+      actorUserId: user.id,
+      organisationId: orgId,
+      action: "lot.updated",
+      entityType: "lot",
+      entityId: lot.id,
+      before,
+      after: input,
+      details: { lotCode: lot.lotCode },
+    });
   });
 }
 
@@ -59,9 +101,20 @@ export async function submitAnalysis(orgId: number, lotId: number, user: Session
       entityType: "analysis",
       entityId: stored.analysisIds[0]!,
       after: body,
-      details: { lotId, stage: body.stage, results: body.results.length, failing: stored.failing[0]?.parameters ?? [], deviations: stored.deviationIds },
+      details: {
+        lotId,
+        stage: body.stage,
+        results: body.results.length,
+        failing: stored.failing[0]?.parameters ?? [],
+        deviations: stored.deviationIds,
+      },
     });
-    return { analysisId: stored.analysisIds[0]!, counts: stored.samples[0]!.counts, failing: stored.failing[0]?.parameters ?? [], deviationIds: stored.deviationIds };
+    return {
+      analysisId: stored.analysisIds[0]!,
+      counts: stored.samples[0]!.counts,
+      failing: stored.failing[0]?.parameters ?? [],
+      deviationIds: stored.deviationIds,
+    };
   });
 }
 
@@ -77,7 +130,11 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
     const missing = codes.filter((c) => !existing.has(c));
     const unknown = missing.filter((c) => !samples.some((s) => s.lotCode === c && s.vintage));
     if (unknown.length) {
-      throw validationFailed(unknown.slice(0, 20).map((c) => ({ path: "samples", message: `Lot ${c} is not registered; add a vintage column so it can be created.` })));
+      throw validationFailed(
+        unknown
+          .slice(0, 20)
+          .map((c) => ({ path: "samples", message: `Lot ${c} is not registered; add a vintage column so it can be created.` })),
+      );
     }
     if (missing.length) {
       const created = await Lot.bulkCreate(
@@ -95,9 +152,16 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
       for (const l of created) existing.set(l.lotCode, l);
     }
     for (const s of samples) {
-      if (s.vintage && existing.get(s.lotCode)!.vintage !== s.vintage) throw conflict(`Lot ${s.lotCode} is registered as vintage ${existing.get(s.lotCode)!.vintage}, not ${s.vintage}.`);
+      if (s.vintage && existing.get(s.lotCode)!.vintage !== s.vintage)
+        throw conflict(`Lot ${s.lotCode} is registered as vintage ${existing.get(s.lotCode)!.vintage}, not ${s.vintage}.`);
     }
-    const stored = await storeAnalyses(t, contract, user.id, header, samples.map((s) => ({ lot: existing.get(s.lotCode)!, sampleDate: s.sampleDate, results: s.results })));
+    const stored = await storeAnalyses(
+      t,
+      contract,
+      user.id,
+      header,
+      samples.map((s) => ({ lot: existing.get(s.lotCode)!, sampleDate: s.sampleDate, results: s.results })),
+    );
     await recordTrail(t, {
       actorUserId: user.id,
       organisationId: orgId,
@@ -105,8 +169,20 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
       entityType: "contract",
       entityId: contractId,
       after: batch,
-      details: { stage: header.stage, analyses: stored.analysisIds.length, lotsCreated: missing.length, failing: stored.failing.length, deviations: stored.deviationIds.length },
+      details: {
+        stage: header.stage,
+        analyses: stored.analysisIds.length,
+        lotsCreated: missing.length,
+        failing: stored.failing.length,
+        deviations: stored.deviationIds.length,
+      },
     });
-    return { analyses: stored.analysisIds.length, lotsCreated: missing.length, samples: stored.samples, failing: stored.failing, deviationIds: stored.deviationIds };
+    return {
+      analyses: stored.analysisIds.length,
+      lotsCreated: missing.length,
+      samples: stored.samples,
+      failing: stored.failing,
+      deviationIds: stored.deviationIds,
+    };
   });
 }

@@ -34,7 +34,10 @@ export async function applyStripeEvent(event: Stripe.Event): Promise<AppliedEven
   for (let attempt = 1; ; attempt++) {
     try {
       return await inTransaction(async (t) => {
-        const claim = await StripeEvent.create({ id: event.id, type: event.type, outcome: "applying", receivedAt: new Date() }, { transaction: t });
+        const claim = await StripeEvent.create(
+          { id: event.id, type: event.type, outcome: "applying", receivedAt: new Date() },
+          { transaction: t },
+        );
         const outcome = await apply(t, event);
         await claim.update({ outcome }, { transaction: t });
         return { duplicate: false, outcome };
@@ -51,7 +54,8 @@ type PaymentObject = { metadata?: Stripe.Metadata | null; payment_intent?: strin
 
 async function orderOf(t: Transaction, object: PaymentObject): Promise<AuditOrder | null> {
   const fromMetadata = Number(object.metadata?.auditOrderId);
-  if (Number.isSafeInteger(fromMetadata) && fromMetadata > 0) return AuditOrder.findByPk(fromMetadata, { transaction: t, lock: t.LOCK.UPDATE });
+  if (Number.isSafeInteger(fromMetadata) && fromMetadata > 0)
+    return AuditOrder.findByPk(fromMetadata, { transaction: t, lock: t.LOCK.UPDATE });
   const pi = typeof object.payment_intent === "string" ? object.payment_intent : object.id.startsWith("pi_") ? object.id : null;
   return pi ? AuditOrder.findOne({ where: { paymentIntentId: pi }, transaction: t, lock: t.LOCK.UPDATE }) : null;
 }
@@ -92,14 +96,32 @@ async function apply(t: Transaction, event: Stripe.Event): Promise<string> {
   }
 }
 
-async function claimPayment(t: Transaction, order: AuditOrder, kind: "payment" | "refund" | "failure", stripeRef: string, amountCents: number, detail: string | null) {
+async function claimPayment(
+  t: Transaction,
+  order: AuditOrder,
+  kind: "payment" | "refund" | "failure",
+  stripeRef: string,
+  amountCents: number,
+  detail: string | null,
+) {
   const existing = await AuditPayment.findOne({ where: { kind, stripeRef }, transaction: t });
   if (existing) return null;
   return AuditPayment.create({ auditOrderId: order.id, kind, stripeRef, amountCents, detail }, { transaction: t });
 }
 
-async function saveFacts(t: Transaction, order: AuditOrder, changes: Partial<Pick<AuditOrder, "paidCents" | "refundedCents" | "paidAt" | "lastFailureAt" | "paymentIntentId">>) {
-  const next = { amountCents: order.amountCents, paidCents: order.paidCents, refundedCents: order.refundedCents, lastFailureAt: order.lastFailureAt, resultsSubmittedAt: order.resultsSubmittedAt, ...changes };
+async function saveFacts(
+  t: Transaction,
+  order: AuditOrder,
+  changes: Partial<Pick<AuditOrder, "paidCents" | "refundedCents" | "paidAt" | "lastFailureAt" | "paymentIntentId">>,
+) {
+  const next = {
+    amountCents: order.amountCents,
+    paidCents: order.paidCents,
+    refundedCents: order.refundedCents,
+    lastFailureAt: order.lastFailureAt,
+    resultsSubmittedAt: order.resultsSubmittedAt,
+    ...changes,
+  };
   await order.update({ ...changes, status: orderStatus(next) }, { transaction: t });
 }
 
@@ -124,17 +146,33 @@ async function mailFacts(t: Transaction, order: AuditOrder) {
 }
 
 const audit = (t: Transaction, order: AuditOrder, action: TrailAction, details: Record<string, unknown>) =>
-  recordTrail(t, { actorUserId: null, organisationId: order.buyerOrgId, action, entityType: "audit_order", entityId: order.id, details: { reference: orderReference(order.id), ...details } });
+  recordTrail(t, {
+    actorUserId: null,
+    organisationId: order.buyerOrgId,
+    action,
+    entityType: "audit_order",
+    entityId: order.id,
+    details: { reference: orderReference(order.id), ...details },
+  });
 
 async function recordPayment(t: Transaction, order: AuditOrder, paymentIntent: string, amountCents: number): Promise<string> {
   const row = await claimPayment(t, order, "payment", paymentIntent, amountCents, null);
   if (!row) return "payment already recorded";
-  await saveFacts(t, order, { paidCents: order.paidCents + amountCents, paidAt: order.paidAt ?? new Date(), paymentIntentId: order.paymentIntentId ?? paymentIntent });
+  await saveFacts(t, order, {
+    paidCents: order.paidCents + amountCents,
+    paidAt: order.paidAt ?? new Date(),
+    paymentIntentId: order.paymentIntentId ?? paymentIntent,
+  });
   await audit(t, order, "payment.succeeded", { paymentIntent, amountCents, currency: order.currency });
   const { contract, facts } = await mailFacts(t, order);
   await enqueueMail(t, receiptMail({ ...facts, amountCents, paymentRef: paymentIntent }));
   const analysts = await usersWithRoles([order.laboratoryOrgId], ["lab_analyst"], t);
-  await notify(t, analysts, { kind: "audit", title: `New paid audit ${orderReference(order.id)}: ${contract.wine.name}`, body: `${order.lines.map((l) => l.name).join(", ")} on ${order.lines[0]?.lots ?? 0} lot(s) for ${contract.retailer.name}.`, link: orderPath(order.id) });
+  await notify(t, analysts, {
+    kind: "audit",
+    title: `New paid audit ${orderReference(order.id)}: ${contract.wine.name}`,
+    body: `${order.lines.map((l) => l.name).join(", ")} on ${order.lines[0]?.lots ?? 0} lot(s) for ${contract.retailer.name}.`,
+    link: orderPath(order.id),
+  });
   return "payment recorded";
 }
 

@@ -19,7 +19,8 @@ export async function listProducers() {
 export async function createContract(retailerOrgId: number, user: SessionUser, input: NewContractInput): Promise<{ id: number }> {
   return inTransaction(async (t) => {
     const producer = await Organisation.findByPk(input.producerOrgId, { transaction: t });
-    if (!producer || producer.kind !== "producer") throw validationFailed([{ path: "producerOrgId", message: "Choose a producer organisation." }]);
+    if (!producer || producer.kind !== "producer")
+      throw validationFailed([{ path: "producerOrgId", message: "Choose a producer organisation." }]);
     if (await Contract.findOne({ where: { retailerOrgId, reference: input.reference }, transaction: t })) {
       throw conflict(`Your organisation already has a contract ${input.reference}.`);
     }
@@ -40,7 +41,14 @@ export async function createContract(retailerOrgId: number, user: SessionUser, i
       { transaction: t },
     );
     const contract = await Contract.create(
-      { reference: input.reference, retailerOrgId, producerOrgId: producer.id, wineId: wine.id, startsOn: input.startsOn, endsOn: input.endsOn ?? null },
+      {
+        reference: input.reference,
+        retailerOrgId,
+        producerOrgId: producer.id,
+        wineId: wine.id,
+        startsOn: input.startsOn,
+        endsOn: input.endsOn ?? null,
+      },
       { transaction: t },
     );
     await recordTrail(t, {
@@ -60,7 +68,12 @@ export async function createContract(retailerOrgId: number, user: SessionUser, i
  * The buyer states what the law needs to know about the wine (organic, PDO/PGI, listings for higher
  * limits). Verdicts already stored keep the facts they were judged on; the lot page offers a re-judgement.
  */
-export async function updateLawFacts(orgId: number, contractId: number, user: SessionUser, lawFacts: WineLawFacts): Promise<{ lawFacts: WineLawFacts }> {
+export async function updateLawFacts(
+  orgId: number,
+  contractId: number,
+  user: SessionUser,
+  lawFacts: WineLawFacts,
+): Promise<{ lawFacts: WineLawFacts }> {
   return inTransaction(async (t) => {
     const { contract, side } = await contractFor(orgId, contractId, t);
     if (side !== "buyer") throw forbidden("Only the buyer states the wine's facts for the law.");

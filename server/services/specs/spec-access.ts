@@ -23,7 +23,11 @@ export function sideOf(contract: Contract, orgId: number): Side | null {
 }
 
 /** The contract if this organisation is a party to it; otherwise 404, so other tenants stay invisible. */
-export async function contractFor(orgId: number, contractId: number, t?: Transaction): Promise<{ contract: ContractWithParties; side: Side }> {
+export async function contractFor(
+  orgId: number,
+  contractId: number,
+  t?: Transaction,
+): Promise<{ contract: ContractWithParties; side: Side }> {
   const contract = (await Contract.findByPk(contractId, { include: contractInclude, transaction: t })) as ContractWithParties | null;
   const side = contract ? sideOf(contract, orgId) : null;
   if (!contract || !side) throw notFound("The contract");

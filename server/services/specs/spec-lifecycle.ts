@@ -43,8 +43,23 @@ async function writeRows(t: Transaction, specVersionId: number, rows: readonly S
   );
 }
 
-const audit = (t: Transaction, user: SessionUser, orgId: number, action: TrailAction, version: SpecVersion, extra: { before?: unknown; after?: unknown; details?: Record<string, unknown> } = {}) =>
-  recordTrail(t, { actorUserId: user.id, organisationId: orgId, action, entityType: "spec_version", entityId: version.id, ...extra, details: { contractId: version.contractId, number: version.number, ...extra.details } });
+const audit = (
+  t: Transaction,
+  user: SessionUser,
+  orgId: number,
+  action: TrailAction,
+  version: SpecVersion,
+  extra: { before?: unknown; after?: unknown; details?: Record<string, unknown> } = {},
+) =>
+  recordTrail(t, {
+    actorUserId: user.id,
+    organisationId: orgId,
+    action,
+    entityType: "spec_version",
+    entityId: version.id,
+    ...extra,
+    details: { contractId: version.contractId, number: version.number, ...extra.details },
+  });
 
 /** A new draft: blank, from a template, or copied from an earlier version of the same contract. */
 export async function createVersion(orgId: number, contractId: number, user: SessionUser, input: NewVersionInput): Promise<{ id: number }> {
@@ -74,7 +89,17 @@ export async function createVersion(orgId: number, contractId: number, user: Ses
       basedOn = source.id;
     }
     const version = await SpecVersion.create(
-      { contractId, number: (last ?? 0) + 1, status: "draft", title, vintageFrom, vintageTo, stages, basedOnVersionId: basedOn, createdBy: user.id },
+      {
+        contractId,
+        number: (last ?? 0) + 1,
+        status: "draft",
+        title,
+        vintageFrom,
+        vintageTo,
+        stages,
+        basedOnVersionId: basedOn,
+        createdBy: user.id,
+      },
       { transaction: t },
     );
     await writeRows(t, version.id, rows);
@@ -84,17 +109,30 @@ export async function createVersion(orgId: number, contractId: number, user: Ses
 }
 
 /** Saves a draft only if nobody saved it since the caller read it; a stale save gets 409 and changes nothing. */
-export async function saveDraft(orgId: number, specId: number, user: SessionUser, input: SpecDraftInput): Promise<{ lockVersion: number; updatedAt: string }> {
+export async function saveDraft(
+  orgId: number,
+  specId: number,
+  user: SessionUser,
+  input: SpecDraftInput,
+): Promise<{ lockVersion: number; updatedAt: string }> {
   return inTransaction(async (t) => {
     const { version, side } = await versionFor(orgId, specId, t, true);
     if (side !== "buyer") throw notFound("The spec version");
     if (version.status !== "draft") throw conflict("This version has been sent and can no longer change. Make a new version instead.");
     const [updated] = await SpecVersion.update(
-      { lockVersion: input.lockVersion + 1, title: input.title ?? null, vintageFrom: input.vintageFrom, vintageTo: input.vintageTo ?? null, stages: input.stages },
+      {
+        lockVersion: input.lockVersion + 1,
+        title: input.title ?? null,
+        vintageFrom: input.vintageFrom,
+        vintageTo: input.vintageTo ?? null,
+        stages: input.stages,
+      },
       { where: { id: specId, lockVersion: input.lockVersion }, transaction: t },
     );
     if (updated === 0) {
-      throw conflict(`Someone saved this draft after you opened it (your copy is save ${input.lockVersion}, the stored one is save ${version.lockVersion}). Reload to see their changes; yours were not saved.`);
+      throw conflict(
+        `Someone saved this draft after you opened it (your copy is save ${input.lockVersion}, the stored one is save ${version.lockVersion}). Reload to see their changes; yours were not saved.`,
+      );
     }
     const before = await requirementsOf(specId, t);
     await writeRows(t, specId, input.rows);
@@ -139,7 +177,10 @@ export async function agree(orgId: number, specId: number, user: SessionUser) {
     const { version, contract, side } = await versionFor(orgId, specId, t, true);
     if (side !== "producer") throw notFound("The spec version");
     if (version.status !== "with_producer") throw conflict("Only a version waiting for you can be agreed.");
-    const replaced = await SpecVersion.findAll({ where: { contractId: version.contractId, status: "agreed", id: { [Op.ne]: version.id } }, transaction: t });
+    const replaced = await SpecVersion.findAll({
+      where: { contractId: version.contractId, status: "agreed", id: { [Op.ne]: version.id } },
+      transaction: t,
+    });
     for (const old of replaced) {
       await old.update({ status: "replaced" }, { transaction: t });
       await audit(t, user, orgId, "spec.replaced", old, { details: { by: version.id } });
@@ -161,7 +202,10 @@ export async function requestChanges(orgId: number, specId: number, user: Sessio
     if (side !== "producer") throw notFound("The spec version");
     if (version.status !== "with_producer") throw conflict("Only a version waiting for you can be sent back.");
     await version.update({ status: "changes_requested", decidedAt: new Date(), decidedBy: user.id }, { transaction: t });
-    await SpecComment.create({ specVersionId: specId, requirementId: null, authorUserId: user.id, organisationId: orgId, body: `Changes requested: ${reason}` }, { transaction: t });
+    await SpecComment.create(
+      { specVersionId: specId, requirementId: null, authorUserId: user.id, organisationId: orgId, body: `Changes requested: ${reason}` },
+      { transaction: t },
+    );
     await audit(t, user, orgId, "spec.changes_requested", version, { details: { reason } });
     await notify(t, await usersWithRoles([contract.retailerOrgId], ["buyer_technologist"], t), {
       kind: "spec",
@@ -176,7 +220,8 @@ export async function withdraw(orgId: number, specId: number, user: SessionUser)
   await inTransaction(async (t) => {
     const { version, side } = await versionFor(orgId, specId, t, true);
     if (side !== "buyer") throw notFound("The spec version");
-    if (!["with_producer", "changes_requested", "agreed"].includes(version.status)) throw conflict("Only a sent or agreed version can be withdrawn; delete nothing, make a new version instead.");
+    if (!["with_producer", "changes_requested", "agreed"].includes(version.status))
+      throw conflict("Only a sent or agreed version can be withdrawn; delete nothing, make a new version instead.");
     await version.update({ status: "withdrawn", decidedAt: new Date(), decidedBy: user.id }, { transaction: t });
     await audit(t, user, orgId, "spec.withdrawn", version);
   });
@@ -185,21 +230,41 @@ export async function withdraw(orgId: number, specId: number, user: SessionUser)
 export async function addComment(orgId: number, specId: number, user: SessionUser, input: CommentInput) {
   return inTransaction(async (t) => {
     const { version, contract, side } = await versionFor(orgId, specId, t);
-    if (version.status === "draft" || version.status === "withdrawn") throw conflict("Comments open once a version is sent, and close when it is withdrawn.");
-    if (input.requirementId && !(await SpecRequirement.count({ where: { id: input.requirementId, specVersionId: specId }, transaction: t }))) {
+    if (version.status === "draft" || version.status === "withdrawn")
+      throw conflict("Comments open once a version is sent, and close when it is withdrawn.");
+    if (
+      input.requirementId &&
+      !(await SpecRequirement.count({ where: { id: input.requirementId, specVersionId: specId }, transaction: t }))
+    ) {
       throw validationFailed([{ path: "requirementId", message: "That row is not part of this version." }]);
     }
-    const comment = await SpecComment.create({ specVersionId: specId, requirementId: input.requirementId ?? null, authorUserId: user.id, organisationId: orgId, body: input.body }, { transaction: t });
-    await audit(t, user, orgId, "spec.commented", version, { after: { body: input.body }, details: { requirementId: input.requirementId ?? null } });
+    const comment = await SpecComment.create(
+      { specVersionId: specId, requirementId: input.requirementId ?? null, authorUserId: user.id, organisationId: orgId, body: input.body },
+      { transaction: t },
+    );
+    await audit(t, user, orgId, "spec.commented", version, {
+      after: { body: input.body },
+      details: { requirementId: input.requirementId ?? null },
+    });
     // The other side hears of it: the producer's quality staff, or the buyer's technologists.
-    const other = side === "buyer" ? usersWithRoles([contract.producerOrgId], ["producer_quality"], t) : usersWithRoles([contract.retailerOrgId], ["buyer_technologist"], t);
-    const row = input.requirementId ? await SpecRequirement.findByPk(input.requirementId, { attributes: ["parameter"], transaction: t }) : null;
-    await notify(t, await other, {
-      kind: "spec",
-      title: `${user.name} commented on spec ${contract.reference} v${version.number}${row ? ` (${findParameter(row.parameter)?.name ?? row.parameter})` : ""}`,
-      body: input.body,
-      link: specPath(version.id),
-    }, user.id);
+    const other =
+      side === "buyer"
+        ? usersWithRoles([contract.producerOrgId], ["producer_quality"], t)
+        : usersWithRoles([contract.retailerOrgId], ["buyer_technologist"], t);
+    const row = input.requirementId
+      ? await SpecRequirement.findByPk(input.requirementId, { attributes: ["parameter"], transaction: t })
+      : null;
+    await notify(
+      t,
+      await other,
+      {
+        kind: "spec",
+        title: `${user.name} commented on spec ${contract.reference} v${version.number}${row ? ` (${findParameter(row.parameter)?.name ?? row.parameter})` : ""}`,
+        body: input.body,
+        link: specPath(version.id),
+      },
+      user.id,
+    );
     return { id: comment.id };
   });
 }

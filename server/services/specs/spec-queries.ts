@@ -59,7 +59,9 @@ export async function listContracts(orgId: number) {
   const versions = await SpecVersion.findAll({ where: { contractId: contracts.map((c) => c.id) }, order: [["number", "DESC"]] });
   return contracts.map((c) => ({
     ...contractView(c),
-    versions: versions.filter((v) => v.contractId === c.id && !(sideOf(c, orgId) === "producer" && v.status === "draft")).map(versionSummary),
+    versions: versions
+      .filter((v) => v.contractId === c.id && !(sideOf(c, orgId) === "producer" && v.status === "draft"))
+      .map(versionSummary),
   }));
 }
 
@@ -78,10 +80,23 @@ export async function getVersion(orgId: number, specId: number, role: string) {
   const { version, contract, side } = await versionFor(orgId, specId);
   const [requirements, comments] = await Promise.all([
     SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]] }),
-    SpecComment.findAll({ where: { specVersionId: specId }, include: [{ model: User, as: "author", attributes: ["id", "name"] }], order: [["createdAt", "ASC"], ["id", "ASC"]] }),
+    SpecComment.findAll({
+      where: { specVersionId: specId },
+      include: [{ model: User, as: "author", attributes: ["id", "name"] }],
+      order: [
+        ["createdAt", "ASC"],
+        ["id", "ASC"],
+      ],
+    }),
   ]);
-  const orgNames = new Map((await Organisation.findAll({ where: { id: [contract.retailerOrgId, contract.producerOrgId] } })).map((o) => [o.id, o.name]));
-  const siblings = await SpecVersion.findAll({ where: { contractId: contract.id }, attributes: ["id", "number", "status"], order: [["number", "ASC"]] });
+  const orgNames = new Map(
+    (await Organisation.findAll({ where: { id: [contract.retailerOrgId, contract.producerOrgId] } })).map((o) => [o.id, o.name]),
+  );
+  const siblings = await SpecVersion.findAll({
+    where: { contractId: contract.id },
+    attributes: ["id", "number", "status"],
+    order: [["number", "ASC"]],
+  });
   return {
     ...versionSummary(version),
     side,
@@ -96,13 +111,17 @@ export async function getVersion(orgId: number, specId: number, role: string) {
       body: c.body,
       createdAt: c.createdAt.toISOString(),
     })),
-    otherVersions: siblings.filter((s) => s.id !== specId && !(side === "producer" && s.status === "draft")).map((s) => ({ id: s.id, number: s.number, status: s.status })),
+    otherVersions: siblings
+      .filter((s) => s.id !== specId && !(side === "producer" && s.status === "draft"))
+      .map((s) => ({ id: s.id, number: s.number, status: s.status })),
     actions: actionsFor(version, side, role),
   };
 }
 
 export async function requirementsOf(specId: number, t?: Transaction): Promise<RequirementView[]> {
-  return (await SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]], transaction: t })).map(requirementView);
+  return (await SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]], transaction: t })).map(
+    requirementView,
+  );
 }
 
 export async function diffVersions(orgId: number, specId: number, againstId: number) {
@@ -122,7 +141,10 @@ export async function pastResults(orgId: number, contractId: number) {
   const lots = await Lot.findAll({
     where: { contractId },
     include: [{ model: Analysis, as: "analyses", include: [{ model: AnalysisResult, as: "results" }] }],
-    order: [["vintage", "ASC"], ["lotCode", "ASC"]],
+    order: [
+      ["vintage", "ASC"],
+      ["lotCode", "ASC"],
+    ],
   });
   return lots.flatMap((lot) =>
     (lot as Lot & { analyses: (Analysis & { results: AnalysisResult[] })[] }).analyses.flatMap((a) =>

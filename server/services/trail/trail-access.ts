@@ -7,7 +7,6 @@ import { entityHistory } from "./trail-service.ts";
 import type { HistoryEntityType } from "../../../shared/trail/history.ts";
 import { orderFor } from "../audits/order-access.ts";
 
-
 export async function historyFor(orgId: number, entityType: HistoryEntityType, entityId: number) {
   switch (entityType) {
     case "spec_version":

@@ -113,7 +113,10 @@ export async function verifyTrailChain(batchSize = 2000): Promise<ChainVerificat
   const lastSeq = expectedSeq - 1;
   if (!head) return broken(lastSeq, "the checkpoint row is missing");
   if (head.lastSeq !== lastSeq || head.lastHash !== prevHash) {
-    return broken(Math.min(lastSeq, head.lastSeq) + 1, `the chain ends at entry ${lastSeq} but the checkpoint records entry ${head.lastSeq}`);
+    return broken(
+      Math.min(lastSeq, head.lastSeq) + 1,
+      `the chain ends at entry ${lastSeq} but the checkpoint records entry ${head.lastSeq}`,
+    );
   }
   return { ok: true, checked, lastSeq };
 }
@@ -135,7 +138,13 @@ export async function listOrganisationTrail(organisationId: number, f: AuditFilt
   if (f.entityType) Object.assign(where, { entityType: f.entityType });
   if (f.entityId) Object.assign(where, { entityId: f.entityId });
   if (f.actorUserId) Object.assign(where, { actorUserId: f.actorUserId });
-  if (f.from || f.to) Object.assign(where, { occurredAt: { ...(f.from ? { [Op.gte]: new Date(`${f.from}T00:00:00Z`) } : {}), ...(f.to ? { [Op.lte]: new Date(`${f.to}T23:59:59.999Z`) } : {}) } });
+  if (f.from || f.to)
+    Object.assign(where, {
+      occurredAt: {
+        ...(f.from ? { [Op.gte]: new Date(`${f.from}T00:00:00Z`) } : {}),
+        ...(f.to ? { [Op.lte]: new Date(`${f.to}T23:59:59.999Z`) } : {}),
+      },
+    });
   return toViews(await TrailEntry.findAll({ where, order: [["seq", "DESC"]], limit: f.limit ?? 200, raw: true }));
 }
 

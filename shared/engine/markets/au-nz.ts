@@ -1,7 +1,11 @@
 /** Australia and New Zealand: the Food Standards Code's sulphur dioxide limits for wine, sparkling wine and fortified wine. */
 import { needs, type MarketPack } from "./types.ts";
 
-const FSC = { document: "Australia New Zealand Food Standards Code", article: "Standard 4.5.1 (Wine production requirements), as quoted by Wine Australia", edition: "compilation as quoted in 2019" };
+const FSC = {
+  document: "Australia New Zealand Food Standards Code",
+  article: "Standard 4.5.1 (Wine production requirements), as quoted by Wine Australia",
+  edition: "compilation as quoted in 2019",
+};
 const NOTE =
   "citation not yet confirmed: the values and the 35 g/L boundary were read in Wine Australia's 'Know your sulphite limits'; the Code's own clause was not read, nor whether Schedule 15 carries the same numbers for imported wine";
 

@@ -25,18 +25,22 @@ interface So2Rule {
 }
 
 const CONVENTIONAL: So2Rule[] = [
-  ...([
-    ["red-dry", 150, "red", false, "A.1(a)"],
-    ["white-dry", 200, "white-rose", false, "A.1(b)"],
-    ["red-sweet", 200, "red", true, "A.2(a)"],
-    ["white-sweet", 250, "white-rose", true, "A.2(b)"],
-  ] as const).map(([name, value, colour, sweet, point]): So2Rule => ({
+  ...(
+    [
+      ["red-dry", 150, "red", false, "A.1(a)"],
+      ["white-dry", 200, "white-rose", false, "A.1(b)"],
+      ["red-sweet", 200, "red", true, "A.2(a)"],
+      ["white-sweet", 250, "white-rose", true, "A.2(b)"],
+    ] as const
+  ).map(([name, value, colour, sweet, point]): So2Rule => ({
     id: `eu-so2-${name}`,
     value,
     condition: `${colour === "red" ? "red" : "white and rosé"} wine other than sparkling and liqueur wine, sugar ${sweet ? "at least 5" : "below 5"} g/L`,
     // A.1 holds for every dry wine, listed or not; A.2(a)/(b) for sweet wines the derogations of A.2(c)–(e) do not name.
     applies: (p) =>
-      when(sectionA(p) && (colour === "red") === (p.colour === "red") && (!sweet || p.euSo2Derogation === undefined), () => sugar(p, (g) => (g >= 5) === sweet)),
+      when(sectionA(p) && (colour === "red") === (p.colour === "red") && (!sweet || p.euSo2Derogation === undefined), () =>
+        sugar(p, (g) => g >= 5 === sweet),
+      ),
     article: `Annex I, Part B, section A, point ${point}`,
     confirmed: READ_A,
   })),
@@ -47,7 +51,8 @@ const CONVENTIONAL: So2Rule[] = [
     // Point 2 raises the limit only "as regards wines with a sugar content ... of not less than five grams per litre".
     applies: (p) => when(p.euSo2Derogation === v, () => sugar(p, (g) => g >= 5)),
     article: `Annex I, Part B, section A, point 2(${["c", "d", "e"][i]})`,
-    confirmed: v === 300 ? READ_A : "citation not yet confirmed: the value was read in a secondary source, the point letter not read in the act",
+    confirmed:
+      v === 300 ? READ_A : "citation not yet confirmed: the value was read in a secondary source, the point letter not read in the act",
   })),
   {
     id: "eu-so2-liqueur",
@@ -83,7 +88,11 @@ const CONVENTIONAL: So2Rule[] = [
   },
 ];
 
-const ORGANIC = { document: "Commission Implementing Regulation (EU) 2021/1165", article: "Annex V (oenological products and processes for organic wine), sulphur dioxide", edition: "OJ L 253, 16.7.2021" };
+const ORGANIC = {
+  document: "Commission Implementing Regulation (EU) 2021/1165",
+  article: "Annex V (oenological products and processes for organic wine), sulphur dioxide",
+  edition: "OJ L 253, 16.7.2021",
+};
 const ORGANIC_NOTE =
   "citation not yet confirmed: the values (100 and 150 mg/L below 2 g/L sugar, otherwise the conventional limit less 30 mg/L) were read in secondary sources; the point in Annex V was not read";
 const organic = (p: WineProfile) => needs(p, ["organic"], (q) => q.organic);
@@ -105,7 +114,11 @@ function organicVariants(r: So2Rule): So2Rule[] {
     id: `eu-organic-so2-${red ? "red" : "white"}-below-2`,
     value: red ? 100 : 150,
     condition: `organic ${red ? "red" : "white and rosé"} wine other than sparkling and liqueur wine, sugar below 2 g/L`,
-    applies: (p) => and(and(r.applies(p), organic(p)), sugar(p, (g) => g < 2)),
+    applies: (p) =>
+      and(
+        and(r.applies(p), organic(p)),
+        sugar(p, (g) => g < 2),
+      ),
     confirmed: ORGANIC_NOTE,
   };
   return [dry, lowered];

@@ -7,7 +7,8 @@ import { and, needs, type Applicability, type LegalLimitRule, type WineProfile }
 
 const PART_C = { document: "Commission Delegated Regulation (EU) 2019/934", edition: "OJ L 149, 7.6.2019" };
 const LIST = {
-  document: "European Commission (DG AGRI), list of derogations to the maximum volatile acid content of wine notified under point 3 of Part C of Annex I to Delegated Regulation (EU) 2019/934",
+  document:
+    "European Commission (DG AGRI), list of derogations to the maximum volatile acid content of wine notified under point 3 of Part C of Annex I to Delegated Regulation (EU) 2019/934",
   edition: "update of February 2020",
 };
 const GENERAL_NOTE =
@@ -15,16 +16,21 @@ const GENERAL_NOTE =
 const LIST_NOTE = "read in the source (the Commission's published list, February 2020 update)";
 
 /** The list sets both conditions in the same entry for its French PGI wines. */
-const pgiConditions = (p: WineProfile) => needs(p, ["alcoholPercentVol", "sugarGPerL"], (q) => q.alcoholPercentVol > 15 && q.sugarGPerL > 45);
+const pgiConditions = (p: WineProfile) =>
+  needs(p, ["alcoholPercentVol", "sugarGPerL"], (q) => q.alcoholPercentVol > 15 && q.sugarGPerL > 45);
 const not = (a: Applicability): Applicability => (a === true ? false : a === false ? true : a);
 
 /** The general limits hold for wines no derogation names, and for a listed PGI wine that misses either condition. */
-const general = (p: WineProfile): Applicability => (p.euVaDerogation === undefined ? true : p.euVaDerogation === 24.48 ? not(pgiConditions(p)) : false);
+const general = (p: WineProfile): Applicability =>
+  p.euVaDerogation === undefined ? true : p.euVaDerogation === 24.48 ? not(pgiConditions(p)) : false;
 
 const DEROGATIONS: { value: NonNullable<WineProfile["euVaDerogation"]>; who: string; extra?: (p: WineProfile) => Applicability }[] = [
   { value: 30, who: "German PDO wine meeting the requirements for 'Eiswein' or 'Beerenauslese'" },
   { value: 35, who: "German PDO wine meeting the requirements for 'Trockenbeerenauslese'" },
-  { value: 25, who: "French PDO wine named in the list (e.g. Barsac, Cadillac, Loupiac, Sainte-Croix-du-Mont), on the list's own conditions" },
+  {
+    value: 25,
+    who: "French PDO wine named in the list (e.g. Barsac, Cadillac, Loupiac, Sainte-Croix-du-Mont), on the list's own conditions",
+  },
   {
     value: 24.48,
     who: "French PGI wine named in the list, with a total alcoholic strength above 15 % vol and more than 45 g/L residual sugar",
@@ -55,17 +61,15 @@ export const EU_VA_RULES: LegalLimitRule[] = [
     citation: { ...PART_C, article: "Annex I, Part C, point 1" },
     confirmed: GENERAL_NOTE,
   },
-  ...DEROGATIONS.map(
-    (d): LegalLimitRule => ({
-      id: `eu-va-derogation-${String(d.value).replace(".", "-")}`,
-      parameter: "volatile_acidity",
-      side: "max",
-      value: d.value,
-      unit: "meq/L",
-      condition: d.who,
-      applies: (p) => (p.euVaDerogation === d.value ? (d.extra?.(p) ?? true) : false),
-      citation: { ...LIST, article: `point 3 derogations, ${d.value} meq/L` },
-      confirmed: LIST_NOTE,
-    }),
-  ),
+  ...DEROGATIONS.map((d): LegalLimitRule => ({
+    id: `eu-va-derogation-${String(d.value).replace(".", "-")}`,
+    parameter: "volatile_acidity",
+    side: "max",
+    value: d.value,
+    unit: "meq/L",
+    condition: d.who,
+    applies: (p) => (p.euVaDerogation === d.value ? (d.extra?.(p) ?? true) : false),
+    citation: { ...LIST, article: `point 3 derogations, ${d.value} meq/L` },
+    confirmed: LIST_NOTE,
+  })),
 ];

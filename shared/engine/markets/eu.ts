@@ -16,7 +16,8 @@ const lead = (id: string, value: number, from: number, to: number | null, liqueu
       ? needs(p, ["harvestYear"], (q) => q.harvestYear >= from && (to === null || q.harvestYear <= to))
       : false,
   citation: { document: "Commission Regulation (EU) 2023/915", article: "Annex I, lead: wine", edition: "consolidated text in force" },
-  confirmed: "citation not yet confirmed: the 2023/915 row was not read; the values (introduced by Reg. (EU) 2021/1317) were read in secondary sources",
+  confirmed:
+    "citation not yet confirmed: the 2023/915 row was not read; the values (introduced by Reg. (EU) 2021/1317) were read in secondary sources",
 });
 
 export const EU_PACK: MarketPack = {
@@ -52,9 +53,16 @@ export const EU_PACK: MarketPack = {
       unit: "µg/kg",
       condition: "wine below 15 % vol other than liqueur wine, from the 2005 harvest",
       applies: (p) =>
-        p.category === "liqueur" ? false : needs(p, ["harvestYear", "alcoholPercentVol"], (q) => q.harvestYear >= 2005 && q.alcoholPercentVol < 15),
-      citation: { document: "Commission Regulation (EU) 2023/915", article: "Annex I, ochratoxin A: wine", edition: "consolidated text in force" },
-      confirmed: "citation not yet confirmed: the value was read in the repealed Reg. (EC) No 123/2005, Annex point 2.2.4 (footnotes b and d); the 2023/915 row was not read",
+        p.category === "liqueur"
+          ? false
+          : needs(p, ["harvestYear", "alcoholPercentVol"], (q) => q.harvestYear >= 2005 && q.alcoholPercentVol < 15),
+      citation: {
+        document: "Commission Regulation (EU) 2023/915",
+        article: "Annex I, ochratoxin A: wine",
+        edition: "consolidated text in force",
+      },
+      confirmed:
+        "citation not yet confirmed: the value was read in the repealed Reg. (EC) No 123/2005, Annex point 2.2.4 (footnotes b and d); the 2023/915 row was not read",
     },
   ],
 };

@@ -9,7 +9,11 @@ import type { LegalLimitRule, MarketPack, WineProfile } from "./types.ts";
 import { EU_PACK } from "./eu.ts";
 
 /** An EU text as Great Britain kept it: the citation names the retained text and where its revised version is read. */
-export const retainedInGb = (c: Citation): Citation => ({ ...c, document: `${c.document} as retained in the law of Great Britain`, edition: "revised text on legislation.gov.uk" });
+export const retainedInGb = (c: Citation): Citation => ({
+  ...c,
+  document: `${c.document} as retained in the law of Great Britain`,
+  edition: "revised text on legislation.gov.uk",
+});
 
 // The Member States' volatile acidity derogations and the EU organic rules (2018/848, 2021/1165) are not GB law; contaminants are not in this pack yet.
 const KEPT = /^eu-(so2|va-(white|red)$|ta-|alcohol-|overpressure-|citric-|sorbic-)/;
@@ -23,7 +27,10 @@ const rules: LegalLimitRule[] = EU_PACK.rules
     // The derogations that lift the EU volatile acidity limits are the Member States' and bind nothing in GB.
     ...(r.parameter === "volatile_acidity" ? { applies: (p: WineProfile) => (r.id === "eu-va-red") === (p.colour === "red") } : {}),
     // The SO2 points were read in the GB revised text itself; the rest keep the EU pack's notes.
-    confirmed: /^eu-so2-(red|white)-/.test(r.id) || r.id === "eu-so2-derogation-300" ? "read in the source (legislation.gov.uk revised text of 2019/934, Annex I Part B, A.1 and A.2)" : r.confirmed,
+    confirmed:
+      /^eu-so2-(red|white)-/.test(r.id) || r.id === "eu-so2-derogation-300"
+        ? "read in the source (legislation.gov.uk revised text of 2019/934, Annex I Part B, A.1 and A.2)"
+        : r.confirmed,
   }));
 
 export const GB_PACK: MarketPack = {

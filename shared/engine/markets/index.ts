@@ -97,7 +97,8 @@ export function applicableLimits(
       if (opts.parameter && rule.parameter !== opts.parameter) continue;
       const a = rule.applies(profile);
       if (a === true) limits.push(toApplied(pack, rule, opts.densityGPerMl));
-      else if (a !== false) undetermined.push({ market: id, ruleId: rule.id, parameter: rule.parameter, condition: rule.condition, missing: a.missing });
+      else if (a !== false)
+        undetermined.push({ market: id, ruleId: rule.id, parameter: rule.parameter, condition: rule.condition, missing: a.missing });
     }
   }
   return { limits, undetermined };

@@ -18,7 +18,11 @@ export const UK_QWS_PACK: MarketPack = {
       value: 45,
       unit: "mg/L",
       condition: "protected-origin dry wine (sugar at most 4 g/L)",
-      applies: (p) => and(protectedOrigin(p), needs(p, ["sugarGPerL"], (q) => q.sugarGPerL <= 4)),
+      applies: (p) =>
+        and(
+          protectedOrigin(p),
+          needs(p, ["sugarGPerL"], (q) => q.sugarGPerL <= 4),
+        ),
       citation: UK,
       confirmed: "read in the source",
     },
@@ -29,18 +33,66 @@ export const UK_QWS_PACK: MarketPack = {
       value: 60,
       unit: "mg/L",
       condition: "protected-origin wine other than dry (sugar above 4 g/L)",
-      applies: (p) => and(protectedOrigin(p), needs(p, ["sugarGPerL"], (q) => q.sugarGPerL > 4)),
+      applies: (p) =>
+        and(
+          protectedOrigin(p),
+          needs(p, ["sugarGPerL"], (q) => q.sugarGPerL > 4),
+        ),
       citation: UK,
       confirmed: "read in the source",
     },
-    { id: "uk-copper", parameter: "copper", side: "max", value: 0.5, unit: "mg/L", condition: "protected-origin wine made in England and Wales", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
-    { id: "uk-iron", parameter: "iron", side: "max", value: 8, unit: "mg/L", condition: "protected-origin wine made in England and Wales", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
-    { id: "uk-ta", parameter: "total_acidity", side: "min", value: 4, unit: "g/L as tartaric acid", condition: "protected-origin wine made in England and Wales", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
-    { id: "uk-alcohol", parameter: "alcohol", side: "min", value: 9, unit: "% vol", condition: "protected-origin wine: total alcoholic strength (measured here as actual alcohol, a conservative reading)", applies: protectedOrigin, citation: UK, confirmed: "read in the source" },
+    {
+      id: "uk-copper",
+      parameter: "copper",
+      side: "max",
+      value: 0.5,
+      unit: "mg/L",
+      condition: "protected-origin wine made in England and Wales",
+      applies: protectedOrigin,
+      citation: UK,
+      confirmed: "read in the source",
+    },
+    {
+      id: "uk-iron",
+      parameter: "iron",
+      side: "max",
+      value: 8,
+      unit: "mg/L",
+      condition: "protected-origin wine made in England and Wales",
+      applies: protectedOrigin,
+      citation: UK,
+      confirmed: "read in the source",
+    },
+    {
+      id: "uk-ta",
+      parameter: "total_acidity",
+      side: "min",
+      value: 4,
+      unit: "g/L as tartaric acid",
+      condition: "protected-origin wine made in England and Wales",
+      applies: protectedOrigin,
+      citation: UK,
+      confirmed: "read in the source",
+    },
+    {
+      id: "uk-alcohol",
+      parameter: "alcohol",
+      side: "min",
+      value: 9,
+      unit: "% vol",
+      condition: "protected-origin wine: total alcoholic strength (measured here as actual alcohol, a conservative reading)",
+      applies: protectedOrigin,
+      citation: UK,
+      confirmed: "read in the source",
+    },
   ],
 };
 
-const CN = { document: "Wine Australia export advice on China's import checks", article: "sugar-free extract", edition: "as quoted in 2019" };
+const CN = {
+  document: "Wine Australia export advice on China's import checks",
+  article: "sugar-free extract",
+  edition: "as quoted in 2019",
+};
 
 export const CN_PACK: MarketPack = {
   id: "CN",
@@ -60,7 +112,11 @@ export const CN_PACK: MarketPack = {
   })),
 };
 
-const LCBO = { document: "AWRI, 'Pre-bottling wine adjustments and specifications', citing Wine Australia's summary of LCBO requirements", article: "turbidity", edition: "accessed 2019" };
+const LCBO = {
+  document: "AWRI, 'Pre-bottling wine adjustments and specifications', citing Wine Australia's summary of LCBO requirements",
+  article: "turbidity",
+  edition: "accessed 2019",
+};
 
 export const CA_ON_PACK: MarketPack = {
   id: "CA-ON",

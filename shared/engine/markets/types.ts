@@ -97,7 +97,11 @@ export interface MarketPack {
 export type MarketId = "EU" | "GB" | "US" | "OIV" | "AU-NZ" | "UK-QWS" | "CN" | "CA-ON";
 
 /** Helper for rules that need one profile field. */
-export function needs<K extends keyof WineProfile>(p: WineProfile, keys: K[], test: (p: Required<Pick<WineProfile, K>> & WineProfile) => boolean): Applicability {
+export function needs<K extends keyof WineProfile>(
+  p: WineProfile,
+  keys: K[],
+  test: (p: Required<Pick<WineProfile, K>> & WineProfile) => boolean,
+): Applicability {
   const missing = keys.filter((k) => p[k] === undefined);
   if (missing.length) return { missing };
   return test(p as Required<Pick<WineProfile, K>> & WineProfile);

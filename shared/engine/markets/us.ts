@@ -2,14 +2,16 @@
 import { and, needs, type Applicability, type MarketPack, type WineProfile } from "./types.ts";
 
 /** Part 4 "appl[ies] to wine containing not less than 7 percent and not more than 24 percent alcohol by volume" (27 CFR 4.6). */
-export const inPart4Scope = (p: WineProfile): Applicability => needs(p, ["alcoholPercentVol"], (q) => q.alcoholPercentVol >= 7 && q.alcoholPercentVol <= 24);
+export const inPart4Scope = (p: WineProfile): Applicability =>
+  needs(p, ["alcoholPercentVol"], (q) => q.alcoholPercentVol >= 7 && q.alcoholPercentVol <= 24);
 const part4 = (test: (p: WineProfile) => boolean) => (p: WineProfile) => and(inPart4Scope(p), test(p));
 
 export const US_PACK: MarketPack = {
   id: "US",
   name: "United States (federal)",
   version: "2026.3",
-  edition: "27 CFR as read for Cellarpact (4.21 in the 4-1-19 edition, 4.22 in the 2004 edition, 4.6 as added by T.D. TTB-158, 85 FR 18721, 2 April 2020)",
+  edition:
+    "27 CFR as read for Cellarpact (4.21 in the 4-1-19 edition, 4.22 in the 2004 edition, 4.6 as added by T.D. TTB-158, 85 FR 18721, 2 April 2020)",
   rules: [
     {
       id: "us-va-red",
@@ -77,7 +79,8 @@ export const US_PACK: MarketPack = {
       applies: (p) => p.category === "still",
       // § 26.222 holds the same words but governs wine from Puerto Rico and the Virgin Islands only; § 24.245 governs wine generally.
       citation: { document: "27 CFR", article: "§ 24.245 (use of carbon dioxide in still wine)", edition: "current" },
-      confirmed: "citation not yet confirmed: § 24.245's title and its cross-reference from § 24.319 read; the 0.392 + 0.009 g/100 mL values read in the identical § 26.222(a) text",
+      confirmed:
+        "citation not yet confirmed: § 24.245's title and its cross-reference from § 24.319 read; the 0.392 + 0.009 g/100 mL values read in the identical § 26.222(a) text",
     },
   ],
 };

@@ -27,13 +27,25 @@ export function ConfirmDialog({ request, onClose }: { request: ConfirmRequest | 
     if (!request && d.open) d.close();
   }, [request]);
   return (
-    <dialog ref={ref} aria-labelledby={titleId} aria-describedby={bodyId} onClose={onClose} className="m-auto max-w-lg rounded-card border border-line bg-card p-6 text-ink-900 shadow-xl backdrop:bg-ink-900/40">
+    <dialog
+      ref={ref}
+      aria-labelledby={titleId}
+      aria-describedby={bodyId}
+      onClose={onClose}
+      className="m-auto max-w-lg rounded-card border border-line bg-card p-6 text-ink-900 shadow-xl backdrop:bg-ink-900/40"
+    >
       {request && (
         <div className="flex flex-col gap-4">
-          <h2 id={titleId} className="text-lg font-semibold">{request.title}</h2>
-          <div id={bodyId} className="text-sm">{request.consequence}</div>
+          <h2 id={titleId} className="text-lg font-semibold">
+            {request.title}
+          </h2>
+          <div id={bodyId} className="text-sm">
+            {request.consequence}
+          </div>
           <div className="flex justify-end gap-2">
-            <Button variant="secondary" onClick={onClose} autoFocus>Cancel</Button>
+            <Button variant="secondary" onClick={onClose} autoFocus>
+              Cancel
+            </Button>
             <Button
               variant={request.tone === "danger" ? "danger" : "primary"}
               onClick={() => {
@@ -57,11 +69,23 @@ export function useConfirm() {
 }
 
 /** A button whose action waits for the dialog's confirmation. */
-export function ConfirmButton({ children, request, variant = "primary", disabled }: { children: ReactNode; request: ConfirmRequest; variant?: "primary" | "secondary" | "danger" | "quiet"; disabled?: boolean }) {
+export function ConfirmButton({
+  children,
+  request,
+  variant = "primary",
+  disabled,
+}: {
+  children: ReactNode;
+  request: ConfirmRequest;
+  variant?: "primary" | "secondary" | "danger" | "quiet";
+  disabled?: boolean;
+}) {
   const { ask, dialog } = useConfirm();
   return (
     <>
-      <Button variant={variant} disabled={disabled} onClick={() => ask(request)}>{children}</Button>
+      <Button variant={variant} disabled={disabled} onClick={() => ask(request)}>
+        {children}
+      </Button>
       {dialog}
     </>
   );

@@ -44,7 +44,14 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
   return (
     <FieldShell label={label} error={error} hint={hint} id={id}>
       {({ inputId, describedBy }) => (
-        <input ref={ref} id={inputId} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={inputClass} {...props} />
+        <input
+          ref={ref}
+          id={inputId}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy}
+          className={inputClass}
+          {...props}
+        />
       )}
     </FieldShell>
   );
@@ -57,11 +64,21 @@ type SelectFieldProps = SelectHTMLAttributes<HTMLSelectElement> & {
   options: readonly { value: string; label: string }[];
 };
 
-export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(function SelectField({ label, error, hint, options, id, ...props }, ref) {
+export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(function SelectField(
+  { label, error, hint, options, id, ...props },
+  ref,
+) {
   return (
     <FieldShell label={label} error={error} hint={hint} id={id}>
       {({ inputId, describedBy }) => (
-        <select ref={ref} id={inputId} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={inputClass} {...props}>
+        <select
+          ref={ref}
+          id={inputId}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy}
+          className={inputClass}
+          {...props}
+        >
           {options.map((o) => (
             <option key={o.value} value={o.value}>
               {o.label}

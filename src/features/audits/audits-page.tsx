@@ -40,13 +40,20 @@ export function AuditsPage() {
         {finance && ordering && (
           <Card title="Order an independent audit">
             <NewAuditForm orgId={orgId} />
-            <Button variant="quiet" className="mt-2" onClick={() => setOrdering(false)}>Cancel</Button>
+            <Button variant="quiet" className="mt-2" onClick={() => setOrdering(false)}>
+              Cancel
+            </Button>
           </Card>
         )}
         {finance && <FinanceSummary orgId={orgId} from={f.from} to={f.to} />}
         <Card title="Orders">
           <div className="mb-4 grid gap-3 md:grid-cols-3">
-            <SelectField label="Status" value={f.status ?? ""} onChange={(e) => set("status", e.target.value)} options={[{ value: "", label: "Any status" }, ...ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))]} />
+            <SelectField
+              label="Status"
+              value={f.status ?? ""}
+              onChange={(e) => set("status", e.target.value)}
+              options={[{ value: "", label: "Any status" }, ...ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))]}
+            />
             <TextField label="Ordered from" type="date" value={f.from ?? ""} onChange={(e) => set("from", e.target.value)} />
             <TextField label="Ordered until" type="date" value={f.to ?? ""} onChange={(e) => set("to", e.target.value)} />
           </div>
@@ -56,17 +63,37 @@ export function AuditsPage() {
           {list.data && list.data.length > 0 && (
             <table className="w-full text-left text-sm">
               <thead className="border-b border-line text-ink-500">
-                <tr>{["Order", "Wine and lots", "Parameters", "Laboratory", finance ? "Amount" : "Ordered", "Status"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+                <tr>
+                  {["Order", "Wine and lots", "Parameters", "Laboratory", finance ? "Amount" : "Ordered", "Status"].map((h) => (
+                    <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                      {h}
+                    </th>
+                  ))}
+                </tr>
               </thead>
               <tbody>
                 {list.data.map((o) => (
                   <tr key={o.id} className="border-b border-line/60 align-top">
-                    <td className="py-2 pr-3"><Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">{o.reference}</Link><span className="block text-xs text-ink-500">{o.createdAt.slice(0, 10)}</span></td>
-                    <td className="py-2 pr-3">{o.wineName}<span className="block text-xs text-ink-500">{o.producerName} · {o.lotCodes.join(", ")}</span></td>
+                    <td className="py-2 pr-3">
+                      <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">
+                        {o.reference}
+                      </Link>
+                      <span className="block text-xs text-ink-500">{o.createdAt.slice(0, 10)}</span>
+                    </td>
+                    <td className="py-2 pr-3">
+                      {o.wineName}
+                      <span className="block text-xs text-ink-500">
+                        {o.producerName} · {o.lotCodes.join(", ")}
+                      </span>
+                    </td>
                     <td className="py-2 pr-3">{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</td>
                     <td className="py-2 pr-3">{o.laboratoryName}</td>
-                    <td className="py-2 pr-3 tabular-nums">{finance ? formatMoney(o.amountCents, o.currency) : o.createdAt.slice(0, 10)}</td>
-                    <td className="py-2 pr-3"><OrderStatusBadge status={o.status} /></td>
+                    <td className="py-2 pr-3 tabular-nums">
+                      {finance ? formatMoney(o.amountCents, o.currency) : o.createdAt.slice(0, 10)}
+                    </td>
+                    <td className="py-2 pr-3">
+                      <OrderStatusBadge status={o.status} />
+                    </td>
                   </tr>
                 ))}
               </tbody>

@@ -15,22 +15,42 @@ function Figure({ label, cents, currency }: { label: string; cents: number; curr
   );
 }
 
-function SpendTable({ caption, head, rows, currency }: { caption: string; head: string; rows: { key: string; paidOrders: number; paidCents: number; refundedCents: number }[]; currency: string }) {
+function SpendTable({
+  caption,
+  head,
+  rows,
+  currency,
+}: {
+  caption: string;
+  head: string;
+  rows: { key: string; paidOrders: number; paidCents: number; refundedCents: number }[];
+  currency: string;
+}) {
   return (
     <table className="w-full text-left text-sm">
       <caption className="mb-1 text-left font-semibold">{caption}</caption>
       <thead className="border-b border-line text-ink-500">
-        <tr>{[head, "Paid orders", "Paid", "Refunded", "Net"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
+        <tr>
+          {[head, "Paid orders", "Paid", "Refunded", "Net"].map((h) => (
+            <th key={h} scope="col" className="py-1 pr-3 font-semibold">
+              {h}
+            </th>
+          ))}
+        </tr>
       </thead>
       <tbody>
         {rows.length === 0 && (
           <tr>
-            <td colSpan={5} className="py-2 text-ink-500">No paid order in this period.</td>
+            <td colSpan={5} className="py-2 text-ink-500">
+              No paid order in this period.
+            </td>
           </tr>
         )}
         {rows.map((r) => (
           <tr key={r.key} className="border-b border-line/60">
-            <th scope="row" className="py-1 pr-3 font-normal">{r.key}</th>
+            <th scope="row" className="py-1 pr-3 font-normal">
+              {r.key}
+            </th>
             <td className="py-1 pr-3 tabular-nums">{r.paidOrders}</td>
             <td className="py-1 pr-3 tabular-nums">{formatMoney(r.paidCents, currency)}</td>
             <td className="py-1 pr-3 tabular-nums">{formatMoney(r.refundedCents, currency)}</td>
@@ -50,21 +70,39 @@ export function FinanceSummary({ orgId, from, to }: { orgId: number; from?: stri
   return (
     <Card title="Spend on audits">
       <div className="grid gap-3 md:grid-cols-4">
-        <Figure label={`Paid (${totals.paidOrders} order${totals.paidOrders === 1 ? "" : "s"})`} cents={totals.paidCents} currency={currency} />
+        <Figure
+          label={`Paid (${totals.paidOrders} order${totals.paidOrders === 1 ? "" : "s"})`}
+          cents={totals.paidCents}
+          currency={currency}
+        />
         <Figure label={`Outstanding (${d.data.outstanding.length} unpaid)`} cents={totals.outstandingCents} currency={currency} />
         <Figure label="Refunded" cents={totals.refundedCents} currency={currency} />
         <Figure label="Net spend" cents={totals.paidCents - totals.refundedCents} currency={currency} />
       </div>
       <div className="mt-4 grid gap-6 md:grid-cols-2">
-        <SpendTable caption="Per producer" head="Producer" currency={currency} rows={d.data.byProducer.map((p) => ({ key: p.producerName, ...p }))} />
-        <SpendTable caption="Per month (month paid)" head="Month" currency={currency} rows={d.data.byMonth.map((m) => ({ key: m.month, ...m }))} />
+        <SpendTable
+          caption="Per producer"
+          head="Producer"
+          currency={currency}
+          rows={d.data.byProducer.map((p) => ({ key: p.producerName, ...p }))}
+        />
+        <SpendTable
+          caption="Per month (month paid)"
+          head="Month"
+          currency={currency}
+          rows={d.data.byMonth.map((m) => ({ key: m.month, ...m }))}
+        />
       </div>
       {d.data.outstanding.length > 0 && (
         <p className="mt-4 text-sm">
-          Unpaid: {d.data.outstanding.map((o, i) => (
+          Unpaid:{" "}
+          {d.data.outstanding.map((o, i) => (
             <span key={o.id}>
               {i > 0 && ", "}
-              <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">{o.reference}</Link> ({formatMoney(o.amountCents, o.currency)})
+              <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">
+                {o.reference}
+              </Link>{" "}
+              ({formatMoney(o.amountCents, o.currency)})
             </span>
           ))}
         </p>

@@ -26,7 +26,11 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
   const [accreditation, setAccreditation] = useState("");
   const [reportReference, setReportReference] = useState("");
   const [cells, setCells] = useState<Record<string, FormCell>>(() =>
-    Object.fromEntries(order.lots.flatMap((l) => order.parameters.map((p) => [cellKey(l.lotId, p), { raw: "", unit: order.units[p] ?? findParameter(p)?.unit ?? "", u: "" }]))),
+    Object.fromEntries(
+      order.lots.flatMap((l) =>
+        order.parameters.map((p) => [cellKey(l.lotId, p), { raw: "", unit: order.units[p] ?? findParameter(p)?.unit ?? "", u: "" }]),
+      ),
+    ),
   );
   const [key] = useState(() => crypto.randomUUID());
   const [errors, setErrors] = useState<string[]>([]);
@@ -42,8 +46,13 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
         const built = buildSamples(clean, rows, guessMapping(clean), { sampleDate });
         const { cells: found, skipped } = cellsFromSamples(built.samples, order.lots, order.parameters);
         setCells((c) => ({ ...c, ...found }));
-        const problems = [...built.errors.slice(0, 5).map((e) => `row ${e.row}${e.column ? `, ${e.column}` : ""}: ${e.message}`), ...skipped.slice(0, 5)];
-        setFileNote(`${Object.keys(found).length} result(s) filled from ${file.name}.${problems.length ? ` Not used: ${problems.join("; ")}.` : ""}`);
+        const problems = [
+          ...built.errors.slice(0, 5).map((e) => `row ${e.row}${e.column ? `, ${e.column}` : ""}: ${e.message}`),
+          ...skipped.slice(0, 5),
+        ];
+        setFileNote(
+          `${Object.keys(found).length} result(s) filled from ${file.name}.${problems.length ? ` Not used: ${problems.join("; ")}.` : ""}`,
+        );
       },
       error: (err) => setFileNote(`The file could not be read: ${err.message}`),
     });
@@ -59,7 +68,12 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
         results: order.parameters
           .map((p) => ({ p, c: cells[cellKey(l.lotId, p)]! }))
           .filter(({ c }) => c.raw.trim())
-          .map(({ p, c }) => ({ parameter: p, raw: c.raw.trim(), unit: c.unit as UnitId, uncertainty: c.u.trim() ? { kind: "expanded" as const, value: Number(c.u.replace(",", ".")), k: 2 } : null })),
+          .map(({ p, c }) => ({
+            parameter: p,
+            raw: c.raw.trim(),
+            unit: c.unit as UnitId,
+            uncertainty: c.u.trim() ? { kind: "expanded" as const, value: Number(c.u.replace(",", ".")), k: 2 } : null,
+          })),
       })),
     };
     const sent = body.lots.map((l) => l.results.map((r) => r.parameter));
@@ -79,7 +93,10 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
 
   const send = (data: Parameters<typeof submit.mutate>[0], sent: string[][]) => {
     submit.mutate(data, {
-      onSuccess: (r) => onSent(`Results sent. ${r.discrepancies.length ? `${r.discrepancies.length} lot(s) disagree with the declared results; a deviation was opened for each.` : "No discrepancy with the declared results."}`),
+      onSuccess: (r) =>
+        onSent(
+          `Results sent. ${r.discrepancies.length ? `${r.discrepancies.length} lot(s) disagree with the declared results; a deviation was opened for each.` : "No discrepancy with the declared results."}`,
+        ),
       onError: (err) => err instanceof ApiError && setErrors(err.errors.map((e) => describe(e.path.split("."), e.message, order, sent))),
     });
   };
@@ -88,18 +105,37 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
     <div className="flex flex-col gap-4">
       <div className="grid gap-3 md:grid-cols-4">
         <TextField label="Sample date" type="date" value={sampleDate} onChange={(e) => setSampleDate(e.target.value)} />
-        <TextField label="Accreditation" value={accreditation} onChange={(e) => setAccreditation(e.target.value)} hint="e.g. your ISO/IEC 17025 number" />
+        <TextField
+          label="Accreditation"
+          value={accreditation}
+          onChange={(e) => setAccreditation(e.target.value)}
+          hint="e.g. your ISO/IEC 17025 number"
+        />
         <TextField label="Report reference" value={reportReference} onChange={(e) => setReportReference(e.target.value)} />
         <div className="flex flex-col gap-1">
-          <label htmlFor="lab-csv" className="text-sm font-semibold">Fill from a CSV export</label>
-          <input id="lab-csv" type="file" accept=".csv,text/csv" onChange={(e) => e.target.files?.[0] && readCsv(e.target.files[0])} className="text-sm" />
+          <label htmlFor="lab-csv" className="text-sm font-semibold">
+            Fill from a CSV export
+          </label>
+          <input
+            id="lab-csv"
+            type="file"
+            accept=".csv,text/csv"
+            onChange={(e) => e.target.files?.[0] && readCsv(e.target.files[0])}
+            className="text-sm"
+          />
         </div>
       </div>
       {fileNote && <Notice>{fileNote}</Notice>}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
           <thead className="border-b border-line text-ink-500">
-            <tr>{["Lot", "Parameter", "Result", "Unit", "U (k = 2)"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+            <tr>
+              {["Lot", "Parameter", "Result", "Unit", "U (k = 2)"].map((h) => (
+                <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                  {h}
+                </th>
+              ))}
+            </tr>
           </thead>
           <tbody>
             {order.lots.flatMap((l) =>
@@ -110,14 +146,39 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
                 return (
                   <tr key={k} className="border-b border-line/60">
                     <td className="py-1 pr-3">{l.lotCode}</td>
-                    <th scope="row" className="py-1 pr-3 font-normal">{name}</th>
-                    <td className="py-1 pr-3"><input aria-label={`${name}, lot ${l.lotCode}`} className="w-28 rounded-md border border-line px-2 py-1" value={cells[k]!.raw} onChange={(e) => set(k, { raw: e.target.value })} /></td>
+                    <th scope="row" className="py-1 pr-3 font-normal">
+                      {name}
+                    </th>
                     <td className="py-1 pr-3">
-                      <select aria-label={`Unit of ${name}, lot ${l.lotCode}`} className="rounded-md border border-line bg-white px-2 py-1" value={cells[k]!.unit} onChange={(e) => set(k, { unit: e.target.value })}>
-                        {(def?.units ?? []).map((u) => <option key={u} value={u}>{UNITS[u]?.label ?? u}</option>)}
+                      <input
+                        aria-label={`${name}, lot ${l.lotCode}`}
+                        className="w-28 rounded-md border border-line px-2 py-1"
+                        value={cells[k]!.raw}
+                        onChange={(e) => set(k, { raw: e.target.value })}
+                      />
+                    </td>
+                    <td className="py-1 pr-3">
+                      <select
+                        aria-label={`Unit of ${name}, lot ${l.lotCode}`}
+                        className="rounded-md border border-line bg-white px-2 py-1"
+                        value={cells[k]!.unit}
+                        onChange={(e) => set(k, { unit: e.target.value })}
+                      >
+                        {(def?.units ?? []).map((u) => (
+                          <option key={u} value={u}>
+                            {UNITS[u]?.label ?? u}
+                          </option>
+                        ))}
                       </select>
                     </td>
-                    <td className="py-1 pr-3"><input aria-label={`Uncertainty of ${name}, lot ${l.lotCode}`} className="w-20 rounded-md border border-line px-2 py-1" value={cells[k]!.u} onChange={(e) => set(k, { u: e.target.value })} /></td>
+                    <td className="py-1 pr-3">
+                      <input
+                        aria-label={`Uncertainty of ${name}, lot ${l.lotCode}`}
+                        className="w-20 rounded-md border border-line px-2 py-1"
+                        value={cells[k]!.u}
+                        onChange={(e) => set(k, { u: e.target.value })}
+                      />
+                    </td>
                   </tr>
                 );
               }),
@@ -127,11 +188,19 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
       </div>
       {errors.length > 0 && (
         <Notice tone="error">
-          <ul className="list-disc pl-5">{errors.map((e) => <li key={e}>{e}</li>)}</ul>
+          <ul className="list-disc pl-5">
+            {errors.map((e) => (
+              <li key={e}>{e}</li>
+            ))}
+          </ul>
         </Notice>
       )}
-      {submit.isError && !(submit.error instanceof ApiError && submit.error.errors.length) && <Notice tone="error">{errorMessage(submit.error)}</Notice>}
-      <Button className="self-start" onClick={onSubmit} disabled={submit.isPending || submit.isSuccess}>Send the results</Button>
+      {submit.isError && !(submit.error instanceof ApiError && submit.error.errors.length) && (
+        <Notice tone="error">{errorMessage(submit.error)}</Notice>
+      )}
+      <Button className="self-start" onClick={onSubmit} disabled={submit.isPending || submit.isSuccess}>
+        Send the results
+      </Button>
       {confirm.dialog}
     </div>
   );

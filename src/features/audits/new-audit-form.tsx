@@ -36,7 +36,15 @@ export function NewAuditForm({ orgId }: { orgId: number }) {
   const toggle = <T,>(list: T[], item: T) => (list.includes(item) ? list.filter((x) => x !== item) : [...list, item]);
 
   const submit = () => {
-    const body = { idempotencyKey: key, contractId: Number(contractId), laboratoryOrgId: Number(labId), lotIds, parameters, stage, note: note.trim() || null };
+    const body = {
+      idempotencyKey: key,
+      contractId: Number(contractId),
+      laboratoryOrgId: Number(labId),
+      lotIds,
+      parameters,
+      stage,
+      note: note.trim() || null,
+    };
     const parsed = newAuditOrderSchema.safeParse(body);
     if (!parsed.success) {
       setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
@@ -46,7 +54,8 @@ export function NewAuditForm({ orgId }: { orgId: number }) {
     create.mutate(parsed.data, {
       onSuccess: (o) => navigate(`/audits/${o.id}`),
       onError: (err) => {
-        if (err instanceof ApiError && err.errors.length) setErrors(Object.fromEntries(err.errors.map((e) => [e.path.split(".")[0]!, e.message])));
+        if (err instanceof ApiError && err.errors.length)
+          setErrors(Object.fromEntries(err.errors.map((e) => [e.path.split(".")[0]!, e.message])));
       },
     });
   };
@@ -62,10 +71,24 @@ export function NewAuditForm({ orgId }: { orgId: number }) {
             setContractId(e.target.value);
             setLotIds([]);
           }}
-          options={[{ value: "", label: "Choose a contract" }, ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.wine.name} — ${c.producer.name} (${c.reference})` }))]}
+          options={[
+            { value: "", label: "Choose a contract" },
+            ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.wine.name} — ${c.producer.name} (${c.reference})` })),
+          ]}
         />
-        <SelectField label="Laboratory" value={labId} error={errors.laboratoryOrgId} onChange={(e) => setLabId(e.target.value)} options={[{ value: "", label: "Choose a laboratory" }, ...(labs.data ?? []).map((l) => ({ value: String(l.id), label: l.name }))]} />
-        <SelectField label="Compare with the producer's results at" value={stage} onChange={(e) => setStage(e.target.value as AnalysisStage)} options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))} />
+        <SelectField
+          label="Laboratory"
+          value={labId}
+          error={errors.laboratoryOrgId}
+          onChange={(e) => setLabId(e.target.value)}
+          options={[{ value: "", label: "Choose a laboratory" }, ...(labs.data ?? []).map((l) => ({ value: String(l.id), label: l.name }))]}
+        />
+        <SelectField
+          label="Compare with the producer's results at"
+          value={stage}
+          onChange={(e) => setStage(e.target.value as AnalysisStage)}
+          options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))}
+        />
       </div>
 
       <fieldset className="rounded-md border border-line p-3">
@@ -80,21 +103,36 @@ export function NewAuditForm({ orgId }: { orgId: number }) {
             </label>
           ))}
         </div>
-        {errors.lotIds && <p role="alert" className="mt-1 text-xs font-semibold text-alarm-700">{errors.lotIds}</p>}
+        {errors.lotIds && (
+          <p role="alert" className="mt-1 text-xs font-semibold text-alarm-700">
+            {errors.lotIds}
+          </p>
+        )}
       </fieldset>
 
       <fieldset className="rounded-md border border-line p-3">
         <legend className="px-1 text-sm font-semibold">Parameters and the laboratory's prices (per lot)</legend>
         {!lab && <p className="text-sm text-ink-500">Choose a laboratory to see what it offers.</p>}
         <div className="grid gap-1 md:grid-cols-3">
-          {lab?.items.map((i) => ({ ...i, name: findParameter(i.parameter)?.name ?? i.parameter })).sort((a, b) => a.name.localeCompare(b.name)).map((i) => (
-            <label key={i.parameter} className="flex items-center gap-2 text-sm">
-              <input type="checkbox" checked={parameters.includes(i.parameter)} onChange={() => setParameters(toggle(parameters, i.parameter))} />
-              {i.name} <span className="tabular-nums text-ink-500">{formatMoney(i.priceCents)}</span>
-            </label>
-          ))}
+          {lab?.items
+            .map((i) => ({ ...i, name: findParameter(i.parameter)?.name ?? i.parameter }))
+            .sort((a, b) => a.name.localeCompare(b.name))
+            .map((i) => (
+              <label key={i.parameter} className="flex items-center gap-2 text-sm">
+                <input
+                  type="checkbox"
+                  checked={parameters.includes(i.parameter)}
+                  onChange={() => setParameters(toggle(parameters, i.parameter))}
+                />
+                {i.name} <span className="tabular-nums text-ink-500">{formatMoney(i.priceCents)}</span>
+              </label>
+            ))}
         </div>
-        {errors.parameters && <p role="alert" className="mt-1 text-xs font-semibold text-alarm-700">{errors.parameters}</p>}
+        {errors.parameters && (
+          <p role="alert" className="mt-1 text-xs font-semibold text-alarm-700">
+            {errors.parameters}
+          </p>
+        )}
       </fieldset>
 
       <TextField label="Note for the laboratory (optional)" value={note} onChange={(e) => setNote(e.target.value)} maxLength={1000} />
@@ -110,7 +148,9 @@ export function NewAuditForm({ orgId }: { orgId: number }) {
           Place the order
         </Button>
       </div>
-      {create.isError && !(create.error instanceof ApiError && create.error.errors.length) && <Notice tone="error">{errorMessage(create.error)}</Notice>}
+      {create.isError && !(create.error instanceof ApiError && create.error.errors.length) && (
+        <Notice tone="error">{errorMessage(create.error)}</Notice>
+      )}
     </div>
   );
 }

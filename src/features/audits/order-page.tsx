@@ -28,7 +28,8 @@ export function OrderPage() {
   const q = useQuery({
     ...orderQuery(orgId, id),
     // Back from the payment page, the webhook may not have landed yet: look again until it has.
-    refetchInterval: (query) => (returning && ["awaiting_payment", "payment_failed"].includes(query.state.data?.status ?? "") ? 1000 : false),
+    refetchInterval: (query) =>
+      returning && ["awaiting_payment", "payment_failed"].includes(query.state.data?.status ?? "") ? 1000 : false,
   });
   if (q.isPending) return <LoadingState />;
   if (q.isError) return <ErrorState error={q.error} onRetry={() => q.refetch()} />;
@@ -38,17 +39,59 @@ export function OrderPage() {
   const waiting = returning && (o.status === "awaiting_payment" || o.status === "payment_failed");
   return (
     <>
-      <PageHeader title={`Audit ${o.reference}`} lead={`${o.wineName} from ${o.producerName}, analysed by ${o.laboratoryName}`} actions={<OrderStatusBadge status={o.status} />} />
+      <PageHeader
+        title={`Audit ${o.reference}`}
+        lead={`${o.wineName} from ${o.producerName}, analysed by ${o.laboratoryName}`}
+        actions={<OrderStatusBadge status={o.status} />}
+      />
       <div className="flex flex-col gap-6">
-        {waiting && <Notice>Back from the payment page. Waiting for the payment service to confirm… {o.status === "payment_failed" && "The last attempt was declined."}</Notice>}
-        {returning && o.status === "paid" && <Notice tone="success">Payment confirmed. The laboratory has been told; a receipt is on its way by e-mail.</Notice>}
+        {waiting && (
+          <Notice>
+            Back from the payment page. Waiting for the payment service to confirm…{" "}
+            {o.status === "payment_failed" && "The last attempt was declined."}
+          </Notice>
+        )}
+        {returning && o.status === "paid" && (
+          <Notice tone="success">Payment confirmed. The laboratory has been told; a receipt is on its way by e-mail.</Notice>
+        )}
         <Card title="Order">
           <dl className="grid gap-x-6 gap-y-2 text-sm md:grid-cols-2">
-            <div><dt className="text-ink-500">Lots</dt><dd>{o.lots.map((l) => (party ? <Link key={l.lotId} to={`/lots/${l.lotId}`} className="mr-2 font-semibold text-must-700 underline">{l.lotCode}</Link> : <span key={l.lotId} className="mr-2">{l.lotCode} ({l.vintage})</span>))}</dd></div>
-            <div><dt className="text-ink-500">Parameters</dt><dd>{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</dd></div>
-            <div><dt className="text-ink-500">Compared with the producer's results at</dt><dd>{ANALYSIS_STAGE_LABELS[o.stage]}</dd></div>
-            <div><dt className="text-ink-500">Ordered</dt><dd>{o.createdAt.slice(0, 10)} by {o.orderedBy} for {o.buyerName}</dd></div>
-            {o.note && <div className="md:col-span-2"><dt className="text-ink-500">Note</dt><dd>{o.note}</dd></div>}
+            <div>
+              <dt className="text-ink-500">Lots</dt>
+              <dd>
+                {o.lots.map((l) =>
+                  party ? (
+                    <Link key={l.lotId} to={`/lots/${l.lotId}`} className="mr-2 font-semibold text-must-700 underline">
+                      {l.lotCode}
+                    </Link>
+                  ) : (
+                    <span key={l.lotId} className="mr-2">
+                      {l.lotCode} ({l.vintage})
+                    </span>
+                  ),
+                )}
+              </dd>
+            </div>
+            <div>
+              <dt className="text-ink-500">Parameters</dt>
+              <dd>{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</dd>
+            </div>
+            <div>
+              <dt className="text-ink-500">Compared with the producer's results at</dt>
+              <dd>{ANALYSIS_STAGE_LABELS[o.stage]}</dd>
+            </div>
+            <div>
+              <dt className="text-ink-500">Ordered</dt>
+              <dd>
+                {o.createdAt.slice(0, 10)} by {o.orderedBy} for {o.buyerName}
+              </dd>
+            </div>
+            {o.note && (
+              <div className="md:col-span-2">
+                <dt className="text-ink-500">Note</dt>
+                <dd>{o.note}</dd>
+              </div>
+            )}
           </dl>
         </Card>
         {o.lines.length > 0 && <PaymentPanel orgId={orgId} order={o} />}
@@ -64,8 +107,13 @@ export function OrderPage() {
               Sent {o.resultsSubmittedAt.slice(0, 16).replace("T", " ")} UTC{o.reportReference ? `, report ${o.reportReference}` : ""}.
               {o.deviationIds.length > 0 && (
                 <>
-                  {" "}Deviations opened:{" "}
-                  {o.deviationIds.map((d) => <Link key={d} to={`/deviations/${d}`} className="mr-2 font-semibold text-must-700 underline">#{d}</Link>)}
+                  {" "}
+                  Deviations opened:{" "}
+                  {o.deviationIds.map((d) => (
+                    <Link key={d} to={`/deviations/${d}`} className="mr-2 font-semibold text-must-700 underline">
+                      #{d}
+                    </Link>
+                  ))}
                 </>
               )}
             </p>
@@ -76,7 +124,12 @@ export function OrderPage() {
                     <h3 className="font-semibold">Lot {l.lotCode}: the values you sent</h3>
                     <SentValues verdicts={l.verdicts} />
                     <ReportLinks orgId={orgId} reports={l.reports} />
-                    <CertificateUpload orgId={orgId} analysisId={l.analysisId} label={`Attach your signed report for lot ${l.lotCode}`} onUploaded={() => q.refetch()} />
+                    <CertificateUpload
+                      orgId={orgId}
+                      analysisId={l.analysisId}
+                      label={`Attach your signed report for lot ${l.lotCode}`}
+                      onUploaded={() => q.refetch()}
+                    />
                   </div>
                 ) : null,
               )}
@@ -84,11 +137,19 @@ export function OrderPage() {
               o.lots.map((l) => (
                 <div key={l.lotId} className="mb-6">
                   <h3 className="mb-2 font-semibold">
-                    Lot {l.lotCode} · <a className="text-must-700 underline" href={conformityUrl(orgId, l.lotId)}>Conformity document (PDF)</a>
-                    <span className="block text-xs font-normal text-ink-500">A certificate of conformity when the lot's status allows one, otherwise an analysis statement saying why not.</span>
+                    Lot {l.lotCode} ·{" "}
+                    <a className="text-must-700 underline" href={conformityUrl(orgId, l.lotId)}>
+                      Conformity document (PDF)
+                    </a>
+                    <span className="block text-xs font-normal text-ink-500">
+                      A certificate of conformity when the lot's status allows one, otherwise an analysis statement saying why not.
+                    </span>
                   </h3>
                   <ReportLinks orgId={orgId} reports={l.reports} />
-                  <ComparisonTable comparisons={l.comparisons} caption={`Declared results against ${o.laboratoryName}'s (the reference). En uses both expanded uncertainties; z uses the catalogue's standard uncertainty as σ_pt.`} />
+                  <ComparisonTable
+                    comparisons={l.comparisons}
+                    caption={`Declared results against ${o.laboratoryName}'s (the reference). En uses both expanded uncertainties; z uses the catalogue's standard uncertainty as σ_pt.`}
+                  />
                 </div>
               ))}
             <LegalCaution />
@@ -106,14 +167,24 @@ function SentValues({ verdicts }: { verdicts: StoredVerdict[] }) {
     <table className="w-full text-left text-sm">
       <caption className="sr-only">Values sent by the laboratory</caption>
       <thead className="border-b border-line text-ink-500">
-        <tr>{["Parameter", "Result ± U (k = 2)", "Against the spec"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
+        <tr>
+          {["Parameter", "Result ± U (k = 2)", "Against the spec"].map((h) => (
+            <th key={h} scope="col" className="py-1 pr-3 font-semibold">
+              {h}
+            </th>
+          ))}
+        </tr>
       </thead>
       <tbody>
         {verdicts.map((v) => (
           <tr key={v.parameter} className="border-b border-line/60">
-            <th scope="row" className="py-1 pr-3 font-normal">{findParameter(v.parameter)?.name ?? v.parameter}</th>
+            <th scope="row" className="py-1 pr-3 font-normal">
+              {findParameter(v.parameter)?.name ?? v.parameter}
+            </th>
             <td className="py-1 pr-3 tabular-nums">{verdictText(v).result}</td>
-            <td className="py-1 pr-3"><OutcomeBadge outcome={v.outcome} /></td>
+            <td className="py-1 pr-3">
+              <OutcomeBadge outcome={v.outcome} />
+            </td>
           </tr>
         ))}
       </tbody>
@@ -127,7 +198,9 @@ function ReportLinks({ orgId, reports }: { orgId: number; reports: { id: number;
     <p className="text-sm">
       Signed report:{" "}
       {reports.map((r) => (
-        <a key={r.id} href={certificateUrl(orgId, r.id)} className="mr-2 font-semibold text-must-700 underline">{r.originalName}</a>
+        <a key={r.id} href={certificateUrl(orgId, r.id)} className="mr-2 font-semibold text-must-700 underline">
+          {r.originalName}
+        </a>
       ))}
     </p>
   );

@@ -9,5 +9,9 @@ const TONE: Record<OrderStatus, string> = {
 };
 
 export function OrderStatusBadge({ status }: { status: OrderStatus }) {
-  return <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[status]}`}>{ORDER_STATUS_LABELS[status]}</span>;
+  return (
+    <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[status]}`}>
+      {ORDER_STATUS_LABELS[status]}
+    </span>
+  );
 }

@@ -22,19 +22,29 @@ export function PaymentPanel({ orgId, order }: { orgId: number; order: AuditOrde
     <Card title="Payment">
       <table className="w-full text-left text-sm">
         <thead className="border-b border-line text-ink-500">
-          <tr>{["Parameter", "Price per lot", "Lots", "Amount"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
+          <tr>
+            {["Parameter", "Price per lot", "Lots", "Amount"].map((h) => (
+              <th key={h} scope="col" className="py-1 pr-3 font-semibold">
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody>
           {order.lines.map((l) => (
             <tr key={l.parameter} className="border-b border-line/60">
-              <th scope="row" className="py-1 pr-3 font-normal">{l.name}</th>
+              <th scope="row" className="py-1 pr-3 font-normal">
+                {l.name}
+              </th>
               <td className="py-1 pr-3 tabular-nums">{money(l.unitCents)}</td>
               <td className="py-1 pr-3 tabular-nums">{l.lots}</td>
               <td className="py-1 pr-3 tabular-nums">{money(l.totalCents)}</td>
             </tr>
           ))}
           <tr>
-            <th scope="row" className="py-1 pr-3 text-left">Total</th>
+            <th scope="row" className="py-1 pr-3 text-left">
+              Total
+            </th>
             <td />
             <td />
             <td className="py-1 pr-3 font-semibold tabular-nums">{money(order.amountCents)}</td>
@@ -45,7 +55,8 @@ export function PaymentPanel({ orgId, order }: { orgId: number; order: AuditOrde
         <ul className="mt-3 flex flex-col gap-1 text-sm">
           {order.payments.map((p) => (
             <li key={`${p.kind}-${p.stripeRef}`}>
-              <span className="font-semibold">{KIND_LABELS[p.kind]}</span> {p.kind !== "failure" && money(p.amountCents)} · {p.at.slice(0, 16).replace("T", " ")} UTC
+              <span className="font-semibold">{KIND_LABELS[p.kind]}</span> {p.kind !== "failure" && money(p.amountCents)} ·{" "}
+              {p.at.slice(0, 16).replace("T", " ")} UTC
               {p.detail && <span className="text-ink-500"> · {p.detail}</span>}
               <span className="block text-xs text-ink-500">{p.stripeRef}</span>
             </li>
@@ -54,7 +65,10 @@ export function PaymentPanel({ orgId, order }: { orgId: number; order: AuditOrde
       )}
       <div className="mt-4 flex flex-wrap items-end gap-3">
         {order.actions.pay && (
-          <Button onClick={() => checkout.mutate(undefined, { onSuccess: ({ url }) => window.location.assign(url) })} disabled={checkout.isPending}>
+          <Button
+            onClick={() => checkout.mutate(undefined, { onSuccess: ({ url }) => window.location.assign(url) })}
+            disabled={checkout.isPending}
+          >
             {order.status === "payment_failed" ? "Try the payment again" : `Pay ${money(order.amountCents)}`}
           </Button>
         )}
@@ -65,7 +79,12 @@ export function PaymentPanel({ orgId, order }: { orgId: number; order: AuditOrde
       {checkout.isError && <Notice tone="error">{errorMessage(checkout.error)}</Notice>}
       {order.actions.refund && (
         <div className="mt-4 flex flex-wrap items-end gap-3 border-t border-line pt-4">
-          <TextField label="Reason for a refund" value={reason} onChange={(e) => setReason(e.target.value)} hint="Possible until the laboratory sends its results." />
+          <TextField
+            label="Reason for a refund"
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+            hint="Possible until the laboratory sends its results."
+          />
           <ConfirmButton
             variant="danger"
             disabled={refund.isPending || reason.trim().length < 3}

@@ -18,7 +18,10 @@ export function PriceListPage() {
   const list = useQuery({ ...priceListQuery(orgId) });
   return (
     <>
-      <PageHeader title="Price list" lead="What your laboratory analyses for buyers' audits, and the price per lot in euro. Orders keep the price they were placed at." />
+      <PageHeader
+        title="Price list"
+        lead="What your laboratory analyses for buyers' audits, and the price per lot in euro. Orders keep the price they were placed at."
+      />
       {list.isPending && <LoadingState />}
       {list.isError && <ErrorState error={list.error} onRetry={() => list.refetch()} />}
       {list.data && <PriceListEditor orgId={orgId} items={list.data.items} />}
@@ -28,7 +31,9 @@ export function PriceListPage() {
 
 function PriceListEditor({ orgId, items: saved }: { orgId: number; items: { parameter: string; priceCents: number }[] }) {
   const save = useSavePriceList(orgId);
-  const [texts, setTexts] = useState<Record<string, string>>(() => Object.fromEntries(saved.map((i) => [i.parameter, (i.priceCents / 100).toFixed(2)])));
+  const [texts, setTexts] = useState<Record<string, string>>(() =>
+    Object.fromEntries(saved.map((i) => [i.parameter, (i.priceCents / 100).toFixed(2)])),
+  );
   const [errors, setErrors] = useState<Record<string, string>>({});
 
   const onSave = () => {
@@ -48,28 +53,50 @@ function PriceListEditor({ orgId, items: saved }: { orgId: number; items: { para
 
   return (
     <Card>
-        <table className="w-full text-left text-sm">
-          <thead className="border-b border-line text-ink-500">
-            <tr>{["Parameter", "Group", "Price per lot (EUR)"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
-          </thead>
-          <tbody>
-            {MEASURED.map((p) => (
-              <tr key={p.id} className="border-b border-line/60">
-                <th scope="row" className="py-1 pr-3 font-normal">{p.name}</th>
-                <td className="py-1 pr-3 text-ink-500">{p.group}</td>
-                <td className="py-1 pr-3">
-                  <input aria-label={`Price of ${p.name}`} aria-invalid={errors[p.id] ? true : undefined} inputMode="decimal" placeholder="not offered" className="w-32 rounded-md border border-line px-2 py-1 aria-[invalid=true]:border-alarm-700" value={texts[p.id] ?? ""} onChange={(e) => setTexts({ ...texts, [p.id]: e.target.value })} />
-                  {errors[p.id] && <span role="alert" className="ml-2 text-xs font-semibold text-alarm-700">{errors[p.id]}</span>}
-                </td>
-              </tr>
+      <table className="w-full text-left text-sm">
+        <thead className="border-b border-line text-ink-500">
+          <tr>
+            {["Parameter", "Group", "Price per lot (EUR)"].map((h) => (
+              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                {h}
+              </th>
             ))}
-          </tbody>
-        </table>
-        <div className="mt-4 flex items-center gap-3">
-          <Button onClick={onSave} disabled={save.isPending}>Save the price list</Button>
-          {save.isSuccess && <span className="text-sm text-verjus-700">Saved.</span>}
-        </div>
-        {save.isError && <Notice tone="error">{errorMessage(save.error)}</Notice>}
+          </tr>
+        </thead>
+        <tbody>
+          {MEASURED.map((p) => (
+            <tr key={p.id} className="border-b border-line/60">
+              <th scope="row" className="py-1 pr-3 font-normal">
+                {p.name}
+              </th>
+              <td className="py-1 pr-3 text-ink-500">{p.group}</td>
+              <td className="py-1 pr-3">
+                <input
+                  aria-label={`Price of ${p.name}`}
+                  aria-invalid={errors[p.id] ? true : undefined}
+                  inputMode="decimal"
+                  placeholder="not offered"
+                  className="w-32 rounded-md border border-line px-2 py-1 aria-[invalid=true]:border-alarm-700"
+                  value={texts[p.id] ?? ""}
+                  onChange={(e) => setTexts({ ...texts, [p.id]: e.target.value })}
+                />
+                {errors[p.id] && (
+                  <span role="alert" className="ml-2 text-xs font-semibold text-alarm-700">
+                    {errors[p.id]}
+                  </span>
+                )}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <div className="mt-4 flex items-center gap-3">
+        <Button onClick={onSave} disabled={save.isPending}>
+          Save the price list
+        </Button>
+        {save.isSuccess && <span className="text-sm text-verjus-700">Saved.</span>}
+      </div>
+      {save.isError && <Notice tone="error">{errorMessage(save.error)}</Notice>}
     </Card>
   );
 }

@@ -32,9 +32,13 @@ export function AcceptInvitationPage() {
   const navigate = useNavigate();
   const qc = useQueryClient();
   const [formError, setFormError] = useState<string | null>(null);
-  const preview = useQuery({ queryKey: ["invitation", token], queryFn: () => api<InvitationPreview>(`/api/invitations/${encodeURIComponent(token)}`) });
+  const preview = useQuery({
+    queryKey: ["invitation", token],
+    queryFn: () => api<InvitationPreview>(`/api/invitations/${encodeURIComponent(token)}`),
+  });
   const accept = useMutation({
-    mutationFn: (v: FormValues) => api<Session>("/api/invitations/accept", { method: "POST", body: { token, name: v.name, password: v.password } }),
+    mutationFn: (v: FormValues) =>
+      api<Session>("/api/invitations/accept", { method: "POST", body: { token, name: v.name, password: v.password } }),
   });
   const { register, handleSubmit, setError, formState } = useForm<FormValues>({ resolver: zodResolver(formSchema) });
 
@@ -67,8 +71,21 @@ export function AcceptInvitationPage() {
           </p>
           {formError && <Notice tone="error">{formError}</Notice>}
           <TextField label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
-          <TextField label="Choose a password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN} characters.`} error={formState.errors.password?.message} {...register("password")} />
-          <TextField label="Repeat the password" type="password" autoComplete="new-password" error={formState.errors.confirm?.message} {...register("confirm")} />
+          <TextField
+            label="Choose a password"
+            type="password"
+            autoComplete="new-password"
+            hint={`At least ${PASSWORD_MIN} characters.`}
+            error={formState.errors.password?.message}
+            {...register("password")}
+          />
+          <TextField
+            label="Repeat the password"
+            type="password"
+            autoComplete="new-password"
+            error={formState.errors.confirm?.message}
+            {...register("confirm")}
+          />
           <Button type="submit" disabled={accept.isPending}>
             {accept.isPending ? "Creating your account…" : "Accept and sign in"}
           </Button>

@@ -24,7 +24,13 @@ export function ForgotPasswordPage() {
         <form onSubmit={handleSubmit((v) => request.mutate(v))} noValidate className="flex flex-col gap-4">
           <p className="text-sm text-ink-500">Enter the address you sign in with. We will mail you a link to choose a new password.</p>
           {request.isError && <Notice tone="error">{errorMessage(request.error)}</Notice>}
-          <TextField label="E-mail address" type="email" autoComplete="username" error={formState.errors.email?.message} {...register("email")} />
+          <TextField
+            label="E-mail address"
+            type="email"
+            autoComplete="username"
+            error={formState.errors.email?.message}
+            {...register("email")}
+          />
           <Button type="submit" disabled={request.isPending}>
             {request.isPending ? "Sending…" : "Send the reset link"}
           </Button>

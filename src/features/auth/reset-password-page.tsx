@@ -38,11 +38,27 @@ export function ResetPasswordPage() {
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {formError && (
           <Notice tone="error">
-            {formError} <Link to="/forgot-password" className="underline">Ask for a new link</Link>
+            {formError}{" "}
+            <Link to="/forgot-password" className="underline">
+              Ask for a new link
+            </Link>
           </Notice>
         )}
-        <TextField label="New password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN} characters.`} error={formState.errors.password?.message} {...register("password")} />
-        <TextField label="Repeat the new password" type="password" autoComplete="new-password" error={formState.errors.confirm?.message} {...register("confirm")} />
+        <TextField
+          label="New password"
+          type="password"
+          autoComplete="new-password"
+          hint={`At least ${PASSWORD_MIN} characters.`}
+          error={formState.errors.password?.message}
+          {...register("password")}
+        />
+        <TextField
+          label="Repeat the new password"
+          type="password"
+          autoComplete="new-password"
+          error={formState.errors.confirm?.message}
+          {...register("confirm")}
+        />
         <Button type="submit" disabled={reset.isPending}>
           {reset.isPending ? "Saving…" : "Save the new password"}
         </Button>

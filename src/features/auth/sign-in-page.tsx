@@ -37,8 +37,20 @@ export function SignInPage() {
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {params.get("reset") === "done" && <Notice tone="success">Your password has been changed. Sign in with the new one.</Notice>}
         {formError && <Notice tone="error">{formError}</Notice>}
-        <TextField label="E-mail address" type="email" autoComplete="username" error={formState.errors.email?.message} {...register("email")} />
-        <TextField label="Password" type="password" autoComplete="current-password" error={formState.errors.password?.message} {...register("password")} />
+        <TextField
+          label="E-mail address"
+          type="email"
+          autoComplete="username"
+          error={formState.errors.email?.message}
+          {...register("email")}
+        />
+        <TextField
+          label="Password"
+          type="password"
+          autoComplete="current-password"
+          error={formState.errors.password?.message}
+          {...register("password")}
+        />
         <Button type="submit" disabled={signIn.isPending}>
           {signIn.isPending ? "Signing in…" : "Sign in"}
         </Button>

@@ -34,19 +34,26 @@ export function DevInboxPage() {
     <main className="mx-auto max-w-4xl px-gutter py-8">
       <h1 className="text-2xl font-bold">Development inbox</h1>
       <p className="mt-1 text-ink-500">
-        Mail that Cellarpact sent to the local mail fake, newest first. Nothing here left this machine. <Link to="/" className="font-semibold text-must-700 underline">Back to Cellarpact</Link>
+        Mail that Cellarpact sent to the local mail fake, newest first. Nothing here left this machine.{" "}
+        <Link to="/" className="font-semibold text-must-700 underline">
+          Back to Cellarpact
+        </Link>
       </p>
       <div className="mt-6 flex flex-col gap-4">
         {inbox.isPending && <LoadingState />}
         {inbox.isError && <ErrorState error={inbox.error} onRetry={() => inbox.refetch()} />}
-        {inbox.data?.length === 0 && <EmptyState title="No mail yet.">Invite someone or ask for a password reset, and the mail appears here.</EmptyState>}
+        {inbox.data?.length === 0 && (
+          <EmptyState title="No mail yet.">Invite someone or ask for a password reset, and the mail appears here.</EmptyState>
+        )}
         {inbox.data?.map((m) => (
           <article key={m.id} className="rounded-card border border-line bg-card p-gutter">
             <h2 className="text-lg font-semibold">{m.subject}</h2>
             <p className="text-sm text-ink-500">
               To {m.to.join(", ")} · {new Date(m.receivedAt).toLocaleString("en-GB")}
             </p>
-            <pre className="mt-3 whitespace-pre-wrap font-sans text-sm text-ink-900"><Linked text={m.text} /></pre>
+            <pre className="mt-3 whitespace-pre-wrap font-sans text-sm text-ink-900">
+              <Linked text={m.text} />
+            </pre>
           </article>
         ))}
       </div>

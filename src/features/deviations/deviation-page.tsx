@@ -4,7 +4,16 @@ import { ConfirmButton, useConfirm } from "../../components/ui/confirm-dialog.ts
 import { Link, useNavigate, useParams } from "react-router-dom";
 import { useState } from "react";
 import { useOrganisation } from "../../lib/signed-in.tsx";
-import { attachmentUrl, deviationKeys, deviationPdfUrl, deviationQuery, useCloseDeviation, useDecide, useEditMessage, usePostMessage } from "./api/deviations.ts";
+import {
+  attachmentUrl,
+  deviationKeys,
+  deviationPdfUrl,
+  deviationQuery,
+  useCloseDeviation,
+  useDecide,
+  useEditMessage,
+  usePostMessage,
+} from "./api/deviations.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -12,7 +21,14 @@ import { VerdictTable } from "../../components/verdict-table.tsx";
 import { HistoryPanel } from "../../components/history-panel.tsx";
 import { MessageComposer } from "./message-composer.tsx";
 import { ProposalFields } from "./proposal-fields.tsx";
-import { CONDITION_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS, proposalText, type DeviationCondition, type DeviationOutcome } from "../../../shared/deviations/vocabulary.ts";
+import {
+  CONDITION_LABELS,
+  DEVIATION_OUTCOME_LABELS,
+  DEVIATION_STATUS_LABELS,
+  proposalText,
+  type DeviationCondition,
+  type DeviationOutcome,
+} from "../../../shared/deviations/vocabulary.ts";
 import type { DeviationDetail, MessageView } from "../../../shared/deviations/views.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 import { errorMessage } from "../../lib/api-client.ts";
@@ -30,19 +46,38 @@ export function DeviationPage() {
         title={`Deviation #${d.id}: lot ${d.lotCode}`}
         lead={
           <>
-            {d.wineName}, vintage {d.vintage} · {d.side === "laboratory" ? `lot ${d.lotCode}` : <Link className="underline" to={`/lots/${d.lotId}`}>lot page</Link>} · {d.producerName} · {d.summary}
+            {d.wineName}, vintage {d.vintage} ·{" "}
+            {d.side === "laboratory" ? (
+              `lot ${d.lotCode}`
+            ) : (
+              <Link className="underline" to={`/lots/${d.lotId}`}>
+                lot page
+              </Link>
+            )}{" "}
+            · {d.producerName} · {d.summary}
           </>
         }
         actions={
           <div className="flex items-center gap-2">
-            <span className="rounded-full bg-must-50 px-3 py-1 text-sm font-semibold text-must-700">{DEVIATION_STATUS_LABELS[d.status]}</span>
-            <a href={deviationPdfUrl(orgId, d.id)} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50" download>PDF record</a>
+            <span className="rounded-full bg-must-50 px-3 py-1 text-sm font-semibold text-must-700">
+              {DEVIATION_STATUS_LABELS[d.status]}
+            </span>
+            <a
+              href={deviationPdfUrl(orgId, d.id)}
+              className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50"
+              download
+            >
+              PDF record
+            </a>
           </div>
         }
       />
       <div className="flex flex-col gap-6">
         {d.respondBy && d.status !== "decided" && d.status !== "closed" && (
-          <Notice tone={d.overdue ? "error" : "info"}>{d.overdue ? "Overdue: a response was due by " : "Next response due by "}{d.respondBy.replace("T", " ").slice(0, 16)} UTC.</Notice>
+          <Notice tone={d.overdue ? "error" : "info"}>
+            {d.overdue ? "Overdue: a response was due by " : "Next response due by "}
+            {d.respondBy.replace("T", " ").slice(0, 16)} UTC.
+          </Notice>
         )}
         {d.verdicts.length > 0 && (
           <Card title="Results that opened it">
@@ -52,21 +87,37 @@ export function DeviationPage() {
         {d.decision && (
           <Card title="Decision">
             <p className="font-semibold">{DEVIATION_OUTCOME_LABELS[d.decision.outcome]}</p>
-            {d.decision.conditions.map((c, i) => <p key={i} className="text-sm">{CONDITION_LABELS[c.kind]}: {c.detail}</p>)}
+            {d.decision.conditions.map((c, i) => (
+              <p key={i} className="text-sm">
+                {CONDITION_LABELS[c.kind]}: {c.detail}
+              </p>
+            ))}
             <p className="mt-2 text-sm">Reason: {d.decision.reason}</p>
-            <p className="text-xs text-ink-500">Decided by {d.decidedBy} on {d.decidedAt?.slice(0, 10)}.</p>
-            {d.decision.specVersionId && <Link className="text-sm font-semibold text-must-700 underline" to={`/specs/${d.decision.specVersionId}`}>Open the draft specification this decision started</Link>}
+            <p className="text-xs text-ink-500">
+              Decided by {d.decidedBy} on {d.decidedAt?.slice(0, 10)}.
+            </p>
+            {d.decision.specVersionId && (
+              <Link className="text-sm font-semibold text-must-700 underline" to={`/specs/${d.decision.specVersionId}`}>
+                Open the draft specification this decision started
+              </Link>
+            )}
           </Card>
         )}
         <Card title="Discussion">
           <Thread orgId={orgId} d={d} parentId={null} depth={0} />
           {d.messages.length === 0 && <p className="mb-3 text-sm text-ink-500">No message yet.</p>}
-          {d.actions.comment && <div className="mt-4"><MessageComposer orgId={orgId} deviation={d} /></div>}
+          {d.actions.comment && (
+            <div className="mt-4">
+              <MessageComposer orgId={orgId} deviation={d} />
+            </div>
+          )}
         </Card>
         {d.actions.decide && <DecisionCard orgId={orgId} d={d} />}
         {d.actions.close && <CloseCard orgId={orgId} d={d} />}
         {d.side === "laboratory" ? (
-          <Notice>The laboratory reads this deviation because its audit opened it; the buyer and the producer discuss and decide it.</Notice>
+          <Notice>
+            The laboratory reads this deviation because its audit opened it; the buyer and the producer discuss and decide it.
+          </Notice>
         ) : (
           <HistoryPanel orgId={orgId} entityType="deviation" entityId={d.id} />
         )}
@@ -76,7 +127,9 @@ export function DeviationPage() {
 }
 
 function Thread({ orgId, d, parentId, depth }: { orgId: number; d: DeviationDetail; parentId: number | null; depth: number }) {
-  const children = d.messages.filter((m) => m.parentId === parentId || (parentId === null && m.parentId !== null && !d.messages.some((x) => x.id === m.parentId)));
+  const children = d.messages.filter(
+    (m) => m.parentId === parentId || (parentId === null && m.parentId !== null && !d.messages.some((x) => x.id === m.parentId)),
+  );
   if (!children.length) return null;
   return (
     <ul className={`flex flex-col gap-3 ${depth ? "ml-6 border-l-2 border-line pl-4" : ""}`}>
@@ -98,29 +151,46 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
   const edit = useEditMessage(orgId, d.id);
   const accept = usePostMessage(orgId, d.id);
   const confirm = useConfirm();
-  const tone = m.kind === "decision" ? "border-must-700 bg-must-50" : m.side === "buyer" ? "border-line bg-card" : "border-verjus-700/30 bg-verjus-50";
+  const tone =
+    m.kind === "decision" ? "border-must-700 bg-must-50" : m.side === "buyer" ? "border-line bg-card" : "border-verjus-700/30 bg-verjus-50";
   return (
     <article className={`rounded-md border px-3 py-2 text-sm ${tone}`} aria-label={`${m.kind} by ${m.author}`}>
       <p className="text-xs text-ink-500">
         {m.author}, {m.organisation} · {new Date(m.createdAt).toLocaleString("en-GB")} · <strong>{m.kind}</strong>
         {m.editedAt && (
-          <button type="button" className="ml-2 underline" onClick={() => setShowHistory((v) => !v)}>edited ({m.edits.length})</button>
+          <button type="button" className="ml-2 underline" onClick={() => setShowHistory((v) => !v)}>
+            edited ({m.edits.length})
+          </button>
         )}
       </p>
       {m.proposal && (
         <p className="font-semibold">
           {DEVIATION_OUTCOME_LABELS[m.proposal.outcome]}
-          {m.proposal.conditions.length > 0 && ` — ${m.proposal.conditions.map((c) => `${CONDITION_LABELS[c.kind]}: ${c.detail}`).join("; ")}`}
+          {m.proposal.conditions.length > 0 &&
+            ` — ${m.proposal.conditions.map((c) => `${CONDITION_LABELS[c.kind]}: ${c.detail}`).join("; ")}`}
         </p>
       )}
-      {m.quote && <blockquote className="my-1 border-l-4 border-ochre-700/40 pl-2 text-xs">{findParameter(m.quote.parameter)?.name}: {m.quote.resultText} ({m.quote.outcome})</blockquote>}
+      {m.quote && (
+        <blockquote className="my-1 border-l-4 border-ochre-700/40 pl-2 text-xs">
+          {findParameter(m.quote.parameter)?.name}: {m.quote.resultText} ({m.quote.outcome})
+        </blockquote>
+      )}
       {editing ? (
         <div className="flex flex-col gap-2">
-          <label className="sr-only" htmlFor={`edit-${m.id}`}>Edit your message</label>
-          <textarea id={`edit-${m.id}`} className="rounded border border-line px-2 py-1" value={text} onChange={(e) => setText(e.target.value)} />
+          <label className="sr-only" htmlFor={`edit-${m.id}`}>
+            Edit your message
+          </label>
+          <textarea
+            id={`edit-${m.id}`}
+            className="rounded border border-line px-2 py-1"
+            value={text}
+            onChange={(e) => setText(e.target.value)}
+          />
           <div className="flex gap-2">
             <Button onClick={() => edit.mutate({ messageId: m.id, body: text }, { onSuccess: () => setEditing(false) })}>Save</Button>
-            <Button variant="quiet" onClick={() => setEditing(false)}>Cancel</Button>
+            <Button variant="quiet" onClick={() => setEditing(false)}>
+              Cancel
+            </Button>
           </div>
         </div>
       ) : (
@@ -128,17 +198,31 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
       )}
       {showHistory && (
         <ul className="mt-1 text-xs text-ink-500">
-          {m.edits.map((e, i) => <li key={i}>Before {e.editedAt.replace("T", " ").slice(0, 16)}: “{e.previousBody}”</li>)}
+          {m.edits.map((e, i) => (
+            <li key={i}>
+              Before {e.editedAt.replace("T", " ").slice(0, 16)}: “{e.previousBody}”
+            </li>
+          ))}
         </ul>
       )}
       {m.attachments.map((a) => (
-        <a key={a.id} href={attachmentUrl(orgId, a.id)} className="block text-xs font-semibold text-must-700 underline">{a.originalName} ({Math.max(1, Math.round(a.sizeBytes / 1024))} KB)</a>
+        <a key={a.id} href={attachmentUrl(orgId, a.id)} className="block text-xs font-semibold text-must-700 underline">
+          {a.originalName} ({Math.max(1, Math.round(a.sizeBytes / 1024))} KB)
+        </a>
       ))}
       {m.mine && d.actions.comment && <AttachFile orgId={orgId} deviationId={d.id} messageId={m.id} />}
       {accept.isError && <Notice tone="error">{errorMessage(accept.error)}</Notice>}
       <div className="mt-1 flex flex-wrap gap-3 text-xs font-semibold">
-        {d.actions.comment && <button type="button" className="text-must-700 underline" onClick={() => setReplying((v) => !v)}>Reply<span className="sr-only"> to {m.author}</span></button>}
-        {m.mine && d.actions.comment && m.kind !== "decision" && <button type="button" className="text-must-700 underline" onClick={() => setEditing(true)}>Edit</button>}
+        {d.actions.comment && (
+          <button type="button" className="text-must-700 underline" onClick={() => setReplying((v) => !v)}>
+            Reply<span className="sr-only"> to {m.author}</span>
+          </button>
+        )}
+        {m.mine && d.actions.comment && m.kind !== "decision" && (
+          <button type="button" className="text-must-700 underline" onClick={() => setEditing(true)}>
+            Edit
+          </button>
+        )}
         {m.kind === "proposal" && !m.mine && m.side !== d.side && d.actions.accept && (
           <button
             type="button"
@@ -149,7 +233,10 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
                 consequence: (
                   <>
                     <p className="font-semibold">{m.proposal ? proposalText(m.proposal) : "The proposal"}.</p>
-                    <p className="mt-2">Both sides are then agreed; the discussion waits for the buyer's technologist to record the decision, and this acceptance cannot be taken back.</p>
+                    <p className="mt-2">
+                      Both sides are then agreed; the discussion waits for the buyer's technologist to record the decision, and this
+                      acceptance cannot be taken back.
+                    </p>
                   </>
                 ),
                 confirmLabel: "Accept the proposal",
@@ -162,7 +249,11 @@ function Message({ orgId, d, m }: { orgId: number; d: DeviationDetail; m: Messag
         )}
         {confirm.dialog}
       </div>
-      {replying && <div className="mt-2"><MessageComposer orgId={orgId} deviation={d} parentId={m.id} onDone={() => setReplying(false)} /></div>}
+      {replying && (
+        <div className="mt-2">
+          <MessageComposer orgId={orgId} deviation={d} parentId={m.id} onDone={() => setReplying(false)} />
+        </div>
+      )}
     </article>
   );
 }
@@ -173,7 +264,9 @@ function AttachFile({ orgId, deviationId, messageId }: { orgId: number; deviatio
   const id = `attach-${messageId}`;
   return (
     <div className="mt-1 text-xs">
-      <label htmlFor={id} className="font-semibold">Attach a PDF or image</label>{" "}
+      <label htmlFor={id} className="font-semibold">
+        Attach a PDF or image
+      </label>{" "}
       <input
         id={id}
         type="file"
@@ -192,7 +285,11 @@ function AttachFile({ orgId, deviationId, messageId }: { orgId: number; deviatio
           }
         }}
       />
-      {error && <span role="alert" className="block font-semibold text-alarm-700">{error}</span>}
+      {error && (
+        <span role="alert" className="block font-semibold text-alarm-700">
+          {error}
+        </span>
+      )}
     </div>
   );
 }
@@ -206,11 +303,29 @@ function DecisionCard({ orgId, d }: { orgId: number; d: DeviationDetail }) {
   const [reason, setReason] = useState("");
   return (
     <Card title="Decide">
-      <p className="mb-3 text-sm text-ink-700">Only you, as the buyer's technologist, decide. The decision needs a reason and ends the discussion.</p>
+      <p className="mb-3 text-sm text-ink-700">
+        Only you, as the buyer's technologist, decide. The decision needs a reason and ends the discussion.
+      </p>
       {decide.isError && <Notice tone="error">{errorMessage(decide.error)}</Notice>}
-      <ProposalFields idPrefix="decision" outcome={outcome} conditions={conditions} onChange={(o, c) => { setOutcome(o); setConditions(c); }} />
-      <label htmlFor="decision-reason" className="mt-3 block text-sm font-semibold">Reason</label>
-      <textarea id="decision-reason" rows={3} className="w-full rounded-md border border-line px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
+      <ProposalFields
+        idPrefix="decision"
+        outcome={outcome}
+        conditions={conditions}
+        onChange={(o, c) => {
+          setOutcome(o);
+          setConditions(c);
+        }}
+      />
+      <label htmlFor="decision-reason" className="mt-3 block text-sm font-semibold">
+        Reason
+      </label>
+      <textarea
+        id="decision-reason"
+        rows={3}
+        className="w-full rounded-md border border-line px-2 py-1"
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+      />
       <div className="mt-3">
         <ConfirmButton
           disabled={decide.isPending || reason.trim().length < 10}
@@ -219,11 +334,17 @@ function DecisionCard({ orgId, d }: { orgId: number; d: DeviationDetail }) {
             consequence: (
               <>
                 <p className="font-semibold">{proposalText({ outcome, conditions })}.</p>
-                <p className="mt-2">The decision is final: it ends the discussion, both parties are notified, and lot {d.lotCode}'s status follows it.</p>
+                <p className="mt-2">
+                  The decision is final: it ends the discussion, both parties are notified, and lot {d.lotCode}'s status follows it.
+                </p>
               </>
             ),
             confirmLabel: "Record the decision",
-            onConfirm: () => decide.mutate({ outcome, conditions, reason }, { onSuccess: (r) => r.specVersionId && navigate(`/specs/${r.specVersionId}`) }),
+            onConfirm: () =>
+              decide.mutate(
+                { outcome, conditions, reason },
+                { onSuccess: (r) => r.specVersionId && navigate(`/specs/${r.specVersionId}`) },
+              ),
           }}
         >
           Record the decision
@@ -239,7 +360,9 @@ function CloseCard({ orgId, d }: { orgId: number; d: DeviationDetail }) {
     <Card title="Close">
       <p className="mb-3 text-sm">Close the deviation once the decision's conditions are met.</p>
       {close.isError && <Notice tone="error">{errorMessage(close.error)}</Notice>}
-      <Button variant="secondary" onClick={() => close.mutate()} disabled={close.isPending}>Close the deviation</Button>
+      <Button variant="secondary" onClick={() => close.mutate()} disabled={close.isPending}>
+        Close the deviation
+      </Button>
     </Card>
   );
 }

@@ -6,21 +6,50 @@ import { deviationsQuery } from "./api/deviations.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
-import { DEVIATION_KIND_LABELS, DEVIATION_STATUSES, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
+import {
+  DEVIATION_KIND_LABELS,
+  DEVIATION_STATUSES,
+  DEVIATION_OUTCOME_LABELS,
+  DEVIATION_STATUS_LABELS,
+} from "../../../shared/deviations/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 
 export function DeviationsPage() {
   const { orgId } = useOrganisation();
   const [params, set] = useFilterParams();
-  const f = { status: params.get("status") ?? undefined, overdue: params.get("overdue") ?? undefined, contract: params.get("contract") ?? undefined };
+  const f = {
+    status: params.get("status") ?? undefined,
+    overdue: params.get("overdue") ?? undefined,
+    contract: params.get("contract") ?? undefined,
+  };
   const list = useQuery({ ...deviationsQuery(orgId, f) });
   return (
     <>
-      <PageHeader title="Deviations" lead="Results outside the agreed specification, transit drift and deviations opened by hand, until the buyer decides." />
+      <PageHeader
+        title="Deviations"
+        lead="Results outside the agreed specification, transit drift and deviations opened by hand, until the buyer decides."
+      />
       <Card>
         <div className="mb-4 grid gap-3 md:grid-cols-3">
-          <SelectField label="Status" value={f.status ?? ""} onChange={(e) => set("status", e.target.value)} options={[{ value: "", label: "Any status" }, ...DEVIATION_STATUSES.map((s) => ({ value: s, label: DEVIATION_STATUS_LABELS[s] }))]} />
-          <SelectField label="Response" value={f.overdue ?? ""} onChange={(e) => set("overdue", e.target.value)} options={[{ value: "", label: "All" }, { value: "true", label: "Overdue only" }, { value: "false", label: "Not overdue" }]} />
+          <SelectField
+            label="Status"
+            value={f.status ?? ""}
+            onChange={(e) => set("status", e.target.value)}
+            options={[
+              { value: "", label: "Any status" },
+              ...DEVIATION_STATUSES.map((s) => ({ value: s, label: DEVIATION_STATUS_LABELS[s] })),
+            ]}
+          />
+          <SelectField
+            label="Response"
+            value={f.overdue ?? ""}
+            onChange={(e) => set("overdue", e.target.value)}
+            options={[
+              { value: "", label: "All" },
+              { value: "true", label: "Overdue only" },
+              { value: "false", label: "Not overdue" },
+            ]}
+          />
         </div>
         {list.isPending && <LoadingState />}
         {list.isError && <ErrorState error={list.error} onRetry={() => list.refetch()} />}
@@ -28,15 +57,34 @@ export function DeviationsPage() {
         {list.data && list.data.length > 0 && (
           <table className="w-full text-left text-sm">
             <thead className="border-b border-line text-ink-500">
-              <tr>{["#", "Lot", "Wine", "Parameters", "Status", "Respond by"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+              <tr>
+                {["#", "Lot", "Wine", "Parameters", "Status", "Respond by"].map((h) => (
+                  <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                    {h}
+                  </th>
+                ))}
+              </tr>
             </thead>
             <tbody>
               {list.data.map((d) => (
                 <tr key={d.id} className="border-b border-line/60">
-                  <td className="py-2 pr-3"><Link to={`/deviations/${d.id}`} className="font-semibold text-must-700 underline">#{d.id}</Link></td>
-                  <td className="py-2 pr-3">{d.lotCode}<span className="block text-xs text-ink-500">{d.vintage}</span></td>
-                  <td className="py-2 pr-3">{d.wineName}<span className="block text-xs text-ink-500">{d.producerName}</span></td>
-                  <td className="py-2 pr-3">{d.parameters.map((p) => findParameter(p)?.name ?? p).join(", ") || "—"}<span className="block text-xs text-ink-500">{DEVIATION_KIND_LABELS[d.kind]}</span></td>
+                  <td className="py-2 pr-3">
+                    <Link to={`/deviations/${d.id}`} className="font-semibold text-must-700 underline">
+                      #{d.id}
+                    </Link>
+                  </td>
+                  <td className="py-2 pr-3">
+                    {d.lotCode}
+                    <span className="block text-xs text-ink-500">{d.vintage}</span>
+                  </td>
+                  <td className="py-2 pr-3">
+                    {d.wineName}
+                    <span className="block text-xs text-ink-500">{d.producerName}</span>
+                  </td>
+                  <td className="py-2 pr-3">
+                    {d.parameters.map((p) => findParameter(p)?.name ?? p).join(", ") || "—"}
+                    <span className="block text-xs text-ink-500">{DEVIATION_KIND_LABELS[d.kind]}</span>
+                  </td>
                   <td className="py-2 pr-3">
                     {DEVIATION_STATUS_LABELS[d.status]}
                     {d.outcome && <span className="block text-xs text-ink-500">{DEVIATION_OUTCOME_LABELS[d.outcome]}</span>}

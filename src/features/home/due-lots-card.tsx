@@ -9,8 +9,18 @@ import { dueLotsQuery } from "./api/due-lots.ts";
 
 export function DueLotsCard({ orgId }: { orgId: number }) {
   const due = useQuery(dueLotsQuery(orgId));
-  if (due.isPending) return <Card title="Lots due soon"><LoadingState /></Card>;
-  if (due.isError) return <Card title="Lots due soon"><ErrorState error={due.error} onRetry={() => due.refetch()} /></Card>;
+  if (due.isPending)
+    return (
+      <Card title="Lots due soon">
+        <LoadingState />
+      </Card>
+    );
+  if (due.isError)
+    return (
+      <Card title="Lots due soon">
+        <ErrorState error={due.error} onRetry={() => due.refetch()} />
+      </Card>
+    );
   const byStatus = new Map<string, { status: LotStatus; count: number }>();
   for (const row of due.data) byStatus.set(row.status.code, { status: row.status, count: (byStatus.get(row.status.code)?.count ?? 0) + 1 });
   const open = due.data.reduce((n, r) => n + r.status.openDeviations, 0);
@@ -28,8 +38,14 @@ export function DueLotsCard({ orgId }: { orgId: number }) {
           ))}
         </ul>
       )}
-      {open > 0 && <p className="mt-3 text-sm text-alarm-700">{open === 1 ? "1 deviation is still open on them." : `${open} deviations are still open on them.`}</p>}
-      <Link to="/readiness" className="mt-4 inline-block text-sm font-semibold text-must-700 underline">The readiness board</Link>
+      {open > 0 && (
+        <p className="mt-3 text-sm text-alarm-700">
+          {open === 1 ? "1 deviation is still open on them." : `${open} deviations are still open on them.`}
+        </p>
+      )}
+      <Link to="/readiness" className="mt-4 inline-block text-sm font-semibold text-must-700 underline">
+        The readiness board
+      </Link>
     </Card>
   );
 }

@@ -27,7 +27,10 @@ export function HomePage() {
   const { user, membership } = useSignedIn();
   return (
     <>
-      <PageHeader title={`Welcome, ${user.name.split(" ")[0]}`} lead="Cellarpact keeps buyers and producers on the same technical specification, lot after lot." />
+      <PageHeader
+        title={`Welcome, ${user.name.split(" ")[0]}`}
+        lead="Cellarpact keeps buyers and producers on the same technical specification, lot after lot."
+      />
       <div className="grid gap-6 md:grid-cols-2">
         {membership ? (
           <Card title={membership.organisationName}>
@@ -47,10 +50,14 @@ export function HomePage() {
             {user.isPlatformAdmin ? "As platform admin you can open organisations." : "Ask an organisation admin to invite you."}
           </EmptyState>
         )}
-        {membership && ["buyer_technologist", "producer_quality"].includes(membership.role) && <DueLotsCard orgId={membership.organisationId} />}
+        {membership && ["buyer_technologist", "producer_quality"].includes(membership.role) && (
+          <DueLotsCard orgId={membership.organisationId} />
+        )}
         {user.isPlatformAdmin && (
           <Card title="Platform administration">
-            <p className="text-sm text-ink-700">Open organisations for new retailers, producers and laboratories, and check the trail's hash chain.</p>
+            <p className="text-sm text-ink-700">
+              Open organisations for new retailers, producers and laboratories, and check the trail's hash chain.
+            </p>
             <Link to="/platform/organisations" className="mt-4 inline-block text-sm font-semibold text-must-700 underline">
               Organisations
             </Link>

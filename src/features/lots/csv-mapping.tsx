@@ -27,13 +27,29 @@ function roleFrom(value: string, header: string): ColumnRole {
   return { kind: value } as ColumnRole;
 }
 
-export function CsvMapping({ headers, sample, mapping, onChange }: { headers: string[]; sample: string[][]; mapping: ColumnRole[]; onChange: (m: ColumnRole[]) => void }) {
+export function CsvMapping({
+  headers,
+  sample,
+  mapping,
+  onChange,
+}: {
+  headers: string[];
+  sample: string[][];
+  mapping: ColumnRole[];
+  onChange: (m: ColumnRole[]) => void;
+}) {
   const set = (i: number, role: ColumnRole) => onChange(mapping.map((m, j) => (j === i ? role : m)));
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm">
         <thead className="border-b border-line text-ink-500">
-          <tr>{["Column in the file", "First values", "Means", "Unit"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+          <tr>
+            {["Column in the file", "First values", "Means", "Unit"].map((h) => (
+              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody>
           {headers.map((h, i) => {
@@ -42,17 +58,36 @@ export function CsvMapping({ headers, sample, mapping, onChange }: { headers: st
             return (
               <tr key={`${h}-${i}`} className="border-b border-line/60">
                 <td className="py-2 pr-3 font-semibold">{h || `(column ${i + 1})`}</td>
-                <td className="py-2 pr-3 text-ink-500">{sample.slice(0, 3).map((r) => r[i]).filter(Boolean).join(" · ")}</td>
+                <td className="py-2 pr-3 text-ink-500">
+                  {sample
+                    .slice(0, 3)
+                    .map((r) => r[i])
+                    .filter(Boolean)
+                    .join(" · ")}
+                </td>
                 <td className="py-2 pr-3">
-                  <label className="sr-only" htmlFor={`map-${i}`}>Meaning of column {h}</label>
-                  <select id={`map-${i}`} className="w-72 rounded border border-line px-2 py-1" value={roleValue(role)} onChange={(e) => set(i, roleFrom(e.target.value, h))}>
-                    {ROLE_OPTIONS.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+                  <label className="sr-only" htmlFor={`map-${i}`}>
+                    Meaning of column {h}
+                  </label>
+                  <select
+                    id={`map-${i}`}
+                    className="w-72 rounded border border-line px-2 py-1"
+                    value={roleValue(role)}
+                    onChange={(e) => set(i, roleFrom(e.target.value, h))}
+                  >
+                    {ROLE_OPTIONS.map((o) => (
+                      <option key={o.value} value={o.value}>
+                        {o.label}
+                      </option>
+                    ))}
                   </select>
                 </td>
                 <td className="py-2 pr-3">
                   {role.kind === "parameter" && p && (
                     <>
-                      <label className="sr-only" htmlFor={`unit-${i}`}>Unit of column {h}</label>
+                      <label className="sr-only" htmlFor={`unit-${i}`}>
+                        Unit of column {h}
+                      </label>
                       <select
                         id={`unit-${i}`}
                         className="rounded border border-line px-2 py-1"
@@ -61,11 +96,17 @@ export function CsvMapping({ headers, sample, mapping, onChange }: { headers: st
                         onChange={(e) => set(i, { ...role, unit: (e.target.value || null) as UnitId | null })}
                       >
                         {role.unit === null && <option value="">Choose the unit…</option>}
-                        {p.units.map((u) => <option key={u} value={u}>{UNITS[u as UnitId].label}</option>)}
+                        {p.units.map((u) => (
+                          <option key={u} value={u}>
+                            {UNITS[u as UnitId].label}
+                          </option>
+                        ))}
                       </select>
                       {role.unit === null && (
                         <span role="alert" className="block text-xs font-semibold text-alarm-700">
-                          {role.headerUnit ? `"${role.headerUnit}" is not a unit for ${p.name}; choose one.` : "The header does not say; choose the unit."}
+                          {role.headerUnit
+                            ? `"${role.headerUnit}" is not a unit for ${p.name}; choose one.`
+                            : "The header does not say; choose the unit."}
                         </span>
                       )}
                     </>

@@ -23,15 +23,29 @@ export function entryResults(requirements: readonly RequirementView[], lines: Re
     .map((r) => {
       const l = lines[r.parameter]!;
       const u = l.u.trim() ? parseDecimal(l.u) : null;
-      return { parameter: r.parameter, raw: l.raw.trim(), unit: l.unit as UnitId, uncertainty: u === null ? null : { kind: "expanded", value: u, k: 2 }, method: r.method };
+      return {
+        parameter: r.parameter,
+        raw: l.raw.trim(),
+        unit: l.unit as UnitId,
+        uncertainty: u === null ? null : { kind: "expanded", value: u, k: 2 },
+        method: r.method,
+      };
     });
 }
 
 export const judgeForLot = (lot: Pick<LotDetail, "contract" | "vintage" | "market" | "governing">): Judge =>
-  judgeFor({ wine: lot.contract.wine, lot: { vintage: lot.vintage, market: lot.market }, requirements: lot.governing?.requirements ?? null });
+  judgeFor({
+    wine: lot.contract.wine,
+    lot: { vintage: lot.vintage, market: lot.market },
+    requirements: lot.governing?.requirements ?? null,
+  });
 
 /** The judgement, with the results as read for it: the form shows parse errors and plausibility from the same reading. */
-export function previewJudgement(judge: Judge, stage: AnalysisStage, results: readonly ResultEntry[]): Judgement & { read: readonly ReadResult[] } {
+export function previewJudgement(
+  judge: Judge,
+  stage: AnalysisStage,
+  results: readonly ResultEntry[],
+): Judgement & { read: readonly ReadResult[] } {
   const read = results.map((r) => readResult(r));
   return { ...judgeAnalysis(judge, stage, read), read };
 }

@@ -102,7 +102,14 @@ export function ImportPage() {
     try {
       for (let i = 0; i < total; i += IMPORT_BATCH_MAX) {
         const batch = preview.samples.slice(i, i + IMPORT_BATCH_MAX).map(({ rows: _rows, ...s }) => s);
-        const r = await importBatch(orgId, Number(contractId), { idempotencyKey: `${importId}-${i}`, stage, laboratoryName: lab, accreditation: accreditation || null, numberFormat: numberFormat || null, samples: batch });
+        const r = await importBatch(orgId, Number(contractId), {
+          idempotencyKey: `${importId}-${i}`,
+          stage,
+          laboratoryName: lab,
+          accreditation: accreditation || null,
+          numberFormat: numberFormat || null,
+          samples: batch,
+        });
         summary.analyses += r.analyses;
         summary.lotsCreated += r.lotsCreated;
         summary.samples.push(...r.samples);
@@ -121,25 +128,58 @@ export function ImportPage() {
   const busy = sent !== null && outcome === null && error === null;
   return (
     <>
-      <PageHeader title={`Import results for ${contract.data.wine.name}`} lead={<>Contract <Link className="underline" to={`/contracts/${contract.data.id}`}>{contract.data.reference}</Link>. One row per sample with a column per parameter, or one row per result; decimal commas, semicolons and a byte-order mark are fine.</>} />
+      <PageHeader
+        title={`Import results for ${contract.data.wine.name}`}
+        lead={
+          <>
+            Contract{" "}
+            <Link className="underline" to={`/contracts/${contract.data.id}`}>
+              {contract.data.reference}
+            </Link>
+            . One row per sample with a column per parameter, or one row per result; decimal commas, semicolons and a byte-order mark are
+            fine.
+          </>
+        }
+      />
       <div className="flex flex-col gap-6">
         <Card title="1. The file and the analysis">
           <div className="grid gap-3 md:grid-cols-4">
             <div className="flex flex-col gap-1">
-              <label htmlFor="csv-file" className="text-sm font-semibold">CSV file</label>
-              <input id="csv-file" type="file" accept=".csv,text/csv,.txt" onChange={(e) => e.target.files?.[0] && readFile(e.target.files[0])} />
+              <label htmlFor="csv-file" className="text-sm font-semibold">
+                CSV file
+              </label>
+              <input
+                id="csv-file"
+                type="file"
+                accept=".csv,text/csv,.txt"
+                onChange={(e) => e.target.files?.[0] && readFile(e.target.files[0])}
+              />
             </div>
-            <SelectField label="Stage" value={stage} onChange={(e) => setStage(e.target.value as AnalysisStage)} options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))} />
+            <SelectField
+              label="Stage"
+              value={stage}
+              onChange={(e) => setStage(e.target.value as AnalysisStage)}
+              options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))}
+            />
             <TextField label="Laboratory" value={lab} onChange={(e) => chooseLab(e.target.value)} />
             <TextField label="Accreditation number" value={accreditation} onChange={(e) => setAccreditation(e.target.value)} />
-            <TextField label="Sample date when the file has none" type="date" value={sampleDate} onChange={(e) => setSampleDate(e.target.value)} />
+            <TextField
+              label="Sample date when the file has none"
+              type="date"
+              value={sampleDate}
+              onChange={(e) => setSampleDate(e.target.value)}
+            />
           </div>
           {readProgress !== null && readProgress < 1 && (
             <div className="mt-3">
               <progress className="h-2 w-full" max={1} value={readProgress} aria-label="Reading the file" />
             </div>
           )}
-          {error && <div className="mt-3"><Notice tone="error">{error}</Notice></div>}
+          {error && (
+            <div className="mt-3">
+              <Notice tone="error">{error}</Notice>
+            </div>
+          )}
         </Card>
         {parsed && (
           <Card title={`2. What the columns of ${parsed.name} mean`}>
@@ -149,16 +189,29 @@ export function ImportPage() {
         {preview && (
           <Card title="3. Check and import">
             <p className="mb-3 text-sm">
-              {parsed!.rows.length} rows read: <strong>{preview.samples.length} samples</strong> ready with {preview.samples.reduce((n, s) => n + s.results.length, 0)} results;{" "}
-              <strong>{preview.errors.length} problem(s)</strong>{preview.errors.length ? ", listed below; those rows are left out" : ""}.
+              {parsed!.rows.length} rows read: <strong>{preview.samples.length} samples</strong> ready with{" "}
+              {preview.samples.reduce((n, s) => n + s.results.length, 0)} results; <strong>{preview.errors.length} problem(s)</strong>
+              {preview.errors.length ? ", listed below; those rows are left out" : ""}.
             </p>
             {preview.errors.length > 0 && (
               <div className="mb-4 max-h-64 overflow-y-auto rounded-md border border-alarm-700/30">
                 <table className="w-full text-left text-sm">
-                  <thead className="sticky top-0 bg-alarm-50 text-alarm-700"><tr>{["Row", "Column", "Problem"].map((h) => <th key={h} scope="col" className="px-3 py-1 font-semibold">{h}</th>)}</tr></thead>
+                  <thead className="sticky top-0 bg-alarm-50 text-alarm-700">
+                    <tr>
+                      {["Row", "Column", "Problem"].map((h) => (
+                        <th key={h} scope="col" className="px-3 py-1 font-semibold">
+                          {h}
+                        </th>
+                      ))}
+                    </tr>
+                  </thead>
                   <tbody>
                     {preview.errors.slice(0, 200).map((e, i) => (
-                      <tr key={i} className="border-t border-line/60"><td className="px-3 py-1 tabular-nums">{e.row || "—"}</td><td className="px-3 py-1">{e.column ?? "—"}</td><td className="px-3 py-1">{e.message}</td></tr>
+                      <tr key={i} className="border-t border-line/60">
+                        <td className="px-3 py-1 tabular-nums">{e.row || "—"}</td>
+                        <td className="px-3 py-1">{e.column ?? "—"}</td>
+                        <td className="px-3 py-1">{e.message}</td>
+                      </tr>
                     ))}
                   </tbody>
                 </table>
@@ -166,14 +219,24 @@ export function ImportPage() {
             )}
             {preview.samples.length > 0 && (
               <table className="mb-4 w-full text-left text-sm">
-                <thead className="border-b border-line text-ink-500"><tr>{["Lot", "Vintage", "Sampled", "Results"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr></thead>
+                <thead className="border-b border-line text-ink-500">
+                  <tr>
+                    {["Lot", "Vintage", "Sampled", "Results"].map((h) => (
+                      <th key={h} scope="col" className="py-1 pr-3 font-semibold">
+                        {h}
+                      </th>
+                    ))}
+                  </tr>
+                </thead>
                 <tbody>
                   {preview.samples.slice(0, 10).map((s) => (
                     <tr key={`${s.lotCode}-${s.sampleDate}`} className="border-b border-line/60">
                       <td className="py-1 pr-3">{s.lotCode}</td>
                       <td className="py-1 pr-3">{s.vintage ?? "registered"}</td>
                       <td className="py-1 pr-3">{s.sampleDate}</td>
-                      <td className="py-1 pr-3 text-xs">{s.results.map((r) => `${findParameter(r.parameter)?.name} ${r.raw} ${r.unit}`).join(" · ")}</td>
+                      <td className="py-1 pr-3 text-xs">
+                        {s.results.map((r) => `${findParameter(r.parameter)?.name} ${r.raw} ${r.unit}`).join(" · ")}
+                      </td>
                     </tr>
                   ))}
                 </tbody>
@@ -182,45 +245,68 @@ export function ImportPage() {
             {ambiguous.length > 0 && (
               <div className="mb-4 flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 p-3 text-sm">
                 <p className="font-semibold text-ochre-700">
-                  Some numbers read two ways ({ambiguous.join(", ")}): a thousands separator or three decimals. How does {lab.trim() || "this laboratory"} write numbers?
+                  Some numbers read two ways ({ambiguous.join(", ")}): a thousands separator or three decimals. How does{" "}
+                  {lab.trim() || "this laboratory"} write numbers?
                 </p>
                 <div className="max-w-sm">
                   <SelectField
                     label="The laboratory's number format"
                     value={numberFormat}
                     onChange={(e) => chooseFormat(e.target.value as NumberFormat | "")}
-                    options={[{ value: "", label: "Choose…" }, ...NUMBER_FORMATS.map((f) => ({ value: f, label: NUMBER_FORMAT_LABELS[f] }))]}
+                    options={[
+                      { value: "", label: "Choose…" },
+                      ...NUMBER_FORMATS.map((f) => ({ value: f, label: NUMBER_FORMAT_LABELS[f] })),
+                    ]}
                   />
                 </div>
               </div>
             )}
             {preview.implausible.length > 0 && (
               <div className="mb-4 flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 p-3 text-sm">
-                <p className="font-semibold text-ochre-700">{preview.implausible.length === 1 ? "1 value looks implausible" : `${preview.implausible.length} values look implausible`}: check the unit of each column before sending.</p>
+                <p className="font-semibold text-ochre-700">
+                  {preview.implausible.length === 1 ? "1 value looks implausible" : `${preview.implausible.length} values look implausible`}
+                  : check the unit of each column before sending.
+                </p>
                 <ul className="max-h-40 overflow-y-auto">
                   {preview.implausible.slice(0, 100).map((f, i) => (
-                    <li key={i}>Row {f.row}, {f.column}: {f.message}</li>
+                    <li key={i}>
+                      Row {f.row}, {f.column}: {f.message}
+                    </li>
                   ))}
                 </ul>
                 <label className="flex items-center gap-2 font-semibold">
-                  <input type="checkbox" checked={confirmed} onChange={(e) => setConfirmed(e.target.checked)} /> I have checked these values and their units; send them as they are.
+                  <input type="checkbox" checked={confirmed} onChange={(e) => setConfirmed(e.target.checked)} /> I have checked these values
+                  and their units; send them as they are.
                 </label>
               </div>
             )}
-            <Button onClick={() => void send()} disabled={busy || preview.samples.length === 0 || lab.trim().length < 2 || (preview.implausible.length > 0 && !confirmed) || (ambiguous.length > 0 && !numberFormat)}>
+            <Button
+              onClick={() => void send()}
+              disabled={
+                busy ||
+                preview.samples.length === 0 ||
+                lab.trim().length < 2 ||
+                (preview.implausible.length > 0 && !confirmed) ||
+                (ambiguous.length > 0 && !numberFormat)
+              }
+            >
               {busy ? "Importing…" : `Import ${preview.samples.length} samples`}
             </Button>
             {lab.trim().length < 2 && <p className="mt-1 text-xs text-ink-500">Name the laboratory first.</p>}
             {sent && (
               <div className="mt-3">
                 <progress className="h-2 w-full" max={Math.max(sent.total, 1)} value={sent.done} aria-label="Import progress" />
-                <p className="text-xs text-ink-500" role="status">{sent.done} of {sent.total} samples stored</p>
+                <p className="text-xs text-ink-500" role="status">
+                  {sent.done} of {sent.total} samples stored
+                </p>
               </div>
             )}
             {outcome && (
               <div className="mt-4 flex flex-col gap-2">
                 <ImportSummary outcome={outcome} />
-                <Link to={`/lots?contract=${contractId}`} className="text-sm font-semibold text-must-700 underline">See the lots</Link>
+                <Link to={`/lots?contract=${contractId}`} className="text-sm font-semibold text-must-700 underline">
+                  See the lots
+                </Link>
               </div>
             )}
           </Card>

@@ -6,22 +6,35 @@ import { Notice } from "../../components/ui/states.tsx";
 
 const names = (ps: string[]) => ps.map((p) => findParameter(p)?.name ?? p).join(", ");
 
-export function ImportSummary({ outcome }: { outcome: { analyses: number; lotsCreated: number; samples: ImportResult["samples"]; failing: ImportResult["failing"] } }) {
+export function ImportSummary({
+  outcome,
+}: {
+  outcome: { analyses: number; lotsCreated: number; samples: ImportResult["samples"]; failing: ImportResult["failing"] };
+}) {
   const total: OutcomeCounts = {};
-  for (const s of outcome.samples) for (const o of OUTCOME_RANK) if (s.counts[o]) total[o as Outcome] = (total[o as Outcome] ?? 0) + s.counts[o]!;
+  for (const s of outcome.samples)
+    for (const o of OUTCOME_RANK) if (s.counts[o]) total[o as Outcome] = (total[o as Outcome] ?? 0) + s.counts[o]!;
   const clean = outcome.samples.filter((s) => Object.keys(s.counts).every((o) => o === "pass")).length;
   const failingBy = new Map(outcome.failing.map((f) => [f.analysisId, f.parameters]));
   return (
     <>
       <Notice tone={outcome.failing.length ? "error" : clean === outcome.samples.length ? "success" : "info"}>
-        {outcome.analyses} analyses stored{outcome.lotsCreated ? `, ${outcome.lotsCreated} new lots registered` : ""}. Results: {countsText(total)}.{" "}
-        {clean} of {outcome.samples.length} samples pass on every required parameter
-        {outcome.failing.length ? `; ${outcome.failing.length} ${outcome.failing.length === 1 ? "falls" : "fall"} outside the specification and deviations were opened.` : "."}
+        {outcome.analyses} analyses stored{outcome.lotsCreated ? `, ${outcome.lotsCreated} new lots registered` : ""}. Results:{" "}
+        {countsText(total)}. {clean} of {outcome.samples.length} samples pass on every required parameter
+        {outcome.failing.length
+          ? `; ${outcome.failing.length} ${outcome.failing.length === 1 ? "falls" : "fall"} outside the specification and deviations were opened.`
+          : "."}
       </Notice>
       <table className="w-full text-left text-sm">
         <caption className="sr-only">What was stored for each sample</caption>
         <thead className="border-b border-line text-ink-500">
-          <tr>{["Lot", "Results stored", "Failing"].map((h) => <th key={h} scope="col" className="py-1 pr-3 font-semibold">{h}</th>)}</tr>
+          <tr>
+            {["Lot", "Results stored", "Failing"].map((h) => (
+              <th key={h} scope="col" className="py-1 pr-3 font-semibold">
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody>
           {outcome.samples.slice(0, 100).map((s) => (
@@ -33,7 +46,9 @@ export function ImportSummary({ outcome }: { outcome: { analyses: number; lotsCr
           ))}
         </tbody>
       </table>
-      {outcome.samples.length > 100 && <p className="text-xs text-ink-500">First 100 samples of {outcome.samples.length} shown; every lot's page has its own.</p>}
+      {outcome.samples.length > 100 && (
+        <p className="text-xs text-ink-500">First 100 samples of {outcome.samples.length} shown; every lot's page has its own.</p>
+      )}
     </>
   );
 }

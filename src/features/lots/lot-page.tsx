@@ -37,15 +37,26 @@ export function LotPage() {
           <>
             {l.wineName}, vintage {l.vintage} · {CONTAINER_LABELS[l.container]}
             {l.volumeLitres ? `, ${l.volumeLitres.toLocaleString("en-GB")} L` : ""} · for {l.market} · contract{" "}
-            <Link to={`/contracts/${l.contractId}`} className="underline">{l.contractReference}</Link> ({l.producerName})
+            <Link to={`/contracts/${l.contractId}`} className="underline">
+              {l.contractReference}
+            </Link>{" "}
+            ({l.producerName})
           </>
         }
         actions={
           <div className="flex items-center gap-3">
             <LotStatusBadge status={l.status} />
-            <Link to={`/contracts/${l.contractId}/trends`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Trends</Link>
+            <Link
+              to={`/contracts/${l.contractId}/trends`}
+              className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50"
+            >
+              Trends
+            </Link>
             {l.status.code !== "awaiting_results" && (
-              <a href={conformityUrl(orgId, l.id)} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">
+              <a
+                href={conformityUrl(orgId, l.id)}
+                className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50"
+              >
                 {CERTIFIABLE.includes(l.status.code) ? "Certificate of conformity (PDF)" : "Analysis statement (PDF)"}
               </a>
             )}
@@ -59,20 +70,30 @@ export function LotPage() {
         <Card title="Specification in force">
           {l.governing ? (
             <p className="text-sm">
-              <Link to={`/specs/${l.governing.id}`} className="font-semibold text-must-700 underline">Version {l.governing.number}</Link>, agreed, covers vintages {l.governing.vintageFrom}
+              <Link to={`/specs/${l.governing.id}`} className="font-semibold text-must-700 underline">
+                Version {l.governing.number}
+              </Link>
+              , agreed, covers vintages {l.governing.vintageFrom}
               {l.governing.vintageTo ? `–${l.governing.vintageTo}` : " onwards"} with {l.governing.requirements.length} requirements.
             </p>
           ) : (
-            <EmptyState title={`No agreed specification covers vintage ${l.vintage}.`}>Results are stored but cannot be judged until a version is agreed.</EmptyState>
+            <EmptyState title={`No agreed specification covers vintage ${l.vintage}.`}>
+              Results are stored but cannot be judged until a version is agreed.
+            </EmptyState>
           )}
         </Card>
         {l.deviations.length > 0 && (
           <Card title="Deviations">
             <ul className="flex flex-col gap-2 text-sm">
               {l.deviations.map((d) => (
-                <li key={d.id} className={`rounded-md border px-3 py-2 ${d.decision ? "border-line bg-card" : "border-alarm-700/30 bg-alarm-50"}`}>
-                  <Link to={`/deviations/${d.id}`} className={`font-semibold underline ${d.decision ? "text-must-700" : "text-alarm-700"}`}>{DEVIATION_KIND_LABELS[d.kind]} deviation #{d.id}</Link> ·{" "}
-                  {DEVIATION_STATUS_LABELS[d.status]}
+                <li
+                  key={d.id}
+                  className={`rounded-md border px-3 py-2 ${d.decision ? "border-line bg-card" : "border-alarm-700/30 bg-alarm-50"}`}
+                >
+                  <Link to={`/deviations/${d.id}`} className={`font-semibold underline ${d.decision ? "text-must-700" : "text-alarm-700"}`}>
+                    {DEVIATION_KIND_LABELS[d.kind]} deviation #{d.id}
+                  </Link>{" "}
+                  · {DEVIATION_STATUS_LABELS[d.status]}
                   {d.decision ? `: ${DEVIATION_OUTCOME_LABELS[d.decision.outcome]}` : ""} · {d.summary}
                 </li>
               ))}
@@ -82,9 +103,17 @@ export function LotPage() {
         {l.audits.map((a) => (
           <Card key={a.orderId} title={`Independent audit ${a.reference} · ${a.laboratoryName}`}>
             {a.resultsSubmittedAt ? (
-              <ComparisonTable comparisons={a.comparisons} caption={`Results in ${a.resultsSubmittedAt.slice(0, 10)}${a.reportReference ? `, report ${a.reportReference}` : ""}. The laboratory's values are the reference.`} />
+              <ComparisonTable
+                comparisons={a.comparisons}
+                caption={`Results in ${a.resultsSubmittedAt.slice(0, 10)}${a.reportReference ? `, report ${a.reportReference}` : ""}. The laboratory's values are the reference.`}
+              />
             ) : (
-              <p className="text-sm">Paid; the laboratory's results are not in yet. <Link to={`/audits/${a.orderId}`} className="font-semibold text-must-700 underline">The order</Link></p>
+              <p className="text-sm">
+                Paid; the laboratory's results are not in yet.{" "}
+                <Link to={`/audits/${a.orderId}`} className="font-semibold text-must-700 underline">
+                  The order
+                </Link>
+              </p>
             )}
           </Card>
         ))}
@@ -92,7 +121,13 @@ export function LotPage() {
           <Card title="Transit: arrival against pre-shipment">
             <table className="w-full text-left text-sm">
               <thead className="border-b border-line text-ink-500">
-                <tr>{["Parameter", "Pre-shipment", "On arrival", "Change", "Allowed", ""].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+                <tr>
+                  {["Parameter", "Pre-shipment", "On arrival", "Change", "Allowed", ""].map((h) => (
+                    <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                      {h}
+                    </th>
+                  ))}
+                </tr>
               </thead>
               <tbody>
                 {l.transit.map((f) => {
@@ -104,8 +139,14 @@ export function LotPage() {
                       <td className="py-2 pr-3 font-semibold">{f.name}</td>
                       <td className="py-2 pr-3 tabular-nums">{show(f.before)}</td>
                       <td className="py-2 pr-3 tabular-nums">{show(f.after)}</td>
-                      <td className="py-2 pr-3 tabular-nums">{f.change > 0 ? "+" : ""}{show(f.change)}</td>
-                      <td className="py-2 pr-3 text-xs">{f.allowance.direction === "either" ? "±" : f.allowance.direction === "increase" ? "+" : "−"}{show(f.allowance.allowed)} <span className="block text-ink-500">{f.allowance.basis}</span></td>
+                      <td className="py-2 pr-3 tabular-nums">
+                        {f.change > 0 ? "+" : ""}
+                        {show(f.change)}
+                      </td>
+                      <td className="py-2 pr-3 text-xs">
+                        {f.allowance.direction === "either" ? "±" : f.allowance.direction === "increase" ? "+" : "−"}
+                        {show(f.allowance.allowed)} <span className="block text-ink-500">{f.allowance.basis}</span>
+                      </td>
                       <td className="py-2 pr-3">{f.exceeded ? <OutcomeBadge outcome="fail" /> : <OutcomeBadge outcome="pass" />}</td>
                     </tr>
                   );
@@ -114,15 +155,32 @@ export function LotPage() {
             </table>
           </Card>
         )}
-        {l.analyses.length === 0 && <EmptyState title="No analysis yet.">{l.canSubmit ? "Enter results below or import a CSV from the contract page." : "The producer has not submitted results yet."}</EmptyState>}
+        {l.analyses.length === 0 && (
+          <EmptyState title="No analysis yet.">
+            {l.canSubmit ? "Enter results below or import a CSV from the contract page." : "The producer has not submitted results yet."}
+          </EmptyState>
+        )}
         {[...l.analyses].reverse().map((a) => (
-          <Card key={a.id} title={`${ANALYSIS_STAGE_LABELS[a.stage]}${a.auditOrderId ? " · independent audit" : ""}${a.rejudgedFromId ? " · re-judged" : ""} · sampled ${a.sampleDate}`}>
+          <Card
+            key={a.id}
+            title={`${ANALYSIS_STAGE_LABELS[a.stage]}${a.auditOrderId ? " · independent audit" : ""}${a.rejudgedFromId ? " · re-judged" : ""} · sampled ${a.sampleDate}`}
+          >
             <p className="mb-3 text-sm text-ink-700">
               {a.laboratoryName}
-              {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · submitted {new Date(a.createdAt).toLocaleString("en-GB")}
-              {a.evaluation && ` · judged with engine ${a.evaluation.engineVersion}, ${a.evaluation.specVersion ? `against spec version ${a.evaluation.specVersion.number}` : "with no agreed spec version"}, market packs ${Object.entries(a.evaluation.marketVersions).map(([m, v]) => `${m} ${v}`).join(", ")}`}
+              {a.accreditation ? ` (accreditation ${a.accreditation})` : " (not accredited)"} · submitted{" "}
+              {new Date(a.createdAt).toLocaleString("en-GB")}
+              {a.evaluation &&
+                ` · judged with engine ${a.evaluation.engineVersion}, ${a.evaluation.specVersion ? `against spec version ${a.evaluation.specVersion.number}` : "with no agreed spec version"}, market packs ${Object.entries(
+                  a.evaluation.marketVersions,
+                )
+                  .map(([m, v]) => `${m} ${v}`)
+                  .join(", ")}`}
             </p>
-            {a.evaluation ? <VerdictTable verdicts={a.evaluation.verdicts} reported={a.results} /> : <p className="text-sm">{a.results.map((r) => `${findParameter(r.parameter)?.name}: ${r.rawText} ${r.unit}`).join(" · ")}</p>}
+            {a.evaluation ? (
+              <VerdictTable verdicts={a.evaluation.verdicts} reported={a.results} />
+            ) : (
+              <p className="text-sm">{a.results.map((r) => `${findParameter(r.parameter)?.name}: ${r.rawText} ${r.unit}`).join(" · ")}</p>
+            )}
             <div className="mt-4 flex flex-col gap-2">
               {a.certificates.map((c) => (
                 <a key={c.id} href={certificateUrl(orgId, c.id)} className="text-sm font-semibold text-must-700 underline">
@@ -136,13 +194,17 @@ export function LotPage() {
         {["buyer_technologist", "producer_quality"].includes(membership.role) && (
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Open a deviation by hand</summary>
-            <div className="mt-3"><OpenDeviationForm orgId={orgId} lotId={l.id} parameters={l.governing?.requirements.map((r) => r.parameter) ?? []} /></div>
+            <div className="mt-3">
+              <OpenDeviationForm orgId={orgId} lotId={l.id} parameters={l.governing?.requirements.map((r) => r.parameter) ?? []} />
+            </div>
           </details>
         )}
         {l.canSubmit && (
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Correct the lot's details</summary>
-            <div className="mt-3"><LotEditForm orgId={orgId} lot={l} /></div>
+            <div className="mt-3">
+              <LotEditForm orgId={orgId} lot={l} />
+            </div>
           </details>
         )}
         <HistoryPanel orgId={orgId} entityType="lot" entityId={l.id} />

@@ -15,7 +15,12 @@ export function LotStatusCard({ orgId, lot, canRejudge }: { orgId: number; lot: 
   const s = lot.status;
   const rejudge = useRejudge(orgId, lot.id);
   const stale = lot.governing
-    ? lot.analyses.filter((a) => s.analysisIds.includes(a.id) && a.evaluation?.specVersion && (a.evaluation.specVersion.id !== lot.governing!.id || a.evaluation.factsChanged))
+    ? lot.analyses.filter(
+        (a) =>
+          s.analysisIds.includes(a.id) &&
+          a.evaluation?.specVersion &&
+          (a.evaluation.specVersion.id !== lot.governing!.id || a.evaluation.factsChanged),
+      )
     : [];
   return (
     <Card title="Status">
@@ -25,20 +30,34 @@ export function LotStatusCard({ orgId, lot, canRejudge }: { orgId: number; lot: 
         </p>
         {s.concession && (
           <div>
-            <Link to={`/deviations/${s.concession.deviationId}`} className="font-semibold text-must-700 underline">Concession on deviation #{s.concession.deviationId}</Link>
+            <Link to={`/deviations/${s.concession.deviationId}`} className="font-semibold text-must-700 underline">
+              Concession on deviation #{s.concession.deviationId}
+            </Link>
             {s.concession.conditions.length > 0 ? (
               <ul className="ml-5 list-disc">
-                {s.concession.conditions.map((c, i) => <li key={i}>{CONDITION_LABELS[c.kind]}: {c.detail}</li>)}
+                {s.concession.conditions.map((c, i) => (
+                  <li key={i}>
+                    {CONDITION_LABELS[c.kind]}: {c.detail}
+                  </li>
+                ))}
               </ul>
             ) : (
               <span> · no conditions attached.</span>
             )}
           </div>
         )}
-        {s.rejection && <Link to={`/deviations/${s.rejection.deviationId}`} className="font-semibold text-alarm-700 underline">The decision on deviation #{s.rejection.deviationId}</Link>}
+        {s.rejection && (
+          <Link to={`/deviations/${s.rejection.deviationId}`} className="font-semibold text-alarm-700 underline">
+            The decision on deviation #{s.rejection.deviationId}
+          </Link>
+        )}
         {rejudge.isError && <Notice tone="error">{errorMessage(rejudge.error)}</Notice>}
         {rejudge.isSuccess && <Notice tone="success">Re-judged and recorded: {countsText(rejudge.data.counts)}.</Notice>}
-        {s.openDeviations > 0 && <p className="text-alarm-700">{s.openDeviations === 1 ? "1 deviation is still open." : `${s.openDeviations} deviations are still open.`}</p>}
+        {s.openDeviations > 0 && (
+          <p className="text-alarm-700">
+            {s.openDeviations === 1 ? "1 deviation is still open." : `${s.openDeviations} deviations are still open.`}
+          </p>
+        )}
         {stale.map((a) => {
           const judged = a.evaluation!.specVersion!.number;
           const now = lot.governing!.number;
@@ -49,7 +68,8 @@ export function LotStatusCard({ orgId, lot, canRejudge }: { orgId: number; lot: 
           return (
             <div key={a.id} className="flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 px-3 py-2 text-ochre-700">
               <p>
-                The {ANALYSIS_STAGE_LABELS[a.stage].toLowerCase()} analysis of {a.sampleDate} {why}. Its verdict stands as judged until someone re-judges it.
+                The {ANALYSIS_STAGE_LABELS[a.stage].toLowerCase()} analysis of {a.sampleDate} {why}. Its verdict stands as judged until
+                someone re-judges it.
               </p>
               {canRejudge && (
                 <div>

@@ -28,7 +28,9 @@ export function LotsPage() {
         {membership.role === "producer_quality" && (
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Register a lot</summary>
-            <div className="mt-4"><RegisterLotForm orgId={orgId} /></div>
+            <div className="mt-4">
+              <RegisterLotForm orgId={orgId} />
+            </div>
           </details>
         )}
         <Card>
@@ -40,12 +42,28 @@ export function LotsPage() {
   );
 }
 
-function LotFilters({ orgId, filters, set }: { orgId: number; filters: { contract?: number; q?: string }; set: (k: string, v: string) => void }) {
+function LotFilters({
+  orgId,
+  filters,
+  set,
+}: {
+  orgId: number;
+  filters: { contract?: number; q?: string };
+  set: (k: string, v: string) => void;
+}) {
   const contracts = useQuery(contractsQuery(orgId));
   return (
     <div className="mb-4 grid gap-3 md:grid-cols-3">
       <TextField label="Lot code contains" type="search" defaultValue={filters.q ?? ""} onChange={(e) => set("q", e.target.value)} />
-      <SelectField label="Contract" value={filters.contract ?? ""} onChange={(e) => set("contract", e.target.value)} options={[{ value: "", label: "All contracts" }, ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.reference} · ${c.wine.name}` }))]} />
+      <SelectField
+        label="Contract"
+        value={filters.contract ?? ""}
+        onChange={(e) => set("contract", e.target.value)}
+        options={[
+          { value: "", label: "All contracts" },
+          ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.reference} · ${c.wine.name}` })),
+        ]}
+      />
     </div>
   );
 }
@@ -59,18 +77,30 @@ function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: num
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm">
         <thead className="border-b border-line text-ink-500">
-          <tr>{["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+          <tr>
+            {["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"].map((h) => (
+              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody>
           {lots.data.map((l) => (
             <tr key={l.id} className="border-b border-line/60">
-              <td className="py-2 pr-3 font-semibold"><Link to={`/lots/${l.id}`} className="text-must-700 underline">{l.lotCode}</Link></td>
+              <td className="py-2 pr-3 font-semibold">
+                <Link to={`/lots/${l.id}`} className="text-must-700 underline">
+                  {l.lotCode}
+                </Link>
+              </td>
               <td className="py-2 pr-3">{l.wineName}</td>
               <td className="py-2 pr-3 tabular-nums">{l.vintage}</td>
               <td className="py-2 pr-3">{CONTAINER_LABELS[l.container]}</td>
               <td className="py-2 pr-3 tabular-nums">{l.plannedDate ?? "—"}</td>
               <td className="py-2 pr-3">{l.latestStage ? ANALYSIS_STAGE_LABELS[l.latestStage] : "—"}</td>
-              <td className="py-2 pr-3"><LotStatusBadge status={l.status} /></td>
+              <td className="py-2 pr-3">
+                <LotStatusBadge status={l.status} />
+              </td>
               <td className="py-2 pr-3 tabular-nums">{l.status.openDeviations || "—"}</td>
             </tr>
           ))}
@@ -85,7 +115,10 @@ function RegisterLotForm({ orgId }: { orgId: number }) {
   const contracts = useQuery(contractsQuery(orgId));
   const register = useRegisterLot(orgId);
   const [error, setError] = useState<string | null>(null);
-  const form = useForm<LotInput>({ resolver: zodResolver(lotSchema), defaultValues: { vintage: new Date().getUTCFullYear() - 1, container: "bottles", market: "EU", plannedDate: null } });
+  const form = useForm<LotInput>({
+    resolver: zodResolver(lotSchema),
+    defaultValues: { vintage: new Date().getUTCFullYear() - 1, container: "bottles", market: "EU", plannedDate: null },
+  });
   const e = form.formState.errors;
   const num = (v: unknown) => (v === "" ? undefined : Number(String(v).replace(",", ".")));
   const contractId = useWatch({ control: form.control, name: "contractId" });
@@ -98,15 +131,45 @@ function RegisterLotForm({ orgId }: { orgId: number }) {
     <form
       noValidate
       className="grid gap-3 md:grid-cols-4"
-      onSubmit={form.handleSubmit((v) => register.mutate(v, { onSuccess: ({ id }) => navigate(`/lots/${id}`), onError: (err) => setError(applyServerErrors(err, form.setError, ["lotCode", "contractId", "vintage", "market"])) }))}
+      onSubmit={form.handleSubmit((v) =>
+        register.mutate(v, {
+          onSuccess: ({ id }) => navigate(`/lots/${id}`),
+          onError: (err) => setError(applyServerErrors(err, form.setError, ["lotCode", "contractId", "vintage", "market"])),
+        }),
+      )}
     >
-      {error && <div className="md:col-span-4"><Notice tone="error">{error}</Notice></div>}
-      <SelectField label="Contract" error={e.contractId?.message} options={[{ value: "", label: "Choose…" }, ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.reference} · ${c.wine.name}` }))]} {...form.register("contractId", { setValueAs: num })} />
+      {error && (
+        <div className="md:col-span-4">
+          <Notice tone="error">{error}</Notice>
+        </div>
+      )}
+      <SelectField
+        label="Contract"
+        error={e.contractId?.message}
+        options={[
+          { value: "", label: "Choose…" },
+          ...(contracts.data ?? []).map((c) => ({ value: String(c.id), label: `${c.reference} · ${c.wine.name}` })),
+        ]}
+        {...form.register("contractId", { setValueAs: num })}
+      />
       <TextField label="Lot code" error={e.lotCode?.message} {...form.register("lotCode")} />
       <TextField label="Vintage" inputMode="numeric" error={e.vintage?.message} {...form.register("vintage", { setValueAs: num })} />
-      <TextField label="Volume (litres)" inputMode="decimal" error={e.volumeLitres?.message} {...form.register("volumeLitres", { setValueAs: num })} />
-      <SelectField label="Container" options={CONTAINERS.map((c) => ({ value: c, label: CONTAINER_LABELS[c] }))} {...form.register("container")} />
-      <TextField label="Planned filling or shipping" type="date" {...form.register("plannedDate", { setValueAs: (v) => (v === "" ? null : v) })} />
+      <TextField
+        label="Volume (litres)"
+        inputMode="decimal"
+        error={e.volumeLitres?.message}
+        {...form.register("volumeLitres", { setValueAs: num })}
+      />
+      <SelectField
+        label="Container"
+        options={CONTAINERS.map((c) => ({ value: c, label: CONTAINER_LABELS[c] }))}
+        {...form.register("container")}
+      />
+      <TextField
+        label="Planned filling or shipping"
+        type="date"
+        {...form.register("plannedDate", { setValueAs: (v) => (v === "" ? null : v) })}
+      />
       <SelectField
         label="Destination market"
         error={e.market?.message}
@@ -114,7 +177,11 @@ function RegisterLotForm({ orgId }: { orgId: number }) {
         options={(chosen?.wine.markets ?? []).map((m) => ({ value: m, label: MARKET_PACKS[m].name }))}
         {...form.register("market")}
       />
-      <div className="flex items-end"><Button type="submit" disabled={register.isPending}>Register the lot</Button></div>
+      <div className="flex items-end">
+        <Button type="submit" disabled={register.isPending}>
+          Register the lot
+        </Button>
+      </div>
     </form>
   );
 }

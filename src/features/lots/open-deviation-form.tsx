@@ -27,13 +27,28 @@ export function OpenDeviationForm({ orgId, lotId, parameters }: { orgId: number;
         <legend className="mb-1 font-semibold">Parameters concerned (optional)</legend>
         {parameters.map((p) => (
           <label key={p} className="flex items-center gap-1">
-            <input type="checkbox" checked={chosen.includes(p)} onChange={(e) => setChosen(e.target.checked ? [...chosen, p] : chosen.filter((x) => x !== p))} /> {findParameter(p)?.name ?? p}
+            <input
+              type="checkbox"
+              checked={chosen.includes(p)}
+              onChange={(e) => setChosen(e.target.checked ? [...chosen, p] : chosen.filter((x) => x !== p))}
+            />{" "}
+            {findParameter(p)?.name ?? p}
           </label>
         ))}
       </fieldset>
-      <label htmlFor={`manual-reason-${lotId}`} className="font-semibold">Why</label>
-      <textarea id={`manual-reason-${lotId}`} rows={3} className="rounded-md border border-line px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
-      <Button className="self-start" disabled={open.isPending || reason.trim().length < 10} onClick={() => open.mutate()}>Open the deviation</Button>
+      <label htmlFor={`manual-reason-${lotId}`} className="font-semibold">
+        Why
+      </label>
+      <textarea
+        id={`manual-reason-${lotId}`}
+        rows={3}
+        className="rounded-md border border-line px-2 py-1"
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+      />
+      <Button className="self-start" disabled={open.isPending || reason.trim().length < 10} onClick={() => open.mutate()}>
+        Open the deviation
+      </Button>
     </div>
   );
 }

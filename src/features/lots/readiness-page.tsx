@@ -17,7 +17,10 @@ export function ReadinessPage() {
   const rows = useQuery({ ...readinessQuery(orgId) });
   return (
     <>
-      <PageHeader title="Readiness" lead="Lots due for filling or shipment in the next four months, or not yet planned: what each required stage still lacks, and what fails." />
+      <PageHeader
+        title="Readiness"
+        lead="Lots due for filling or shipment in the next four months, or not yet planned: what each required stage still lacks, and what fails."
+      />
       <Card>
         {rows.isPending && <LoadingState />}
         {rows.isError && <ErrorState error={rows.error} onRetry={() => rows.refetch()} />}
@@ -26,21 +29,42 @@ export function ReadinessPage() {
           <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">
               <thead className="border-b border-line text-ink-500">
-                <tr>{["Lot", "Wine", "Due", "Status", "Stages"].map((h) => <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>)}</tr>
+                <tr>
+                  {["Lot", "Wine", "Due", "Status", "Stages"].map((h) => (
+                    <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                      {h}
+                    </th>
+                  ))}
+                </tr>
               </thead>
               <tbody>
                 {rows.data.map((r) => (
                   <tr key={r.id} className="border-b border-line/60 align-top">
                     <td className="py-2 pr-3 font-semibold">
-                      <Link to={`/lots/${r.id}`} className="text-must-700 underline">{r.lotCode}</Link>
+                      <Link to={`/lots/${r.id}`} className="text-must-700 underline">
+                        {r.lotCode}
+                      </Link>
                       <span className="block text-xs font-normal text-ink-500">{CONTAINER_LABELS[r.container]}</span>
                     </td>
-                    <td className="py-2 pr-3">{r.wineName}<span className="block text-xs text-ink-500">{r.producerName} · {r.vintage}</span></td>
+                    <td className="py-2 pr-3">
+                      {r.wineName}
+                      <span className="block text-xs text-ink-500">
+                        {r.producerName} · {r.vintage}
+                      </span>
+                    </td>
                     <td className="py-2 pr-3 tabular-nums">{r.plannedDate ?? "not planned"}</td>
                     <td className="py-2 pr-3">
                       <LotStatusBadge status={r.status} />
-                      {r.status.openDeviations > 0 && <span className="block text-xs text-alarm-700">{r.status.openDeviations === 1 ? "1 open deviation" : `${r.status.openDeviations} open deviations`}</span>}
-                      {r.decidedDeviations.map((d) => <span key={d.id} className="block text-xs text-ink-500">Deviation #{d.id}: {DEVIATION_OUTCOME_LABELS[d.outcome]}</span>)}
+                      {r.status.openDeviations > 0 && (
+                        <span className="block text-xs text-alarm-700">
+                          {r.status.openDeviations === 1 ? "1 open deviation" : `${r.status.openDeviations} open deviations`}
+                        </span>
+                      )}
+                      {r.decidedDeviations.map((d) => (
+                        <span key={d.id} className="block text-xs text-ink-500">
+                          Deviation #{d.id}: {DEVIATION_OUTCOME_LABELS[d.outcome]}
+                        </span>
+                      ))}
                     </td>
                     <td className="py-2 pr-3 text-xs">
                       {!r.hasAgreedSpec && <span className="text-ochre-700">No agreed specification for this vintage.</span>}
@@ -48,7 +72,13 @@ export function ReadinessPage() {
                         {r.stages.map((s) => (
                           <li key={s.stage}>
                             <strong>{STAGE_LABELS[s.stage]}:</strong>{" "}
-                            {!s.analysed ? <span className="text-ochre-700">no analysis yet</span> : s.missing.length ? <span className="text-ochre-700">missing {names(s.missing)}</span> : <span className="text-verjus-700">complete</span>}
+                            {!s.analysed ? (
+                              <span className="text-ochre-700">no analysis yet</span>
+                            ) : s.missing.length ? (
+                              <span className="text-ochre-700">missing {names(s.missing)}</span>
+                            ) : (
+                              <span className="text-verjus-700">complete</span>
+                            )}
                             {s.failing.length > 0 && <span className="text-alarm-700"> · failing {names(s.failing)}</span>}
                           </li>
                         ))}

@@ -23,7 +23,9 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
   const [lab, setLab] = useState("");
   const [accreditation, setAccreditation] = useState("");
   const [sampleDate, setSampleDate] = useState(new Date().toISOString().slice(0, 10));
-  const [lines, setLines] = useState<Record<string, EntryLine>>(() => Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])));
+  const [lines, setLines] = useState<Record<string, EntryLine>>(() =>
+    Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])),
+  );
   const [key, setKey] = useState(() => crypto.randomUUID());
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [done, setDone] = useState<string | null>(null);
@@ -46,7 +48,11 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
     submit.mutate(parsed.data, {
       onSuccess: (r) => {
         const stored = `Saved: ${countsText(r.counts)}.`;
-        setDone(r.failing.length ? `${stored} Outside the specification: ${r.failing.map((p) => findParameter(p)?.name).join(", ")}. A deviation was opened.` : stored);
+        setDone(
+          r.failing.length
+            ? `${stored} Outside the specification: ${r.failing.map((p) => findParameter(p)?.name).join(", ")}. A deviation was opened.`
+            : stored,
+        );
         setKey(crypto.randomUUID());
         setLines(Object.fromEntries(requirements.map((r) => [r.parameter, { raw: "", unit: r.unit, u: "" }])));
       },
@@ -56,22 +62,52 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
     });
   };
 
-  if (!lot.governing) return <Notice>No agreed specification covers vintage {lot.vintage} yet, so results cannot be judged. The buyer must send a version and you must agree to it first.</Notice>;
+  if (!lot.governing)
+    return (
+      <Notice>
+        No agreed specification covers vintage {lot.vintage} yet, so results cannot be judged. The buyer must send a version and you must
+        agree to it first.
+      </Notice>
+    );
   return (
     <div className="flex flex-col gap-4">
       {done && <Notice tone={done.includes("Outside") ? "error" : "success"}>{done}</Notice>}
       {submit.isError && <Notice tone="error">{errorMessage(submit.error)}</Notice>}
       <div className="grid gap-3 md:grid-cols-4">
-        <SelectField label="Stage" value={stage} onChange={(e) => setStage(e.target.value as AnalysisStage)} options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))} />
-        <TextField label="Laboratory" value={lab} onChange={(e) => setLab(e.target.value)} error={errors.laboratoryName} placeholder="Own laboratory or external lab" />
-        <TextField label="Accreditation number" value={accreditation} onChange={(e) => setAccreditation(e.target.value)} hint="Empty for an own, unaccredited lab." />
-        <TextField label="Sample date" type="date" value={sampleDate} onChange={(e) => setSampleDate(e.target.value)} error={errors.sampleDate} />
+        <SelectField
+          label="Stage"
+          value={stage}
+          onChange={(e) => setStage(e.target.value as AnalysisStage)}
+          options={ANALYSIS_STAGES.map((s) => ({ value: s, label: ANALYSIS_STAGE_LABELS[s] }))}
+        />
+        <TextField
+          label="Laboratory"
+          value={lab}
+          onChange={(e) => setLab(e.target.value)}
+          error={errors.laboratoryName}
+          placeholder="Own laboratory or external lab"
+        />
+        <TextField
+          label="Accreditation number"
+          value={accreditation}
+          onChange={(e) => setAccreditation(e.target.value)}
+          hint="Empty for an own, unaccredited lab."
+        />
+        <TextField
+          label="Sample date"
+          type="date"
+          value={sampleDate}
+          onChange={(e) => setSampleDate(e.target.value)}
+          error={errors.sampleDate}
+        />
       </div>
       <table className="w-full text-left text-sm">
         <thead className="border-b border-line text-ink-500">
           <tr>
             {["Parameter", "Result", "Unit", "U (k = 2)", "Verdict as you type"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>
+              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                {h}
+              </th>
             ))}
           </tr>
         </thead>
@@ -92,23 +128,59 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
                   <label htmlFor={`result-${r.parameter}`}>{p?.name ?? r.parameter}</label>
                 </td>
                 <td className="py-2 pr-3">
-                  <input id={`result-${r.parameter}`} inputMode="decimal" className="w-28 rounded border border-line px-2 py-1" value={l.raw} onChange={(e) => set({ raw: e.target.value })} aria-invalid={error ? true : undefined} placeholder={p?.kind === "presence" ? "absent" : "e.g. 0,45 or <0.5"} />
-                  {error && <span role="alert" className="block text-xs font-semibold text-alarm-700">{error}</span>}
+                  <input
+                    id={`result-${r.parameter}`}
+                    inputMode="decimal"
+                    className="w-28 rounded border border-line px-2 py-1"
+                    value={l.raw}
+                    onChange={(e) => set({ raw: e.target.value })}
+                    aria-invalid={error ? true : undefined}
+                    placeholder={p?.kind === "presence" ? "absent" : "e.g. 0,45 or <0.5"}
+                  />
+                  {error && (
+                    <span role="alert" className="block text-xs font-semibold text-alarm-700">
+                      {error}
+                    </span>
+                  )}
                 </td>
                 <td className="py-2 pr-3">
-                  <label className="sr-only" htmlFor={`unit-${r.parameter}`}>Unit of {p?.name}</label>
-                  <select id={`unit-${r.parameter}`} className="rounded border border-line px-2 py-1" value={l.unit} onChange={(e) => set({ unit: e.target.value })}>
+                  <label className="sr-only" htmlFor={`unit-${r.parameter}`}>
+                    Unit of {p?.name}
+                  </label>
+                  <select
+                    id={`unit-${r.parameter}`}
+                    className="rounded border border-line px-2 py-1"
+                    value={l.unit}
+                    onChange={(e) => set({ unit: e.target.value })}
+                  >
                     {(p?.units ?? [r.unit]).map((x) => (
-                      <option key={x} value={x}>{UNITS[x as UnitId]?.label ?? x}</option>
+                      <option key={x} value={x}>
+                        {UNITS[x as UnitId]?.label ?? x}
+                      </option>
                     ))}
                   </select>
                 </td>
                 <td className="py-2 pr-3">
-                  <label className="sr-only" htmlFor={`u-${r.parameter}`}>Expanded uncertainty of {p?.name}</label>
-                  <input id={`u-${r.parameter}`} inputMode="decimal" className="w-20 rounded border border-line px-2 py-1" value={l.u} onChange={(e) => set({ u: e.target.value })} />
+                  <label className="sr-only" htmlFor={`u-${r.parameter}`}>
+                    Expanded uncertainty of {p?.name}
+                  </label>
+                  <input
+                    id={`u-${r.parameter}`}
+                    inputMode="decimal"
+                    className="w-20 rounded border border-line px-2 py-1"
+                    value={l.u}
+                    onChange={(e) => set({ u: e.target.value })}
+                  />
                 </td>
                 <td className="py-2 pr-3 text-xs">
-                  {verdict ? <><OutcomeBadge outcome={verdict.outcome} /> <span className="text-ink-500">{verdict.uncertainty?.source === "default" ? "default uncertainty" : ""}</span></> : <span className="text-ink-500">—</span>}
+                  {verdict ? (
+                    <>
+                      <OutcomeBadge outcome={verdict.outcome} />{" "}
+                      <span className="text-ink-500">{verdict.uncertainty?.source === "default" ? "default uncertainty" : ""}</span>
+                    </>
+                  ) : (
+                    <span className="text-ink-500">—</span>
+                  )}
                   {odd && <span className="block font-semibold text-ochre-700">{odd}</span>}
                 </td>
               </tr>
@@ -117,7 +189,9 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
         </tbody>
       </table>
       {errors.results && <Notice tone="error">{errors.results}</Notice>}
-      <Button onClick={onSubmit} disabled={submit.isPending}>{submit.isPending ? "Saving…" : "Submit the analysis"}</Button>
+      <Button onClick={onSubmit} disabled={submit.isPending}>
+        {submit.isPending ? "Saving…" : "Submit the analysis"}
+      </Button>
     </div>
   );
 }

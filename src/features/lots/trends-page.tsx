@@ -15,13 +15,24 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
-import { capability, driftWarning, ewmaChart, findParameter, individualsChart, PARAMETERS, UNITS, westernElectricSignals, type UnitId } from "../../../shared/engine/index.ts";
+import {
+  capability,
+  driftWarning,
+  ewmaChart,
+  findParameter,
+  individualsChart,
+  PARAMETERS,
+  UNITS,
+  westernElectricSignals,
+  type UnitId,
+} from "../../../shared/engine/index.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import type { TrendData } from "../../../shared/lots/views.ts";
 import { chartDomain } from "./chart-domain.ts";
 
 /** A number to `digits` decimal places; "—" for none. */
-const fixed = (x: number | null | undefined, digits: number) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(digits));
+const fixed = (x: number | null | undefined, digits: number) =>
+  x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(digits);
 
 export function TrendsPage() {
   const { orgId } = useOrganisation();
@@ -32,13 +43,33 @@ export function TrendsPage() {
   const agreed = contract.data?.versions.find((v) => v.status === "agreed");
   const spec = useQuery({ ...specQuery(orgId, agreed?.id ?? 0), enabled: !!agreed });
   const trend = useQuery({ ...trendQuery(orgId, Number(contractId), parameter) });
-  const options = (spec.data?.requirements.map((r) => r.parameter) ?? []).concat(PARAMETERS.map((p) => p.id)).filter((p, i, all) => all.indexOf(p) === i);
+  const options = (spec.data?.requirements.map((r) => r.parameter) ?? [])
+    .concat(PARAMETERS.map((p) => p.id))
+    .filter((p, i, all) => all.indexOf(p) === i);
   return (
     <>
-      <PageHeader title={`Trends${contract.data ? ` for ${contract.data.wine.name}` : ""}`} lead={contract.data && <>Contract <Link className="underline" to={`/contracts/${contract.data.id}`}>{contract.data.reference}</Link>, all lots and vintages.</>} />
+      <PageHeader
+        title={`Trends${contract.data ? ` for ${contract.data.wine.name}` : ""}`}
+        lead={
+          contract.data && (
+            <>
+              Contract{" "}
+              <Link className="underline" to={`/contracts/${contract.data.id}`}>
+                {contract.data.reference}
+              </Link>
+              , all lots and vintages.
+            </>
+          )
+        }
+      />
       <div className="flex flex-col gap-6">
         <div className="max-w-sm">
-          <SelectField label="Parameter" value={parameter} onChange={(e) => setParams({ parameter: e.target.value }, { replace: true })} options={options.map((p) => ({ value: p, label: findParameter(p)?.name ?? p }))} />
+          <SelectField
+            label="Parameter"
+            value={parameter}
+            onChange={(e) => setParams({ parameter: e.target.value }, { replace: true })}
+            options={options.map((p) => ({ value: p, label: findParameter(p)?.name ?? p }))}
+          />
         </div>
         {trend.isPending && <LoadingState />}
         {trend.isError && <ErrorState error={trend.error} onRetry={() => trend.refetch()} />}
@@ -86,23 +117,80 @@ function TrendView({ data: trend }: { data: TrendData }) {
   return (
     <>
       <Card title={`${findParameter(data.parameter)?.name} (${unit})`}>
-        {outCount > 0 && <p className="mb-3 text-sm font-semibold text-alarm-700">{outCount === 1 ? "1 result lies" : `${outCount} results lie`} outside the governing limits (red diamonds).</p>}
-        {stats?.drift && <p className="mb-3 rounded-md bg-ochre-50 px-3 py-2 text-sm font-semibold text-ochre-700" role="status">{stats.drift.message}</p>}
+        {outCount > 0 && (
+          <p className="mb-3 text-sm font-semibold text-alarm-700">
+            {outCount === 1 ? "1 result lies" : `${outCount} results lie`} outside the governing limits (red diamonds).
+          </p>
+        )}
+        {stats?.drift && (
+          <p className="mb-3 rounded-md bg-ochre-50 px-3 py-2 text-sm font-semibold text-ochre-700" role="status">
+            {stats.drift.message}
+          </p>
+        )}
         <div className="h-80" role="img" aria-label={`Chart of ${findParameter(data.parameter)?.name} by lot with spec limits and EWMA`}>
           <ResponsiveContainer width="100%" height="100%">
             <ComposedChart data={series} margin={{ top: 10, right: 20, bottom: 10, left: 10 }}>
               <CartesianGrid stroke="#ddd6ca" strokeDasharray="3 3" />
-              <XAxis dataKey="i" tick={{ fontSize: 12 }} label={{ value: "sample, oldest first", position: "insideBottom", offset: -4, fontSize: 12 }} />
+              <XAxis
+                dataKey="i"
+                tick={{ fontSize: 12 }}
+                label={{ value: "sample, oldest first", position: "insideBottom", offset: -4, fontSize: 12 }}
+              />
               <YAxis tick={{ fontSize: 12 }} domain={domain} allowDataOverflow={false} tickFormatter={(v: number) => show(v)} width={64} />
-              <Tooltip formatter={(v: unknown) => `${show(v as number)} ${unit}`} labelFormatter={(i: unknown) => series[Number(i) - 1]?.label ?? ""} />
+              <Tooltip
+                formatter={(v: unknown) => `${show(v as number)} ${unit}`}
+                labelFormatter={(i: unknown) => series[Number(i) - 1]?.label ?? ""}
+              />
               <Legend />
               {/* Limits are drawn as lines rather than reference marks, so each has its own legend entry. */}
-              {data.upper !== null && <Line type="linear" dataKey="specMax" name={`Max ${show(data.upper)} (${trend.upper!.source})`} stroke="#a3261d" strokeDasharray="6 3" dot={false} isAnimationActive={false} />}
-              {data.lower !== null && <Line type="linear" dataKey="specMin" name={`Min ${show(data.lower)} (${trend.lower!.source})`} stroke="#a3261d" strokeDasharray="2 2" dot={false} isAnimationActive={false} />}
-              {stats && <Line type="linear" dataKey="ucl" name="EWMA upper control limit" stroke="#7a5200" strokeDasharray="2 4" dot={false} isAnimationActive={false} />}
-              {stats && <Line type="linear" dataKey="lcl" name="EWMA lower control limit" stroke="#7a5200" strokeDasharray="1 5" dot={false} isAnimationActive={false} />}
+              {data.upper !== null && (
+                <Line
+                  type="linear"
+                  dataKey="specMax"
+                  name={`Max ${show(data.upper)} (${trend.upper!.source})`}
+                  stroke="#a3261d"
+                  strokeDasharray="6 3"
+                  dot={false}
+                  isAnimationActive={false}
+                />
+              )}
+              {data.lower !== null && (
+                <Line
+                  type="linear"
+                  dataKey="specMin"
+                  name={`Min ${show(data.lower)} (${trend.lower!.source})`}
+                  stroke="#a3261d"
+                  strokeDasharray="2 2"
+                  dot={false}
+                  isAnimationActive={false}
+                />
+              )}
+              {stats && (
+                <Line
+                  type="linear"
+                  dataKey="ucl"
+                  name="EWMA upper control limit"
+                  stroke="#7a5200"
+                  strokeDasharray="2 4"
+                  dot={false}
+                  isAnimationActive={false}
+                />
+              )}
+              {stats && (
+                <Line
+                  type="linear"
+                  dataKey="lcl"
+                  name="EWMA lower control limit"
+                  stroke="#7a5200"
+                  strokeDasharray="1 5"
+                  dot={false}
+                  isAnimationActive={false}
+                />
+              )}
               <Line type="linear" dataKey="value" name="Result" stroke="#5b1f3c" dot={{ r: 3 }} isAnimationActive={false} />
-              {stats && <Line type="monotone" dataKey="ewma" name="EWMA (λ = 0.3)" stroke="#7a5200" dot={false} isAnimationActive={false} />}
+              {stats && (
+                <Line type="monotone" dataKey="ewma" name="EWMA (λ = 0.3)" stroke="#7a5200" dot={false} isAnimationActive={false} />
+              )}
               <Scatter dataKey="out" name="Outside the limits" fill="#a3261d" shape="diamond" isAnimationActive={false} />
               <Scatter dataKey="flagged" name="Run-rule signal" fill="#1b2230" isAnimationActive={false} />
             </ComposedChart>
@@ -110,15 +198,29 @@ function TrendView({ data: trend }: { data: TrendData }) {
         </div>
         {stats && (
           <dl className="mt-4 grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4">
-            <dt className="text-ink-500">Mean</dt><dd className="tabular-nums">{stat(stats.chart.centre)} {unit}</dd>
-            <dt className="text-ink-500">σ (moving range)</dt><dd className="tabular-nums">{stat(stats.chart.sigma)} {unit}</dd>
-            <dt className="text-ink-500">Cp</dt><dd className="tabular-nums">{fixed(stats.cap?.cp, 2)}</dd>
-            <dt className="text-ink-500">Cpk</dt><dd className="tabular-nums">{fixed(stats.cap?.cpk, 2)}</dd>
-            <dt className="text-ink-500">Control limits (I chart)</dt><dd className="tabular-nums">{stat(stats.chart.lcl)} – {stat(stats.chart.ucl)} {unit}</dd>
-            <dt className="text-ink-500">Run-rule signals</dt><dd>{stats.signals.length ? stats.signals.map((s) => `#${s.index + 1} rule ${s.rule}`).join(", ") : "none"}</dd>
+            <dt className="text-ink-500">Mean</dt>
+            <dd className="tabular-nums">
+              {stat(stats.chart.centre)} {unit}
+            </dd>
+            <dt className="text-ink-500">σ (moving range)</dt>
+            <dd className="tabular-nums">
+              {stat(stats.chart.sigma)} {unit}
+            </dd>
+            <dt className="text-ink-500">Cp</dt>
+            <dd className="tabular-nums">{fixed(stats.cap?.cp, 2)}</dd>
+            <dt className="text-ink-500">Cpk</dt>
+            <dd className="tabular-nums">{fixed(stats.cap?.cpk, 2)}</dd>
+            <dt className="text-ink-500">Control limits (I chart)</dt>
+            <dd className="tabular-nums">
+              {stat(stats.chart.lcl)} – {stat(stats.chart.ucl)} {unit}
+            </dd>
+            <dt className="text-ink-500">Run-rule signals</dt>
+            <dd>{stats.signals.length ? stats.signals.map((s) => `#${s.index + 1} rule ${s.rule}`).join(", ") : "none"}</dd>
           </dl>
         )}
-        {!stats && <p className="mt-3 text-sm text-ink-500">At least three numeric results are needed for control limits and capability.</p>}
+        {!stats && (
+          <p className="mt-3 text-sm text-ink-500">At least three numeric results are needed for control limits and capability.</p>
+        )}
       </Card>
       <ResultsTable data={trend} unit={unit} />
     </>
@@ -131,7 +233,9 @@ function ResultsTable({ data, unit }: { data: TrendData; unit: string }) {
   // eslint-disable-next-line react-hooks/incompatible-library -- the virtualiser is read fresh on every render by design
   const virtual = useVirtualizer({ count: rows.length, getScrollElement: () => parent.current, estimateSize: () => 33, overscan: 10 });
   const exportCsv = () => {
-    const csv = Papa.unparse(rows.map((p) => ({ lot: p.lotCode, vintage: p.vintage, stage: p.stage, sample_date: p.sampleDate, result: p.text, unit })));
+    const csv = Papa.unparse(
+      rows.map((p) => ({ lot: p.lotCode, vintage: p.vintage, stage: p.stage, sample_date: p.sampleDate, result: p.text, unit })),
+    );
     const url = URL.createObjectURL(new Blob([`\uFEFF${csv}`], { type: "text/csv;charset=utf-8" }));
     const a = Object.assign(document.createElement("a"), { href: url, download: `${data.parameter}-results.csv` });
     a.click();
@@ -139,11 +243,17 @@ function ResultsTable({ data, unit }: { data: TrendData; unit: string }) {
   };
   return (
     <Card title={`All results (${rows.length})`}>
-      <Button variant="secondary" onClick={exportCsv} className="mb-3">Export CSV</Button>
+      <Button variant="secondary" onClick={exportCsv} className="mb-3">
+        Export CSV
+      </Button>
       <div role="table" aria-label="Results" aria-rowcount={rows.length} className="text-sm">
         <div role="rowgroup">
           <div role="row" aria-rowindex={1} className="grid grid-cols-5 border-b border-line py-1 font-semibold text-ink-500">
-            {["Lot", "Vintage", "Stage", "Sampled", `Result (${unit})`].map((h) => <span key={h} role="columnheader">{h}</span>)}
+            {["Lot", "Vintage", "Stage", "Sampled", `Result (${unit})`].map((h) => (
+              <span key={h} role="columnheader">
+                {h}
+              </span>
+            ))}
           </div>
         </div>
         {/* Only the rows in view are in the DOM, so ten thousand results scroll smoothly. */}
@@ -152,12 +262,20 @@ function ResultsTable({ data, unit }: { data: TrendData; unit: string }) {
             {virtual.getVirtualItems().map((v) => {
               const p = rows[v.index]!;
               return (
-                <div key={v.key} role="row" aria-rowindex={v.index + 2} className="absolute left-0 grid w-full grid-cols-5 border-b border-line/60 py-1" style={{ top: v.start, height: v.size }}>
+                <div
+                  key={v.key}
+                  role="row"
+                  aria-rowindex={v.index + 2}
+                  className="absolute left-0 grid w-full grid-cols-5 border-b border-line/60 py-1"
+                  style={{ top: v.start, height: v.size }}
+                >
                   <span role="cell">{p.lotCode}</span>
                   <span role="cell">{p.vintage}</span>
                   <span role="cell">{ANALYSIS_STAGE_LABELS[p.stage]}</span>
                   <span role="cell">{p.sampleDate}</span>
-                  <span role="cell" className="tabular-nums">{p.text}</span>
+                  <span role="cell" className="tabular-nums">
+                    {p.text}
+                  </span>
                 </div>
               );
             })}

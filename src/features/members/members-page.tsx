@@ -20,7 +20,10 @@ export function MembersPage() {
   const orgId = membership.organisationId;
   return (
     <>
-      <PageHeader title="Members" lead={`People who work in ${membership.organisationName} on Cellarpact, and the roles that decide what they can do.`} />
+      <PageHeader
+        title="Members"
+        lead={`People who work in ${membership.organisationName} on Cellarpact, and the roles that decide what they can do.`}
+      />
       <div className="flex flex-col gap-6">
         <Card title="Invite someone">
           <InviteForm orgId={orgId} kind={membership.organisationKind} />
@@ -50,20 +53,35 @@ function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeo
         <table className="mt-2 w-full text-left text-sm">
           <thead className="border-b border-line text-ink-500">
             <tr>
-              <th scope="col" className="py-2 pr-4 font-semibold">Name</th>
-              <th scope="col" className="py-2 pr-4 font-semibold">E-mail</th>
-              <th scope="col" className="py-2 pr-4 font-semibold">Role</th>
-              <th scope="col" className="py-2 pr-4 font-semibold">Member since</th>
-              <th scope="col" className="py-2 font-semibold"><span className="sr-only">Actions</span></th>
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                Name
+              </th>
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                E-mail
+              </th>
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                Role
+              </th>
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                Member since
+              </th>
+              <th scope="col" className="py-2 font-semibold">
+                <span className="sr-only">Actions</span>
+              </th>
             </tr>
           </thead>
           <tbody>
             {members.data.map((m) => (
               <tr key={m.membershipId} className="border-b border-line/60">
-                <td className="py-2 pr-4 font-semibold">{m.name}{m.userId === selfId && " (you)"}</td>
+                <td className="py-2 pr-4 font-semibold">
+                  {m.name}
+                  {m.userId === selfId && " (you)"}
+                </td>
                 <td className="py-2 pr-4">{m.email}</td>
                 <td className="py-2 pr-4">
-                  <label className="sr-only" htmlFor={`role-${m.membershipId}`}>Role of {m.name}</label>
+                  <label className="sr-only" htmlFor={`role-${m.membershipId}`}>
+                    Role of {m.name}
+                  </label>
                   <select
                     id={`role-${m.membershipId}`}
                     className="rounded border border-line bg-white px-2 py-1"
@@ -81,7 +99,9 @@ function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeo
                     }}
                   >
                     {ROLES_BY_KIND[kind].map((r) => (
-                      <option key={r} value={r}>{ROLE_LABELS[r]}</option>
+                      <option key={r} value={r}>
+                        {ROLE_LABELS[r]}
+                      </option>
                     ))}
                   </select>
                 </td>
@@ -121,7 +141,9 @@ function OpenInvitations({ orgId }: { orgId: number }) {
     <Card title="Open invitations">
       {invitations.isPending && <LoadingState />}
       {invitations.isError && <ErrorState error={invitations.error} onRetry={() => invitations.refetch()} />}
-      {invitations.data?.length === 0 && <EmptyState title="No open invitations.">Invitations you send appear here until they are accepted.</EmptyState>}
+      {invitations.data?.length === 0 && (
+        <EmptyState title="No open invitations.">Invitations you send appear here until they are accepted.</EmptyState>
+      )}
       {invitations.data && invitations.data.length > 0 && (
         <ul className="divide-y divide-line/60">
           {invitations.data.map((inv) => (

@@ -12,9 +12,16 @@ export interface NotificationItem {
 }
 
 export const notificationsQuery = () =>
-  queryOptions({ queryKey: ["notifications"], queryFn: () => api<{ unread: number; items: NotificationItem[] }>("/api/me/notifications"), refetchInterval: 60_000 });
+  queryOptions({
+    queryKey: ["notifications"],
+    queryFn: () => api<{ unread: number; items: NotificationItem[] }>("/api/me/notifications"),
+    refetchInterval: 60_000,
+  });
 
 export function useMarkRead() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: (ids: number[] | "all") => api<void>("/api/me/notifications/read", { method: "POST", body: { ids } }), onSuccess: () => qc.invalidateQueries({ queryKey: ["notifications"] }) });
+  return useMutation({
+    mutationFn: (ids: number[] | "all") => api<void>("/api/me/notifications/read", { method: "POST", body: { ids } }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: ["notifications"] }),
+  });
 }

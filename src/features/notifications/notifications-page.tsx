@@ -10,7 +10,15 @@ export function NotificationsPage() {
   const mark = useMarkRead();
   return (
     <>
-      <PageHeader title="Notifications" lead="New deviations, comments, mentions, decisions and deadlines. Choose what reaches you by e-mail on your profile." actions={<Button variant="secondary" onClick={() => mark.mutate("all")}>Mark all read</Button>} />
+      <PageHeader
+        title="Notifications"
+        lead="New deviations, comments, mentions, decisions and deadlines. Choose what reaches you by e-mail on your profile."
+        actions={
+          <Button variant="secondary" onClick={() => mark.mutate("all")}>
+            Mark all read
+          </Button>
+        }
+      />
       <Card>
         {q.isPending && <LoadingState />}
         {q.isError && <ErrorState error={q.error} />}
@@ -18,7 +26,9 @@ export function NotificationsPage() {
         <ul className="flex flex-col divide-y divide-line/60">
           {q.data?.items.map((n) => (
             <li key={n.id} className={`py-2 text-sm ${n.read ? "text-ink-500" : ""}`}>
-              <Link to={n.link} className="font-semibold text-must-700 underline" onClick={() => !n.read && mark.mutate([n.id])}>{n.title}</Link>
+              <Link to={n.link} className="font-semibold text-must-700 underline" onClick={() => !n.read && mark.mutate([n.id])}>
+                {n.title}
+              </Link>
               <span className="ml-2 text-xs text-ink-500">{new Date(n.createdAt).toLocaleString("en-GB")}</span>
               <p className="line-clamp-2 whitespace-pre-wrap">{n.body}</p>
             </li>

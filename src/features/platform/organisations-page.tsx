@@ -14,7 +14,10 @@ import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/u
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 
-const organisationsQuery = { queryKey: ["platform", "organisations"], queryFn: () => api<OrganisationRow[]>("/api/platform/organisations") };
+const organisationsQuery = {
+  queryKey: ["platform", "organisations"],
+  queryFn: () => api<OrganisationRow[]>("/api/platform/organisations"),
+};
 
 export function OrganisationsPage() {
   const { user } = useSignedIn();
@@ -42,10 +45,18 @@ function OrganisationList() {
         <table className="w-full text-left text-sm">
           <thead className="border-b border-line text-ink-500">
             <tr>
-              <th scope="col" className="py-2 pr-4 font-semibold">Name</th>
-              <th scope="col" className="py-2 pr-4 font-semibold">Kind</th>
-              <th scope="col" className="py-2 pr-4 font-semibold">Country</th>
-              <th scope="col" className="py-2 font-semibold">Members</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                Name
+              </th>
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                Kind
+              </th>
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                Country
+              </th>
+              <th scope="col" className="py-2 font-semibold">
+                Members
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -90,13 +101,30 @@ function CreateOrganisation() {
   return (
     <Card title="Open an organisation">
       <form onSubmit={onSubmit} noValidate className="grid gap-4 md:grid-cols-2">
-        {msg && <div className="md:col-span-2"><Notice tone={msg.tone}>{msg.text}</Notice></div>}
+        {msg && (
+          <div className="md:col-span-2">
+            <Notice tone={msg.tone}>{msg.text}</Notice>
+          </div>
+        )}
         <TextField label="Name" error={formState.errors.name?.message} {...register("name")} />
-        <SelectField label="Kind" options={ORGANISATION_KINDS.map((k) => ({ value: k, label: ORGANISATION_KIND_LABELS[k] }))} error={formState.errors.kind?.message} {...register("kind")} />
-        <TextField label="Country" hint="Two letters, e.g. FR" maxLength={2} error={formState.errors.country?.message} {...register("country")} />
+        <SelectField
+          label="Kind"
+          options={ORGANISATION_KINDS.map((k) => ({ value: k, label: ORGANISATION_KIND_LABELS[k] }))}
+          error={formState.errors.kind?.message}
+          {...register("kind")}
+        />
+        <TextField
+          label="Country"
+          hint="Two letters, e.g. FR"
+          maxLength={2}
+          error={formState.errors.country?.message}
+          {...register("country")}
+        />
         <TextField label="First admin's e-mail" type="email" error={formState.errors.adminEmail?.message} {...register("adminEmail")} />
         <div className="md:col-span-2">
-          <Button type="submit" disabled={create.isPending}>Open the organisation</Button>
+          <Button type="submit" disabled={create.isPending}>
+            Open the organisation
+          </Button>
         </div>
       </form>
     </Card>
@@ -107,7 +135,9 @@ function ChainCheck() {
   const verify = useMutation({ mutationFn: () => api<ChainVerification>("/api/platform/trail/verify") });
   return (
     <Card title="The trail's hash chain">
-      <p className="mb-4 text-sm text-ink-700">Recomputes every entry's SHA-256 hash and its link to the previous one, and compares the end of the chain with the checkpoint.</p>
+      <p className="mb-4 text-sm text-ink-700">
+        Recomputes every entry's SHA-256 hash and its link to the previous one, and compares the end of the chain with the checkpoint.
+      </p>
       {verify.data?.ok && <Notice tone="success">The chain is intact: {verify.data.checked} entries checked.</Notice>}
       {verify.data && !verify.data.ok && (
         <Notice tone="error">

@@ -16,23 +16,44 @@ function PreferencesForm({ initial }: { initial: { emailMode: "immediate" | "dai
   const [mode, setMode] = useState(initial.emailMode);
   const [kinds, setKinds] = useState<NotificationKind[]>(initial.kinds);
   return (
-    <form className="flex flex-col gap-3 text-sm" onSubmit={(e) => { e.preventDefault(); save.mutate({ emailMode: mode, kinds }); }}>
+    <form
+      className="flex flex-col gap-3 text-sm"
+      onSubmit={(e) => {
+        e.preventDefault();
+        save.mutate({ emailMode: mode, kinds });
+      }}
+    >
       {save.isSuccess && <Notice tone="success">Saved.</Notice>}
       <fieldset className="flex flex-col gap-1">
         <legend className="font-semibold">Send e-mail</legend>
-        {([["immediate", "As it happens"], ["daily_digest", "One daily digest"], ["off", "Never (in the app only)"]] as const).map(([v, label]) => (
-          <label key={v} className="flex items-center gap-2"><input type="radio" name="email-mode" value={v} checked={mode === v} onChange={() => setMode(v)} /> {label}</label>
+        {(
+          [
+            ["immediate", "As it happens"],
+            ["daily_digest", "One daily digest"],
+            ["off", "Never (in the app only)"],
+          ] as const
+        ).map(([v, label]) => (
+          <label key={v} className="flex items-center gap-2">
+            <input type="radio" name="email-mode" value={v} checked={mode === v} onChange={() => setMode(v)} /> {label}
+          </label>
         ))}
       </fieldset>
       <fieldset className="flex flex-col gap-1">
         <legend className="font-semibold">For</legend>
         {NOTIFICATION_KINDS.map((k) => (
           <label key={k} className="flex items-center gap-2">
-            <input type="checkbox" checked={kinds.includes(k)} onChange={(e) => setKinds(e.target.checked ? [...kinds, k] : kinds.filter((x) => x !== k))} /> {NOTIFICATION_KIND_LABELS[k]}
+            <input
+              type="checkbox"
+              checked={kinds.includes(k)}
+              onChange={(e) => setKinds(e.target.checked ? [...kinds, k] : kinds.filter((x) => x !== k))}
+            />{" "}
+            {NOTIFICATION_KIND_LABELS[k]}
           </label>
         ))}
       </fieldset>
-      <Button type="submit" className="self-start" disabled={save.isPending}>Save preferences</Button>
+      <Button type="submit" className="self-start" disabled={save.isPending}>
+        Save preferences
+      </Button>
     </form>
   );
 }

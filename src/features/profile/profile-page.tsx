@@ -2,7 +2,13 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { changePasswordSchema, profileSchema, type ChangePasswordInput, type ProfileInput, PASSWORD_MIN } from "../../../shared/auth/schemas.ts";
+import {
+  changePasswordSchema,
+  profileSchema,
+  type ChangePasswordInput,
+  type ProfileInput,
+  PASSWORD_MIN,
+} from "../../../shared/auth/schemas.ts";
 import { ROLE_LABELS } from "../../../shared/auth/roles.ts";
 import { api } from "../../lib/api-client.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
@@ -43,7 +49,10 @@ function NameForm({ initialName }: { initialName: string }) {
   const qc = useQueryClient();
   const [msg, setMsg] = useState<{ tone: "success" | "error"; text: string } | null>(null);
   const save = useMutation({ mutationFn: (v: ProfileInput) => api("/api/me", { method: "PATCH", body: v }) });
-  const { register, handleSubmit, setError, formState } = useForm<ProfileInput>({ resolver: zodResolver(profileSchema), defaultValues: { name: initialName } });
+  const { register, handleSubmit, setError, formState } = useForm<ProfileInput>({
+    resolver: zodResolver(profileSchema),
+    defaultValues: { name: initialName },
+  });
   const onSubmit = handleSubmit((v) =>
     save.mutate(v, {
       onSuccess: () => {
@@ -61,7 +70,9 @@ function NameForm({ initialName }: { initialName: string }) {
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {msg && <Notice tone={msg.tone}>{msg.text}</Notice>}
         <TextField label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
-        <Button type="submit" disabled={save.isPending}>Save name</Button>
+        <Button type="submit" disabled={save.isPending}>
+          Save name
+        </Button>
       </form>
     </Card>
   );
@@ -70,7 +81,9 @@ function NameForm({ initialName }: { initialName: string }) {
 function PasswordForm() {
   const [msg, setMsg] = useState<{ tone: "success" | "error"; text: string } | null>(null);
   const change = useMutation({ mutationFn: (v: ChangePasswordInput) => api("/api/me/password", { method: "POST", body: v }) });
-  const { register, handleSubmit, setError, reset, formState } = useForm<ChangePasswordInput>({ resolver: zodResolver(changePasswordSchema) });
+  const { register, handleSubmit, setError, reset, formState } = useForm<ChangePasswordInput>({
+    resolver: zodResolver(changePasswordSchema),
+  });
   const onSubmit = handleSubmit((v) =>
     change.mutate(v, {
       onSuccess: () => {
@@ -87,9 +100,24 @@ function PasswordForm() {
     <Card title="Password">
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {msg && <Notice tone={msg.tone}>{msg.text}</Notice>}
-        <TextField label="Current password" type="password" autoComplete="current-password" error={formState.errors.currentPassword?.message} {...register("currentPassword")} />
-        <TextField label="New password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN} characters.`} error={formState.errors.newPassword?.message} {...register("newPassword")} />
-        <Button type="submit" disabled={change.isPending}>Change password</Button>
+        <TextField
+          label="Current password"
+          type="password"
+          autoComplete="current-password"
+          error={formState.errors.currentPassword?.message}
+          {...register("currentPassword")}
+        />
+        <TextField
+          label="New password"
+          type="password"
+          autoComplete="new-password"
+          hint={`At least ${PASSWORD_MIN} characters.`}
+          error={formState.errors.newPassword?.message}
+          {...register("newPassword")}
+        />
+        <Button type="submit" disabled={change.isPending}>
+          Change password
+        </Button>
       </form>
     </Card>
   );

@@ -36,7 +36,14 @@ export function ComparePage() {
   const v = spec.data;
   return (
     <>
-      <PageHeader title={`Compare version ${v.number} of ${v.contract.wine.name}`} lead={<Link to={`/specs/${v.id}`} className="underline">Back to version {v.number}</Link>} />
+      <PageHeader
+        title={`Compare version ${v.number} of ${v.contract.wine.name}`}
+        lead={
+          <Link to={`/specs/${v.id}`} className="underline">
+            Back to version {v.number}
+          </Link>
+        }
+      />
       <div className="flex flex-col gap-6">
         <Card title="What changed">
           <div className="mb-4 max-w-xs">
@@ -44,7 +51,10 @@ export function ComparePage() {
               label="Compare with"
               value={against || ""}
               onChange={(e) => setParams({ against: e.target.value }, { replace: true })}
-              options={[{ value: "", label: "Choose a version" }, ...v.otherVersions.map((o) => ({ value: String(o.id), label: `Version ${o.number}` }))]}
+              options={[
+                { value: "", label: "Choose a version" },
+                ...v.otherVersions.map((o) => ({ value: String(o.id), label: `Version ${o.number}` })),
+              ]}
             />
           </div>
           {diff.isPending && against > 0 && <LoadingState />}
@@ -53,8 +63,16 @@ export function ComparePage() {
             <table className="w-full text-left text-sm">
               <thead className="border-b border-line text-ink-500">
                 <tr>
-                  {["Parameter", "Change", `Min: v${diff.data.from.number} → v${diff.data.to.number}`, `Max: v${diff.data.from.number} → v${diff.data.to.number}`, "Also changed"].map((h) => (
-                    <th key={h} scope="col" className="py-2 pr-4 font-semibold">{h}</th>
+                  {[
+                    "Parameter",
+                    "Change",
+                    `Min: v${diff.data.from.number} → v${diff.data.to.number}`,
+                    `Max: v${diff.data.from.number} → v${diff.data.to.number}`,
+                    "Also changed",
+                  ].map((h) => (
+                    <th key={h} scope="col" className="py-2 pr-4 font-semibold">
+                      {h}
+                    </th>
                   ))}
                 </tr>
               </thead>
@@ -70,7 +88,9 @@ export function ComparePage() {
                       <td className="py-2 pr-4 font-semibold">{p.name}</td>
                       <td className={`py-2 pr-4 font-semibold ${KIND_STYLE[p.kind]}`}>{p.kind}</td>
                       {(["lower", "upper"] as const).map((s) => (
-                        <td key={s} className="py-2 pr-4 tabular-nums">{side(s) ? `${shown(side(s)!.before)} → ${shown(side(s)!.after)} ${unit ? UNITS[unit].label : ""}` : "—"}</td>
+                        <td key={s} className="py-2 pr-4 tabular-nums">
+                          {side(s) ? `${shown(side(s)!.before)} → ${shown(side(s)!.after)} ${unit ? UNITS[unit].label : ""}` : "—"}
+                        </td>
                       ))}
                       <td className="py-2 pr-4 text-ink-500">{p.otherChanges.join(", ") || "—"}</td>
                     </tr>
@@ -79,7 +99,11 @@ export function ComparePage() {
               </tbody>
             </table>
           )}
-          {diff.data && <p className="mt-2 text-xs text-ink-500">Limits are compared after converting both versions to one unit, so a change of unit alone is not a change of limit.</p>}
+          {diff.data && (
+            <p className="mt-2 text-xs text-ink-500">
+              Limits are compared after converting both versions to one unit, so a change of unit alone is not a change of limit.
+            </p>
+          )}
         </Card>
         {against > 0 && <BacktestCard orgId={orgId} version={v} againstId={against} />}
       </div>
@@ -96,10 +120,17 @@ function BacktestCard({ orgId, version, againstId }: { orgId: number; version: S
     setError(null);
     setSummary(null);
     try {
-      const [rows, current] = await Promise.all([qc.fetchQuery(pastResultsQuery(orgId, version.contract.id)), qc.fetchQuery(specQuery(orgId, againstId))]);
+      const [rows, current] = await Promise.all([
+        qc.fetchQuery(pastResultsQuery(orgId, version.contract.id)),
+        qc.fetchQuery(specQuery(orgId, againstId)),
+      ]);
       const results = toPastResults(rows, version.contract.wine);
       setProgress({ done: 0, total: results.length });
-      setSummary(await runBacktest(results, current.requirements, version.requirements, version.contract.wine.markets, (done, total) => setProgress({ done, total })));
+      setSummary(
+        await runBacktest(results, current.requirements, version.requirements, version.contract.wine.markets, (done, total) =>
+          setProgress({ done, total }),
+        ),
+      );
     } catch (err) {
       setError(errorMessage(err));
     }
@@ -108,27 +139,47 @@ function BacktestCard({ orgId, version, againstId }: { orgId: number; version: S
   return (
     <Card title="Backtest against past results">
       <p className="mb-3 text-sm text-ink-700">
-        Evaluates every past result of this contract's lots under the other version and under this one, with the engine in your browser, and lists what would change.
+        Evaluates every past result of this contract's lots under the other version and under this one, with the engine in your browser, and
+        lists what would change.
       </p>
-      <Button onClick={() => void run()} disabled={running}>{running ? "Running…" : "Run backtest"}</Button>
+      <Button onClick={() => void run()} disabled={running}>
+        {running ? "Running…" : "Run backtest"}
+      </Button>
       {progress && (
         <div className="mt-3">
-          <progress className="h-2 w-full accent-must-700" max={Math.max(progress.total, 1)} value={progress.done} aria-label="Backtest progress" />
-          <p className="text-xs text-ink-500" role="status">{progress.done} of {progress.total} results evaluated</p>
+          <progress
+            className="h-2 w-full accent-must-700"
+            max={Math.max(progress.total, 1)}
+            value={progress.done}
+            aria-label="Backtest progress"
+          />
+          <p className="text-xs text-ink-500" role="status">
+            {progress.done} of {progress.total} results evaluated
+          </p>
         </div>
       )}
       {error && <Notice tone="error">{error}</Notice>}
       {summary && (
         <div className="mt-4 flex flex-col gap-2">
           {summary.checked === 0 && <EmptyState title="No past results for this contract yet." />}
-          {summary.checked > 0 && summary.sentences.length === 0 && <Notice tone="success">No past result would change its verdict.</Notice>}
+          {summary.checked > 0 && summary.sentences.length === 0 && (
+            <Notice tone="success">No past result would change its verdict.</Notice>
+          )}
           {summary.sentences.map((s) => (
-            <p key={s} className="rounded-md bg-ochre-50 px-3 py-2 font-semibold text-ochre-700">{s}.</p>
+            <p key={s} className="rounded-md bg-ochre-50 px-3 py-2 font-semibold text-ochre-700">
+              {s}.
+            </p>
           ))}
           {summary.newlyFailing.length > 0 && (
             <table className="mt-2 w-full text-left text-sm">
               <thead className="border-b border-line text-ink-500">
-                <tr>{["Lot", "Vintage", "Parameter", "Before", "Now"].map((h) => <th key={h} scope="col" className="py-1 pr-4 font-semibold">{h}</th>)}</tr>
+                <tr>
+                  {["Lot", "Vintage", "Parameter", "Before", "Now"].map((h) => (
+                    <th key={h} scope="col" className="py-1 pr-4 font-semibold">
+                      {h}
+                    </th>
+                  ))}
+                </tr>
               </thead>
               <tbody>
                 {[...summary.newlyFailing, ...summary.newlyPassing].map((c) => (

@@ -30,9 +30,26 @@ export function ContractPage() {
         lead={`Contract ${c.reference} between ${c.retailer.name} and ${c.producer.name}.`}
         actions={
           <div className="flex flex-wrap gap-2">
-            <Link to={`/lots?contract=${c.id}`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Lots</Link>
-            <Link to={`/contracts/${c.id}/trends`} className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50">Trends</Link>
-            {c.side === "producer" && <Link to={`/contracts/${c.id}/import`} className="rounded-md bg-must-700 px-3 py-1.5 text-sm font-semibold text-white hover:bg-must-800">Import results (CSV)</Link>}
+            <Link
+              to={`/lots?contract=${c.id}`}
+              className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50"
+            >
+              Lots
+            </Link>
+            <Link
+              to={`/contracts/${c.id}/trends`}
+              className="rounded-md border border-line bg-card px-3 py-1.5 text-sm font-semibold hover:bg-must-50"
+            >
+              Trends
+            </Link>
+            {c.side === "producer" && (
+              <Link
+                to={`/contracts/${c.id}/import`}
+                className="rounded-md bg-must-700 px-3 py-1.5 text-sm font-semibold text-white hover:bg-must-800"
+              >
+                Import results (CSV)
+              </Link>
+            )}
           </div>
         }
       />
@@ -41,7 +58,9 @@ export function ContractPage() {
           <Card title="The wine">
             <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
               <dt className="text-ink-500">Colour and style</dt>
-              <dd>{COLOUR_LABELS[c.wine.colour]}, {WINE_CATEGORY_LABELS[c.wine.category].toLowerCase()}</dd>
+              <dd>
+                {COLOUR_LABELS[c.wine.colour]}, {WINE_CATEGORY_LABELS[c.wine.category].toLowerCase()}
+              </dd>
               <dt className="text-ink-500">Region</dt>
               <dd>{c.wine.region}</dd>
               <dt className="text-ink-500">Destination markets</dt>
@@ -51,22 +70,29 @@ export function ContractPage() {
               <dt className="text-ink-500">Usual alcohol</dt>
               <dd>{c.wine.nominalAlcoholPercentVol ?? "—"} % vol</dd>
               <dt className="text-ink-500">Contract runs</dt>
-              <dd>{c.startsOn} to {c.endsOn ?? "open"}</dd>
+              <dd>
+                {c.startsOn} to {c.endsOn ?? "open"}
+              </dd>
             </dl>
           </Card>
           <LawFactsCard orgId={orgId} contract={c} />
         </div>
         <Card title="Spec versions" className="lg:col-span-2">
           {c.versions.length === 0 ? (
-            <EmptyState title="No spec version yet.">{c.canCreateVersion ? "Start one below." : "The buyer has not sent one yet."}</EmptyState>
+            <EmptyState title="No spec version yet.">
+              {c.canCreateVersion ? "Start one below." : "The buyer has not sent one yet."}
+            </EmptyState>
           ) : (
             <ul className="divide-y divide-line/60">
               {c.versions.map((v) => (
                 <li key={v.id} className="flex flex-wrap items-center gap-3 py-2 text-sm">
-                  <Link to={`/specs/${v.id}`} className="font-semibold text-must-700 underline">Version {v.number}</Link>
+                  <Link to={`/specs/${v.id}`} className="font-semibold text-must-700 underline">
+                    Version {v.number}
+                  </Link>
                   <StatusBadge status={v.status} />
                   <span className="text-ink-500">
-                    vintages {v.vintageFrom}{v.vintageTo ? `–${v.vintageTo}` : " onwards"} · {v.stages.map((s) => STAGE_LABELS[s]).join(", ")}
+                    vintages {v.vintageFrom}
+                    {v.vintageTo ? `–${v.vintageTo}` : " onwards"} · {v.stages.map((s) => STAGE_LABELS[s]).join(", ")}
                   </span>
                 </li>
               ))}
@@ -83,7 +109,9 @@ function NewVersionForm({ orgId, contract }: { orgId: number; contract: Contract
   const navigate = useNavigate();
   const create = useCreateVersion(orgId, contract.id);
   const [from, setFrom] = useState<"blank" | "template" | "version">(contract.versions.length ? "version" : "template");
-  const [templateId, setTemplateId] = useState(SPEC_TEMPLATES.find((t) => t.id.includes(contract.wine.colour === "red" ? "red" : "white"))?.id ?? SPEC_TEMPLATES[0]!.id);
+  const [templateId, setTemplateId] = useState(
+    SPEC_TEMPLATES.find((t) => t.id.includes(contract.wine.colour === "red" ? "red" : "white"))?.id ?? SPEC_TEMPLATES[0]!.id,
+  );
   const [versionId, setVersionId] = useState(contract.versions[0]?.id ?? 0);
   const submit = () =>
     create.mutate(from === "blank" ? { from } : from === "template" ? { from, templateId } : { from, versionId }, {
@@ -105,10 +133,20 @@ function NewVersionForm({ orgId, contract }: { orgId: number; contract: Contract
           ]}
         />
         {from === "template" && (
-          <SelectField label="Template" value={templateId} onChange={(e) => setTemplateId(e.target.value)} options={SPEC_TEMPLATES.map((t) => ({ value: t.id, label: t.name }))} />
+          <SelectField
+            label="Template"
+            value={templateId}
+            onChange={(e) => setTemplateId(e.target.value)}
+            options={SPEC_TEMPLATES.map((t) => ({ value: t.id, label: t.name }))}
+          />
         )}
         {from === "version" && (
-          <SelectField label="Version" value={versionId} onChange={(e) => setVersionId(Number(e.target.value))} options={contract.versions.map((v) => ({ value: String(v.id), label: `Version ${v.number}` }))} />
+          <SelectField
+            label="Version"
+            value={versionId}
+            onChange={(e) => setVersionId(Number(e.target.value))}
+            options={contract.versions.map((v) => ({ value: String(v.id), label: `Version ${v.number}` }))}
+          />
         )}
         {from === "blank" && <span />}
         <Button onClick={submit} disabled={create.isPending}>

@@ -1,5 +1,14 @@
 /** The live check beside a row: the destination markets' limits with citations, which bound governs, and warnings. */
-import { buildRequirement, citationConfirmed, RequirementError, UNITS, type BuyerRequirement, type GoverningRequirement, type MarketId, type WineProfile } from "../../../shared/engine/index.ts";
+import {
+  buildRequirement,
+  citationConfirmed,
+  RequirementError,
+  UNITS,
+  type BuyerRequirement,
+  type GoverningRequirement,
+  type MarketId,
+  type WineProfile,
+} from "../../../shared/engine/index.ts";
 
 const num = (x: number) => String(Number(x.toPrecision(5)));
 
@@ -20,13 +29,24 @@ export function LegalCheck({ row, markets, profile }: { row: BuyerRequirement; m
     <div className="flex flex-col gap-1 text-xs">
       {r.legalLimits.length === 0 && r.undetermined.length === 0 && <p className="text-ink-500">No legal limit in these markets.</p>}
       {r.legalLimits.map((l) => (
-        <p key={l.ruleId} className={governing.some((g) => g?.source.kind === "law" && g.source.limit.ruleId === l.ruleId) ? "font-semibold text-ink-900" : "text-ink-700"}>
+        <p
+          key={l.ruleId}
+          className={
+            governing.some((g) => g?.source.kind === "law" && g.source.limit.ruleId === l.ruleId)
+              ? "font-semibold text-ink-900"
+              : "text-ink-700"
+          }
+        >
           {l.market}: {l.side === "max" ? "at most" : "at least"} {num(l.statedValue)} {l.statedUnit}
           {l.statedUnit !== unit && ` (${num(l.value)} ${unit})`}
           <span className="block font-normal text-ink-500">
             {l.citation.document}, {l.citation.article}
           </span>
-          {!citationConfirmed(l.confirmed) && <span className="block font-normal text-ochre-700">Citation not yet confirmed: {l.confirmed.replace(/^citation not yet confirmed: /, "")}</span>}
+          {!citationConfirmed(l.confirmed) && (
+            <span className="block font-normal text-ochre-700">
+              Citation not yet confirmed: {l.confirmed.replace(/^citation not yet confirmed: /, "")}
+            </span>
+          )}
         </p>
       ))}
       {governing.map((g) =>

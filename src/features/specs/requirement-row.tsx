@@ -1,13 +1,23 @@
 /** One editable requirement row: parameter, unit (converting the limits), limits, method, rule, severity, stages, live check. */
 import { useFormContext, useWatch } from "react-hook-form";
-import { convert, findParameter, parseDecimal, PARAMETERS, UNITS, type MarketId, type UnitId, type WineProfile } from "../../../shared/engine/index.ts";
+import {
+  convert,
+  findParameter,
+  parseDecimal,
+  PARAMETERS,
+  UNITS,
+  type MarketId,
+  type UnitId,
+  type WineProfile,
+} from "../../../shared/engine/index.ts";
 import { SEVERITIES, SEVERITY_LABELS, STAGE_LABELS, type Stage } from "../../../shared/specs/vocabulary.ts";
 import type { SpecDraftInput } from "../../../shared/specs/schemas.ts";
 import { LegalCheck } from "./legal-check.tsx";
 import { presetOf, ruleOptions, RULE_PRESETS } from "./rule-presets.ts";
 
 const cell = "rounded border border-line bg-white px-2 py-1 text-sm aria-[invalid=true]:border-alarm-700";
-const toNumber = (v: unknown) => (v === "" || v === null || v === undefined ? null : typeof v === "number" ? v : (parseDecimal(String(v)) ?? Number.NaN));
+const toNumber = (v: unknown) =>
+  v === "" || v === null || v === undefined ? null : typeof v === "number" ? v : (parseDecimal(String(v)) ?? Number.NaN);
 
 interface Props {
   index: number;
@@ -31,14 +41,17 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
     const from = getValues(`rows.${index}.unit`) as UnitId;
     for (const f of ["lower", "upper", "target"] as const) {
       const v = getValues(`rows.${index}.${f}`);
-      if (typeof v === "number" && Number.isFinite(v)) setValue(`rows.${index}.${f}`, Number(convert(v, from, to as UnitId).toPrecision(6)), { shouldDirty: true });
+      if (typeof v === "number" && Number.isFinite(v))
+        setValue(`rows.${index}.${f}`, Number(convert(v, from, to as UnitId).toPrecision(6)), { shouldDirty: true });
     }
     setValue(`rows.${index}.unit`, to as UnitId, { shouldDirty: true, shouldValidate: true });
   };
 
   const numberField = (f: "lower" | "upper" | "target", label: string) => (
     <div className="flex flex-col">
-      <label htmlFor={id(f)} className="text-xs text-ink-500">{label}</label>
+      <label htmlFor={id(f)} className="text-xs text-ink-500">
+        {label}
+      </label>
       <input
         id={id(f)}
         inputMode="decimal"
@@ -50,12 +63,16 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
     </div>
   );
 
-  const messages = (["parameter", "unit", "lower", "upper", "target", "stages", "rule", "method"] as const).map((f) => [f, err(f)] as const).filter(([, m]) => m);
+  const messages = (["parameter", "unit", "lower", "upper", "target", "stages", "rule", "method"] as const)
+    .map((f) => [f, err(f)] as const)
+    .filter(([, m]) => m);
 
   return (
     <tr className="border-b border-line/60 align-top" aria-label={name}>
       <td className="py-2 pr-3">
-        <label htmlFor={id("parameter")} className="sr-only">Parameter of row {index + 1}</label>
+        <label htmlFor={id("parameter")} className="sr-only">
+          Parameter of row {index + 1}
+        </label>
         <select
           id={id("parameter")}
           className={`${cell} w-52`}
@@ -69,7 +86,9 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
           }}
         >
           {PARAMETERS.map((q) => (
-            <option key={q.id} value={q.id}>{q.name}</option>
+            <option key={q.id} value={q.id}>
+              {q.name}
+            </option>
           ))}
         </select>
         <div className="mt-2 flex flex-wrap gap-x-3 gap-y-1" role="group" aria-label={`Stages requiring ${name}`}>
@@ -87,10 +106,20 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
           {numberField("upper", "Max")}
           {numberField("target", "Target")}
           <div className="col-span-3 flex flex-col">
-            <label htmlFor={id("unit")} className="text-xs text-ink-500">Unit</label>
-            <select id={id("unit")} className={`${cell} w-full`} value={row.unit} onChange={(e) => changeUnit(e.target.value)} aria-invalid={err("unit") ? true : undefined}>
+            <label htmlFor={id("unit")} className="text-xs text-ink-500">
+              Unit
+            </label>
+            <select
+              id={id("unit")}
+              className={`${cell} w-full`}
+              value={row.unit}
+              onChange={(e) => changeUnit(e.target.value)}
+              aria-invalid={err("unit") ? true : undefined}
+            >
               {(p?.units ?? [row.unit]).map((u) => (
-                <option key={u} value={u}>{UNITS[u as UnitId]?.label ?? u}</option>
+                <option key={u} value={u}>
+                  {UNITS[u as UnitId]?.label ?? u}
+                </option>
               ))}
             </select>
           </div>
@@ -98,15 +127,25 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
         {messages.length > 0 && (
           <ul className="mt-1 text-xs font-semibold text-alarm-700">
             {messages.map(([f, m]) => (
-              <li key={f} id={id(`${f}-error`)} role="alert">{m}</li>
+              <li key={f} id={id(`${f}-error`)} role="alert">
+                {m}
+              </li>
             ))}
           </ul>
         )}
       </td>
       <td className="py-2 pr-3">
-        <label htmlFor={id("method")} className="text-xs text-ink-500">Method</label>
-        <input id={id("method")} className={`${cell} w-36`} {...register(`rows.${index}.method`, { setValueAs: (v) => (v === "" ? null : v) })} />
-        <label htmlFor={id("rule")} className="mt-1 block text-xs text-ink-500">Decision rule</label>
+        <label htmlFor={id("method")} className="text-xs text-ink-500">
+          Method
+        </label>
+        <input
+          id={id("method")}
+          className={`${cell} w-36`}
+          {...register(`rows.${index}.method`, { setValueAs: (v) => (v === "" ? null : v) })}
+        />
+        <label htmlFor={id("rule")} className="mt-1 block text-xs text-ink-500">
+          Decision rule
+        </label>
         <select
           id={id("rule")}
           className={`${cell} w-52`}
@@ -117,21 +156,36 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
           }}
         >
           {ruleOptions(row.rule).map((o) => (
-            <option key={o.value} value={o.value}>{o.label}</option>
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
           ))}
         </select>
-        <label htmlFor={id("severity")} className="mt-1 block text-xs text-ink-500">Severity</label>
+        <label htmlFor={id("severity")} className="mt-1 block text-xs text-ink-500">
+          Severity
+        </label>
         <select id={id("severity")} className={`${cell} w-52`} {...register(`rows.${index}.severity`)}>
           {SEVERITIES.map((s) => (
-            <option key={s} value={s}>{SEVERITY_LABELS[s]}</option>
+            <option key={s} value={s}>
+              {SEVERITY_LABELS[s]}
+            </option>
           ))}
         </select>
       </td>
       <td className="w-72 py-2 pr-3">
-        <LegalCheck row={{ ...row, lower: toNumber(row.lower), upper: toNumber(row.upper), target: toNumber(row.target) }} markets={markets} profile={profile} />
+        <LegalCheck
+          row={{ ...row, lower: toNumber(row.lower), upper: toNumber(row.upper), target: toNumber(row.target) }}
+          markets={markets}
+          profile={profile}
+        />
       </td>
       <td className="py-2">
-        <button type="button" onClick={onRemove} className="rounded px-2 py-1 text-sm font-semibold text-alarm-700 hover:bg-alarm-50" aria-label={`Remove ${name}`}>
+        <button
+          type="button"
+          onClick={onRemove}
+          className="rounded px-2 py-1 text-sm font-semibold text-alarm-700 hover:bg-alarm-50"
+          aria-label={`Remove ${name}`}
+        >
           Remove
         </button>
       </td>

@@ -1,5 +1,12 @@
 /** Runs the engine's backtest in small steps so the page stays responsive and can show progress. */
-import { backtestSteps, type BacktestSummary, type BuyerRequirement, type MarketId, type PastResult, type UnitId } from "../../../shared/engine/index.ts";
+import {
+  backtestSteps,
+  type BacktestSummary,
+  type BuyerRequirement,
+  type MarketId,
+  type PastResult,
+  type UnitId,
+} from "../../../shared/engine/index.ts";
 import { wineProfile, type WineFacts } from "../../../shared/specs/profile.ts";
 import type { PastResultRow } from "../../../shared/specs/views.ts";
 

@@ -20,7 +20,13 @@ import { TextField } from "../../components/ui/field.tsx";
 
 const AUTOSAVE_MS = 900;
 
-type SaveState = { kind: "idle" } | { kind: "saving" } | { kind: "saved"; at: string } | { kind: "invalid" } | { kind: "conflict"; message: string } | { kind: "error"; message: string };
+type SaveState =
+  | { kind: "idle" }
+  | { kind: "saving" }
+  | { kind: "saved"; at: string }
+  | { kind: "invalid" }
+  | { kind: "conflict"; message: string }
+  | { kind: "error"; message: string };
 
 function toDraft(v: SpecVersionDetail): SpecDraftInput {
   return {
@@ -33,7 +39,15 @@ function toDraft(v: SpecVersionDetail): SpecDraftInput {
   };
 }
 
-export function SpecEditor({ orgId, version, onSavedChange }: { orgId: number; version: SpecVersionDetail; onSavedChange: (clean: boolean) => void }) {
+export function SpecEditor({
+  orgId,
+  version,
+  onSavedChange,
+}: {
+  orgId: number;
+  version: SpecVersionDetail;
+  onSavedChange: (clean: boolean) => void;
+}) {
   const qc = useQueryClient();
   const save = useSaveDraft(orgId, version.id);
   const form = useForm<SpecDraftInput>({ resolver: zodResolver(specDraftSchema), defaultValues: toDraft(version), mode: "onChange" });
@@ -115,12 +129,29 @@ export function SpecEditor({ orgId, version, onSavedChange }: { orgId: number; v
 
   return (
     <FormProvider {...form}>
-      <form onSubmit={(e) => { e.preventDefault(); void saveNow(); }} noValidate className="flex flex-col gap-4">
+      <form
+        onSubmit={(e) => {
+          e.preventDefault();
+          void saveNow();
+        }}
+        noValidate
+        className="flex flex-col gap-4"
+      >
         <SaveStatus state={state} />
         <div className="grid gap-4 md:grid-cols-[2fr_1fr_1fr]">
           <TextField label="Title" error={form.formState.errors.title?.message} {...form.register("title")} />
-          <TextField label="First vintage" inputMode="numeric" error={form.formState.errors.vintageFrom?.message} {...form.register("vintageFrom", { setValueAs: (v) => (v === "" ? Number.NaN : Number(v)) })} />
-          <TextField label="Last vintage (empty = open)" inputMode="numeric" error={form.formState.errors.vintageTo?.message} {...form.register("vintageTo", { setValueAs: (v) => (v === "" || v === null ? null : Number(v)) })} />
+          <TextField
+            label="First vintage"
+            inputMode="numeric"
+            error={form.formState.errors.vintageFrom?.message}
+            {...form.register("vintageFrom", { setValueAs: (v) => (v === "" ? Number.NaN : Number(v)) })}
+          />
+          <TextField
+            label="Last vintage (empty = open)"
+            inputMode="numeric"
+            error={form.formState.errors.vintageTo?.message}
+            {...form.register("vintageTo", { setValueAs: (v) => (v === "" || v === null ? null : Number(v)) })}
+          />
         </div>
         <fieldset className="flex flex-wrap gap-4">
           <legend className="mb-1 text-sm font-semibold">Stages this version covers</legend>
@@ -129,43 +160,79 @@ export function SpecEditor({ orgId, version, onSavedChange }: { orgId: number; v
               <input type="checkbox" value={s} {...form.register("stages")} /> {STAGE_LABELS[s]}
             </label>
           ))}
-          {form.formState.errors.stages?.message && <p role="alert" className="w-full text-xs font-semibold text-alarm-700">{form.formState.errors.stages.message}</p>}
+          {form.formState.errors.stages?.message && (
+            <p role="alert" className="w-full text-xs font-semibold text-alarm-700">
+              {form.formState.errors.stages.message}
+            </p>
+          )}
         </fieldset>
         <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
             <thead className="border-b border-line text-ink-500">
               <tr>
-                <th scope="col" className="py-2 pr-3 font-semibold">Parameter and stages</th>
-                <th scope="col" className="py-2 pr-3 font-semibold">Limits</th>
-                <th scope="col" className="py-2 pr-3 font-semibold">Method, rule, severity</th>
-                <th scope="col" className="py-2 pr-3 font-semibold">Law in {version.contract.wine.markets.join(", ")}</th>
-                <th scope="col" className="py-2 font-semibold"><span className="sr-only">Remove</span></th>
+                <th scope="col" className="py-2 pr-3 font-semibold">
+                  Parameter and stages
+                </th>
+                <th scope="col" className="py-2 pr-3 font-semibold">
+                  Limits
+                </th>
+                <th scope="col" className="py-2 pr-3 font-semibold">
+                  Method, rule, severity
+                </th>
+                <th scope="col" className="py-2 pr-3 font-semibold">
+                  Law in {version.contract.wine.markets.join(", ")}
+                </th>
+                <th scope="col" className="py-2 font-semibold">
+                  <span className="sr-only">Remove</span>
+                </th>
               </tr>
             </thead>
             <tbody>
               {rows.fields.map((f, i) => (
-                <RequirementRow key={f.id} index={i} versionStages={stages as typeof version.stages} markets={version.contract.wine.markets} profile={profile} onRemove={() => rows.remove(i)} />
+                <RequirementRow
+                  key={f.id}
+                  index={i}
+                  versionStages={stages as typeof version.stages}
+                  markets={version.contract.wine.markets}
+                  profile={profile}
+                  onRemove={() => rows.remove(i)}
+                />
               ))}
             </tbody>
           </table>
-          {rows.fields.length === 0 && <p className="py-4 text-sm text-ink-500">No requirement yet. Add parameters from the catalogue below.</p>}
+          {rows.fields.length === 0 && (
+            <p className="py-4 text-sm text-ink-500">No requirement yet. Add parameters from the catalogue below.</p>
+          )}
         </div>
         <div className="flex flex-wrap items-end gap-3">
           <div className="flex flex-col">
-            <label htmlFor="add-parameter" className="text-sm font-semibold">Add a parameter</label>
-            <select id="add-parameter" className="rounded-md border border-line bg-white px-3 py-2" value={adding} onChange={(e) => setAdding(e.target.value)}>
+            <label htmlFor="add-parameter" className="text-sm font-semibold">
+              Add a parameter
+            </label>
+            <select
+              id="add-parameter"
+              className="rounded-md border border-line bg-white px-3 py-2"
+              value={adding}
+              onChange={(e) => setAdding(e.target.value)}
+            >
               <option value="">Choose from the catalogue…</option>
               {[...new Set(PARAMETERS.map((p) => p.group))].map((g) => (
                 <optgroup key={g} label={g}>
                   {PARAMETERS.filter((p) => p.group === g && !used.has(p.id)).map((p) => (
-                    <option key={p.id} value={p.id}>{p.name}</option>
+                    <option key={p.id} value={p.id}>
+                      {p.name}
+                    </option>
                   ))}
                 </optgroup>
               ))}
             </select>
           </div>
-          <Button variant="secondary" onClick={addRow} disabled={!adding}>Add row</Button>
-          <Button type="submit" variant="secondary" disabled={save.isPending}>Save now</Button>
+          <Button variant="secondary" onClick={addRow} disabled={!adding}>
+            Add row
+          </Button>
+          <Button type="submit" variant="secondary" disabled={save.isPending}>
+            Save now
+          </Button>
         </div>
       </form>
     </FormProvider>
@@ -175,18 +242,32 @@ export function SpecEditor({ orgId, version, onSavedChange }: { orgId: number; v
 function SaveStatus({ state }: { state: SaveState }) {
   switch (state.kind) {
     case "idle":
-      return <p className="text-sm text-ink-500" role="status">Changes save automatically.</p>;
+      return (
+        <p className="text-sm text-ink-500" role="status">
+          Changes save automatically.
+        </p>
+      );
     case "saving":
-      return <p className="text-sm text-ink-500" role="status">Saving…</p>;
+      return (
+        <p className="text-sm text-ink-500" role="status">
+          Saving…
+        </p>
+      );
     case "saved":
-      return <p className="text-sm text-verjus-700" role="status">All changes saved at {state.at}.</p>;
+      return (
+        <p className="text-sm text-verjus-700" role="status">
+          All changes saved at {state.at}.
+        </p>
+      );
     case "invalid":
       return <Notice tone="error">Not saved: fix the marked fields first.</Notice>;
     case "conflict":
       return (
         <Notice tone="error">
           {state.message}{" "}
-          <button type="button" className="font-semibold underline" onClick={() => window.location.reload()}>Reload</button>
+          <button type="button" className="font-semibold underline" onClick={() => window.location.reload()}>
+            Reload
+          </button>
         </Notice>
       );
     case "error":

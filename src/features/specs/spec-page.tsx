@@ -31,8 +31,11 @@ export function SpecPage() {
         title={`${v.contract.wine.name} · version ${v.number}`}
         lead={
           <>
-            Contract <Link to={`/contracts/${v.contract.id}`} className="underline">{v.contract.reference}</Link>: {v.contract.retailer.name} buys from {v.contract.producer.name}. Vintages{" "}
-            {v.vintageFrom}
+            Contract{" "}
+            <Link to={`/contracts/${v.contract.id}`} className="underline">
+              {v.contract.reference}
+            </Link>
+            : {v.contract.retailer.name} buys from {v.contract.producer.name}. Vintages {v.vintageFrom}
             {v.vintageTo ? `–${v.vintageTo}` : " onwards"}; stages {v.stages.map((s) => STAGE_LABELS[s].toLowerCase()).join(", ")}.
           </>
         }
@@ -64,15 +67,20 @@ function Actions({ orgId, version: v, saved }: { orgId: number; version: SpecVer
   return (
     <div className="flex flex-col gap-3">
       {failed && <Notice tone="error">{errorMessage(failed.error)}</Notice>}
-      {v.status === "with_producer" && v.side === "buyer" && <Notice>Sent to {v.contract.producer.name}; it can no longer change. Make a new version to change it.</Notice>}
-      {v.status === "agreed" && <Notice tone="success">Agreed by {v.contract.producer.name}: this version governs the lots of the vintages it covers.</Notice>}
+      {v.status === "with_producer" && v.side === "buyer" && (
+        <Notice>Sent to {v.contract.producer.name}; it can no longer change. Make a new version to change it.</Notice>
+      )}
+      {v.status === "agreed" && (
+        <Notice tone="success">Agreed by {v.contract.producer.name}: this version governs the lots of the vintages it covers.</Notice>
+      )}
       <div className="flex flex-wrap gap-2">
         {v.actions.send && (
           <ConfirmButton
             disabled={!saved || send.isPending}
             request={{
               title: `Send version ${v.number} to ${v.contract.producer.name}?`,
-              consequence: "The producer is notified and can agree to it or ask for changes. From now on this version cannot change; any change needs a new version.",
+              consequence:
+                "The producer is notified and can agree to it or ask for changes. From now on this version cannot change; any change needs a new version.",
               confirmLabel: "Send to the producer",
               onConfirm: () => send.mutate(undefined),
             }}
@@ -93,27 +101,46 @@ function Actions({ orgId, version: v, saved }: { orgId: number; version: SpecVer
             >
               Agree to this version
             </ConfirmButton>
-            <Button variant="secondary" onClick={() => setAsking(true)}>Ask for changes</Button>
+            <Button variant="secondary" onClick={() => setAsking(true)}>
+              Ask for changes
+            </Button>
           </>
         )}
         {v.actions.newVersion && v.status !== "draft" && (
-          <Button variant="secondary" disabled={newVersion.isPending} onClick={() => newVersion.mutate({ from: "version", versionId: v.id }, { onSuccess: ({ id }) => navigate(`/specs/${id}`) })}>
+          <Button
+            variant="secondary"
+            disabled={newVersion.isPending}
+            onClick={() => newVersion.mutate({ from: "version", versionId: v.id }, { onSuccess: ({ id }) => navigate(`/specs/${id}`) })}
+          >
             New version from this one
           </Button>
         )}
         {compareWith && (
-          <Link to={`/specs/${v.id}/compare?against=${compareWith.id}`} className="inline-flex items-center rounded-md border border-line bg-card px-4 py-2 text-sm font-semibold hover:bg-must-50">
+          <Link
+            to={`/specs/${v.id}/compare?against=${compareWith.id}`}
+            className="inline-flex items-center rounded-md border border-line bg-card px-4 py-2 text-sm font-semibold hover:bg-must-50"
+          >
             Compare and backtest
           </Link>
         )}
-        <a href={specPdfUrl(orgId, v.id)} className="inline-flex items-center rounded-md border border-line bg-card px-4 py-2 text-sm font-semibold hover:bg-must-50" download>
+        <a
+          href={specPdfUrl(orgId, v.id)}
+          className="inline-flex items-center rounded-md border border-line bg-card px-4 py-2 text-sm font-semibold hover:bg-must-50"
+          download
+        >
           Download PDF
         </a>
         {v.actions.withdraw && (
           <ConfirmButton
             variant="danger"
             disabled={withdraw.isPending}
-            request={{ title: `Withdraw version ${v.number}?`, consequence: "It will no longer govern any lot. Lots already judged against it keep their verdicts.", confirmLabel: "Withdraw this version", tone: "danger", onConfirm: () => withdraw.mutate(undefined) }}
+            request={{
+              title: `Withdraw version ${v.number}?`,
+              consequence: "It will no longer govern any lot. Lots already judged against it keep their verdicts.",
+              confirmLabel: "Withdraw this version",
+              tone: "danger",
+              onConfirm: () => withdraw.mutate(undefined),
+            }}
           >
             Withdraw
           </ConfirmButton>
@@ -127,11 +154,23 @@ function Actions({ orgId, version: v, saved }: { orgId: number; version: SpecVer
             requestChanges.mutate({ reason }, { onSuccess: () => setAsking(false) });
           }}
         >
-          <label htmlFor="change-reason" className="text-sm font-semibold">What should change?</label>
-          <textarea id="change-reason" rows={3} className="rounded-md border border-line px-2 py-1" value={reason} onChange={(e) => setReason(e.target.value)} />
+          <label htmlFor="change-reason" className="text-sm font-semibold">
+            What should change?
+          </label>
+          <textarea
+            id="change-reason"
+            rows={3}
+            className="rounded-md border border-line px-2 py-1"
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+          />
           <div className="flex gap-2">
-            <Button type="submit" disabled={requestChanges.isPending || reason.trim().length < 3}>Send back to the buyer</Button>
-            <Button variant="quiet" onClick={() => setAsking(false)}>Cancel</Button>
+            <Button type="submit" disabled={requestChanges.isPending || reason.trim().length < 3}>
+              Send back to the buyer
+            </Button>
+            <Button variant="quiet" onClick={() => setAsking(false)}>
+              Cancel
+            </Button>
           </div>
         </form>
       )}

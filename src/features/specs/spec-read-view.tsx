@@ -30,7 +30,9 @@ export function SpecReadView({ orgId, version }: { orgId: number; version: SpecV
           <thead className="border-b border-line text-ink-500">
             <tr>
               {["Parameter", "Limits", "Method and rule", "Law in " + version.contract.wine.markets.join(", "), "Comments"].map((h) => (
-                <th key={h} scope="col" className="py-2 pr-3 font-semibold">{h}</th>
+                <th key={h} scope="col" className="py-2 pr-3 font-semibold">
+                  {h}
+                </th>
               ))}
             </tr>
           </thead>
@@ -51,7 +53,12 @@ export function SpecReadView({ orgId, version }: { orgId: number; version: SpecV
                   <LegalCheck row={r} markets={version.contract.wine.markets} profile={profile} />
                 </td>
                 <td className="w-80 py-2">
-                  <Thread orgId={orgId} version={version} requirement={r} comments={version.comments.filter((c) => c.requirementId === r.id)} />
+                  <Thread
+                    orgId={orgId}
+                    version={version}
+                    requirement={r}
+                    comments={version.comments.filter((c) => c.requirementId === r.id)}
+                  />
                 </td>
               </tr>
             ))}
@@ -66,11 +73,23 @@ export function SpecReadView({ orgId, version }: { orgId: number; version: SpecV
   );
 }
 
-function Thread({ orgId, version, requirement, comments }: { orgId: number; version: SpecVersionDetail; requirement?: RequirementView; comments: SpecCommentView[] }) {
+function Thread({
+  orgId,
+  version,
+  requirement,
+  comments,
+}: {
+  orgId: number;
+  version: SpecVersionDetail;
+  requirement?: RequirementView;
+  comments: SpecCommentView[];
+}) {
   const add = useAddComment(orgId, version.id);
   const [body, setBody] = useState("");
   const [open, setOpen] = useState(false);
-  const label = requirement ? `Comment on ${findParameter(requirement.parameter)?.name ?? requirement.parameter}` : "Comment on the version";
+  const label = requirement
+    ? `Comment on ${findParameter(requirement.parameter)?.name ?? requirement.parameter}`
+    : "Comment on the version";
   return (
     <div className="flex flex-col gap-2 text-sm">
       {comments.map((c) => (
@@ -86,16 +105,36 @@ function Thread({ orgId, version, requirement, comments }: { orgId: number; vers
           <form
             onSubmit={(e) => {
               e.preventDefault();
-              add.mutate({ requirementId: requirement?.id ?? null, body }, { onSuccess: () => { setBody(""); setOpen(false); } });
+              add.mutate(
+                { requirementId: requirement?.id ?? null, body },
+                {
+                  onSuccess: () => {
+                    setBody("");
+                    setOpen(false);
+                  },
+                },
+              );
             }}
             className="flex flex-col gap-2"
           >
-            <label className="sr-only" htmlFor={`comment-${requirement?.id ?? "version"}`}>{label}</label>
-            <textarea id={`comment-${requirement?.id ?? "version"}`} className="rounded-md border border-line px-2 py-1" rows={3} value={body} onChange={(e) => setBody(e.target.value)} />
+            <label className="sr-only" htmlFor={`comment-${requirement?.id ?? "version"}`}>
+              {label}
+            </label>
+            <textarea
+              id={`comment-${requirement?.id ?? "version"}`}
+              className="rounded-md border border-line px-2 py-1"
+              rows={3}
+              value={body}
+              onChange={(e) => setBody(e.target.value)}
+            />
             {add.isError && <Notice tone="error">{errorMessage(add.error)}</Notice>}
             <div className="flex gap-2">
-              <Button type="submit" disabled={add.isPending || !body.trim()}>Post comment</Button>
-              <Button variant="quiet" onClick={() => setOpen(false)}>Cancel</Button>
+              <Button type="submit" disabled={add.isPending || !body.trim()}>
+                Post comment
+              </Button>
+              <Button variant="quiet" onClick={() => setOpen(false)}>
+                Cancel
+              </Button>
             </div>
           </form>
         ) : (

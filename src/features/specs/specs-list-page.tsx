@@ -67,7 +67,15 @@ function ContractsCard({ orgId }: { orgId: number }) {
                 <p className="text-sm text-ink-500">
                   {c.reference} · {c.producer.name} · {c.wine.markets.join(", ")}
                 </p>
-                <p className="mt-1 text-sm">{agreed ? <>Version {agreed.number} agreed</> : c.versions.length ? `${c.versions.length} version(s), none agreed` : "No spec yet"}</p>
+                <p className="mt-1 text-sm">
+                  {agreed ? (
+                    <>Version {agreed.number} agreed</>
+                  ) : c.versions.length ? (
+                    `${c.versions.length} version(s), none agreed`
+                  ) : (
+                    "No spec yet"
+                  )}
+                </p>
               </li>
             );
           })}
@@ -83,11 +91,37 @@ function SpecFiltersBar({ orgId, filters, set }: { orgId: number; filters: SpecF
   const producers = [...new Map((contracts.data ?? []).map((c) => [c.producer.id, c.producer.name])).entries()];
   return (
     <div className="mb-4 grid gap-3 md:grid-cols-5">
-      <TextField label="Search" type="search" placeholder="Wine, contract, region" defaultValue={filters.q ?? ""} onChange={(e) => set("q", e.target.value)} />
-      <SelectField label="Wine" value={filters.wine ?? ""} onChange={(e) => set("wine", e.target.value)} options={[{ value: "", label: "All wines" }, ...wines.map(([id, name]) => ({ value: String(id), label: name }))]} />
-      <SelectField label="Producer" value={filters.producer ?? ""} onChange={(e) => set("producer", e.target.value)} options={[{ value: "", label: "All producers" }, ...producers.map(([id, name]) => ({ value: String(id), label: name }))]} />
-      <SelectField label="Market" value={filters.market ?? ""} onChange={(e) => set("market", e.target.value)} options={[{ value: "", label: "All markets" }, ...MARKET_IDS.map((m) => ({ value: m, label: MARKET_PACKS[m].name }))]} />
-      <SelectField label="Status" value={filters.status ?? ""} onChange={(e) => set("status", e.target.value)} options={[{ value: "", label: "Any status" }, ...SPEC_STATUSES.map((s) => ({ value: s, label: SPEC_STATUS_LABELS[s] }))]} />
+      <TextField
+        label="Search"
+        type="search"
+        placeholder="Wine, contract, region"
+        defaultValue={filters.q ?? ""}
+        onChange={(e) => set("q", e.target.value)}
+      />
+      <SelectField
+        label="Wine"
+        value={filters.wine ?? ""}
+        onChange={(e) => set("wine", e.target.value)}
+        options={[{ value: "", label: "All wines" }, ...wines.map(([id, name]) => ({ value: String(id), label: name }))]}
+      />
+      <SelectField
+        label="Producer"
+        value={filters.producer ?? ""}
+        onChange={(e) => set("producer", e.target.value)}
+        options={[{ value: "", label: "All producers" }, ...producers.map(([id, name]) => ({ value: String(id), label: name }))]}
+      />
+      <SelectField
+        label="Market"
+        value={filters.market ?? ""}
+        onChange={(e) => set("market", e.target.value)}
+        options={[{ value: "", label: "All markets" }, ...MARKET_IDS.map((m) => ({ value: m, label: MARKET_PACKS[m].name }))]}
+      />
+      <SelectField
+        label="Status"
+        value={filters.status ?? ""}
+        onChange={(e) => set("status", e.target.value)}
+        options={[{ value: "", label: "Any status" }, ...SPEC_STATUSES.map((s) => ({ value: s, label: SPEC_STATUS_LABELS[s] }))]}
+      />
     </div>
   );
 }
@@ -103,7 +137,9 @@ function SpecTable({ orgId, filters }: { orgId: number; filters: SpecFilters }) 
         <thead className="border-b border-line text-ink-500">
           <tr>
             {["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-4 font-semibold">{h}</th>
+              <th key={h} scope="col" className="py-2 pr-4 font-semibold">
+                {h}
+              </th>
             ))}
           </tr>
         </thead>
@@ -111,12 +147,16 @@ function SpecTable({ orgId, filters }: { orgId: number; filters: SpecFilters }) 
           {list.data.map((v) => (
             <tr key={v.id} className="border-b border-line/60">
               <td className="py-2 pr-4 font-semibold">
-                <Link to={`/specs/${v.id}`} className="text-must-700 underline">{v.contract.wine.name}</Link>
+                <Link to={`/specs/${v.id}`} className="text-must-700 underline">
+                  {v.contract.wine.name}
+                </Link>
               </td>
               <td className="py-2 pr-4">{v.contract.reference}</td>
               <td className="py-2 pr-4">{v.contract.producer.name}</td>
               <td className="py-2 pr-4 tabular-nums">v{v.number}</td>
-              <td className="py-2 pr-4"><StatusBadge status={v.status} /></td>
+              <td className="py-2 pr-4">
+                <StatusBadge status={v.status} />
+              </td>
               <td className="py-2 pr-4 tabular-nums">{vintages(v.vintageFrom, v.vintageTo)}</td>
               <td className="py-2 pr-4 tabular-nums">{v.requirementCount}</td>
               <td className="py-2 pr-4 tabular-nums">{v.updatedAt.slice(0, 10)}</td>

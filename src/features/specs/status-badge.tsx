@@ -10,5 +10,7 @@ const TONE: Record<SpecStatus, string> = {
 };
 
 export function StatusBadge({ status }: { status: SpecStatus }) {
-  return <span className={`inline-block rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[status]}`}>{SPEC_STATUS_LABELS[status]}</span>;
+  return (
+    <span className={`inline-block rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[status]}`}>{SPEC_STATUS_LABELS[status]}</span>
+  );
 }

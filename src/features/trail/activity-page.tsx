@@ -11,7 +11,6 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { actionLabel, detailsText } from "../../../shared/trail/vocabulary.ts";
 
-
 export function ActivityPage() {
   const { orgId, membership } = useOrganisation();
   const [params, set] = useFilterParams();
@@ -26,20 +25,67 @@ export function ActivityPage() {
   if (membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
   return (
     <>
-      <PageHeader title="Trail" lead="What was done in your organisation, as recorded. Each entry is chained to the previous one by its SHA-256 hash, so later changes show." />
+      <PageHeader
+        title="Trail"
+        lead="What was done in your organisation, as recorded. Each entry is chained to the previous one by its SHA-256 hash, so later changes show."
+      />
       <Card>
         <div className="mb-4 grid gap-3 md:grid-cols-4">
-          <TextField label="Action starts with" placeholder="deviation." defaultValue={filters.action ?? ""} onChange={(e) => set("action", e.target.value)} />
-          <SelectField label="Entity" value={filters.entityType ?? ""} onChange={(e) => set("entityType", e.target.value)} options={[{ value: "", label: "Any" }, ...["user", "membership", "invitation", "organisation", "contract", "spec_version", "lot", "analysis", "certificate", "deviation"].map((v) => ({ value: v, label: v.replace("_", " ") }))]} />
+          <TextField
+            label="Action starts with"
+            placeholder="deviation."
+            defaultValue={filters.action ?? ""}
+            onChange={(e) => set("action", e.target.value)}
+          />
+          <SelectField
+            label="Entity"
+            value={filters.entityType ?? ""}
+            onChange={(e) => set("entityType", e.target.value)}
+            options={[
+              { value: "", label: "Any" },
+              ...[
+                "user",
+                "membership",
+                "invitation",
+                "organisation",
+                "contract",
+                "spec_version",
+                "lot",
+                "analysis",
+                "certificate",
+                "deviation",
+              ].map((v) => ({ value: v, label: v.replace("_", " ") })),
+            ]}
+          />
           <TextField label="From" type="date" value={filters.from ?? ""} onChange={(e) => set("from", e.target.value)} />
           <TextField label="To" type="date" value={filters.to ?? ""} onChange={(e) => set("to", e.target.value)} />
         </div>
         <div className="mb-4 flex flex-wrap items-center gap-3">
-          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/trail?${qs}&format=csv`}>Export CSV</a>
-          <a className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50" href={`/api/orgs/${orgId}/trail?${qs}&format=json`}>Export JSON</a>
-          <Button variant="secondary" onClick={() => verify.mutate()} disabled={verify.isPending}>Verify the hash chain</Button>
-          {verify.data?.ok && <span className="text-sm font-semibold text-verjus-700" role="status">Intact: {verify.data.checked} entries checked.</span>}
-          {verify.data && !verify.data.ok && <span className="text-sm font-semibold text-alarm-700" role="status">Broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.</span>}
+          <a
+            className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50"
+            href={`/api/orgs/${orgId}/trail?${qs}&format=csv`}
+          >
+            Export CSV
+          </a>
+          <a
+            className="rounded-md border border-line px-3 py-1.5 text-sm font-semibold hover:bg-must-50"
+            href={`/api/orgs/${orgId}/trail?${qs}&format=json`}
+          >
+            Export JSON
+          </a>
+          <Button variant="secondary" onClick={() => verify.mutate()} disabled={verify.isPending}>
+            Verify the hash chain
+          </Button>
+          {verify.data?.ok && (
+            <span className="text-sm font-semibold text-verjus-700" role="status">
+              Intact: {verify.data.checked} entries checked.
+            </span>
+          )}
+          {verify.data && !verify.data.ok && (
+            <span className="text-sm font-semibold text-alarm-700" role="status">
+              Broken at entry {verify.data.firstBroken?.seq}: {verify.data.firstBroken?.reason}.
+            </span>
+          )}
         </div>
         {entries.isPending && <LoadingState />}
         {entries.isError && <ErrorState error={entries.error} onRetry={() => entries.refetch()} />}
@@ -48,12 +94,24 @@ export function ActivityPage() {
           <table className="w-full text-left text-sm">
             <thead className="border-b border-line text-ink-500">
               <tr>
-                <th scope="col" className="py-2 pr-4 font-semibold">#</th>
-                <th scope="col" className="py-2 pr-4 font-semibold">When (UTC)</th>
-                <th scope="col" className="py-2 pr-4 font-semibold">Who</th>
-                <th scope="col" className="py-2 pr-4 font-semibold">What</th>
-                <th scope="col" className="py-2 pr-4 font-semibold">Details</th>
-                <th scope="col" className="py-2 font-semibold">Hash</th>
+                <th scope="col" className="py-2 pr-4 font-semibold">
+                  #
+                </th>
+                <th scope="col" className="py-2 pr-4 font-semibold">
+                  When (UTC)
+                </th>
+                <th scope="col" className="py-2 pr-4 font-semibold">
+                  Who
+                </th>
+                <th scope="col" className="py-2 pr-4 font-semibold">
+                  What
+                </th>
+                <th scope="col" className="py-2 pr-4 font-semibold">
+                  Details
+                </th>
+                <th scope="col" className="py-2 font-semibold">
+                  Hash
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -62,10 +120,11 @@ export function ActivityPage() {
                   <td className="py-2 pr-4 tabular-nums">{e.seq}</td>
                   <td className="py-2 pr-4 tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</td>
                   <td className="py-2 pr-4">{e.actorName ?? "system"}</td>
-                  <td className="py-2 pr-4">{actionLabel(e.action)}<span className="block font-mono text-xs text-ink-500">{e.action}</span></td>
-                  <td className="py-2 pr-4 text-ink-700">
-                    {detailsText(e.details) || "—"}
+                  <td className="py-2 pr-4">
+                    {actionLabel(e.action)}
+                    <span className="block font-mono text-xs text-ink-500">{e.action}</span>
                   </td>
+                  <td className="py-2 pr-4 text-ink-700">{detailsText(e.details) || "—"}</td>
                   <td className="py-2 font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</td>
                 </tr>
               ))}

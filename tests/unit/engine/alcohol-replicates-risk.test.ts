@@ -9,7 +9,16 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import jStat from "jstat";
-import { baumeFromDensity, brixFromDensity, checkReplicates, globalRisks, oechsleFromDensity, potentialAlcohol, quantity, totalAlcohol } from "../../../shared/engine/index.ts";
+import {
+  baumeFromDensity,
+  brixFromDensity,
+  checkReplicates,
+  globalRisks,
+  oechsleFromDensity,
+  potentialAlcohol,
+  quantity,
+  totalAlcohol,
+} from "../../../shared/engine/index.ts";
 
 describe("alcohol from sugar and must weight", () => {
   it("when sugar remains, then potential alcohol is sugar / 16.83 and total alcohol adds it to the actual", () => {
@@ -67,12 +76,17 @@ describe("global risks of a guard band", () => {
 
   it("when the guard band widens, then the consumer's risk falls and the producer's rises (fast-check)", () => {
     fc.assert(
-      fc.property(fc.double({ min: 0.3, max: 0.7, noNaN: true }), fc.double({ min: 0.01, max: 0.1, noNaN: true }), fc.double({ min: 0.005, max: 0.05, noNaN: true }), (m, s, u) => {
-        const at = (guard: number) => globalRisks({ processMean: m, processSd: s, u, upper: 0.6, guard }, 800);
-        const [a, b] = [at(0), at(2 * u)];
-        expect(b.consumer).toBeLessThanOrEqual(a.consumer + 1e-12);
-        expect(b.producer).toBeGreaterThanOrEqual(a.producer - 1e-12);
-      }),
+      fc.property(
+        fc.double({ min: 0.3, max: 0.7, noNaN: true }),
+        fc.double({ min: 0.01, max: 0.1, noNaN: true }),
+        fc.double({ min: 0.005, max: 0.05, noNaN: true }),
+        (m, s, u) => {
+          const at = (guard: number) => globalRisks({ processMean: m, processSd: s, u, upper: 0.6, guard }, 800);
+          const [a, b] = [at(0), at(2 * u)];
+          expect(b.consumer).toBeLessThanOrEqual(a.consumer + 1e-12);
+          expect(b.producer).toBeGreaterThanOrEqual(a.producer - 1e-12);
+        },
+      ),
       { numRuns: 60 },
     );
   });

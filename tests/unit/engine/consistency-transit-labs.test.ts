@@ -20,7 +20,9 @@ import {
 } from "../../../shared/engine/index.ts";
 
 // NIST/SEMATECH e-Handbook 6.3.2.4 EWMA example; the 20 values and s are from memory, checked by recomputing the published limits.
-const NIST_EWMA_DATA = [52.0, 47.0, 53.0, 49.3, 50.1, 47.0, 51.0, 50.1, 51.2, 50.5, 49.6, 47.6, 49.9, 51.3, 47.8, 51.2, 52.6, 52.4, 53.6, 52.1];
+const NIST_EWMA_DATA = [
+  52.0, 47.0, 53.0, 49.3, 50.1, 47.0, 51.0, 50.1, 51.2, 50.5, 49.6, 47.6, 49.9, 51.3, 47.8, 51.2, 52.6, 52.4, 53.6, 52.1,
+];
 
 describe("EWMA chart (NIST/SEMATECH e-Handbook of Statistical Methods 6.3.2.4)", () => {
   const points = ewmaChart(NIST_EWMA_DATA, { lambda: 0.3, target: 50, sigma: 2.0539 });
@@ -121,7 +123,9 @@ describe("transit (bulk wine)", () => {
   });
 
   it("when a spec overrides an allowance, then the override governs", () => {
-    const f = compareTransit({ free_so2: { value: 32 } }, { free_so2: { value: 25 } }, [{ parameter: "free_so2", direction: "decrease", allowed: 5, basis: "buyer spec" }]);
+    const f = compareTransit({ free_so2: { value: 32 } }, { free_so2: { value: 25 } }, [
+      { parameter: "free_so2", direction: "decrease", allowed: 5, basis: "buyer spec" },
+    ]);
     expect(f[0]!.exceeded).toBe(true);
   });
 });
@@ -153,15 +157,20 @@ describe("spec versions", () => {
       input: { reading: { kind: "value", value: va }, unit: "g/L as acetic acid", uncertainty: { kind: "standard", value: 0 } },
       profile: { colour: "red", category: "still", sugarGPerL: 2 },
     }));
-    const steps = [...(function* () {
-      const it = backtestSteps(results, v1, v2, ["EU"], 2);
-      let s = it.next();
-      while (!s.done) {
-        yield s.value;
-        s = it.next();
-      }
-    })()];
-    expect(steps).toEqual([{ done: 2, total: 5 }, { done: 4, total: 5 }]);
+    const steps = [
+      ...(function* () {
+        const it = backtestSteps(results, v1, v2, ["EU"], 2);
+        let s = it.next();
+        while (!s.done) {
+          yield s.value;
+          s = it.next();
+        }
+      })(),
+    ];
+    expect(steps).toEqual([
+      { done: 2, total: 5 },
+      { done: 4, total: 5 },
+    ]);
     const summary = backtest(results, v1, v2, ["EU"]);
     expect(summary.sentences).toEqual(["3 lots of the 2024 vintage would now fail Volatile acidity"]);
   });

@@ -1,6 +1,15 @@
 import { describe, expect, it } from "vitest";
 import jStat from "jstat";
-import { normalCdf, conformanceProbability, guardWidth, statementForSide, type DecisionRule, buildRequirement, evaluate, type WineProfile } from "../../../shared/engine/index.ts";
+import {
+  normalCdf,
+  conformanceProbability,
+  guardWidth,
+  statementForSide,
+  type DecisionRule,
+  buildRequirement,
+  evaluate,
+  type WineProfile,
+} from "../../../shared/engine/index.ts";
 
 const nonBinary: DecisionRule = { kind: "non-binary", guard: { kind: "expanded", k: 2 } };
 
@@ -51,7 +60,11 @@ describe("decision rules (ILAC-G8:09/2019 §4.2)", () => {
 describe("verdicts", () => {
   const red: WineProfile = { colour: "red", category: "still", sugarGPerL: 2, harvestYear: 2023, alcoholPercentVol: 13.5 };
   const vaReq = buildRequirement({ parameter: "volatile_acidity", unit: "meq/L", upper: 18, rule: nonBinary }, ["EU"], red);
-  const value = (v: number) => ({ reading: { kind: "value" as const, value: v }, unit: "meq/L" as const, uncertainty: { kind: "expanded" as const, value: 1, k: 2 } });
+  const value = (v: number) => ({
+    reading: { kind: "value" as const, value: v },
+    unit: "meq/L" as const,
+    uncertainty: { kind: "expanded" as const, value: 1, k: 2 },
+  });
 
   it("when a result is given with its expanded uncertainty, then u = U/k and the verdict names the governing limit", () => {
     const v = evaluate(vaReq, value(17.5));
@@ -70,7 +83,11 @@ describe("verdicts", () => {
   });
 
   it("when a result is in another accepted unit, then it is converted before the decision", () => {
-    const v = evaluate(vaReq, { reading: { kind: "value", value: 1.3 }, unit: "g/L as acetic acid", uncertainty: { kind: "standard", value: 0.01 } });
+    const v = evaluate(vaReq, {
+      reading: { kind: "value", value: 1.3 },
+      unit: "g/L as acetic acid",
+      uncertainty: { kind: "standard", value: 0.01 },
+    });
     expect(v.value).toBeCloseTo(21.65, 2);
     expect(v.outcome).toBe("fail");
   });
@@ -93,7 +110,11 @@ describe("verdicts", () => {
   });
 
   it("when a lower limit decides, then the verdict says so", () => {
-    const ta = buildRequirement({ parameter: "total_acidity", unit: "g/L as tartaric acid", lower: 5, upper: 7, rule: { kind: "simple" } }, ["EU"], red);
+    const ta = buildRequirement(
+      { parameter: "total_acidity", unit: "g/L as tartaric acid", lower: 5, upper: 7, rule: { kind: "simple" } },
+      ["EU"],
+      red,
+    );
     const v = evaluate(ta, { reading: { kind: "value", value: 4.5 }, unit: "g/L as tartaric acid" });
     expect(v).toMatchObject({ outcome: "fail", decidingSide: "lower" });
   });

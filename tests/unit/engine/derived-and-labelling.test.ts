@@ -1,5 +1,18 @@
 import { describe, expect, it } from "vitest";
-import { quantity, boundSo2, fixedAcidity, freeSo2ForMolecular, molecularSo2, reducedExtract, sugarFreeExtract, euAlcoholLabelCheck, euSparklingSugarTerms, euStillSugarTerms, sulphiteStatement, usAlcoholLabelCheck } from "../../../shared/engine/index.ts";
+import {
+  quantity,
+  boundSo2,
+  fixedAcidity,
+  freeSo2ForMolecular,
+  molecularSo2,
+  reducedExtract,
+  sugarFreeExtract,
+  euAlcoholLabelCheck,
+  euSparklingSugarTerms,
+  euStillSugarTerms,
+  sulphiteStatement,
+  usAlcoholLabelCheck,
+} from "../../../shared/engine/index.ts";
 
 const mg = (x: number) => quantity(x, "mg/L");
 const g = (x: number) => quantity(x, "g/L");

@@ -1,10 +1,21 @@
 import { describe, expect, it } from "vitest";
-import { applicableLimits, MARKET_PACKS, buildRequirement, validateBuyerRequirement, RequirementError, PARAMETERS, type WineProfile } from "../../../shared/engine/index.ts";
+import {
+  applicableLimits,
+  MARKET_PACKS,
+  buildRequirement,
+  validateBuyerRequirement,
+  RequirementError,
+  PARAMETERS,
+  type WineProfile,
+} from "../../../shared/engine/index.ts";
 
 const redDry: WineProfile = { colour: "red", category: "still", sugarGPerL: 2, harvestYear: 2023, alcoholPercentVol: 13.5 };
 const whiteOffDry: WineProfile = { colour: "white", category: "still", sugarGPerL: 6, harvestYear: 2024, alcoholPercentVol: 11.5 };
-const only = (market: "EU" | "GB" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON", p: WineProfile, parameter: (typeof PARAMETERS)[number]["id"]) =>
-  applicableLimits([market], p, { parameter }).limits;
+const only = (
+  market: "EU" | "GB" | "US" | "OIV" | "UK-QWS" | "CN" | "CA-ON",
+  p: WineProfile,
+  parameter: (typeof PARAMETERS)[number]["id"],
+) => applicableLimits([market], p, { parameter }).limits;
 
 describe("catalogue", () => {
   it("when the catalogue is listed, then it has at least 30 parameters, each with canonical unit among its accepted units", () => {
@@ -56,7 +67,9 @@ describe("other EU, US, OIV and scheme limits", () => {
     expect(only("EU", { ...redDry, harvestYear: 2010 }, "lead")[0]!.statedValue).toBe(0.2);
     expect(only("EU", { ...redDry, harvestYear: 2018 }, "lead")[0]!.statedValue).toBe(0.15);
     expect(only("EU", { ...redDry, harvestYear: 2022 }, "lead")[0]!.statedValue).toBe(0.1);
-    expect(applicableLimits(["EU"], { ...redDry, harvestYear: 2022 }, { parameter: "lead", densityGPerMl: 0.994 }).limits[0]!.value).toBeCloseTo(0.0994, 6);
+    expect(
+      applicableLimits(["EU"], { ...redDry, harvestYear: 2022 }, { parameter: "lead", densityGPerMl: 0.994 }).limits[0]!.value,
+    ).toBeCloseTo(0.0994, 6);
   });
 
   it("when volatile acidity is checked in the US, then 0.14 g/100 mL red and 0.12 white, as acetic acid (27 CFR 4.21(a)(1)(iv))", () => {
@@ -67,7 +80,12 @@ describe("other EU, US, OIV and scheme limits", () => {
   });
 
   it("when a wine is outside 7–24 % vol, then 27 CFR part 4's limits do not apply; at 7 and 24 they do (27 CFR 4.6: 'not less than 7 percent and not more than 24 percent')", () => {
-    for (const [abv, applies] of [[6.9, false], [7, true], [24, true], [24.1, false]] as const) {
+    for (const [abv, applies] of [
+      [6.9, false],
+      [7, true],
+      [24, true],
+      [24.1, false],
+    ] as const) {
       expect([abv, only("US", { ...redDry, alcoholPercentVol: abv }, "volatile_acidity").length > 0]).toEqual([abv, applies]);
       expect([abv, only("US", { ...redDry, alcoholPercentVol: abv }, "total_so2").length > 0]).toEqual([abv, applies]);
     }
@@ -111,7 +129,9 @@ describe("other EU, US, OIV and scheme limits", () => {
 
   it("when a rule needs a fact the wine's profile lacks, then the warning names the fact in words", () => {
     const r = buildRequirement({ parameter: "copper", unit: "mg/L", upper: 1, rule: { kind: "simple" } }, ["UK-QWS"], redDry);
-    expect(r.issues.map((w) => w.message).join(" ")).toContain("it needs the wine's PDO or PGI status. State it on the contract to decide.");
+    expect(r.issues.map((w) => w.message).join(" ")).toContain(
+      "it needs the wine's PDO or PGI status. State it on the contract to decide.",
+    );
   });
 
   it("when a wine has no protected origin, or its origin is not known, then the scheme's limits do not apply, or are undetermined with the missing fact named", () => {
@@ -132,7 +152,9 @@ describe("other EU, US, OIV and scheme limits", () => {
   it("when a liqueur wine's copper is checked, then 2 mg/L only for one made from unfermented or slightly fermented must, otherwise 1 mg/L (OIV-MA-C1-01, OENO 434-2011)", () => {
     expect(only("OIV", { ...redDry, category: "liqueur", liqueurFromUnfermentedMust: true }, "copper").map((l) => l.value)).toEqual([2]);
     expect(only("OIV", { ...redDry, category: "liqueur", liqueurFromUnfermentedMust: false }, "copper").map((l) => l.value)).toEqual([1]);
-    expect(applicableLimits(["OIV"], { ...redDry, category: "liqueur" }, { parameter: "copper" }).undetermined.map((u) => u.missing)).toEqual([["liqueurFromUnfermentedMust"], ["liqueurFromUnfermentedMust"]]);
+    expect(
+      applicableLimits(["OIV"], { ...redDry, category: "liqueur" }, { parameter: "copper" }).undetermined.map((u) => u.missing),
+    ).toEqual([["liqueurFromUnfermentedMust"], ["liqueurFromUnfermentedMust"]]);
   });
 });
 
@@ -143,7 +165,9 @@ describe("requirement = buyer range ∩ market law", () => {
     const r = buildRequirement({ ...va, upper: 1.5 }, ["EU"], redDry);
     expect(r.upper!.value).toBe(20);
     expect(r.upper!.source.kind).toBe("law");
-    expect(r.issues[0]!.message).toMatch(/looser than the law: European Union allows at most 20 meq\/L \(Commission Delegated Regulation \(EU\) 2019\/934/);
+    expect(r.issues[0]!.message).toMatch(
+      /looser than the law: European Union allows at most 20 meq\/L \(Commission Delegated Regulation \(EU\) 2019\/934/,
+    );
   });
 
   it("when the buyer is stricter, then the buyer's limit governs", () => {
@@ -160,15 +184,29 @@ describe("requirement = buyer range ∩ market law", () => {
   });
 
   it("when total acidity has only a legal minimum, then the law supplies the lower bound", () => {
-    const r = buildRequirement({ parameter: "total_acidity", unit: "g/L as tartaric acid", upper: 8, rule: { kind: "simple" } }, ["EU", "UK-QWS"], { ...redDry, protectedOrigin: "pdo" });
+    const r = buildRequirement(
+      { parameter: "total_acidity", unit: "g/L as tartaric acid", upper: 8, rule: { kind: "simple" } },
+      ["EU", "UK-QWS"],
+      { ...redDry, protectedOrigin: "pdo" },
+    );
     expect(r.lower!.source.kind === "law" && r.lower!.source.limit.market).toBe("UK-QWS");
     expect(r.lower!.value).toBeCloseTo(53.3, 1); // 4 g/L as tartaric acid
   });
 
   it("when the range is impossible, then each error names its field", () => {
-    expect(validateBuyerRequirement({ parameter: "ph", unit: "pH", lower: 3.8, upper: 3.2, rule: { kind: "simple" } })).toContainEqual({ severity: "error", field: "lower", message: "The lower limit (3.8) is above the upper limit (3.2)." });
-    expect(validateBuyerRequirement({ parameter: "ph", unit: "pH", lower: 3.2, upper: 3.6, target: 3.7, rule: { kind: "simple" } })).toContainEqual({ severity: "error", field: "target", message: "The target lies outside the range." });
-    expect(validateBuyerRequirement({ parameter: "alcohol", unit: "mg/L", upper: 14, rule: { kind: "simple" } })[0]!.message).toBe("mg/L is not a unit for Actual alcoholic strength; use % vol, g/L ethanol.");
-    expect(() => buildRequirement({ parameter: "alcohol", unit: "NTU", upper: 14, rule: { kind: "simple" } }, [], redDry)).toThrow(RequirementError);
+    expect(validateBuyerRequirement({ parameter: "ph", unit: "pH", lower: 3.8, upper: 3.2, rule: { kind: "simple" } })).toContainEqual({
+      severity: "error",
+      field: "lower",
+      message: "The lower limit (3.8) is above the upper limit (3.2).",
+    });
+    expect(
+      validateBuyerRequirement({ parameter: "ph", unit: "pH", lower: 3.2, upper: 3.6, target: 3.7, rule: { kind: "simple" } }),
+    ).toContainEqual({ severity: "error", field: "target", message: "The target lies outside the range." });
+    expect(validateBuyerRequirement({ parameter: "alcohol", unit: "mg/L", upper: 14, rule: { kind: "simple" } })[0]!.message).toBe(
+      "mg/L is not a unit for Actual alcoholic strength; use % vol, g/L ethanol.",
+    );
+    expect(() => buildRequirement({ parameter: "alcohol", unit: "NTU", upper: 14, rule: { kind: "simple" } }, [], redDry)).toThrow(
+      RequirementError,
+    );
   });
 });

@@ -25,14 +25,26 @@ const quantityParams = PARAMETERS.filter((p) => p.kind === "quantity");
 
 const ruleArb: fc.Arbitrary<DecisionRule> = fc.oneof(
   fc.constant({ kind: "simple" as const }),
-  fc.record({ kind: fc.constant("guarded" as const), guard: fc.record({ kind: fc.constantFrom("expanded" as const, "multiple-of-u" as const), k: finite(0.5, 3) }) }),
-  fc.record({ kind: fc.constant("non-binary" as const), guard: fc.record({ kind: fc.constantFrom("expanded" as const, "multiple-of-u" as const), k: finite(0.5, 3) }) }),
+  fc.record({
+    kind: fc.constant("guarded" as const),
+    guard: fc.record({ kind: fc.constantFrom("expanded" as const, "multiple-of-u" as const), k: finite(0.5, 3) }),
+  }),
+  fc.record({
+    kind: fc.constant("non-binary" as const),
+    guard: fc.record({ kind: fc.constantFrom("expanded" as const, "multiple-of-u" as const), k: finite(0.5, 3) }),
+  }),
 );
 
 const profileArb: fc.Arbitrary<WineProfile> = fc.record(
   {
     colour: fc.constantFrom("red" as const, "white" as const, "rose" as const),
-    category: fc.constantFrom("still" as const, "sparkling" as const, "quality-sparkling" as const, "semi-sparkling" as const, "liqueur" as const),
+    category: fc.constantFrom(
+      "still" as const,
+      "sparkling" as const,
+      "quality-sparkling" as const,
+      "semi-sparkling" as const,
+      "liqueur" as const,
+    ),
     sugarGPerL: finite(0, 300),
     harvestYear: fc.integer({ min: 1990, max: 2030 }),
     alcoholPercentVol: finite(5, 22),
@@ -45,12 +57,23 @@ const ORDER: Outcome[] = ["pass", "conditional pass", "conditional fail", "fail"
 describe("engine properties (fast-check, fixed seed)", () => {
   it("when a value lies strictly inside the buyer's range and the uncertainty is zero, then it passes under every rule", () => {
     fc.assert(
-      fc.property(fc.constantFrom(...quantityParams), finite(0, 1000), finite(0.001, 1000), fc.double({ min: 0.01, max: 0.99, noNaN: true }), ruleArb, (p, lower, width, t, rule) => {
-        const upper = lower + width;
-        const req = buildRequirement({ parameter: p.id, unit: p.unit, lower, upper, rule }, [], { colour: "red", category: "still" });
-        const v = evaluate(req, { reading: { kind: "value", value: lower + t * width }, unit: p.unit, uncertainty: { kind: "standard", value: 0 } });
-        return v.outcome === "pass";
-      }),
+      fc.property(
+        fc.constantFrom(...quantityParams),
+        finite(0, 1000),
+        finite(0.001, 1000),
+        fc.double({ min: 0.01, max: 0.99, noNaN: true }),
+        ruleArb,
+        (p, lower, width, t, rule) => {
+          const upper = lower + width;
+          const req = buildRequirement({ parameter: p.id, unit: p.unit, lower, upper, rule }, [], { colour: "red", category: "still" });
+          const v = evaluate(req, {
+            reading: { kind: "value", value: lower + t * width },
+            unit: p.unit,
+            uncertainty: { kind: "standard", value: 0 },
+          });
+          return v.outcome === "pass";
+        },
+      ),
       SEED,
     );
   });
@@ -68,11 +91,22 @@ describe("engine properties (fast-check, fixed seed)", () => {
 
   it("when the measured value rises against an upper limit, then the outcome never improves", () => {
     fc.assert(
-      fc.property(finite(1, 100), finite(0, 5), ruleArb, fc.array(finite(0, 200), { minLength: 2, maxLength: 12 }), (upper, u, rule, xs) => {
-        const req = buildRequirement({ parameter: "total_so2", unit: "mg/L", upper, rule }, [], { colour: "white", category: "still" });
-        const outcomes = [...xs].sort((a, b) => a - b).map((x) => evaluate(req, { reading: { kind: "value", value: x }, unit: "mg/L", uncertainty: { kind: "standard", value: u } }).outcome);
-        return outcomes.every((o, i) => i === 0 || ORDER.indexOf(o) >= ORDER.indexOf(outcomes[i - 1]!));
-      }),
+      fc.property(
+        finite(1, 100),
+        finite(0, 5),
+        ruleArb,
+        fc.array(finite(0, 200), { minLength: 2, maxLength: 12 }),
+        (upper, u, rule, xs) => {
+          const req = buildRequirement({ parameter: "total_so2", unit: "mg/L", upper, rule }, [], { colour: "white", category: "still" });
+          const outcomes = [...xs]
+            .sort((a, b) => a - b)
+            .map(
+              (x) =>
+                evaluate(req, { reading: { kind: "value", value: x }, unit: "mg/L", uncertainty: { kind: "standard", value: u } }).outcome,
+            );
+          return outcomes.every((o, i) => i === 0 || ORDER.indexOf(o) >= ORDER.indexOf(outcomes[i - 1]!));
+        },
+      ),
       SEED,
     );
   });
@@ -133,11 +167,24 @@ describe("engine properties (fast-check, fixed seed)", () => {
         fc.array(fc.tuple(finite(0, 300), fc.option(finite(0, 5))), { minLength: 1, maxLength: 20 }),
         (p, pick, profile, lower, width, rule, results) => {
           const inputUnit = p.units[pick % p.units.length]!;
-          const req = buildRequirement({ parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : lower, upper: lower + width, rule }, markets, profile);
+          const req = buildRequirement(
+            { parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : lower, upper: lower + width, rule },
+            markets,
+            profile,
+          );
           const out = new Uint8Array(results.length);
-          evaluateMany(compileRequirement(req, inputUnit), results.map((r) => r[0]), results.map((r) => r[1] ?? NaN), out);
+          evaluateMany(
+            compileRequirement(req, inputUnit),
+            results.map((r) => r[0]),
+            results.map((r) => r[1] ?? NaN),
+            out,
+          );
           return results.every(([x, u], i) => {
-            const v = evaluate(req, { reading: { kind: "value", value: x }, unit: inputUnit, uncertainty: u === null ? null : { kind: "standard", value: u } });
+            const v = evaluate(req, {
+              reading: { kind: "value", value: x },
+              unit: inputUnit,
+              uncertainty: u === null ? null : { kind: "standard", value: u },
+            });
             return v.outcome === STATEMENT_CODES[out[i]!];
           });
         },
@@ -148,15 +195,35 @@ describe("engine properties (fast-check, fixed seed)", () => {
 
   it("when the batch path and the full verdict see the same numeric results, then they give the same statements", () => {
     fc.assert(
-      fc.property(fc.constantFrom(...quantityParams), finite(0, 50), finite(0.1, 200), ruleArb, fc.array(fc.tuple(finite(0, 300), fc.option(finite(0, 5))), { minLength: 1, maxLength: 30 }), (p, lower, width, rule, results) => {
-        const req = buildRequirement({ parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : lower, upper: lower + width, rule }, [], { colour: "red", category: "still" });
-        const out = new Uint8Array(results.length);
-        evaluateMany(compileRequirement(req, p.unit), results.map((r) => r[0]), results.map((r) => r[1] ?? NaN), out);
-        return results.every(([x, u], i) => {
-          const v = evaluate(req, { reading: { kind: "value", value: x }, unit: p.unit, uncertainty: u === null ? null : { kind: "standard", value: u } });
-          return v.outcome === STATEMENT_CODES[out[i]!];
-        });
-      }),
+      fc.property(
+        fc.constantFrom(...quantityParams),
+        finite(0, 50),
+        finite(0.1, 200),
+        ruleArb,
+        fc.array(fc.tuple(finite(0, 300), fc.option(finite(0, 5))), { minLength: 1, maxLength: 30 }),
+        (p, lower, width, rule, results) => {
+          const req = buildRequirement(
+            { parameter: p.id, unit: p.unit, lower: p.bounds === "upper" ? null : lower, upper: lower + width, rule },
+            [],
+            { colour: "red", category: "still" },
+          );
+          const out = new Uint8Array(results.length);
+          evaluateMany(
+            compileRequirement(req, p.unit),
+            results.map((r) => r[0]),
+            results.map((r) => r[1] ?? NaN),
+            out,
+          );
+          return results.every(([x, u], i) => {
+            const v = evaluate(req, {
+              reading: { kind: "value", value: x },
+              unit: p.unit,
+              uncertainty: u === null ? null : { kind: "standard", value: u },
+            });
+            return v.outcome === STATEMENT_CODES[out[i]!];
+          });
+        },
+      ),
       SEED,
     );
   });

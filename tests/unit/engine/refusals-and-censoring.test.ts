@@ -5,12 +5,23 @@
  * - A censored result "< L" means the true value lies in [0, L) (common practice in laboratory reporting).
  */
 import { describe, expect, it } from "vitest";
-import { buildRequirement, convert, evaluate, MarketError, sulphiteStatement, UnitError, applicableLimits, type UnitId, type WineProfile } from "../../../shared/engine/index.ts";
+import {
+  buildRequirement,
+  convert,
+  evaluate,
+  MarketError,
+  sulphiteStatement,
+  UnitError,
+  applicableLimits,
+  type UnitId,
+  type WineProfile,
+} from "../../../shared/engine/index.ts";
 import { judgeAnalysis, judgeFor, readResult } from "../../../shared/lots/judge.ts";
 
 const profile: WineProfile = { colour: "white", category: "still", harvestYear: 2025, sugarGPerL: 2 };
 const guarded = { kind: "guarded" as const, guard: { kind: "expanded" as const, k: 2 } };
-const row = (upper: number, rule: object = guarded) => buildRequirement({ parameter: "copper", unit: "mg/L", upper, lower: null, target: null, rule } as never, [], profile);
+const row = (upper: number, rule: object = guarded) =>
+  buildRequirement({ parameter: "copper", unit: "mg/L", upper, lower: null, target: null, rule } as never, [], profile);
 
 describe("refused inputs name the value and the field", () => {
   it("when a unit is unknown, then the conversion refuses it by name instead of throwing a TypeError", () => {
@@ -25,12 +36,33 @@ describe("refused inputs name the value and the field", () => {
   });
 
   it("when a coverage factor of 0 or below is given, then the result is refused rather than divided by it", () => {
-    expect(() => evaluate(row(1), { reading: { kind: "value", value: 0.3 }, unit: "mg/L", uncertainty: { kind: "expanded", value: 0.05, k: 0 } })).toThrow("A coverage factor must be above 0; k = 0 was given.");
-    expect(() => evaluate(row(1), { reading: { kind: "value", value: 0.3 }, unit: "mg/L", uncertainty: { kind: "expanded", value: 0.05, k: -2 } })).toThrow(RangeError);
+    expect(() =>
+      evaluate(row(1), { reading: { kind: "value", value: 0.3 }, unit: "mg/L", uncertainty: { kind: "expanded", value: 0.05, k: 0 } }),
+    ).toThrow("A coverage factor must be above 0; k = 0 was given.");
+    expect(() =>
+      evaluate(row(1), { reading: { kind: "value", value: 0.3 }, unit: "mg/L", uncertainty: { kind: "expanded", value: 0.05, k: -2 } }),
+    ).toThrow(RangeError);
   });
 
   it("when an analysis holds an unreadable result, then the judge marks it missing with the parser's reason, never a pass", () => {
-    const judge = judgeFor({ wine: { colour: "white", category: "still", nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12, lawFacts: null, markets: ["EU"] }, lot: { vintage: 2025, market: "EU" }, requirements: [{ id: 1, parameter: "copper", unit: "mg/L", lower: null, upper: 1, target: null, method: null, rule: guarded, severity: "major", stages: ["pre_filling"] }] });
+    const judge = judgeFor({
+      wine: { colour: "white", category: "still", nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12, lawFacts: null, markets: ["EU"] },
+      lot: { vintage: 2025, market: "EU" },
+      requirements: [
+        {
+          id: 1,
+          parameter: "copper",
+          unit: "mg/L",
+          lower: null,
+          upper: 1,
+          target: null,
+          method: null,
+          rule: guarded,
+          severity: "major",
+          stages: ["pre_filling"],
+        },
+      ],
+    });
     const read = readResult({ parameter: "copper", raw: "-0.2", unit: "mg/L" });
     expect(read).toMatchObject({ reading: null, error: '"-0.2": a measured result cannot be negative.' });
     expect(judgeAnalysis(judge, "pre_filling", [read]).verdicts[0]!.outcome).toBe("missing");
@@ -39,7 +71,11 @@ describe("refused inputs name the value and the field", () => {
 
 describe("what a result can show", () => {
   it("when a relative uncertainty in % is given, then it is honoured: U = 10 % of 0.5 mg/L is 0.05 mg/L, so u = 0.025 with k = 2", () => {
-    const v = evaluate(row(1), { reading: { kind: "value", value: 0.5 }, unit: "mg/L", uncertainty: { kind: "relative", value: 10, k: 2 } });
+    const v = evaluate(row(1), {
+      reading: { kind: "value", value: 0.5 },
+      unit: "mg/L",
+      uncertainty: { kind: "relative", value: 10, k: 2 },
+    });
     expect(v.uncertainty).toMatchObject({ source: "laboratory" });
     expect(v.uncertainty!.u).toBeCloseTo(0.025, 12);
     expect(v.guardBand).toBeCloseTo(0.05, 12);
@@ -59,9 +95,17 @@ describe("what a result can show", () => {
   });
 
   it("when the uncertainty is so large that the guard band leaves no acceptance zone, then the verdict warns that no result can show conformity", () => {
-    const v = evaluate(row(0.1), { reading: { kind: "value", value: 0.05 }, unit: "mg/L", uncertainty: { kind: "expanded", value: 0.2, k: 2 } });
+    const v = evaluate(row(0.1), {
+      reading: { kind: "value", value: 0.05 },
+      unit: "mg/L",
+      uncertainty: { kind: "expanded", value: 0.2, k: 2 },
+    });
     expect(v.explanation).toContain("no result can show conformity under this rule");
-    const fine = evaluate(row(1), { reading: { kind: "value", value: 0.05 }, unit: "mg/L", uncertainty: { kind: "expanded", value: 0.02, k: 2 } });
+    const fine = evaluate(row(1), {
+      reading: { kind: "value", value: 0.05 },
+      unit: "mg/L",
+      uncertainty: { kind: "expanded", value: 0.02, k: 2 },
+    });
     expect(fine.explanation).not.toContain("no result can show conformity");
   });
 });
@@ -70,8 +114,32 @@ describe("mg/kg limits and the sample's density", () => {
   it("when the analysis measured the density at 20 °C, then a mg/kg limit and the result are converted with it alike", () => {
     // EU lead in wine from the 2022 harvest: 0.10 mg/kg (Commission Regulation (EU) 2023/915, values of 2021/1317; citation not yet confirmed).
     // At 1.050 g/mL that is 0.105 mg/L, so 0.104 mg/L conforms; taken at 1.000 g/mL it would not.
-    const wine = { colour: "white" as const, category: "still" as const, nominalSugarGPerL: 60, nominalAlcoholPercentVol: 12, lawFacts: null, markets: ["EU" as const] };
-    const judge = judgeFor({ wine, lot: { vintage: 2024, market: "EU" }, requirements: [{ id: 1, parameter: "lead", unit: "mg/L", lower: null, upper: 0.2, target: null, method: null, rule: { kind: "simple" }, severity: "major", stages: ["pre_filling"] }] });
+    const wine = {
+      colour: "white" as const,
+      category: "still" as const,
+      nominalSugarGPerL: 60,
+      nominalAlcoholPercentVol: 12,
+      lawFacts: null,
+      markets: ["EU" as const],
+    };
+    const judge = judgeFor({
+      wine,
+      lot: { vintage: 2024, market: "EU" },
+      requirements: [
+        {
+          id: 1,
+          parameter: "lead",
+          unit: "mg/L",
+          lower: null,
+          upper: 0.2,
+          target: null,
+          method: null,
+          rule: { kind: "simple" },
+          severity: "major",
+          stages: ["pre_filling"],
+        },
+      ],
+    });
     const lead = readResult({ parameter: "lead", raw: "0.104", unit: "mg/L" });
     expect(judgeAnalysis(judge, "pre_filling", [lead]).verdicts[0]!.outcome).toBe("fail");
     const dense = judgeAnalysis(judge, "pre_filling", [lead, readResult({ parameter: "density", raw: "1.050", unit: "g/mL" })]);

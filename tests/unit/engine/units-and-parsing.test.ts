@@ -115,15 +115,26 @@ describe("lab notation as laboratories write it (common practice in lab reports)
   });
 
   it("when a cell holds the value with its expanded uncertainty, then both are read, the uncertainty with k = 2", () => {
-    expect(parseReading("0.82 ± 0.05")).toEqual({ ok: true, reading: { kind: "value", value: 0.82 }, uncertainty: { kind: "expanded", value: 0.05, k: 2 } });
+    expect(parseReading("0.82 ± 0.05")).toEqual({
+      ok: true,
+      reading: { kind: "value", value: 0.82 },
+      uncertainty: { kind: "expanded", value: 0.05, k: 2 },
+    });
     expect(parseReading("0,82 +/- 0,05")).toMatchObject({ uncertainty: { value: 0.05 } });
     expect(parseReading("<0.5 ± 0.1")).toMatchObject({ ok: false, error: expect.stringContaining("not a censored one") });
   });
 
   it("when a unit follows the number, then it is taken if it is the expected one and refused if not", () => {
-    expect(parseReading("0.82 g/L as acetic acid", { unit: "g/L as acetic acid" })).toMatchObject({ ok: true, reading: { kind: "value", value: 0.82 }, unit: "g/L as acetic acid" });
+    expect(parseReading("0.82 g/L as acetic acid", { unit: "g/L as acetic acid" })).toMatchObject({
+      ok: true,
+      reading: { kind: "value", value: 0.82 },
+      unit: "g/L as acetic acid",
+    });
     expect(parseReading("31 mg/L", { unit: "mg/L" })).toMatchObject({ ok: true, unit: "mg/L" });
-    expect(parseReading("31 mg/L", { unit: "g/L" })).toEqual({ ok: false, error: '"31 mg/L" is in mg/L, but this result is expected in g/L; convert it or choose that unit.' });
+    expect(parseReading("31 mg/L", { unit: "g/L" })).toEqual({
+      ok: false,
+      error: '"31 mg/L" is in mg/L, but this result is expected in g/L; convert it or choose that unit.',
+    });
     expect(parseReading("31 furlongs")).toEqual({ ok: false, error: '"31 furlongs": "furlongs" is not a unit Cellarpact knows.' });
   });
 
@@ -164,13 +175,18 @@ describe("lab notation as laboratories write it (common practice in lab reports)
 
   it("when a number is written in either format and read with that format, then it is the number written (fast-check)", () => {
     fc.assert(
-      fc.property(fc.integer({ min: 0, max: 9_999_999 }), fc.integer({ min: 0, max: 999 }), fc.constantFrom<"point" | "comma">("point", "comma"), (whole, frac, format) => {
-        const [dec, th] = format === "point" ? [".", ","] : [",", "."];
-        const grouped = whole.toLocaleString("en-US").replaceAll(",", th);
-        const text = `${grouped}${dec}${String(frac).padStart(3, "0")}`;
-        const r = parseReading(text, { numberFormat: format });
-        expect(r).toEqual(value(Number(`${whole}.${String(frac).padStart(3, "0")}`)));
-      }),
+      fc.property(
+        fc.integer({ min: 0, max: 9_999_999 }),
+        fc.integer({ min: 0, max: 999 }),
+        fc.constantFrom<"point" | "comma">("point", "comma"),
+        (whole, frac, format) => {
+          const [dec, th] = format === "point" ? [".", ","] : [",", "."];
+          const grouped = whole.toLocaleString("en-US").replaceAll(",", th);
+          const text = `${grouped}${dec}${String(frac).padStart(3, "0")}`;
+          const r = parseReading(text, { numberFormat: format });
+          expect(r).toEqual(value(Number(`${whole}.${String(frac).padStart(3, "0")}`)));
+        },
+      ),
       { numRuns: 500 },
     );
   });

@@ -6,7 +6,11 @@ import type { LotSummary } from "../../../../shared/lots/views.ts";
 
 const base = (orgId: number) => `/api/orgs/${orgId}`;
 const query = (f: Record<string, string | undefined>) => {
-  const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v).map(([k, v]) => [k, v!]));
+  const qs = new URLSearchParams(
+    Object.entries(f)
+      .filter(([, v]) => v)
+      .map(([k, v]) => [k, v!]),
+  );
   return qs.size ? `?${qs}` : "";
 };
 
@@ -22,15 +26,27 @@ export const auditKeys = {
 
 export const ordersQuery = (orgId: number, f: Record<string, string | undefined>) =>
   queryOptions({ queryKey: auditKeys.list(orgId, f), queryFn: () => api<AuditOrderSummary[]>(`${base(orgId)}/audit-orders${query(f)}`) });
-export const orderQuery = (orgId: number, id: number) => queryOptions({ queryKey: auditKeys.detail(orgId, id), queryFn: () => api<AuditOrderDetail>(`${base(orgId)}/audit-orders/${id}`) });
+export const orderQuery = (orgId: number, id: number) =>
+  queryOptions({ queryKey: auditKeys.detail(orgId, id), queryFn: () => api<AuditOrderDetail>(`${base(orgId)}/audit-orders/${id}`) });
 export const dashboardQuery = (orgId: number, f: Record<string, string | undefined>) =>
-  queryOptions({ queryKey: auditKeys.dashboard(orgId, f), queryFn: () => api<FinanceDashboard>(`${base(orgId)}/audit-dashboard${query(f)}`) });
-export const laboratoriesQuery = (orgId: number) => queryOptions({ queryKey: auditKeys.laboratories(orgId), queryFn: () => api<LaboratoryOffer[]>(`${base(orgId)}/laboratories`) });
-export const priceListQuery = (orgId: number) => queryOptions({ queryKey: auditKeys.priceList(orgId), queryFn: () => api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`) });
+  queryOptions({
+    queryKey: auditKeys.dashboard(orgId, f),
+    queryFn: () => api<FinanceDashboard>(`${base(orgId)}/audit-dashboard${query(f)}`),
+  });
+export const laboratoriesQuery = (orgId: number) =>
+  queryOptions({ queryKey: auditKeys.laboratories(orgId), queryFn: () => api<LaboratoryOffer[]>(`${base(orgId)}/laboratories`) });
+export const priceListQuery = (orgId: number) =>
+  queryOptions({
+    queryKey: auditKeys.priceList(orgId),
+    queryFn: () => api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`),
+  });
 
 /** The contract's lots an order can cover. */
 export const orderableLotsQuery = (orgId: number, contractId: number) =>
-  queryOptions({ queryKey: auditKeys.lotsOf(orgId, contractId), queryFn: () => api<LotSummary[]>(`${base(orgId)}/lots?contract=${contractId}`) });
+  queryOptions({
+    queryKey: auditKeys.lotsOf(orgId, contractId),
+    queryFn: () => api<LotSummary[]>(`${base(orgId)}/lots?contract=${contractId}`),
+  });
 
 export const invoiceUrl = (orgId: number, id: number) => `${base(orgId)}/audit-orders/${id}/invoice.pdf`;
 
@@ -45,23 +61,40 @@ function useInvalidate(orgId: number) {
 
 export function useCreateOrder(orgId: number) {
   const invalidate = useInvalidate(orgId);
-  return useMutation({ mutationFn: (o: NewAuditOrder) => api<{ id: number; reference: string; amountCents: number }>(`${base(orgId)}/audit-orders`, { method: "POST", body: o }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (o: NewAuditOrder) =>
+      api<{ id: number; reference: string; amountCents: number }>(`${base(orgId)}/audit-orders`, { method: "POST", body: o }),
+    onSuccess: invalidate,
+  });
 }
 export function useCheckout(orgId: number, id: number) {
   return useMutation({ mutationFn: () => api<{ url: string }>(`${base(orgId)}/audit-orders/${id}/checkout`, { method: "POST" }) });
 }
 export function useRefund(orgId: number, id: number) {
   const invalidate = useInvalidate(orgId);
-  return useMutation({ mutationFn: (reason: string) => api<{ refundId: string; amountCents: number }>(`${base(orgId)}/audit-orders/${id}/refund`, { method: "POST", body: { reason } }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (reason: string) =>
+      api<{ refundId: string; amountCents: number }>(`${base(orgId)}/audit-orders/${id}/refund`, { method: "POST", body: { reason } }),
+    onSuccess: invalidate,
+  });
 }
 export function useSubmitLabResults(orgId: number, id: number) {
   const invalidate = useInvalidate(orgId);
   return useMutation({
-    mutationFn: (input: LabResultsInput) => api<{ discrepancies: { lotId: number; parameters: string[] }[]; failing: { lotCode: string; parameters: string[] }[]; deviationIds: number[] }>(`${base(orgId)}/audit-orders/${id}/results`, { method: "POST", body: input }),
+    mutationFn: (input: LabResultsInput) =>
+      api<{
+        discrepancies: { lotId: number; parameters: string[] }[];
+        failing: { lotCode: string; parameters: string[] }[];
+        deviationIds: number[];
+      }>(`${base(orgId)}/audit-orders/${id}/results`, { method: "POST", body: input }),
     onSuccess: invalidate,
   });
 }
 export function useSavePriceList(orgId: number) {
   const invalidate = useInvalidate(orgId);
-  return useMutation({ mutationFn: (input: PriceListInput) => api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`, { method: "PUT", body: input }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (input: PriceListInput) =>
+      api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`, { method: "PUT", body: input }),
+    onSuccess: invalidate,
+  });
 }

@@ -16,11 +16,16 @@ export const deviationsQuery = (orgId: number, f: Record<string, string | undefi
   queryOptions({
     queryKey: deviationKeys.list(orgId, f),
     queryFn: () => {
-      const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v).map(([k, v]) => [k, v!]));
+      const qs = new URLSearchParams(
+        Object.entries(f)
+          .filter(([, v]) => v)
+          .map(([k, v]) => [k, v!]),
+      );
       return api<DeviationSummaryView[]>(`${base(orgId)}/deviations${qs.size ? `?${qs}` : ""}`);
     },
   });
-export const deviationQuery = (orgId: number, id: number) => queryOptions({ queryKey: deviationKeys.detail(orgId, id), queryFn: () => api<DeviationDetail>(`${base(orgId)}/deviations/${id}`) });
+export const deviationQuery = (orgId: number, id: number) =>
+  queryOptions({ queryKey: deviationKeys.detail(orgId, id), queryFn: () => api<DeviationDetail>(`${base(orgId)}/deviations/${id}`) });
 export const deviationPdfUrl = (orgId: number, id: number) => `${base(orgId)}/deviations/${id}/pdf`;
 export const attachmentUrl = (orgId: number, id: number) => `${base(orgId)}/deviation-attachments/${id}`;
 
@@ -35,15 +40,26 @@ function useInvalidate(orgId: number) {
 
 export function usePostMessage(orgId: number, id: number) {
   const invalidate = useInvalidate(orgId);
-  return useMutation({ mutationFn: (m: MessageInput) => api<{ id: number }>(`${base(orgId)}/deviations/${id}/messages`, { method: "POST", body: m }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (m: MessageInput) => api<{ id: number }>(`${base(orgId)}/deviations/${id}/messages`, { method: "POST", body: m }),
+    onSuccess: invalidate,
+  });
 }
 export function useEditMessage(orgId: number, id: number) {
   const invalidate = useInvalidate(orgId);
-  return useMutation({ mutationFn: (p: { messageId: number; body: string }) => api<void>(`${base(orgId)}/deviations/${id}/messages/${p.messageId}`, { method: "PATCH", body: { body: p.body } }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (p: { messageId: number; body: string }) =>
+      api<void>(`${base(orgId)}/deviations/${id}/messages/${p.messageId}`, { method: "PATCH", body: { body: p.body } }),
+    onSuccess: invalidate,
+  });
 }
 export function useDecide(orgId: number, id: number) {
   const invalidate = useInvalidate(orgId);
-  return useMutation({ mutationFn: (d: DecisionInput) => api<{ specVersionId: number | null }>(`${base(orgId)}/deviations/${id}/decision`, { method: "POST", body: d }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (d: DecisionInput) =>
+      api<{ specVersionId: number | null }>(`${base(orgId)}/deviations/${id}/decision`, { method: "POST", body: d }),
+    onSuccess: invalidate,
+  });
 }
 export function useCloseDeviation(orgId: number, id: number) {
   const invalidate = useInvalidate(orgId);

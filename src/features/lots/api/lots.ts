@@ -17,14 +17,23 @@ export const lotsQuery = (orgId: number, f: { contract?: number; q?: string }) =
   queryOptions({
     queryKey: lotKeys.list(orgId, f),
     queryFn: () => {
-      const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v !== undefined && v !== "").map(([k, v]) => [k, String(v)]));
+      const qs = new URLSearchParams(
+        Object.entries(f)
+          .filter(([, v]) => v !== undefined && v !== "")
+          .map(([k, v]) => [k, String(v)]),
+      );
       return api<LotSummary[]>(`${base(orgId)}/lots${qs.size ? `?${qs}` : ""}`);
     },
   });
-export const lotQuery = (orgId: number, id: number) => queryOptions({ queryKey: lotKeys.detail(orgId, id), queryFn: () => api<LotDetail>(`${base(orgId)}/lots/${id}`) });
-export const readinessQuery = (orgId: number) => queryOptions({ queryKey: lotKeys.readiness(orgId), queryFn: () => api<ReadinessRow[]>(`${base(orgId)}/readiness`) });
+export const lotQuery = (orgId: number, id: number) =>
+  queryOptions({ queryKey: lotKeys.detail(orgId, id), queryFn: () => api<LotDetail>(`${base(orgId)}/lots/${id}`) });
+export const readinessQuery = (orgId: number) =>
+  queryOptions({ queryKey: lotKeys.readiness(orgId), queryFn: () => api<ReadinessRow[]>(`${base(orgId)}/readiness`) });
 export const trendQuery = (orgId: number, contractId: number, parameter: string) =>
-  queryOptions({ queryKey: lotKeys.trend(orgId, contractId, parameter), queryFn: () => api<TrendData>(`${base(orgId)}/contracts/${contractId}/trend?parameter=${parameter}`) });
+  queryOptions({
+    queryKey: lotKeys.trend(orgId, contractId, parameter),
+    queryFn: () => api<TrendData>(`${base(orgId)}/contracts/${contractId}/trend?parameter=${parameter}`),
+  });
 
 function useInvalidateLots(orgId: number) {
   const qc = useQueryClient();
@@ -33,13 +42,17 @@ function useInvalidateLots(orgId: number) {
 
 export function useRegisterLot(orgId: number) {
   const invalidate = useInvalidateLots(orgId);
-  return useMutation({ mutationFn: (input: LotInput) => api<{ id: number }>(`${base(orgId)}/lots`, { method: "POST", body: input }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (input: LotInput) => api<{ id: number }>(`${base(orgId)}/lots`, { method: "POST", body: input }),
+    onSuccess: invalidate,
+  });
 }
 
 export function useSubmitAnalysis(orgId: number, lotId: number) {
   const invalidate = useInvalidateLots(orgId);
   return useMutation({
-    mutationFn: (input: AnalysisSubmission) => api<SubmissionResult>(`${base(orgId)}/lots/${lotId}/analyses`, { method: "POST", body: input }),
+    mutationFn: (input: AnalysisSubmission) =>
+      api<SubmissionResult>(`${base(orgId)}/lots/${lotId}/analyses`, { method: "POST", body: input }),
     onSuccess: invalidate,
   });
 }
@@ -47,9 +60,12 @@ export function useSubmitAnalysis(orgId: number, lotId: number) {
 export const importBatch = (orgId: number, contractId: number, batch: ImportBatch) =>
   api<ImportResult>(`${base(orgId)}/contracts/${contractId}/imports`, { method: "POST", body: batch });
 
-
 /** Judge an analysis again against the version now in force; recorded as a new analysis. */
 export function useRejudge(orgId: number, lotId: number) {
   const invalidate = useInvalidateLots(orgId);
-  return useMutation({ mutationFn: (analysisId: number) => api<SubmissionResult>(`${base(orgId)}/lots/${lotId}/analyses/${analysisId}/rejudge`, { method: "POST" }), onSuccess: invalidate });
+  return useMutation({
+    mutationFn: (analysisId: number) =>
+      api<SubmissionResult>(`${base(orgId)}/lots/${lotId}/analyses/${analysisId}/rejudge`, { method: "POST" }),
+    onSuccess: invalidate,
+  });
 }

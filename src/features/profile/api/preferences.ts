@@ -6,12 +6,16 @@ import type { NotificationKind } from "../../../../shared/deviations/vocabulary.
 export const preferenceKeys = { mine: ["me", "notification-preferences"] as const };
 
 export const preferencesQuery = () =>
-  queryOptions({ queryKey: preferenceKeys.mine, queryFn: () => api<{ emailMode: "immediate" | "daily_digest" | "off"; kinds: NotificationKind[] }>("/api/me/notification-preferences") });
+  queryOptions({
+    queryKey: preferenceKeys.mine,
+    queryFn: () => api<{ emailMode: "immediate" | "daily_digest" | "off"; kinds: NotificationKind[] }>("/api/me/notification-preferences"),
+  });
 
 export function useSavePreferences() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (p: { emailMode: "immediate" | "daily_digest" | "off"; kinds: NotificationKind[] }) => api("/api/me/notification-preferences", { method: "PUT", body: p }),
+    mutationFn: (p: { emailMode: "immediate" | "daily_digest" | "off"; kinds: NotificationKind[] }) =>
+      api("/api/me/notification-preferences", { method: "PUT", body: p }),
     onSuccess: () => qc.invalidateQueries({ queryKey: preferenceKeys.mine }),
   });
 }

@@ -6,7 +6,8 @@ import type { WineLawFacts } from "../../../../shared/specs/law-facts.ts";
 export function useUpdateLawFacts(orgId: number, contractId: number) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (lawFacts: WineLawFacts) => api<{ lawFacts: WineLawFacts }>(`/api/orgs/${orgId}/contracts/${contractId}/law-facts`, { method: "PUT", body: { lawFacts } }),
+    mutationFn: (lawFacts: WineLawFacts) =>
+      api<{ lawFacts: WineLawFacts }>(`/api/orgs/${orgId}/contracts/${contractId}/law-facts`, { method: "PUT", body: { lawFacts } }),
     onSuccess: () => qc.invalidateQueries({ queryKey: ["orgs", orgId] }),
   });
 }

@@ -26,34 +26,47 @@ export const specListQuery = (orgId: number, f: SpecFilters) =>
   queryOptions({
     queryKey: specKeys.list(orgId, f),
     queryFn: () => {
-      const qs = new URLSearchParams(Object.entries(f).filter(([, v]) => v !== undefined && v !== "").map(([k, v]) => [k, String(v)]));
+      const qs = new URLSearchParams(
+        Object.entries(f)
+          .filter(([, v]) => v !== undefined && v !== "")
+          .map(([k, v]) => [k, String(v)]),
+      );
       return api<SpecListItem[]>(`${base(orgId)}/specs${qs.size ? `?${qs}` : ""}`);
     },
   });
 
 export const diffQuery = (orgId: number, id: number, against: number) =>
-  queryOptions({ queryKey: specKeys.diff(orgId, id, against), queryFn: () => api<SpecDiff>(`${base(orgId)}/specs/${id}/diff?against=${against}`) });
+  queryOptions({
+    queryKey: specKeys.diff(orgId, id, against),
+    queryFn: () => api<SpecDiff>(`${base(orgId)}/specs/${id}/diff?against=${against}`),
+  });
 export const pastResultsQuery = (orgId: number, contractId: number) =>
-  queryOptions({ queryKey: specKeys.results(orgId, contractId), queryFn: () => api<PastResultRow[]>(`${base(orgId)}/contracts/${contractId}/results`) });
+  queryOptions({
+    queryKey: specKeys.results(orgId, contractId),
+    queryFn: () => api<PastResultRow[]>(`${base(orgId)}/contracts/${contractId}/results`),
+  });
 
 export const specPdfUrl = (orgId: number, id: number) => `${base(orgId)}/specs/${id}/pdf`;
 
 function useInvalidateSpecs(orgId: number) {
   const qc = useQueryClient();
-  return () => Promise.all([qc.invalidateQueries({ queryKey: specKeys.all(orgId) }), qc.invalidateQueries({ queryKey: contractKeys.all(orgId) })]);
+  return () =>
+    Promise.all([qc.invalidateQueries({ queryKey: specKeys.all(orgId) }), qc.invalidateQueries({ queryKey: contractKeys.all(orgId) })]);
 }
 
 export function useCreateVersion(orgId: number, contractId: number) {
   const invalidate = useInvalidateSpecs(orgId);
   return useMutation({
-    mutationFn: (input: NewVersionInput) => api<{ id: number }>(`${base(orgId)}/contracts/${contractId}/specs`, { method: "POST", body: input }),
+    mutationFn: (input: NewVersionInput) =>
+      api<{ id: number }>(`${base(orgId)}/contracts/${contractId}/specs`, { method: "POST", body: input }),
     onSuccess: invalidate,
   });
 }
 
 export function useSaveDraft(orgId: number, id: number) {
   return useMutation({
-    mutationFn: (input: SpecDraftInput) => api<{ lockVersion: number; updatedAt: string }>(`${base(orgId)}/specs/${id}`, { method: "PUT", body: input }),
+    mutationFn: (input: SpecDraftInput) =>
+      api<{ lockVersion: number; updatedAt: string }>(`${base(orgId)}/specs/${id}`, { method: "PUT", body: input }),
   });
 }
 
@@ -75,7 +88,10 @@ export function useAddComment(orgId: number, id: number) {
 }
 
 export const producersQuery = (orgId: number) =>
-  queryOptions({ queryKey: [...specKeys.all(orgId), "producers"], queryFn: () => api<{ id: number; name: string; country: string }[]>(`${base(orgId)}/producers`) });
+  queryOptions({
+    queryKey: [...specKeys.all(orgId), "producers"],
+    queryFn: () => api<{ id: number; name: string; country: string }[]>(`${base(orgId)}/producers`),
+  });
 
 export function useCreateContract(orgId: number) {
   const invalidate = useInvalidateSpecs(orgId);
