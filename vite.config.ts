@@ -16,6 +16,7 @@ export default defineConfig({
     fileParallelism: false,
     testTimeout: 30_000,
     hookTimeout: 60_000,
+    setupFiles: ["tests/support/fail-on-console.ts"],
     env: {
       NO_COLOR: "1",
       NODE_ENV: "test",

@@ -20,7 +20,16 @@ import { IMPORT_BATCH_MAX } from "../../shared/lots/schemas.ts";
 
 const ROWS = 10_000;
 const root = path.resolve(import.meta.dirname, "../..");
-execFileSync("bash", ["server/scripts/db.sh", "start"], { cwd: root, stdio: "ignore" });
+// Start the private database unless it already runs, and stop it again at the end only if this run started it.
+const dbWasRunning = (() => {
+  try {
+    execFileSync("bash", ["server/scripts/db.sh", "status"], { cwd: root, stdio: "ignore" });
+    return true;
+  } catch {
+    return false;
+  }
+})();
+if (!dbWasRunning) execFileSync("bash", ["server/scripts/db.sh", "start"], { cwd: root, stdio: "ignore" });
 const config = loadConfig({ ...process.env, DB_NAME: "cellarpact_bench", LOG_LEVEL: "silent" });
 const sequelize = createSequelize(config);
 useDatabase(sequelize);
@@ -110,3 +119,4 @@ console.log(
 );
 console.log(`  ratio full import / parse alone: ${(full.ms / parseMs).toFixed(0)}× (quality target: within 4×)`);
 await sequelize.close();
+if (!dbWasRunning) execFileSync("bash", ["server/scripts/db.sh", "stop"], { cwd: root, stdio: "ignore" });

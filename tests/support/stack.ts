@@ -3,7 +3,7 @@
  * database, the SMTP fake, and Debian's Chromium driven by playwright-core.
  */
 import { spawn, execSync, type ChildProcess } from "node:child_process";
-import { existsSync, mkdtempSync, mkdirSync } from "node:fs";
+import { existsSync, mkdtempSync, mkdirSync, rmSync } from "node:fs";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
@@ -44,6 +44,9 @@ export interface Stack {
   stop(): Promise<void>;
 }
 
+/** Uncaught errors of the pages of the stack that runs now (one per test file). */
+const pageErrors: string[] = [];
+
 export async function startStack(): Promise<Stack> {
   if (!existsSync(path.join(root, "dist", "index.html")))
     throw new Error("dist/ is missing: run `npx vite build` before the browser tests");
@@ -78,7 +81,8 @@ export async function startStack(): Promise<Stack> {
     if (Date.now() > deadline || server.exitCode !== null) throw new Error("the server did not start");
     await new Promise((r) => setTimeout(r, 150));
   }
-  const context = await chromium.launchPersistentContext(mkdtempSync(path.join(os.tmpdir(), "cellarpact-e2e-")), {
+  const profileDir = mkdtempSync(path.join(os.tmpdir(), "cellarpact-e2e-"));
+  const context = await chromium.launchPersistentContext(profileDir, {
     executablePath: chromiumPath(),
     headless: true,
     viewport: { width: 1280, height: 860 },
@@ -94,6 +98,9 @@ export async function startStack(): Promise<Stack> {
     ],
   });
   const page = context.pages()[0] ?? (await context.newPage());
+  // An uncaught error on any page fails the file: expectAccessible reports it at once, stop() at the end.
+  pageErrors.length = 0;
+  page.on("pageerror", (err) => pageErrors.push(`${page.url()}: ${err.stack ?? err.message}`));
   // Fail a step well before the test times out, so the report names the locator that was missing.
   page.setDefaultTimeout(10_000);
   mkdirSync(SCREENS, { recursive: true });
@@ -105,10 +112,12 @@ export async function startStack(): Promise<Stack> {
     page,
     async stop() {
       await context.close();
+      rmSync(profileDir, { recursive: true, force: true });
       server.kill("SIGTERM");
       await new Promise((r) => server.once("exit", r));
       await mail.stop();
       await stripe.stop();
+      expect(pageErrors, "uncaught errors on the pages").toEqual([]);
     },
   };
 }
@@ -130,6 +139,7 @@ export async function signOut(page: Page) {
 
 /** axe-core on the current page: no serious or critical violation (WCAG 2.x rules as axe encodes them). */
 export async function expectAccessible(page: Page, label: string) {
+  expect(pageErrors, `uncaught errors on the pages before ${label}`).toEqual([]);
   const result = await new AxeBuilder({ page }).analyze();
   const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
   expect(bad.map((v) => `${label}: ${v.id} (${v.impact}) ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
