@@ -1,5 +1,5 @@
 /** Access rules that every route declares, and the check that enforces them. */
-import type { Role } from "../../shared/auth/roles.ts";
+import { rolesFor, type Permission } from "../../shared/auth/permissions.ts";
 import type { SessionUser, SessionMembership } from "../services/session-service.ts";
 import { forbidden, notFound, unauthorized } from "../errors.ts";
 import { ROLE_LABELS } from "../../shared/auth/roles.ts";
@@ -8,13 +8,14 @@ export type Access =
   | { kind: "public" }
   | { kind: "signed-in" }
   | { kind: "platform-admin" }
-  /** The caller must belong to the organisation in the :orgId path segment, optionally with one of these roles. */
-  | { kind: "org-member"; roles?: readonly Role[] };
+  /** The caller must belong to the organisation in the :orgId path segment with a role the permission table gives this permission. */
+  | { kind: "org-member"; permission: Permission };
 
 export const PUBLIC: Access = { kind: "public" };
 export const SIGNED_IN: Access = { kind: "signed-in" };
 export const PLATFORM_ADMIN: Access = { kind: "platform-admin" };
-export const orgMember = (...roles: Role[]): Access => ({ kind: "org-member", roles: roles.length ? roles : undefined });
+/** A member of the organisation in the path who holds this permission (shared/auth/permissions.ts). */
+export const allowed = (permission: Permission): Access => ({ kind: "org-member", permission });
 
 export function describeAccess(access: Access): string {
   switch (access.kind) {
@@ -25,9 +26,7 @@ export function describeAccess(access: Access): string {
     case "platform-admin":
       return "platform admin";
     case "org-member":
-      return access.roles
-        ? `member of the organisation in the path with role ${access.roles.join(" or ")}`
-        : "any member of the organisation in the path";
+      return `member of the organisation in the path with ${access.permission} (${rolesFor(access.permission).join(", ")})`;
   }
 }
 
@@ -42,8 +41,9 @@ export function enforceAccess(access: Access, user: SessionUser | null, orgId: n
   }
   const membership = user.memberships.find((m) => m.organisationId === orgId);
   if (!membership) throw notFound("The organisation");
-  if (access.roles && !access.roles.includes(membership.role)) {
-    const needed = access.roles.map((r) => ROLE_LABELS[r]).join(" or ");
+  const roles = rolesFor(access.permission);
+  if (!roles.includes(membership.role)) {
+    const needed = roles.map((r) => ROLE_LABELS[r]).join(" or ");
     throw forbidden(`This needs the role ${needed}; you are ${ROLE_LABELS[membership.role]}.`);
   }
   return membership;

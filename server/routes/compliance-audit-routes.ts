@@ -1,7 +1,7 @@
 import { z } from "zod";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { idempotentAnswer } from "../http/idempotent-answer.ts";
-import { orgMember } from "../http/access.ts";
+import { allowed } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { auditListQuerySchema, labResultsSchema, newAuditOrderSchema, priceListSchema } from "../../shared/audits/schemas.ts";
 import * as orders from "../services/audits/order-service.ts";
@@ -12,9 +12,9 @@ import { invoicePdf } from "../services/audits/invoice-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
 const orderParams = orgParams.extend({ orderId: idParam });
-const FINANCE = orgMember("buyer_finance");
-const BUYERS = orgMember("buyer_finance", "buyer_technologist");
-const READERS = orgMember("buyer_finance", "buyer_technologist", "producer_quality", "lab_analyst");
+const FINANCE = allowed("audits.order");
+const BUYERS = allowed("audits.browse");
+const READERS = allowed("audits.read");
 
 export function registerComplianceAuditRoutes(r: RouteRegistry): void {
   r.add(
@@ -35,7 +35,7 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/price-list",
       tag: "audits",
       summary: "Your laboratory's price list",
-      access: orgMember("lab_analyst", "org_admin"),
+      access: allowed("prices.read"),
       params: orgParams,
     },
     ({ params }) => priceList(params.orgId),
@@ -46,7 +46,7 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/price-list",
       tag: "audits",
       summary: "Replace your laboratory's price list (prices in integer cents)",
-      access: orgMember("org_admin"),
+      access: allowed("prices.manage"),
       params: orgParams,
       body: priceListSchema,
     },
@@ -137,7 +137,7 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/audit-orders/:orderId/results",
       tag: "audits",
       summary: "The laboratory submits its results for a paid order (idempotent by key)",
-      access: orgMember("lab_analyst"),
+      access: allowed("audits.report"),
       params: orderParams,
       body: labResultsSchema,
       status: 201,

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import multer from "multer";
 import type { RouteRegistry } from "../http/route-registry.ts";
-import { orgMember, SIGNED_IN } from "../http/access.ts";
+import { allowed, SIGNED_IN } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import {
   decisionSchema,
@@ -20,9 +20,9 @@ import { badRequest } from "../errors.ts";
 const orgParams = z.object({ orgId: idParam });
 const devParams = orgParams.extend({ deviationId: idParam });
 // The laboratory reads the deviations its audit results opened.
-const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin");
-const DISCUSSANTS = orgMember("buyer_technologist", "producer_quality");
-const BUYER = orgMember("buyer_technologist");
+const PARTIES = allowed("deviations.read");
+const DISCUSSANTS = allowed("deviations.discuss");
+const BUYER = allowed("deviations.decide");
 
 export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxBytes: number }): void {
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.attachmentMaxBytes, files: 1, fields: 0 } }).single(

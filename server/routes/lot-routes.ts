@@ -2,7 +2,7 @@ import { z } from "zod";
 import multer from "multer";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { idempotentAnswer } from "../http/idempotent-answer.ts";
-import { orgMember } from "../http/access.ts";
+import { allowed } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { PARAMETERS } from "../../shared/engine/index.ts";
 import { analysisSubmissionSchema, importBatchSchema, lotSchema, lotUpdateSchema } from "../../shared/lots/schemas.ts";
@@ -14,8 +14,8 @@ import { lotDocument } from "../services/lots/conformity-service.ts";
 import { rejudgeAnalysis } from "../services/lots/rejudge-service.ts";
 
 const orgParams = z.object({ orgId: idParam });
-const PRODUCER = orgMember("producer_quality");
-const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "org_admin");
+const PRODUCER = allowed("lots.submit");
+const PARTIES = allowed("lots.read");
 
 export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes: number }): void {
   // Memory storage with a hard size limit; nothing reaches the disk before the content check passes.
@@ -96,7 +96,7 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
       path: "/api/orgs/:orgId/lots/:lotId/analyses/:analysisId/rejudge",
       tag: "lots",
       summary: "Judge an analysis again against the spec version now in force (a new, recorded analysis; the first stays as it was)",
-      access: orgMember("buyer_technologist", "producer_quality"),
+      access: allowed("lots.rejudge"),
       params: orgParams.extend({ lotId: idParam, analysisId: idParam }),
       status: 201,
       errors: { 409: "no later version governs, or already re-judged" },
@@ -127,7 +127,7 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
       tag: "lots",
       summary:
         "Upload the laboratory's certificate (PDF, PNG or JPEG, checked by content): the producer for its analyses, the audit laboratory for its own",
-      access: orgMember("producer_quality", "lab_analyst"),
+      access: allowed("certificates.attach"),
       params: orgParams.extend({ analysisId: idParam }),
       consumes: "multipart/form-data",
       before: upload,
@@ -146,7 +146,7 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
       path: "/api/orgs/:orgId/certificates/:certificateId",
       tag: "lots",
       summary: "Download a certificate",
-      access: orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin"),
+      access: allowed("certificates.read"),
       params: orgParams.extend({ certificateId: idParam }),
       produces: "application/octet-stream",
     },

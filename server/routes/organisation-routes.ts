@@ -1,6 +1,6 @@
 import { z } from "zod";
 import type { RouteRegistry } from "../http/route-registry.ts";
-import { orgMember, PLATFORM_ADMIN } from "../http/access.ts";
+import { allowed, PLATFORM_ADMIN } from "../http/access.ts";
 import { changeRoleSchema, createOrganisationSchema, inviteSchema } from "../../shared/auth/schemas.ts";
 import { idParam } from "../../shared/ids.ts";
 import * as members from "../services/member-service.ts";
@@ -14,7 +14,14 @@ const invitationParams = orgParams.extend({ invitationId: idParam });
 
 export function registerOrganisationRoutes(r: RouteRegistry): void {
   r.add(
-    { method: "get", path: "/api/orgs/:orgId", tag: "organisations", summary: "Your organisation", access: orgMember(), params: orgParams },
+    {
+      method: "get",
+      path: "/api/orgs/:orgId",
+      tag: "organisations",
+      summary: "Your organisation",
+      access: allowed("organisation.read"),
+      params: orgParams,
+    },
     ({ params }) => organisations.getOrganisation(params.orgId),
   );
 
@@ -24,7 +31,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/members",
       tag: "members",
       summary: "Members of your organisation",
-      access: orgMember(),
+      access: allowed("organisation.read"),
       params: orgParams,
     },
     ({ params }) => members.listMembers(params.orgId),
@@ -36,7 +43,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/members/:membershipId",
       tag: "members",
       summary: "Change a member's role",
-      access: orgMember("org_admin"),
+      access: allowed("members.manage"),
       params: memberParams,
       body: changeRoleSchema,
       errors: { 409: "would leave no admin" },
@@ -50,7 +57,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/members/:membershipId",
       tag: "members",
       summary: "Remove a member",
-      access: orgMember("org_admin"),
+      access: allowed("members.manage"),
       params: memberParams,
       errors: { 409: "would leave no admin" },
     },
@@ -63,7 +70,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/invitations",
       tag: "members",
       summary: "Open invitations",
-      access: orgMember("org_admin"),
+      access: allowed("members.manage"),
       params: orgParams,
     },
     ({ params }) => invitations.listOpenInvitations(params.orgId),
@@ -75,7 +82,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/invitations",
       tag: "members",
       summary: "Invite someone by e-mail",
-      access: orgMember("org_admin"),
+      access: allowed("members.manage"),
       params: orgParams,
       body: inviteSchema,
       status: 201,
@@ -90,7 +97,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/invitations/:invitationId",
       tag: "members",
       summary: "Revoke an open invitation",
-      access: orgMember("org_admin"),
+      access: allowed("members.manage"),
       params: invitationParams,
     },
     ({ params, user }) => invitations.revokeInvitation(params.orgId, params.invitationId, user.id),

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import type { RouteRegistry } from "../http/route-registry.ts";
-import { orgMember } from "../http/access.ts";
+import { allowed } from "../http/access.ts";
 import { validationFailed } from "../errors.ts";
 import { idParam } from "../../shared/ids.ts";
 import {
@@ -20,10 +20,10 @@ import { lawFactsUpdateSchema } from "../../shared/specs/law-facts.ts";
 const orgParams = z.object({ orgId: idParam });
 const contractParams = orgParams.extend({ contractId: idParam });
 const specParams = orgParams.extend({ specId: idParam });
-const BUYER = orgMember("buyer_technologist");
-const PRODUCER = orgMember("producer_quality");
-const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "org_admin");
-const COMMENTERS = orgMember("buyer_technologist", "producer_quality");
+const BUYER = allowed("specs.draft");
+const PRODUCER = allowed("specs.decide");
+const PARTIES = allowed("specs.read");
+const COMMENTERS = allowed("specs.comment");
 
 export function registerSpecRoutes(r: RouteRegistry): void {
   r.add(

@@ -2,7 +2,7 @@ import { z } from "zod";
 import Papa from "papaparse";
 import { actionLabel, detailsText } from "../../shared/trail/vocabulary.ts";
 import type { RouteRegistry } from "../http/route-registry.ts";
-import { orgMember } from "../http/access.ts";
+import { allowed } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { trailQuerySchema } from "../../shared/trail/schemas.ts";
 import { listOrganisationTrail, verifyTrailChain } from "../services/trail/trail-service.ts";
@@ -10,7 +10,7 @@ import { historyFor } from "../services/trail/trail-access.ts";
 import { HISTORY_ENTITY_TYPES } from "../../shared/trail/history.ts";
 
 const orgParams = z.object({ orgId: idParam });
-const PARTIES = orgMember("buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst", "org_admin");
+const PARTIES = allowed("trail.history");
 
 export function registerTrailRoutes(r: RouteRegistry): void {
   r.add(
@@ -19,7 +19,7 @@ export function registerTrailRoutes(r: RouteRegistry): void {
       path: "/api/orgs/:orgId/trail",
       tag: "trail",
       summary: "Your organisation's trail with filters; format=csv or json downloads it",
-      access: orgMember("org_admin"),
+      access: allowed("trail.organisation"),
       params: orgParams,
       query: trailQuerySchema,
     },

@@ -1,12 +1,13 @@
 /** The app's navigation, and which roles see each entry. */
-import type { OrganisationKind, Role } from "../../shared/auth/roles.ts";
+import type { OrganisationKind } from "../../shared/auth/roles.ts";
+import { can, type Permission } from "../../shared/auth/permissions.ts";
 import type { SessionMembership, SessionUser } from "../lib/session.ts";
 
 export interface NavItem {
   label: string;
   to: string;
-  /** Organisation roles that see this item; undefined means every member. */
-  roles?: readonly Role[];
+  /** The permission (shared/auth/permissions.ts) a member needs to see this item; undefined means every member. */
+  permission?: Permission;
   /** Kinds of organisation whose members see this item; undefined means every kind. */
   kinds?: readonly OrganisationKind[];
   platformAdminOnly?: boolean;
@@ -14,14 +15,14 @@ export interface NavItem {
 
 export const NAV_ITEMS: readonly NavItem[] = [
   { label: "Overview", to: "/" },
-  { label: "Specifications", to: "/specs", roles: ["buyer_technologist", "buyer_finance", "producer_quality"] },
-  { label: "Lots", to: "/lots", roles: ["buyer_technologist", "buyer_finance", "producer_quality"] },
-  { label: "Readiness", to: "/readiness", roles: ["buyer_technologist", "producer_quality"] },
-  { label: "Deviations", to: "/deviations", roles: ["buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst"] },
-  { label: "Audits", to: "/audits", roles: ["buyer_technologist", "buyer_finance", "producer_quality", "lab_analyst"] },
-  { label: "Members", to: "/members", roles: ["org_admin"] },
-  { label: "Trail", to: "/activity", roles: ["org_admin"] },
-  { label: "Price list", to: "/price-list", roles: ["org_admin"], kinds: ["laboratory"] },
+  { label: "Specifications", to: "/specs", permission: "specs.read", kinds: ["retailer", "producer"] },
+  { label: "Lots", to: "/lots", permission: "lots.read", kinds: ["retailer", "producer"] },
+  { label: "Readiness", to: "/readiness", permission: "lots.readiness" },
+  { label: "Deviations", to: "/deviations", permission: "deviations.read" },
+  { label: "Audits", to: "/audits", permission: "audits.read" },
+  { label: "Members", to: "/members", permission: "members.manage" },
+  { label: "Trail", to: "/activity", permission: "trail.organisation" },
+  { label: "Price list", to: "/price-list", permission: "prices.manage", kinds: ["laboratory"] },
   { label: "Organisations", to: "/platform/organisations", platformAdminOnly: true },
   { label: "Profile", to: "/profile" },
 ];
@@ -30,7 +31,7 @@ export function visibleNav(user: SessionUser, membership: SessionMembership | un
   return NAV_ITEMS.filter((item) => {
     if (item.platformAdminOnly) return user.isPlatformAdmin;
     if (item.kinds && (!membership || !item.kinds.includes(membership.organisationKind))) return false;
-    if (!item.roles) return true;
-    return membership !== undefined && item.roles.includes(membership.role);
+    if (!item.permission) return true;
+    return can(membership?.role, item.permission);
   });
 }

@@ -8,14 +8,15 @@ beforeAll(async () => {
 });
 afterAll(() => s?.stop());
 
+// What each role sees follows the permission table (shared/auth/permissions.ts).
 const EXPECTED_NAV: [keyof typeof DEMO, string[]][] = [
   ["buyerTechnologist", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Audits", "Profile"]],
   ["buyerFinance", ["Overview", "Specifications", "Lots", "Deviations", "Audits", "Profile"]],
-  ["retailerAdmin", ["Overview", "Members", "Trail", "Profile"]],
+  ["retailerAdmin", ["Overview", "Specifications", "Lots", "Deviations", "Members", "Trail", "Profile"]],
   ["producerQuality", ["Overview", "Specifications", "Lots", "Readiness", "Deviations", "Audits", "Profile"]],
-  ["producerAdmin", ["Overview", "Members", "Trail", "Profile"]],
+  ["producerAdmin", ["Overview", "Specifications", "Lots", "Deviations", "Members", "Trail", "Profile"]],
   ["labAnalyst", ["Overview", "Deviations", "Audits", "Profile"]],
-  ["labAdmin", ["Overview", "Members", "Trail", "Price list", "Profile"]],
+  ["labAdmin", ["Overview", "Deviations", "Members", "Trail", "Price list", "Profile"]],
   ["platformAdmin", ["Overview", "Organisations", "Profile"]],
 ];
 

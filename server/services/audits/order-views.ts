@@ -18,6 +18,7 @@ import type { AuditOrderDetail, AuditOrderSummary } from "../../../shared/audits
 import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import type { Role } from "../../../shared/auth/roles.ts";
 import type { OrderSide } from "./order-access.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 type Loaded = AuditOrder & {
   lots: (AuditOrderLot & { lot: Lot })[];
@@ -128,9 +129,9 @@ export async function detailOf(id: number, side: OrderSide, role: Role): Promise
     reportReference: o.reportReference,
     units: Object.fromEntries(o.parameters.map((p) => [p, specUnits[p] ?? findParameter(p)?.unit ?? ""])),
     actions: {
-      pay: side === "buyer" && role === "buyer_finance" && (o.status === "awaiting_payment" || o.status === "payment_failed"),
-      refund: side === "buyer" && role === "buyer_finance" && o.status === "paid",
-      submitResults: side === "laboratory" && role === "lab_analyst" && o.status === "paid",
+      pay: side === "buyer" && can(role, "audits.order") && (o.status === "awaiting_payment" || o.status === "payment_failed"),
+      refund: side === "buyer" && can(role, "audits.order") && o.status === "paid",
+      submitResults: side === "laboratory" && can(role, "audits.report") && o.status === "paid",
     },
   };
 }

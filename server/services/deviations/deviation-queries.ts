@@ -17,6 +17,7 @@ import type { DeviationDetail, DeviationSummaryView, MessageView } from "../../.
 import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import type { SessionUser, SessionMembership } from "../session-service.ts";
 import { CLOSED, deviationFor, isOverdue, participants } from "./deviation-access.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationSummaryView {
   return {
@@ -117,11 +118,11 @@ export async function getDeviation(orgId: number, id: number, user: SessionUser,
     })),
     participants: people.map(({ handle, name, organisation }) => ({ handle, name, organisation })),
     actions: {
-      comment: open && ["buyer_technologist", "producer_quality"].includes(role),
-      propose: open && ["buyer_technologist", "producer_quality"].includes(role),
-      accept: open && deviation.status !== "agreed" && ["buyer_technologist", "producer_quality"].includes(role),
-      decide: open && side === "buyer" && role === "buyer_technologist",
-      close: deviation.status === "decided" && side === "buyer" && role === "buyer_technologist",
+      comment: open && can(role, "deviations.discuss"),
+      propose: open && can(role, "deviations.discuss"),
+      accept: open && deviation.status !== "agreed" && can(role, "deviations.discuss"),
+      decide: open && side === "buyer" && can(role, "deviations.decide"),
+      close: deviation.status === "decided" && side === "buyer" && can(role, "deviations.decide"),
     },
   };
 }

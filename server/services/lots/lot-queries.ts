@@ -36,6 +36,8 @@ import { governingVersion } from "./governing.ts";
 import { isFailing, judgeFor, transitValues } from "../../../shared/lots/judge.ts";
 import { lotStatus, type StatusAnalysis } from "../../../shared/lots/lot-status.ts";
 import { profileDiffers, wineProfile } from "../../../shared/specs/profile.ts";
+import { can } from "../../../shared/auth/permissions.ts";
+import type { Role } from "../../../shared/auth/roles.ts";
 
 const parameterName = (p: string) => findParameter(p)?.name ?? p;
 
@@ -169,7 +171,7 @@ function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>, pr
   };
 }
 
-export async function getLot(orgId: number, lotId: number, role: string): Promise<LotDetail> {
+export async function getLot(orgId: number, lotId: number, role: Role): Promise<LotDetail> {
   const { lot, contract, side } = await lotFor(orgId, lotId);
   const [summary] = await summaries([lot], new Map([[contract.id, contract]]));
   const analyses = (await Analysis.findAll({
@@ -196,7 +198,7 @@ export async function getLot(orgId: number, lotId: number, role: string): Promis
   return {
     ...summary!,
     side,
-    canSubmit: side === "producer" && role === "producer_quality",
+    canSubmit: side === "producer" && can(role, "lots.submit"),
     contract: contractView(contract),
     governing: governing ? { ...versionSummary(governing.version), requirements: governing.requirements } : null,
     analyses: analyses.map((a) => analysisView(a, versionNumbers, wineProfile(contract.wine, lot.vintage))),

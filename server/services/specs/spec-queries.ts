@@ -16,6 +16,8 @@ import { Lot } from "../../models/lot.ts";
 import { contractFor, contractInclude, versionFor, sideOf, type ContractWithParties } from "./spec-access.ts";
 import { actionsFor, contractView, requirementView, versionSummary } from "./spec-view.ts";
 import { badRequest } from "../../errors.ts";
+import { can } from "../../../shared/auth/permissions.ts";
+import type { Role } from "../../../shared/auth/roles.ts";
 
 export interface SpecListFilters {
   wine?: number;
@@ -65,18 +67,18 @@ export async function listContracts(orgId: number) {
   }));
 }
 
-export async function getContract(orgId: number, contractId: number, role: string) {
+export async function getContract(orgId: number, contractId: number, role: Role) {
   const { contract, side } = await contractFor(orgId, contractId);
   const versions = await SpecVersion.findAll({ where: { contractId }, order: [["number", "DESC"]] });
   return {
     ...contractView(contract),
     side,
-    canCreateVersion: side === "buyer" && role === "buyer_technologist",
+    canCreateVersion: side === "buyer" && can(role, "specs.draft"),
     versions: versions.filter((v) => !(side === "producer" && v.status === "draft")).map(versionSummary),
   };
 }
 
-export async function getVersion(orgId: number, specId: number, role: string) {
+export async function getVersion(orgId: number, specId: number, role: Role) {
   const { version, contract, side } = await versionFor(orgId, specId);
   const [requirements, comments] = await Promise.all([
     SpecRequirement.findAll({ where: { specVersionId: specId }, order: [["position", "ASC"]] }),

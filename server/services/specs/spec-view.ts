@@ -3,6 +3,8 @@ import type { ContractView, RequirementView, VersionActions, VersionSummary } fr
 import type { SpecRequirement } from "../../models/spec-requirement.ts";
 import type { SpecVersion } from "../../models/spec-version.ts";
 import type { ContractWithParties, Side } from "./spec-access.ts";
+import { can } from "../../../shared/auth/permissions.ts";
+import type { Role } from "../../../shared/auth/roles.ts";
 
 export const requirementView = (r: SpecRequirement): RequirementView => ({
   id: r.id,
@@ -52,15 +54,15 @@ export const versionSummary = (v: SpecVersion): VersionSummary => ({
   updatedAt: v.updatedAt.toISOString(),
 });
 
-export function actionsFor(v: SpecVersion, side: Side, role: string): VersionActions {
-  const buyerTech = side === "buyer" && role === "buyer_technologist";
-  const producerQuality = side === "producer" && role === "producer_quality";
+export function actionsFor(v: SpecVersion, side: Side, role: Role): VersionActions {
+  const buyerTech = side === "buyer" && can(role, "specs.draft");
+  const producerQuality = side === "producer" && can(role, "specs.decide");
   return {
     edit: buyerTech && v.status === "draft",
     send: buyerTech && v.status === "draft",
     withdraw: buyerTech && ["with_producer", "changes_requested", "agreed"].includes(v.status),
     decide: producerQuality && v.status === "with_producer",
-    comment: v.status !== "draft" && v.status !== "withdrawn" && (buyerTech || producerQuality),
+    comment: v.status !== "draft" && v.status !== "withdrawn" && can(role, "specs.comment"),
     newVersion: buyerTech,
   };
 }

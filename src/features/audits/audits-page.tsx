@@ -13,6 +13,7 @@ import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { formatMoney, ORDER_STATUSES, ORDER_STATUS_LABELS } from "../../../shared/audits/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 const LEADS = {
   buyer_finance: "Independent compliance audits: order them from a laboratory's price list, pay them, and follow what they cost.",
@@ -27,8 +28,8 @@ export function AuditsPage() {
   const f = { status: params.get("status") ?? undefined, from: params.get("from") ?? undefined, to: params.get("to") ?? undefined };
   const [ordering, setOrdering] = useState(false);
   const list = useQuery({ ...ordersQuery(orgId, f) });
-  const finance = role === "buyer_finance";
-  const lab = role === "lab_analyst";
+  const finance = can(role, "audits.order");
+  const lab = can(role, "audits.report");
   return (
     <>
       <PageHeader

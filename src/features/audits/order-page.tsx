@@ -18,6 +18,7 @@ import { HistoryPanel } from "../../components/history-panel.tsx";
 import { CertificateUpload } from "../../components/certificate-upload.tsx";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 export function OrderPage() {
   const { orgId, membership } = useOrganisation();
@@ -34,7 +35,7 @@ export function OrderPage() {
   if (q.isPending) return <LoadingState />;
   if (q.isError) return <ErrorState error={q.error} onRetry={() => q.refetch()} />;
   const o = q.data;
-  const lab = membership.role === "lab_analyst";
+  const lab = can(membership.role, "audits.report");
   const party = !lab;
   const waiting = returning && (o.status === "awaiting_payment" || o.status === "payment_failed");
   return (

@@ -4,6 +4,7 @@ import { ORGANISATION_KIND_LABELS, ROLE_LABELS, type Role } from "../../../share
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState } from "../../components/ui/states.tsx";
 import { DueLotsCard } from "./due-lots-card.tsx";
+import { can } from "../../../shared/auth/permissions.ts";
 
 /** What each role does on Cellarpact, in the trade's words. */
 const ROLE_PURPOSE: Record<Role, string> = {
@@ -50,9 +51,7 @@ export function HomePage() {
             {user.isPlatformAdmin ? "As platform admin you can open organisations." : "Ask an organisation admin to invite you."}
           </EmptyState>
         )}
-        {membership && ["buyer_technologist", "producer_quality"].includes(membership.role) && (
-          <DueLotsCard orgId={membership.organisationId} />
-        )}
+        {membership && can(membership.role, "lots.readiness") && <DueLotsCard orgId={membership.organisationId} />}
         {user.isPlatformAdmin && (
           <Card title="Platform administration">
             <p className="text-sm text-ink-700">

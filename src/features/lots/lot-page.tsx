@@ -21,6 +21,7 @@ import { ANALYSIS_STAGE_LABELS, CONTAINER_LABELS } from "../../../shared/lots/vo
 import { displayValue, findParameter, unitLabel } from "../../../shared/engine/index.ts";
 import { ComparisonTable } from "../../components/comparison-table.tsx";
 import { DEVIATION_KIND_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 export function LotPage() {
   const { orgId, membership } = useOrganisation();
@@ -65,7 +66,7 @@ export function LotPage() {
       />
       <div className="flex flex-col gap-6">
         <LegalCaution />
-        <LotStatusCard orgId={orgId} lot={l} canRejudge={["buyer_technologist", "producer_quality"].includes(membership.role)} />
+        <LotStatusCard orgId={orgId} lot={l} canRejudge={can(membership.role, "lots.rejudge")} />
         <LabelCheckCard lot={l} />
         <Card title="Specification in force">
           {l.governing ? (
@@ -191,7 +192,7 @@ export function LotPage() {
             </div>
           </Card>
         ))}
-        {["buyer_technologist", "producer_quality"].includes(membership.role) && (
+        {can(membership.role, "deviations.discuss") && (
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Open a deviation by hand</summary>
             <div className="mt-3">

@@ -16,6 +16,7 @@ import { lotSchema, type LotInput } from "../../../shared/lots/schemas.ts";
 import { ANALYSIS_STAGE_LABELS, CONTAINERS, CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 export function LotsPage() {
   const { orgId, membership } = useOrganisation();
@@ -25,7 +26,7 @@ export function LotsPage() {
     <>
       <PageHeader title="Lots" lead="Every lot under your contracts, its latest analysis and verdict." />
       <div className="flex flex-col gap-6">
-        {membership.role === "producer_quality" && (
+        {can(membership.role, "lots.submit") && (
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Register a lot</summary>
             <div className="mt-4">

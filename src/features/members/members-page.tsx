@@ -9,12 +9,13 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 const date = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
 
 export function MembersPage() {
   const { user, membership } = useSignedIn();
-  if (!membership || membership.role !== "org_admin") {
+  if (!membership || !can(membership.role, "members.manage")) {
     return <EmptyState title="Only an organisation admin manages members.">Ask your admin to invite people or change roles.</EmptyState>;
   }
   const orgId = membership.organisationId;

@@ -12,6 +12,7 @@ import { LegalCaution } from "../../components/legal-caution.tsx";
 import { NewContractForm } from "./new-contract-form.tsx";
 import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabulary.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 const vintages = (from: number, to: number | null) => (to ? `${from}–${to}` : `${from} →`);
 
@@ -31,7 +32,7 @@ export function SpecsListPage() {
       <div className="flex flex-col gap-6">
         <LegalCaution />
         <ContractsCard orgId={orgId} />
-        {membership.role === "buyer_technologist" && (
+        {can(membership.role, "specs.draft") && (
           <details className="rounded-card border border-line bg-card p-gutter">
             <summary className="cursor-pointer text-lg font-semibold">Open a new contract</summary>
             <div className="mt-4">

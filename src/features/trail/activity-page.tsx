@@ -10,6 +10,7 @@ import { useOrganisation } from "../../lib/signed-in.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { actionLabel, detailsText } from "../../../shared/trail/vocabulary.ts";
+import { can } from "../../../shared/auth/permissions.ts";
 
 export function ActivityPage() {
   const { orgId, membership } = useOrganisation();
@@ -19,10 +20,10 @@ export function ActivityPage() {
   const entries = useQuery({
     queryKey: ["orgs", orgId, "audit", filters],
     queryFn: () => api<TrailEntryView[]>(`/api/orgs/${orgId}/trail?${qs}`),
-    enabled: membership.role === "org_admin",
+    enabled: can(membership.role, "trail.organisation"),
   });
   const verify = useMutation({ mutationFn: () => verifyChain(orgId) });
-  if (membership.role !== "org_admin") return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
+  if (!can(membership.role, "trail.organisation")) return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
   return (
     <>
       <PageHeader
