@@ -1,4 +1,5 @@
-import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useMutation } from "@tanstack/react-query";
+import { useRefreshOrganisation } from "../../lib/refresh.ts";
 import { useNavigate } from "react-router-dom";
 import { useState } from "react";
 import { api, errorMessage } from "../../lib/api-client.ts";
@@ -9,14 +10,13 @@ import { findParameter } from "../../../shared/engine/index.ts";
 /** Opening a deviation by hand (a tasting fault, a label problem), with the reason written down. */
 export function OpenDeviationForm({ orgId, lotId, parameters }: { orgId: number; lotId: number; parameters: string[] }) {
   const navigate = useNavigate();
-  const qc = useQueryClient();
+  const refresh = useRefreshOrganisation(orgId);
   const [reason, setReason] = useState("");
   const [chosen, setChosen] = useState<string[]>([]);
   const open = useMutation({
     mutationFn: () => api<{ id: number }>(`/api/orgs/${orgId}/deviations`, { method: "POST", body: { lotId, parameters: chosen, reason } }),
     onSuccess: ({ id }) => {
-      // The new deviation shows on this lot, in the deviation lists and on the trail: refresh the organisation's data.
-      void qc.invalidateQueries({ queryKey: ["orgs", orgId] });
+      void refresh();
       navigate(`/deviations/${id}`);
     },
   });

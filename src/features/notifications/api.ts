@@ -1,4 +1,5 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { notificationsKey } from "../../lib/refresh.ts";
 import { api } from "../../lib/api-client.ts";
 
 export interface NotificationItem {
@@ -13,7 +14,7 @@ export interface NotificationItem {
 
 export const notificationsQuery = () =>
   queryOptions({
-    queryKey: ["notifications"],
+    queryKey: notificationsKey,
     queryFn: () => api<{ unread: number; items: NotificationItem[] }>("/api/me/notifications"),
     refetchInterval: 60_000,
   });
@@ -22,6 +23,6 @@ export function useMarkRead() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (ids: number[] | "all") => api<void>("/api/me/notifications/read", { method: "POST", body: { ids } }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ["notifications"] }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: notificationsKey }),
   });
 }

@@ -5,13 +5,13 @@
 import { FormProvider, useFieldArray, useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useEffect, useRef, useState } from "react";
-import { useQueryClient } from "@tanstack/react-query";
+
 import { specDraftSchema, type SpecDraftInput, type SpecRowInput } from "../../../shared/specs/schemas.ts";
 import { STAGES, STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { wineProfile } from "../../../shared/specs/profile.ts";
 import { DEFAULT_DECISION_RULE, PARAMETERS, findParameter } from "../../../shared/engine/index.ts";
 import { ApiError, errorMessage } from "../../lib/api-client.ts";
-import { specKeys, useSaveDraft } from "./api/specs.ts";
+import { useInvalidateSpecs, useSaveDraft } from "./api/specs.ts";
 import type { SpecVersionDetail } from "../../../shared/specs/views.ts";
 import { RequirementRow } from "./requirement-row.tsx";
 import { Button } from "../../components/ui/button.tsx";
@@ -48,7 +48,7 @@ export function SpecEditor({
   version: SpecVersionDetail;
   onSavedChange: (clean: boolean) => void;
 }) {
-  const qc = useQueryClient();
+  const invalidate = useInvalidateSpecs(orgId);
   const save = useSaveDraft(orgId, version.id);
   const form = useForm<SpecDraftInput>({ resolver: zodResolver(specDraftSchema), defaultValues: toDraft(version), mode: "onChange" });
   const rows = useFieldArray({ control: form.control, name: "rows" });
@@ -77,7 +77,7 @@ export function SpecEditor({
           setState({ kind: "saved", at: new Date(r.updatedAt).toLocaleTimeString("en-GB") });
           form.reset(form.getValues(), { keepValues: true });
           onSavedChange(true);
-          void qc.invalidateQueries({ queryKey: specKeys.all(orgId) });
+          void invalidate();
         },
         onError: (err) => {
           onSavedChange(false);

@@ -18,7 +18,7 @@ export function ActivityPage() {
   const filters = Object.fromEntries(["action", "entityType", "from", "to"].map((k) => [k, params.get(k) ?? ""]).filter(([, v]) => v));
   const qs = new URLSearchParams({ ...filters, limit: "500" });
   const entries = useQuery({
-    queryKey: ["orgs", orgId, "audit", filters],
+    queryKey: ["orgs", orgId, "trail", filters],
     queryFn: () => api<TrailEntryView[]>(`/api/orgs/${orgId}/trail?${qs}`),
     enabled: can(membership.role, "trail.organisation"),
   });

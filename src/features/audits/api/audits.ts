@@ -1,4 +1,5 @@
-import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation } from "@tanstack/react-query";
+import { useRefreshOrganisation } from "../../../lib/refresh.ts";
 import { api } from "../../../lib/api-client.ts";
 import type { LabResultsInput, NewAuditOrder, PriceListInput } from "../../../../shared/audits/schemas.ts";
 import type { AuditOrderDetail, AuditOrderSummary, FinanceDashboard, LaboratoryOffer } from "../../../../shared/audits/views.ts";
@@ -50,14 +51,8 @@ export const orderableLotsQuery = (orgId: number, contractId: number) =>
 
 export const invoiceUrl = (orgId: number, id: number) => `${base(orgId)}/audit-orders/${id}/invoice.pdf`;
 
-function useInvalidate(orgId: number) {
-  const qc = useQueryClient();
-  return () => {
-    void qc.invalidateQueries({ queryKey: auditKeys.all(orgId) });
-    void qc.invalidateQueries({ queryKey: ["orgs", orgId, "lots"] });
-    void qc.invalidateQueries({ queryKey: ["orgs", orgId, "deviations"] });
-  };
-}
+/** An order's payment or results change its lots, deviations and notifications too. */
+const useInvalidate = (orgId: number) => useRefreshOrganisation(orgId);
 
 export function useCreateOrder(orgId: number) {
   const invalidate = useInvalidate(orgId);

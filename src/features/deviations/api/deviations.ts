@@ -1,8 +1,8 @@
-import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation } from "@tanstack/react-query";
+import { useRefreshOrganisation } from "../../../lib/refresh.ts";
 import { api } from "../../../lib/api-client.ts";
 import type { DecisionInput, MessageInput } from "../../../../shared/deviations/schemas.ts";
 import type { DeviationDetail, DeviationSummaryView } from "../../../../shared/deviations/views.ts";
-import { historyKeys } from "../../../lib/trail.ts";
 
 const base = (orgId: number) => `/api/orgs/${orgId}`;
 
@@ -29,14 +29,8 @@ export const deviationQuery = (orgId: number, id: number) =>
 export const deviationPdfUrl = (orgId: number, id: number) => `${base(orgId)}/deviations/${id}/pdf`;
 export const attachmentUrl = (orgId: number, id: number) => `${base(orgId)}/deviation-attachments/${id}`;
 
-function useInvalidate(orgId: number) {
-  const qc = useQueryClient();
-  return () => {
-    void qc.invalidateQueries({ queryKey: deviationKeys.all(orgId) });
-    void qc.invalidateQueries({ queryKey: historyKeys.all(orgId) });
-    void qc.invalidateQueries({ queryKey: ["notifications"] });
-  };
-}
+/** A message or decision changes the deviation, its lot's page, the trail and the parties' notifications. */
+const useInvalidate = (orgId: number) => useRefreshOrganisation(orgId);
 
 export function usePostMessage(orgId: number, id: number) {
   const invalidate = useInvalidate(orgId);

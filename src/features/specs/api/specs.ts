@@ -48,7 +48,8 @@ export const pastResultsQuery = (orgId: number, contractId: number) =>
 
 export const specPdfUrl = (orgId: number, id: number) => `${base(orgId)}/specs/${id}/pdf`;
 
-function useInvalidateSpecs(orgId: number) {
+/** Refreshes everything a spec change can alter: the feature's own queries and the shared contract and version reads. */
+export function useInvalidateSpecs(orgId: number) {
   const qc = useQueryClient();
   return () =>
     Promise.all([qc.invalidateQueries({ queryKey: specKeys.all(orgId) }), qc.invalidateQueries({ queryKey: contractKeys.all(orgId) })]);
