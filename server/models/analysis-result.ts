@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { Reading, ReportedUncertainty } from "../../shared/engine/index.ts";
+import type { UnitId } from "../../shared/engine/index.ts";
 
 export class AnalysisResult extends Model<InferAttributes<AnalysisResult>, InferCreationAttributes<AnalysisResult>> {
   declare id: CreationOptional<number>;
@@ -7,7 +8,7 @@ export class AnalysisResult extends Model<InferAttributes<AnalysisResult>, Infer
   declare parameter: string;
   declare rawText: string;
   declare reading: Reading;
-  declare unit: string;
+  declare unit: UnitId;
   declare uncertainty: ReportedUncertainty | null;
   declare method: string | null;
 

@@ -1,13 +1,14 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { DecisionRule } from "../../shared/engine/index.ts";
 import type { Severity, Stage } from "../../shared/specs/vocabulary.ts";
+import type { UnitId } from "../../shared/engine/index.ts";
 
 export class SpecRequirement extends Model<InferAttributes<SpecRequirement>, InferCreationAttributes<SpecRequirement>> {
   declare id: CreationOptional<number>;
   declare specVersionId: number;
   declare position: number;
   declare parameter: string;
-  declare unit: string;
+  declare unit: UnitId;
   declare lower: number | null;
   declare upper: number | null;
   declare target: number | null;

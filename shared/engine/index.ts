@@ -9,8 +9,8 @@
  */
 
 /** Units, conversions and branded quantity types. */
-export { UNITS, ETHANOL_DENSITY_G_PER_ML, UnitError, convert, convertQuantity, isUnit, quantity } from "./units.ts";
-export type { UnitId, Dimension, Quantity, MgPerL, GPerL, MeqPerL, PercentVol, PH, GPerMl } from "./units.ts";
+export { UNITS, ETHANOL_DENSITY_G_PER_ML, UnitError, convert, isUnit, quantity } from "./units.ts";
+export type { UnitId, Dimension, Quantity, MgPerL, GPerL, MeqPerL, PercentVol, PH } from "./units.ts";
 
 /** Laboratory notation: decimal commas or points, thousands groups, "<0.5", "≤ 0.5", "< LOQ (0.5)", "n.d.", "n.q.", "tr.", "> 300", "0.82 ± 0.05", a trailing unit. */
 export { parseReading, parseDecimal, readNumber, formatReading } from "./parse.ts";

@@ -45,7 +45,6 @@ export type GPerL = Quantity<"g/L">;
 export type MeqPerL = Quantity<"meq/L">;
 export type PercentVol = Quantity<"% vol">;
 export type PH = Quantity<"pH">;
-export type GPerMl = Quantity<"g/mL">;
 
 /** The only way to give a plain number a unit. */
 export const quantity = <U extends UnitId>(value: number, _unit: U): Quantity<U> => value as Quantity<U>;
@@ -91,13 +90,4 @@ export function convert(value: number, from: UnitId, to: UnitId, opts: { density
     default:
       throw new UnitError(`cannot convert ${from} to ${to}`);
   }
-}
-
-export function convertQuantity<F extends UnitId, T extends UnitId>(
-  q: Quantity<F>,
-  from: F,
-  to: T,
-  opts?: { densityGPerMl?: number },
-): Quantity<T> {
-  return convert(q, from, to, opts) as Quantity<T>;
 }

@@ -33,7 +33,7 @@ import type { StoredBound, StoredVerdict } from "./views.ts";
 export interface ReadResult {
   parameter: string;
   raw: string;
-  unit: string;
+  unit: UnitId;
   uncertainty: ReportedUncertainty | null;
   /** null when the text cannot be read; `error` then says why. */
   reading: Reading | null;
@@ -42,7 +42,7 @@ export interface ReadResult {
 
 /** `numberFormat`: how the laboratory writes numbers, when it said; it decides a number that reads two ways ("1.234"). */
 export function readResult(
-  r: { parameter: string; raw: string; unit: string; uncertainty?: ReportedUncertainty | null },
+  r: { parameter: string; raw: string; unit: UnitId; uncertainty?: ReportedUncertainty | null },
   numberFormat?: NumberFormat | null,
 ): ReadResult {
   const parsed = parseReading(r.raw, {
@@ -128,7 +128,7 @@ function withDensity(judge: Judge, densityGPerMl: number): Judge {
 function measuredDensity(results: readonly ReadResult[]): number | undefined {
   const d = results.find((r) => r.parameter === "density" && r.reading?.kind === "value");
   if (!d || d.reading?.kind !== "value") return undefined;
-  const g = convert(d.reading.value, d.unit as UnitId, "g/mL");
+  const g = convert(d.reading.value, d.unit, "g/mL");
   return g > 0.5 && g < 2 ? g : undefined;
 }
 
@@ -145,12 +145,12 @@ export function judgeRow(judge: Judge, row: RequirementView, stage: AnalysisStag
   const input = result?.reading
     ? {
         reading: result.reading,
-        unit: result.unit as UnitId,
+        unit: result.unit,
         uncertainty: result.uncertainty,
         ...(judge.densityGPerMl ? { densityGPerMl: judge.densityGPerMl } : {}),
       }
     : null;
-  const v = evaluate(req, input, { requiredAtStage: row.stages.includes(specStageFor(stage)), displayUnit: row.unit as UnitId });
+  const v = evaluate(req, input, { requiredAtStage: row.stages.includes(specStageFor(stage)), displayUnit: row.unit });
   return {
     parameter: row.parameter,
     severity: row.severity,
@@ -230,15 +230,15 @@ export function judgeAnalysis(
 
 /** The values of one analysis in canonical units, for comparing arrival with pre-shipment. */
 export function transitValues(
-  results: readonly { parameter: string; reading: Reading | null; unit: string; uncertainty?: ReportedUncertainty | null }[],
+  results: readonly { parameter: string; reading: Reading | null; unit: UnitId; uncertainty?: ReportedUncertainty | null }[],
 ) {
   const out: Partial<Record<ParameterId, TransitValue>> = {};
   for (const r of results) {
     const p = findParameter(r.parameter);
     if (!p || r.reading?.kind !== "value") continue;
-    const value = convert(r.reading.value, r.unit as UnitId, p.unit);
+    const value = convert(r.reading.value, r.unit, p.unit);
     const u = r.uncertainty
-      ? convert(r.uncertainty.value, r.unit as UnitId, p.unit) / (r.uncertainty.kind === "expanded" ? (r.uncertainty.k ?? 2) : 1)
+      ? convert(r.uncertainty.value, r.unit, p.unit) / (r.uncertainty.kind === "expanded" ? (r.uncertainty.k ?? 2) : 1)
       : undefined;
     out[p.id as ParameterId] = u === undefined ? { value } : { value, u };
   }

@@ -37,7 +37,7 @@ export interface LabelCheckInput {
   markets: readonly MarketId[];
   labelledAlcoholPercentVol: number | null;
   /** The lot's results, latest last; the latest result of each parameter is used. */
-  results: readonly { parameter: string; reading: Reading; unit: string }[];
+  results: readonly { parameter: string; reading: Reading; unit: UnitId }[];
 }
 
 const DERIVED: Citation = {
@@ -50,12 +50,12 @@ const DERIVED: Citation = {
 function latest(results: LabelCheckInput["results"], parameter: string, unit: UnitId) {
   const r = [...results].reverse().find((x) => x.parameter === parameter);
   if (!r) return { reading: null, value: null };
-  const value = r.reading.kind === "value" ? convert(r.reading.value, r.unit as UnitId, unit) : null;
+  const value = r.reading.kind === "value" ? convert(r.reading.value, r.unit, unit) : null;
   const reading: Reading =
     r.reading.kind === "value"
       ? { kind: "value", value: value! }
       : r.reading.kind === "below" && r.reading.limit !== null
-        ? { kind: "below", limit: convert(r.reading.limit, r.unit as UnitId, unit) }
+        ? { kind: "below", limit: convert(r.reading.limit, r.unit, unit) }
         : r.reading;
   return { reading, value };
 }

@@ -1,5 +1,5 @@
 /** A stored verdict as short text in its spec row's unit: the result with U (k = 2) and the governing limits, rounded to the parameter's precision. */
-import { citationConfirmed, convert, displayValue, unitLabel, type UnitId } from "../engine/index.ts";
+import { citationConfirmed, convert, displayValue, unitLabel } from "../engine/index.ts";
 import type { StoredBound, StoredVerdict } from "./views.ts";
 
 function boundText(parameter: string, b: StoredBound, factor: number, display: string): string {
@@ -8,8 +8,8 @@ function boundText(parameter: string, b: StoredBound, factor: number, display: s
 }
 
 export function verdictText(v: StoredVerdict): { result: string; limits: string; uncertainty: string } {
-  const display = v.displayUnit as UnitId;
-  const factor = convert(1, v.unit as UnitId, display);
+  const display = v.displayUnit;
+  const factor = convert(1, v.unit, display);
   const unit = unitLabel(display);
   const shown = (x: number) => displayValue(v.parameter, x, display);
   const limits =

@@ -1,6 +1,15 @@
 /** Shapes of the lots API's answers, shared by server and client. */
 import type { DeviationKind } from "../deviations/vocabulary.ts";
-import type { Citation, MarketId, Outcome, Reading, ReportedUncertainty, ResultComparison, TransitFinding } from "../engine/index.ts";
+import type {
+  Citation,
+  MarketId,
+  Outcome,
+  Reading,
+  ReportedUncertainty,
+  ResultComparison,
+  TransitFinding,
+  UnitId,
+} from "../engine/index.ts";
 import type { OrderStatus } from "../audits/vocabulary.ts";
 import type { Severity, Stage } from "../specs/vocabulary.ts";
 import type { ContractView, VersionSummary, RequirementView } from "../specs/views.ts";
@@ -26,9 +35,9 @@ export interface StoredVerdict {
   resultText: string | null;
   /** Canonical unit of value, bounds and uncertainty. */
   value: number | null;
-  unit: string;
+  unit: UnitId;
   /** The unit of the spec row; resultText and explanation use it. */
-  displayUnit: string;
+  displayUnit: UnitId;
   decidingSide: "lower" | "upper" | null;
   lower: StoredBound | null;
   upper: StoredBound | null;
@@ -65,7 +74,7 @@ export interface ResultView {
   parameter: string;
   rawText: string;
   reading: Reading;
-  unit: string;
+  unit: UnitId;
   uncertainty: ReportedUncertainty | null;
   method: string | null;
 }
@@ -158,7 +167,7 @@ export interface TrendPoint {
 export interface TrendData {
   parameter: string;
   /** The governing spec row's unit (the canonical one when no row names the parameter); limits and values are in it. */
-  unit: string;
+  unit: UnitId;
   /** Decimal places the parameter is shown to in that unit. */
   digits: number;
   /** The governing limits (the stricter of the buyer's and the law's), in `unit`, with where each comes from. */

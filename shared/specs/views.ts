@@ -1,12 +1,12 @@
 import type { WineLawFacts } from "./law-facts.ts";
 /** Shapes of the spec-sheet API's answers, shared by the server that builds them and the client that reads them. */
-import type { DecisionRule, MarketId, ParameterDiff, Reading, ReportedUncertainty, WineCategory, Colour } from "../engine/index.ts";
+import type { DecisionRule, MarketId, ParameterDiff, Reading, ReportedUncertainty, WineCategory, Colour, UnitId } from "../engine/index.ts";
 import type { Severity, SpecStatus, Stage } from "./vocabulary.ts";
 
 export interface RequirementView {
   id: number;
   parameter: string;
-  unit: string;
+  unit: UnitId;
   lower: number | null;
   upper: number | null;
   target: number | null;
@@ -108,6 +108,6 @@ export interface PastResultRow {
   sampleDate: string;
   parameter: string;
   reading: Reading;
-  unit: string;
+  unit: UnitId;
   uncertainty: ReportedUncertainty | null;
 }

@@ -1,5 +1,5 @@
 /** Verdicts with the bound that governed each one and where that bound comes from. */
-import { citationConfirmed, convert, displayValue, findParameter, unitLabel, type UnitId } from "../../shared/engine/index.ts";
+import { citationConfirmed, convert, displayValue, findParameter, unitLabel } from "../../shared/engine/index.ts";
 import type { ResultView, StoredBound, StoredVerdict } from "../../shared/lots/views.ts";
 import { OutcomeBadge } from "./outcome-badge.tsx";
 
@@ -44,9 +44,9 @@ export function VerdictTable({ verdicts, reported = [] }: { verdicts: StoredVerd
         <tbody>
           {verdicts.map((v) => {
             // Everything is shown in the unit of the spec row, as the buyer wrote it.
-            const display = (v.displayUnit ?? v.unit) as UnitId;
+            const display = v.displayUnit ?? v.unit;
             const unit = unitLabel(display);
-            const factor = convert(1, v.unit as UnitId, display);
+            const factor = convert(1, v.unit, display);
             const show = (x: number) => displayValue(v.parameter, x, display);
             const shown = v.value === null ? v.resultText : show(v.value * factor);
             const asReported = reported.find((r) => r.parameter === v.parameter);

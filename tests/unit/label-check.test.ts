@@ -8,8 +8,9 @@
  */
 import { describe, expect, it } from "vitest";
 import { labelCheck } from "../../shared/lots/label-check.ts";
+import type { UnitId } from "../../shared/engine/index.ts";
 
-const value = (parameter: string, v: number, unit: string) => ({ parameter, reading: { kind: "value" as const, value: v }, unit });
+const value = (parameter: string, v: number, unit: UnitId) => ({ parameter, reading: { kind: "value" as const, value: v }, unit });
 const base = [
   value("free_so2", 40, "mg/L"),
   value("total_so2", 110, "mg/L"),

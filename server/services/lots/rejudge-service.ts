@@ -15,7 +15,7 @@ import { governingVersion } from "./governing.ts";
 import { storeAnalyses } from "./store-analyses.ts";
 import { profileDiffers, wineProfile } from "../../../shared/specs/profile.ts";
 import type { SubmissionResult } from "../../../shared/lots/views.ts";
-import type { ReportedUncertainty, UnitId } from "../../../shared/engine/index.ts";
+import type { ReportedUncertainty } from "../../../shared/engine/index.ts";
 import type { SessionUser } from "../session-service.ts";
 
 export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: number, user: SessionUser): Promise<SubmissionResult> {
@@ -43,7 +43,7 @@ export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: 
     const results = analysis.results.map((r) => ({
       parameter: r.parameter,
       raw: r.rawText,
-      unit: r.unit as UnitId,
+      unit: r.unit,
       uncertainty: (r.uncertainty as ReportedUncertainty | null) ?? null,
       method: r.method,
     }));

@@ -13,7 +13,7 @@ import { ApiError, errorMessage } from "../../lib/api-client.ts";
 import { labResultsSchema } from "../../../shared/audits/schemas.ts";
 import { cellKey, cellsFromSamples, type FormCell } from "../../../shared/audits/lab-csv.ts";
 import { buildSamples, guessMapping } from "../../../shared/lots/csv.ts";
-import { findParameter, UNITS, type UnitId } from "../../../shared/engine/index.ts";
+import { findParameter, UNITS } from "../../../shared/engine/index.ts";
 import type { AuditOrderDetail } from "../../../shared/audits/views.ts";
 
 const today = () => new Date().toISOString().slice(0, 10);
@@ -71,7 +71,7 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
           .map(({ p, c }) => ({
             parameter: p,
             raw: c.raw.trim(),
-            unit: c.unit as UnitId,
+            unit: c.unit,
             uncertainty: c.u.trim() ? { kind: "expanded" as const, value: Number(c.u.replace(",", ".")), k: 2 } : null,
           })),
       })),

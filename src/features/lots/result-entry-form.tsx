@@ -3,7 +3,7 @@
  * verdict computed by the engine in the browser as the user types.
  */
 import { useMemo, useState } from "react";
-import { findParameter, implausibility, UNITS, type UnitId } from "../../../shared/engine/index.ts";
+import { findParameter, implausibility, UNITS } from "../../../shared/engine/index.ts";
 import { analysisSubmissionSchema } from "../../../shared/lots/schemas.ts";
 import { countsText } from "../../../shared/lots/judge.ts";
 import { ANALYSIS_STAGES, ANALYSIS_STAGE_LABELS, specStageFor, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
@@ -119,7 +119,7 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
             // The same reading the verdict was made from: one parse for the error, the plausibility and the verdict.
             const read = readOf.get(r.parameter);
             const verdict = read?.reading ? verdictOf.get(r.parameter) : null;
-            const odd = read?.reading ? implausibility(r.parameter, read.reading, read.unit as UnitId) : null;
+            const odd = read?.reading ? implausibility(r.parameter, read.reading, read.unit) : null;
             const set = (patch: Partial<EntryLine>) => setLines((all) => ({ ...all, [r.parameter]: { ...l, ...patch } }));
             const error = read?.error ?? errors[`results.${i}.raw`] ?? errors[`results.${i}.unit`];
             return (
@@ -155,7 +155,7 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
                   >
                     {(p?.units ?? [r.unit]).map((x) => (
                       <option key={x} value={x}>
-                        {UNITS[x as UnitId]?.label ?? x}
+                        {UNITS[x]?.label ?? x}
                       </option>
                     ))}
                   </select>

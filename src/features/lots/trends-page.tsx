@@ -24,7 +24,6 @@ import {
   PARAMETERS,
   UNITS,
   westernElectricSignals,
-  type UnitId,
 } from "../../../shared/engine/index.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import type { TrendData } from "../../../shared/lots/views.ts";
@@ -82,7 +81,7 @@ export function TrendsPage() {
 function TrendView({ data: trend }: { data: TrendData }) {
   // The chart works on plain numbers; the limits' sources go into the legend.
   const data = { ...trend, lower: trend.lower?.value ?? null, upper: trend.upper?.value ?? null };
-  const unit = UNITS[data.unit as UnitId]?.label ?? data.unit;
+  const unit = UNITS[data.unit]?.label ?? data.unit;
   const show = (x: number | null | undefined) => fixed(x, data.digits);
   // Statistics carry one more decimal than the results they summarise.
   const stat = (x: number | null | undefined) => fixed(x, data.digits + 1);

@@ -8,7 +8,7 @@ import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
-import { convert, findParameter, UNITS, type BacktestSummary, type DiffKind, type UnitId } from "../../../shared/engine/index.ts";
+import { convert, findParameter, UNITS, type BacktestSummary, type DiffKind } from "../../../shared/engine/index.ts";
 import { runBacktest, toPastResults } from "./run-backtest.ts";
 import { errorMessage } from "../../lib/api-client.ts";
 import type { SpecVersionDetail } from "../../../shared/specs/views.ts";
@@ -81,7 +81,7 @@ export function ComparePage() {
                   const side = (s: "lower" | "upper") => p.sides.find((x) => x.side === s);
                   // Show limits in the unit the buyer wrote them in, not the engine's canonical one.
                   const canonical = findParameter(p.parameter)?.unit;
-                  const unit = (v.requirements.find((r) => r.parameter === p.parameter)?.unit ?? canonical) as UnitId | undefined;
+                  const unit = v.requirements.find((r) => r.parameter === p.parameter)?.unit ?? canonical;
                   const shown = (x: number | null) => (x === null || !canonical || !unit ? n(x) : n(convert(x, canonical, unit)));
                   return (
                     <tr key={p.parameter} className="border-b border-line/60">

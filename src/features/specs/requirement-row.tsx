@@ -2,12 +2,12 @@
 import { useFormContext, useWatch } from "react-hook-form";
 import {
   convert,
+  isUnit,
   findParameter,
   parseDecimal,
   PARAMETERS,
   UNITS,
   type MarketId,
-  type UnitId,
   type WineProfile,
 } from "../../../shared/engine/index.ts";
 import { SEVERITIES, SEVERITY_LABELS, STAGE_LABELS, type Stage } from "../../../shared/specs/vocabulary.ts";
@@ -38,13 +38,14 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
 
   /** Changing the unit converts the limits already typed, so the meaning of the row stays the same. */
   const changeUnit = (to: string) => {
-    const from = getValues(`rows.${index}.unit`) as UnitId;
+    if (!isUnit(to)) return;
+    const from = getValues(`rows.${index}.unit`);
     for (const f of ["lower", "upper", "target"] as const) {
       const v = getValues(`rows.${index}.${f}`);
       if (typeof v === "number" && Number.isFinite(v))
-        setValue(`rows.${index}.${f}`, Number(convert(v, from, to as UnitId).toPrecision(6)), { shouldDirty: true });
+        setValue(`rows.${index}.${f}`, Number(convert(v, from, to).toPrecision(6)), { shouldDirty: true });
     }
-    setValue(`rows.${index}.unit`, to as UnitId, { shouldDirty: true, shouldValidate: true });
+    setValue(`rows.${index}.unit`, to, { shouldDirty: true, shouldValidate: true });
   };
 
   const numberField = (f: "lower" | "upper" | "target", label: string) => (
@@ -118,7 +119,7 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
             >
               {(p?.units ?? [row.unit]).map((u) => (
                 <option key={u} value={u}>
-                  {UNITS[u as UnitId]?.label ?? u}
+                  {UNITS[u]?.label ?? u}
                 </option>
               ))}
             </select>

@@ -5,7 +5,6 @@ import {
   type BuyerRequirement,
   type MarketId,
   type PastResult,
-  type UnitId,
 } from "../../../shared/engine/index.ts";
 import { wineProfile, type WineFacts } from "../../../shared/specs/profile.ts";
 import type { PastResultRow } from "../../../shared/specs/views.ts";
@@ -16,7 +15,7 @@ export function toPastResults(rows: PastResultRow[], wine: WineFacts): PastResul
     lotCode: r.lotCode,
     vintage: r.vintage,
     parameter: r.parameter,
-    input: { reading: r.reading, unit: r.unit as UnitId, uncertainty: r.uncertainty },
+    input: { reading: r.reading, unit: r.unit, uncertainty: r.uncertainty },
     profile: wineProfile(wine, r.vintage),
   }));
 }

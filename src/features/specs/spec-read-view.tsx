@@ -1,6 +1,6 @@
 /** A sent or agreed version, read-only, with the comments on each row and a form to add one. */
 import { useState } from "react";
-import { findParameter, ruleLabel, UNITS, type UnitId } from "../../../shared/engine/index.ts";
+import { findParameter, ruleLabel, UNITS } from "../../../shared/engine/index.ts";
 import { SEVERITY_LABELS, STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { wineProfile } from "../../../shared/specs/profile.ts";
 import { useAddComment } from "./api/specs.ts";
@@ -13,7 +13,7 @@ import { errorMessage } from "../../lib/api-client.ts";
 const num = (x: number | null) => (x === null ? null : String(Number(x.toPrecision(6))));
 
 function limits(r: RequirementView): string {
-  const u = UNITS[r.unit as UnitId]?.label ?? r.unit;
+  const u = UNITS[r.unit]?.label ?? r.unit;
   const lo = num(r.lower);
   const hi = num(r.upper);
   const range = lo && hi ? `${lo} – ${hi}` : hi ? `at most ${hi}` : lo ? `at least ${lo}` : "must be absent";
