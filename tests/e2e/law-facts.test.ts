@@ -14,6 +14,14 @@ beforeAll(async () => {
 });
 afterAll(() => s?.stop());
 
+/** The Shiraz's contract, reached as a buyer would: from the specifications list. */
+async function openShiraz() {
+  const { page } = s;
+  await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Specifications" }).click();
+  await page.getByRole("link", { name: "Kestrel Flats Shiraz (bulk)" }).first().click();
+  await page.getByRole("heading", { level: 1, name: "Kestrel Flats Shiraz (bulk)" }).waitFor();
+}
+
 async function stateOrganic(answer: "Yes" | "No") {
   const { page } = s;
   await page.getByRole("button", { name: "State the facts" }).click();
@@ -26,7 +34,7 @@ describe.sequential("the wine's facts for the law", () => {
   it("when the buyer states that the Shiraz is organic, then the contract lists it and its spec shows the organic EU limit beside the conventional one", async () => {
     const { page, baseUrl } = s;
     await signInThroughForm(page, baseUrl, DEMO.buyerTechnologist);
-    await page.goto(`${baseUrl}/contracts/3`);
+    await openShiraz();
     await page.getByRole("heading", { name: "What the law asks about this wine" }).waitFor();
     await page.getByText("Whether it is organic: No").waitFor();
     await page.getByRole("button", { name: "State the facts" }).click();
@@ -43,7 +51,7 @@ describe.sequential("the wine's facts for the law", () => {
     await so2.getByText(/Implementing Regulation \(EU\) 2021\/1165/).waitFor();
     await screenshot(page, "law-facts-spec");
 
-    await page.goto(`${baseUrl}/contracts/3`);
+    await openShiraz();
     await stateOrganic("No");
   });
 });
