@@ -37,6 +37,7 @@ export default defineConfig({
           name: "integration",
           include: ["tests/api/**/*.test.ts", "tests/e2e/**/*.test.ts"],
           globalSetup: ["tests/support/global-setup.ts"],
+          setupFiles: ["tests/support/fail-on-console.ts", "tests/support/demo-rows.ts"],
           testTimeout: 90_000,
         },
       },

@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import { randomUUID } from "node:crypto";
-import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { signed, succeededEvent, TEST_WEBHOOK_SECRET } from "../support/stripe-events.ts";
 import { matchPath } from "react-router-dom";
 import { ROUTES } from "../../shared/paths.ts";
@@ -46,7 +46,15 @@ beforeAll(async () => {
   const lot = await producer.agent
     .post(P("/lots"))
     .set("x-csrf-token", producer.csrf)
-    .send({ contractId: 1, vintage: 2025, lotCode, volumeLitres: 9000, container: "bottles", plannedDate: "2027-02-01", market: "EU" });
+    .send({
+      contractId: CONTRACT.sentierBlanc,
+      vintage: 2025,
+      lotCode,
+      volumeLitres: 9000,
+      container: "bottles",
+      plannedDate: "2027-02-01",
+      market: "EU",
+    });
   expect(lot.status).toBe(201);
   lotId = lot.body.id;
   const declared = await producer.agent
@@ -69,7 +77,7 @@ beforeAll(async () => {
     .set("x-csrf-token", finance.csrf)
     .send({
       idempotencyKey: randomUUID(),
-      contractId: 1,
+      contractId: CONTRACT.sentierBlanc,
       laboratoryOrgId: ORG.lab,
       lotIds: [lotId],
       parameters: ["volatile_acidity", "free_so2", "alcohol"],
@@ -303,7 +311,7 @@ describe("the lot's document", () => {
       .post(P("/lots"))
       .set("x-csrf-token", producer.csrf)
       .send({
-        contractId: 1,
+        contractId: CONTRACT.sentierBlanc,
         vintage: 2025,
         lotCode: `SB-EMPTY-${randomUUID().slice(0, 6)}`,
         volumeLitres: 100,

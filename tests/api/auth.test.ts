@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import jwt from "jsonwebtoken";
-import { buildTestApp, DEMO, DEMO_PASSWORD, signInAs, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, DEMO_PASSWORD, ORG, signInAs, type TestApp } from "../support/api.ts";
 import { startTestMail, linkIn } from "../support/mail.ts";
 import { SIGN_IN_FAILED } from "../../server/services/auth-service.ts";
 
@@ -67,10 +67,10 @@ describe("session tokens and CSRF", () => {
 
   it("when a token is signed with alg none or tampered, then the caller is anonymous", async () => {
     const none = jwt.sign({ sv: 0 }, "", { algorithm: "none", subject: "1", jwtid: "x" });
-    const res = await request(t.app).get("/api/orgs/1/members").set("Cookie", `cp_session=${none}`);
+    const res = await request(t.app).get(`/api/orgs/${ORG.retailer}/members`).set("Cookie", `cp_session=${none}`);
     expect(res.status).toBe(401);
     const forged = jwt.sign({ sv: 0 }, "some-other-secret-some-other-secret", { algorithm: "HS256", subject: "2", jwtid: "y" });
-    expect((await request(t.app).get("/api/orgs/1/members").set("Cookie", `cp_session=${forged}`)).status).toBe(401);
+    expect((await request(t.app).get(`/api/orgs/${ORG.retailer}/members`).set("Cookie", `cp_session=${forged}`)).status).toBe(401);
   });
 
   it("when the user signs out, then the old cookie no longer works", async () => {
@@ -79,10 +79,10 @@ describe("session tokens and CSRF", () => {
       .concat(res.headers["set-cookie"] ?? [])
       .find((c) => c.startsWith("cp_session="))!
       .split(";")[0]!;
-    expect((await request(t.app).get("/api/orgs/5/members").set("Cookie", oldCookie)).status).toBe(200);
+    expect((await request(t.app).get(`/api/orgs/${ORG.lab}/members`).set("Cookie", oldCookie)).status).toBe(200);
     const { agent, csrf } = await signInAs(t.app, DEMO.labAnalyst);
     expect((await agent.post("/api/auth/sign-out").set("x-csrf-token", csrf)).status).toBe(204);
-    const after = await request(t.app).get("/api/orgs/5/members").set("Cookie", oldCookie);
+    const after = await request(t.app).get(`/api/orgs/${ORG.lab}/members`).set("Cookie", oldCookie);
     expect(after.status).toBe(401);
   });
 });

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
 import { randomUUID } from "node:crypto";
-import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { startTestMail } from "../support/mail.ts";
 import { sendDigests } from "../../server/services/notification-service.ts";
 
@@ -29,7 +29,7 @@ async function failingLot() {
     .post(P("/lots"))
     .set("x-csrf-token", producer.csrf)
     .send({
-      contractId: 1,
+      contractId: CONTRACT.sentierBlanc,
       vintage: 2025,
       lotCode: `SB-DV-${randomUUID().slice(0, 6)}`,
       volumeLitres: 5000,

@@ -6,7 +6,7 @@
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
-import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { setUpThreeLots, THREE_LOT_STATUSES, type ThreeLots } from "../support/three-lots.ts";
 import type { LotDetail, LotSummary, ReadinessRow, TrendData } from "../../shared/lots/views.ts";
 import { chartDomain } from "../../src/features/lots/chart-domain.ts";
@@ -123,7 +123,14 @@ describe("a lot's market", () => {
     const bad = await producer.agent
       .post(P("/lots"))
       .set("x-csrf-token", producer.csrf)
-      .send({ contractId: 1, vintage: 2025, lotCode: `ST-US-${tag}`, volumeLitres: 100, container: "bottles", market: "US" });
+      .send({
+        contractId: CONTRACT.sentierBlanc,
+        vintage: 2025,
+        lotCode: `ST-US-${tag}`,
+        volumeLitres: 100,
+        container: "bottles",
+        market: "US",
+      });
     expect(bad.status).toBe(400);
     expect(bad.body.errors).toEqual([
       { path: "market", message: "Contract HG-C-2024-017 covers GB, EU, OIV; choose one of those markets." },
@@ -139,7 +146,7 @@ describe("a lot's market", () => {
 
 describe("trends", () => {
   it("when a parameter is charted, then it is in the spec row's unit with the governing limits, and every value is rounded to the parameter's precision (regression)", async () => {
-    const res = await tech.agent.get(B("/contracts/1/trend?parameter=volatile_acidity"));
+    const res = await tech.agent.get(B(`/contracts/${CONTRACT.sentierBlanc}/trend?parameter=volatile_acidity`));
     expect(res.status).toBe(200);
     const d = res.body as TrendData;
     // Sentier Blanc's version 1 writes volatile acidity in g/L as acetic acid with a maximum of 0.6 (the still-white template),
@@ -351,7 +358,7 @@ describe("a laboratory's number format", () => {
   it("when an import says the laboratory writes 1.234,5, then '1.200' CFU/mL is read and kept as twelve hundred; in the point format it would be 1.2", async () => {
     const send = (lotCode: string, numberFormat: "comma" | "point") =>
       producer.agent
-        .post(P("/contracts/1/imports"))
+        .post(P(`/contracts/${CONTRACT.sentierBlanc}/imports`))
         .set("x-csrf-token", producer.csrf)
         .send({
           idempotencyKey: randomUUID(),

@@ -4,7 +4,7 @@ import { mkdtempSync, readdirSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
-import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { readCsv } from "../support/csv.ts";
 import { IMPORT_BATCH_MAX } from "../../shared/lots/schemas.ts";
 import { ENGINE_VERSION, MARKET_PACKS } from "../../shared/engine/index.ts";
@@ -14,7 +14,6 @@ let t: TestApp;
 let producer: SignedInAgent;
 let buyer: SignedInAgent;
 let kestrel: SignedInAgent;
-const BLANC = 1; // Sentier Blanc: version 1 agreed from the 2023 vintage
 const KESTREL_CONTRACT = 3; // bulk shiraz in flexitank, version agreed from 2024
 
 beforeAll(async () => {
@@ -36,7 +35,7 @@ async function newLot(code = `SB-T-${randomUUID().slice(0, 8)}`, extra: object =
     .post(P("/lots"))
     .set("x-csrf-token", producer.csrf)
     .send({
-      contractId: BLANC,
+      contractId: CONTRACT.sentierBlanc,
       vintage: 2025,
       lotCode: code,
       volumeLitres: 9000,
@@ -163,7 +162,7 @@ describe("lots and authorization", () => {
     const again = await producer.agent
       .post(P("/lots"))
       .set("x-csrf-token", producer.csrf)
-      .send({ contractId: BLANC, vintage: 2025, lotCode: code, volumeLitres: 9000, container: "bottles", market: "EU" });
+      .send({ contractId: CONTRACT.sentierBlanc, vintage: 2025, lotCode: code, volumeLitres: 9000, container: "bottles", market: "EU" });
     expect(again.body.errors[0]).toEqual({ path: "lotCode", message: `Lot ${code} is already registered under this contract.` });
   });
 });

@@ -11,7 +11,7 @@ import Stripe from "stripe";
 import type http from "node:http";
 import type { AddressInfo } from "node:net";
 import { randomUUID } from "node:crypto";
-import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { startTestMail } from "../support/mail.ts";
 import { startStripeFake, type StripeFake } from "../../server/fakes/stripe/server.ts";
 import { signed, succeededEvent, TEST_WEBHOOK_SECRET } from "../support/stripe-events.ts";
@@ -69,7 +69,14 @@ async function placeOrder(parameters = ["volatile_acidity", "free_so2"]) {
   const res = await finance.agent
     .post(B("/audit-orders"))
     .set("x-csrf-token", finance.csrf)
-    .send({ idempotencyKey: randomUUID(), contractId: 1, laboratoryOrgId: ORG.lab, lotIds: [lotId], parameters, stage: "pre_filling" });
+    .send({
+      idempotencyKey: randomUUID(),
+      contractId: CONTRACT.sentierBlanc,
+      laboratoryOrgId: ORG.lab,
+      lotIds: [lotId],
+      parameters,
+      stage: "pre_filling",
+    });
   expect(res.status).toBe(201);
   return res.body as { id: number; reference: string; amountCents: number };
 }
@@ -98,7 +105,7 @@ describe("ordering and paying an audit", () => {
     const lotId = await anyLotOfContract(1);
     const body = {
       idempotencyKey: randomUUID(),
-      contractId: 1,
+      contractId: CONTRACT.sentierBlanc,
       laboratoryOrgId: ORG.lab,
       lotIds: [lotId],
       parameters: ["cold_stability_deposit"],

@@ -3,7 +3,7 @@ import { execFileSync } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
+import { buildTestApp, CONTRACT, DEMO, ORG, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
 import { specDraftSchema } from "../../shared/specs/schemas.ts";
 import { findParameter } from "../../shared/engine/index.ts";
 
@@ -198,7 +198,7 @@ describe("bad input: the API enforces every editor validation with the same mess
 
 describe("PDF", () => {
   it("when the PDF of a version is downloaded, then pdftotext finds every parameter, the version and the parties", async () => {
-    const contract = (await buyer.agent.get(buyerUrl(`/contracts/1`))).body;
+    const contract = (await buyer.agent.get(buyerUrl(`/contracts/${CONTRACT.sentierBlanc}`))).body;
     const v = (await buyer.agent.get(buyerUrl(`/specs/${contract.versions[0].id}`))).body;
     const res = await buyer.agent
       .get(buyerUrl(`/specs/${v.id}/pdf`))
@@ -270,7 +270,7 @@ describe("regressions found by using the spec sheets", () => {
   it("when the buyer starts a new version from an agreed one, then the copy is valid as it opens, so autosave can run", async () => {
     // Sentier Blanc's version 1 has rows that also require the on-arrival stage, which the version did not list.
     const res = await buyer.agent
-      .post(buyerUrl("/contracts/1/specs"))
+      .post(buyerUrl(`/contracts/${CONTRACT.sentierBlanc}/specs`))
       .set("x-csrf-token", buyer.csrf)
       .send({ from: "version", versionId: 1 });
     expect(res.status).toBe(201);

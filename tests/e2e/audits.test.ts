@@ -9,7 +9,7 @@ import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { randomUUID } from "node:crypto";
 import { expectAccessible, screenshot, signInThroughForm, signOut, startStack, type Stack } from "../support/stack.ts";
-import { DEMO, ORG } from "../support/api.ts";
+import { DEMO, ORG, CONTRACT } from "../support/api.ts";
 
 let s: Stack;
 let orderUrl = "";
@@ -34,7 +34,7 @@ describe("a paid independent audit", () => {
   it("given a lot whose producer declared its results", async () => {
     await signInThroughForm(s.page, s.baseUrl, DEMO.producerQuality);
     const lot = await asSignedIn(`/api/orgs/${ORG.troisSentes}/lots`, {
-      contractId: 1,
+      contractId: CONTRACT.sentierBlanc,
       vintage: 2025,
       lotCode,
       volumeLitres: 11000,

@@ -59,7 +59,22 @@ export const DEMO = {
   labAdmin: "nadia.brook@northgate-lab.test",
 } as const;
 
-export const ORG = { retailer: 1, troisSentes: 2, kestrelFlats: 3, valsorda: 4, lab: 5 } as const;
+/** The demo organisations and contracts, by name and reference; their ids are looked up before each file (tests/support/demo-rows.ts). */
+export const ORGANISATION_NAMES = {
+  retailer: "Harbourline Grocers",
+  troisSentes: "Domaine des Trois Sentes",
+  kestrelFlats: "Kestrel Flats Estate",
+  valsorda: "Cantina Valsorda",
+  lab: "Northgate Oenology Laboratory",
+} as const;
+export const CONTRACT_REFERENCES = {
+  sentierBlanc: "HG-C-2024-017",
+  sentierRouge: "HG-C-2025-021",
+  kestrelShiraz: "HG-C-2024-009",
+  valsordaRosato: "HG-C-2025-030",
+} as const;
+export const ORG = {} as Record<keyof typeof ORGANISATION_NAMES, number>;
+export const CONTRACT = {} as Record<keyof typeof CONTRACT_REFERENCES, number>;
 
 /** GETs a PDF and reads its text back with poppler's pdftotext. */
 export async function getPdf(agent: SignedInAgent["agent"], url: string) {

@@ -4,7 +4,7 @@
  */
 import { expect } from "vitest";
 import { randomUUID } from "node:crypto";
-import { ORG, type SignedInAgent } from "./api.ts";
+import { ORG, type SignedInAgent, CONTRACT } from "./api.ts";
 import { passingResults } from "./passing-results.ts";
 import type { LotDetail } from "../../shared/lots/views.ts";
 
@@ -26,7 +26,15 @@ export async function setUpThreeLots(producer: SignedInAgent, tech: SignedInAgen
     const lot = await producer.agent
       .post(P("/lots"))
       .set("x-csrf-token", producer.csrf)
-      .send({ contractId: 1, vintage: 2025, lotCode: code, volumeLitres: 9000, container: "bottles", plannedDate: planned, market: "EU" });
+      .send({
+        contractId: CONTRACT.sentierBlanc,
+        vintage: 2025,
+        lotCode: code,
+        volumeLitres: 9000,
+        container: "bottles",
+        plannedDate: planned,
+        market: "EU",
+      });
     expect(lot.status).toBe(201);
     const detail = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
     const res = await producer.agent
