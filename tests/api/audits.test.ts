@@ -43,18 +43,15 @@ beforeAll(async () => {
   [producer, finance, tech, lab] = (await Promise.all(
     [DEMO.producerQuality, DEMO.buyerFinance, DEMO.buyerTechnologist, DEMO.labAnalyst].map((e) => signInAs(t.app, e)),
   )) as [SignedInAgent, SignedInAgent, SignedInAgent, SignedInAgent];
-  const lot = await producer.agent
-    .post(P("/lots"))
-    .set("x-csrf-token", producer.csrf)
-    .send({
-      contractId: CONTRACT.sentierBlanc,
-      vintage: 2025,
-      lotCode,
-      volumeLitres: 9000,
-      container: "bottles",
-      plannedDate: "2027-02-01",
-      market: "EU",
-    });
+  const lot = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({
+    contractId: CONTRACT.sentierBlanc,
+    vintage: 2025,
+    lotCode,
+    volumeLitres: 9000,
+    container: "bottles",
+    plannedDate: "2027-02-01",
+    market: "EU",
+  });
   expect(lot.status).toBe(201);
   lotId = lot.body.id;
   const declared = await producer.agent

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import { buildTestApp, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, type TestApp } from "../support/api.ts";
+import { party } from "../support/factories.ts";
 import { inTransaction } from "../../server/db/database.ts";
 import { recordTrail, verifyTrailChain, GENESIS_HASH } from "../../server/services/trail/trail-service.ts";
 import { sha256 } from "../../server/lib/crypto.ts";
@@ -9,7 +10,11 @@ let t: TestApp;
 beforeAll(() => {
   t = buildTestApp();
 });
-afterAll(() => t.close());
+// Leave the chain intact for the files that run after this one.
+afterAll(async () => {
+  await restore(base);
+  await t.close();
+});
 
 interface Snapshot {
   events: Record<string, unknown>[];
@@ -39,11 +44,12 @@ async function restore(s: Snapshot) {
 
 let base: Snapshot;
 beforeAll(async () => {
+  const someone = await party(DEMO.buyerTechnologist, "buyer_technologist");
   for (let i = 0; i < 5; i++) {
     await inTransaction((tx) =>
       recordTrail(tx, {
-        actorUserId: 2,
-        organisationId: 1,
+        actorUserId: someone.user.id,
+        organisationId: someone.orgId,
         action: "user.profile_updated",
         entityType: "thing",
         entityId: i,

@@ -23,18 +23,15 @@ export async function setUpThreeLots(producer: SignedInAgent, tech: SignedInAgen
   const P = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
   const submit = async (code: string, overrides: Record<string, string>) => {
     const planned = new Date(Date.now() + 20 * 86_400_000).toISOString().slice(0, 10);
-    const lot = await producer.agent
-      .post(P("/lots"))
-      .set("x-csrf-token", producer.csrf)
-      .send({
-        contractId: CONTRACT.sentierBlanc,
-        vintage: 2025,
-        lotCode: code,
-        volumeLitres: 9000,
-        container: "bottles",
-        plannedDate: planned,
-        market: "EU",
-      });
+    const lot = await producer.agent.post(P("/lots")).set("x-csrf-token", producer.csrf).send({
+      contractId: CONTRACT.sentierBlanc,
+      vintage: 2025,
+      lotCode: code,
+      volumeLitres: 9000,
+      container: "bottles",
+      plannedDate: planned,
+      market: "EU",
+    });
     expect(lot.status).toBe(201);
     const detail = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
     const res = await producer.agent
