@@ -25,7 +25,7 @@ describe("sign-in", () => {
     expect(session).toMatch(/HttpOnly/);
     expect(session).toMatch(/SameSite=Lax/);
     expect(res.body.csrfToken).toMatch(/^[\w-]{20,}$/);
-    expect(res.body.user.memberships[0]).toMatchObject({ organisationId: 1, role: "buyer_technologist" });
+    expect(res.body.user.memberships[0]).toMatchObject({ organisationId: ORG.retailer, role: "buyer_technologist" });
   });
 
   it("when the user is unknown or the password wrong, then both get the same 401 message (OWASP ASVS 2.2 account enumeration, common practice)", async () => {
