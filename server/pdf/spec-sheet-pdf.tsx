@@ -2,7 +2,7 @@
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
 import {
   buildRequirement,
-  citationConfirmed,
+  unconfirmedReason,
   findParameter,
   describeRule,
   ruleLabel,
@@ -58,9 +58,7 @@ function CitationText({ limit }: { limit: AppliedLimit }) {
   return (
     <Text style={s.small}>
       {limit.citation.document}, {limit.citation.article}
-      {citationConfirmed(limit.confirmed)
-        ? ""
-        : ` — citation not yet confirmed: ${limit.confirmed.replace(/^citation not yet confirmed: /, "")}`}
+      {unconfirmedReason(limit.confirmed) ? ` — citation not yet confirmed: ${unconfirmedReason(limit.confirmed)}` : ""}
     </Text>
   );
 }

@@ -73,7 +73,15 @@ export type {
 } from "./labelling.ts";
 
 /** Market rule packs: which limits apply to this wine in this market, and why. */
-export { MARKET_PACKS, MARKET_IDS, MarketError, applicableLimits, citationConfirmed, undeterminedText } from "./markets/index.ts";
+export {
+  MARKET_PACKS,
+  MARKET_IDS,
+  MarketError,
+  applicableLimits,
+  citationConfirmed,
+  unconfirmedReason,
+  undeterminedText,
+} from "./markets/index.ts";
 export type { AppliedLimit, UndeterminedLimit, MarketId, MarketPack, WineProfile } from "./markets/index.ts";
 export type { Colour, LegalLimitRule, Applicability, OivSulphateCase } from "./markets/types.ts";
 export { PROFILE_FACT_LABELS, OIV_SULPHATE_CASES } from "./markets/types.ts";

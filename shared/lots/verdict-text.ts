@@ -1,5 +1,5 @@
 /** A stored verdict as short text in its spec row's unit: the result with U (k = 2) and the governing limits, rounded to the parameter's precision. */
-import { citationConfirmed, convert, displayValue, unitLabel } from "../engine/index.ts";
+import { convert, displayValue, unconfirmedReason, unitLabel } from "../engine/index.ts";
 import type { StoredBound, StoredVerdict } from "./views.ts";
 
 function boundText(parameter: string, b: StoredBound, factor: number, display: string): string {
@@ -44,7 +44,7 @@ export function governingCitations(verdicts: readonly StoredVerdict[]): { market
       seen.set(text, {
         market: b.market ?? "",
         text,
-        unconfirmed: confirmed && !citationConfirmed(confirmed) ? confirmed.replace(/^citation not yet confirmed: /, "") : null,
+        unconfirmed: unconfirmedReason(confirmed),
       });
     }
   }

@@ -1,5 +1,5 @@
 /** Verdicts with the bound that governed each one and where that bound comes from. */
-import { citationConfirmed, convert, displayValue, findParameter, unitLabel } from "../../shared/engine/index.ts";
+import { unconfirmedReason, convert, displayValue, findParameter, unitLabel } from "../../shared/engine/index.ts";
 import type { ResultView, StoredBound, StoredVerdict } from "../../shared/lots/views.ts";
 import { OutcomeBadge } from "./outcome-badge.tsx";
 
@@ -80,10 +80,8 @@ export function VerdictTable({ verdicts, reported = [] }: { verdicts: StoredVerd
                   {v.legalLimits.map((l) => (
                     <span key={`${l.market}-${l.side}`} className="mt-1 block text-ink-500">
                       Law, {l.market}: {l.side} {show(l.value * factor)} {unit} ({l.citation.document}, {l.citation.article})
-                      {l.confirmed && !citationConfirmed(l.confirmed) && (
-                        <span className="block text-ochre-700">
-                          Citation not yet confirmed: {l.confirmed.replace(/^citation not yet confirmed: /, "")}
-                        </span>
+                      {unconfirmedReason(l.confirmed) && (
+                        <span className="block text-ochre-700">Citation not yet confirmed: {unconfirmedReason(l.confirmed)}</span>
                       )}
                     </span>
                   ))}

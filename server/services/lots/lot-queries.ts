@@ -188,6 +188,7 @@ export async function getLot(orgId: number, lotId: number, role: Role): Promise<
   })) as LoadedAnalysis[];
   const governing = await governingVersion(contract.id, lot.vintage);
   const judgedIds = [...new Set(analyses.map((a) => a.evaluation?.specVersionId).filter((id): id is number => !!id))];
+  const profileNow = wineProfile(contract.wine, lot.vintage);
   const versionNumbers = new Map(
     (await SpecVersion.findAll({ where: { id: judgedIds }, attributes: ["id", "number"] })).map((v) => [v.id, v.number]),
   );
@@ -201,7 +202,7 @@ export async function getLot(orgId: number, lotId: number, role: Role): Promise<
     canSubmit: side === "producer" && can(role, "lots.submit"),
     contract: contractView(contract),
     governing: governing ? { ...versionSummary(governing.version), requirements: governing.requirements } : null,
-    analyses: analyses.map((a) => analysisView(a, versionNumbers, wineProfile(contract.wine, lot.vintage))),
+    analyses: analyses.map((a) => analysisView(a, versionNumbers, profileNow)),
     transit: isBulk(lot.container) && pre && arrival ? compareTransit(transitValues(pre.results), transitValues(arrival.results)) : null,
     deviations: deviations.map((d) => ({
       id: d.id,

@@ -22,6 +22,8 @@ interface So2Rule {
   applies: (p: WineProfile) => Applicability;
   article: string;
   confirmed: string;
+  /** A.1's dry wines, for which the organic rules set their own figure below 2 g/L sugar. */
+  dryColour?: "red" | "white";
 }
 
 const CONVENTIONAL: So2Rule[] = [
@@ -43,6 +45,7 @@ const CONVENTIONAL: So2Rule[] = [
       ),
     article: `Annex I, Part B, section A, point ${point}`,
     confirmed: READ_A,
+    ...(sweet ? {} : { dryColour: colour === "red" ? ("red" as const) : ("white" as const) }),
   })),
   ...([300, 350, 400] as const).map((v, i): So2Rule => ({
     id: `eu-so2-derogation-${v}`,
@@ -103,12 +106,12 @@ function organicVariants(r: So2Rule): So2Rule[] {
     ...r,
     id: r.id.replace(/^eu-so2-/, "eu-organic-so2-"),
     value: r.value - 30,
-    condition: `organic ${r.condition}${r.article.endsWith("A.1(a)") || r.article.endsWith("A.1(b)") ? ", sugar at least 2 g/L" : ""} (the limit less 30 mg/L)`,
-    applies: (p) => and(and(r.applies(p), organic(p)), r.article.includes("A.1(") ? sugar(p, (g) => g >= 2) : true),
+    condition: `organic ${r.condition}${r.dryColour ? ", sugar at least 2 g/L" : ""} (the limit less 30 mg/L)`,
+    applies: (p) => and(and(r.applies(p), organic(p)), r.dryColour ? sugar(p, (g) => g >= 2) : true),
     confirmed: ORGANIC_NOTE,
   };
-  if (!r.article.includes("A.1(")) return [lowered];
-  const red = r.article.endsWith("(a)");
+  if (!r.dryColour) return [lowered];
+  const red = r.dryColour === "red";
   const dry: So2Rule = {
     ...r,
     id: `eu-organic-so2-${red ? "red" : "white"}-below-2`,

@@ -108,3 +108,7 @@ export type { MarketId, MarketPack, WineProfile } from "./types.ts";
 
 /** A rule's citation has been read in the published text itself, not only in a secondary source. */
 export const citationConfirmed = (confirmed: string | undefined) => !!confirmed && confirmed.startsWith("read in the source");
+
+/** Why a citation is not confirmed yet, for the words "citation not yet confirmed: …" on screens and documents; null once confirmed. */
+export const unconfirmedReason = (confirmed: string | undefined): string | null =>
+  !confirmed || citationConfirmed(confirmed) ? null : confirmed.replace(/^citation not yet confirmed: /, "");

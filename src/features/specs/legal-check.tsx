@@ -1,7 +1,7 @@
 /** The live check beside a row: the destination markets' limits with citations, which bound governs, and warnings. */
 import {
   buildRequirement,
-  citationConfirmed,
+  unconfirmedReason,
   RequirementError,
   UNITS,
   type BuyerRequirement,
@@ -42,10 +42,8 @@ export function LegalCheck({ row, markets, profile }: { row: BuyerRequirement; m
           <span className="block font-normal text-ink-500">
             {l.citation.document}, {l.citation.article}
           </span>
-          {!citationConfirmed(l.confirmed) && (
-            <span className="block font-normal text-ochre-700">
-              Citation not yet confirmed: {l.confirmed.replace(/^citation not yet confirmed: /, "")}
-            </span>
+          {unconfirmedReason(l.confirmed) && (
+            <span className="block font-normal text-ochre-700">Citation not yet confirmed: {unconfirmedReason(l.confirmed)}</span>
           )}
         </p>
       ))}
