@@ -1,5 +1,6 @@
 /** Declared against independent results, parameter by parameter, with the scores and what they mean. */
 import { convert, findParameter, UNITS, type ComparisonOutcome, type ResultComparison } from "../../shared/engine/index.ts";
+import { DataTable, Row, Cell } from "./ui/table.tsx";
 
 const TONE: Record<ComparisonOutcome, string> = {
   agrees: "bg-verjus-50 text-verjus-700",
@@ -11,47 +12,31 @@ const n = (x: number | null, digits = 3) => (x === null ? "—" : String(Number(
 
 export function ComparisonTable({ comparisons, caption }: { comparisons: ResultComparison[]; caption: string }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm">
-        <caption className="mb-2 text-left text-sm text-ink-500">{caption}</caption>
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Parameter", "Declared ± U", "Independent ± U", "En", "z", "Reading"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {comparisons.map((c) => {
-            // Stored in the canonical unit; shown in the unit the laboratory reported in.
-            const shown = c.displayUnit ?? c.unit;
-            const f = convert(1, c.unit, shown);
-            const unit = UNITS[shown]?.label ?? shown;
-            const v = (x: number | null, digits?: number) => n(x === null ? null : x * f, digits);
-            return (
-              <tr key={c.parameter} className="border-b border-line/60 align-top">
-                <th scope="row" className="py-2 pr-3 font-normal">
-                  {findParameter(c.parameter)?.name ?? c.parameter}
-                </th>
-                <td className="py-2 pr-3 tabular-nums">{c.declared === null ? "—" : `${v(c.declared)} ± ${v(c.declaredU, 2)} ${unit}`}</td>
-                <td className="py-2 pr-3 tabular-nums">
-                  {c.independent === null ? "—" : `${v(c.independent)} ± ${v(c.independentU, 2)} ${unit}`}
-                </td>
-                <td className="py-2 pr-3 tabular-nums">{n(c.en)}</td>
-                <td className="py-2 pr-3 tabular-nums">{n(c.z)}</td>
-                <td className="py-2 pr-3">
-                  <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[c.outcome]}`}>
-                    {c.outcome}
-                  </span>
-                  <span className="mt-1 block max-w-md text-xs text-ink-500">{c.explanation}</span>
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
+    <DataTable headings={["Parameter", "Declared ± U", "Independent ± U", "En", "z", "Reading"]} caption={caption}>
+      {comparisons.map((c) => {
+        // Stored in the canonical unit; shown in the unit the laboratory reported in.
+        const shown = c.displayUnit ?? c.unit;
+        const f = convert(1, c.unit, shown);
+        const unit = UNITS[shown]?.label ?? shown;
+        const v = (x: number | null, digits?: number) => n(x === null ? null : x * f, digits);
+        return (
+          <Row key={c.parameter}>
+            <th scope="row" className="py-2 pr-3 font-normal">
+              {findParameter(c.parameter)?.name ?? c.parameter}
+            </th>
+            <Cell className="tabular-nums">{c.declared === null ? "—" : `${v(c.declared)} ± ${v(c.declaredU, 2)} ${unit}`}</Cell>
+            <Cell className="tabular-nums">{c.independent === null ? "—" : `${v(c.independent)} ± ${v(c.independentU, 2)} ${unit}`}</Cell>
+            <Cell className="tabular-nums">{n(c.en)}</Cell>
+            <Cell className="tabular-nums">{n(c.z)}</Cell>
+            <Cell>
+              <span className={`inline-block whitespace-nowrap rounded-full px-2 py-0.5 text-xs font-semibold ${TONE[c.outcome]}`}>
+                {c.outcome}
+              </span>
+              <span className="mt-1 block max-w-md text-xs text-ink-500">{c.explanation}</span>
+            </Cell>
+          </Row>
+        );
+      })}
+    </DataTable>
   );
 }

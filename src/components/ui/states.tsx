@@ -1,5 +1,6 @@
 /** Loading, empty and error states, so every list and page says what is going on. */
 import type { ReactNode } from "react";
+import type { UseQueryResult } from "@tanstack/react-query";
 import { errorMessage } from "../../lib/api-client.ts";
 
 export function LoadingState({ label = "Loading…" }: { label?: string }) {
@@ -45,4 +46,12 @@ export function Notice({ tone = "info", children }: { tone?: "info" | "success" 
       {children}
     </div>
   );
+}
+
+/** What a query shows before its data: a spinner, the error with a retry, or `empty` when a list came back empty. */
+export function QueryStatus({ query, empty }: { query: UseQueryResult<unknown>; empty?: string }) {
+  if (query.isPending) return <LoadingState />;
+  if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
+  if (empty !== undefined && Array.isArray(query.data) && query.data.length === 0) return <EmptyState title={empty} />;
+  return null;
 }

@@ -10,10 +10,11 @@ import { OrderStatusBadge } from "./order-status-badge.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { QueryStatus } from "../../components/ui/states.tsx";
 import { formatMoney, ORDER_STATUSES, ORDER_STATUS_LABELS } from "../../../shared/audits/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const LEADS = {
   buyer_finance: "Independent compliance audits: order them from a laboratory's price list, pay them, and follow what they cost.",
@@ -58,47 +59,32 @@ export function AuditsPage() {
             <TextField label="Ordered from" type="date" value={f.from ?? ""} onChange={(e) => set("from", e.target.value)} />
             <TextField label="Ordered until" type="date" value={f.to ?? ""} onChange={(e) => set("to", e.target.value)} />
           </div>
-          {list.isPending && <LoadingState />}
-          {list.isError && <ErrorState error={list.error} onRetry={() => list.refetch()} />}
-          {list.data?.length === 0 && <EmptyState title="No audit order matches." />}
+          <QueryStatus query={list} empty="No audit order matches." />
           {list.data && list.data.length > 0 && (
-            <table className="w-full text-left text-sm">
-              <thead className="border-b border-line text-ink-500">
-                <tr>
-                  {["Order", "Wine and lots", "Parameters", "Laboratory", finance ? "Amount" : "Ordered", "Status"].map((h) => (
-                    <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                      {h}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {list.data.map((o) => (
-                  <tr key={o.id} className="border-b border-line/60 align-top">
-                    <td className="py-2 pr-3">
-                      <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">
-                        {o.reference}
-                      </Link>
-                      <span className="block text-xs text-ink-500">{o.createdAt.slice(0, 10)}</span>
-                    </td>
-                    <td className="py-2 pr-3">
-                      {o.wineName}
-                      <span className="block text-xs text-ink-500">
-                        {o.producerName} · {o.lotCodes.join(", ")}
-                      </span>
-                    </td>
-                    <td className="py-2 pr-3">{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</td>
-                    <td className="py-2 pr-3">{o.laboratoryName}</td>
-                    <td className="py-2 pr-3 tabular-nums">
-                      {finance ? formatMoney(o.amountCents, o.currency) : o.createdAt.slice(0, 10)}
-                    </td>
-                    <td className="py-2 pr-3">
-                      <OrderStatusBadge status={o.status} />
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
+            <DataTable headings={["Order", "Wine and lots", "Parameters", "Laboratory", finance ? "Amount" : "Ordered", "Status"]}>
+              {list.data.map((o) => (
+                <Row key={o.id}>
+                  <Cell>
+                    <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">
+                      {o.reference}
+                    </Link>
+                    <span className="block text-xs text-ink-500">{o.createdAt.slice(0, 10)}</span>
+                  </Cell>
+                  <Cell>
+                    {o.wineName}
+                    <span className="block text-xs text-ink-500">
+                      {o.producerName} · {o.lotCodes.join(", ")}
+                    </span>
+                  </Cell>
+                  <Cell>{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</Cell>
+                  <Cell>{o.laboratoryName}</Cell>
+                  <Cell className="tabular-nums">{finance ? formatMoney(o.amountCents, o.currency) : o.createdAt.slice(0, 10)}</Cell>
+                  <Cell>
+                    <OrderStatusBadge status={o.status} />
+                  </Cell>
+                </Row>
+              ))}
+            </DataTable>
           )}
         </Card>
       </div>

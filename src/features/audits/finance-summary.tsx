@@ -5,6 +5,7 @@ import { dashboardQuery } from "./api/audits.ts";
 import { Card } from "../../components/ui/page.tsx";
 import { ErrorState, LoadingState } from "../../components/ui/states.tsx";
 import { formatMoney } from "../../../shared/audits/vocabulary.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 function Figure({ label, cents, currency }: { label: string; cents: number; currency: string }) {
   return (
@@ -27,38 +28,34 @@ function SpendTable({
   currency: string;
 }) {
   return (
-    <table className="w-full text-left text-sm">
-      <caption className="mb-1 text-left font-semibold">{caption}</caption>
-      <thead className="border-b border-line text-ink-500">
+    <DataTable headings={[head, "Paid orders", "Paid", "Refunded", "Net"]} dense caption={caption}>
+      {rows.length === 0 && (
         <tr>
-          {[head, "Paid orders", "Paid", "Refunded", "Net"].map((h) => (
-            <th key={h} scope="col" className="py-1 pr-3 font-semibold">
-              {h}
-            </th>
-          ))}
+          <Cell colSpan={5} className="text-ink-500">
+            No paid order in this period.
+          </Cell>
         </tr>
-      </thead>
-      <tbody>
-        {rows.length === 0 && (
-          <tr>
-            <td colSpan={5} className="py-2 text-ink-500">
-              No paid order in this period.
-            </td>
-          </tr>
-        )}
-        {rows.map((r) => (
-          <tr key={r.key} className="border-b border-line/60">
-            <th scope="row" className="py-1 pr-3 font-normal">
-              {r.key}
-            </th>
-            <td className="py-1 pr-3 tabular-nums">{r.paidOrders}</td>
-            <td className="py-1 pr-3 tabular-nums">{formatMoney(r.paidCents, currency)}</td>
-            <td className="py-1 pr-3 tabular-nums">{formatMoney(r.refundedCents, currency)}</td>
-            <td className="py-1 pr-3 tabular-nums">{formatMoney(r.paidCents - r.refundedCents, currency)}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+      )}
+      {rows.map((r) => (
+        <Row key={r.key}>
+          <th scope="row" className="py-1 pr-3 font-normal">
+            {r.key}
+          </th>
+          <Cell dense className="tabular-nums">
+            {r.paidOrders}
+          </Cell>
+          <Cell dense className="tabular-nums">
+            {formatMoney(r.paidCents, currency)}
+          </Cell>
+          <Cell dense className="tabular-nums">
+            {formatMoney(r.refundedCents, currency)}
+          </Cell>
+          <Cell dense className="tabular-nums">
+            {formatMoney(r.paidCents - r.refundedCents, currency)}
+          </Cell>
+        </Row>
+      ))}
+    </DataTable>
   );
 }
 

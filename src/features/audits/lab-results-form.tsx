@@ -15,6 +15,7 @@ import { cellKey, cellsFromSamples, type FormCell } from "../../../shared/audits
 import { buildSamples, guessMapping } from "../../../shared/lots/csv.ts";
 import { findParameter, UNITS } from "../../../shared/engine/index.ts";
 import type { AuditOrderDetail } from "../../../shared/audits/views.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const today = () => new Date().toISOString().slice(0, 10);
 
@@ -126,66 +127,53 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
         </div>
       </div>
       {fileNote && <Notice>{fileNote}</Notice>}
-      <div className="overflow-x-auto">
-        <table className="w-full text-left text-sm">
-          <thead className="border-b border-line text-ink-500">
-            <tr>
-              {["Lot", "Parameter", "Result", "Unit", "U (k = 2)"].map((h) => (
-                <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                  {h}
+      <DataTable headings={["Lot", "Parameter", "Result", "Unit", "U (k = 2)"]}>
+        {order.lots.flatMap((l) =>
+          order.parameters.map((p) => {
+            const k = cellKey(l.lotId, p);
+            const def = findParameter(p);
+            const name = def?.name ?? p;
+            return (
+              <Row key={k}>
+                <Cell dense>{l.lotCode}</Cell>
+                <th scope="row" className="py-1 pr-3 font-normal">
+                  {name}
                 </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {order.lots.flatMap((l) =>
-              order.parameters.map((p) => {
-                const k = cellKey(l.lotId, p);
-                const def = findParameter(p);
-                const name = def?.name ?? p;
-                return (
-                  <tr key={k} className="border-b border-line/60">
-                    <td className="py-1 pr-3">{l.lotCode}</td>
-                    <th scope="row" className="py-1 pr-3 font-normal">
-                      {name}
-                    </th>
-                    <td className="py-1 pr-3">
-                      <input
-                        aria-label={`${name}, lot ${l.lotCode}`}
-                        className="w-28 rounded-md border border-line px-2 py-1"
-                        value={cells[k]!.raw}
-                        onChange={(e) => set(k, { raw: e.target.value })}
-                      />
-                    </td>
-                    <td className="py-1 pr-3">
-                      <select
-                        aria-label={`Unit of ${name}, lot ${l.lotCode}`}
-                        className="rounded-md border border-line bg-white px-2 py-1"
-                        value={cells[k]!.unit}
-                        onChange={(e) => set(k, { unit: e.target.value })}
-                      >
-                        {(def?.units ?? []).map((u) => (
-                          <option key={u} value={u}>
-                            {UNITS[u]?.label ?? u}
-                          </option>
-                        ))}
-                      </select>
-                    </td>
-                    <td className="py-1 pr-3">
-                      <input
-                        aria-label={`Uncertainty of ${name}, lot ${l.lotCode}`}
-                        className="w-20 rounded-md border border-line px-2 py-1"
-                        value={cells[k]!.u}
-                        onChange={(e) => set(k, { u: e.target.value })}
-                      />
-                    </td>
-                  </tr>
-                );
-              }),
-            )}
-          </tbody>
-        </table>
-      </div>
+                <Cell dense>
+                  <input
+                    aria-label={`${name}, lot ${l.lotCode}`}
+                    className="w-28 rounded-md border border-line px-2 py-1"
+                    value={cells[k]!.raw}
+                    onChange={(e) => set(k, { raw: e.target.value })}
+                  />
+                </Cell>
+                <Cell dense>
+                  <select
+                    aria-label={`Unit of ${name}, lot ${l.lotCode}`}
+                    className="rounded-md border border-line bg-white px-2 py-1"
+                    value={cells[k]!.unit}
+                    onChange={(e) => set(k, { unit: e.target.value })}
+                  >
+                    {(def?.units ?? []).map((u) => (
+                      <option key={u} value={u}>
+                        {UNITS[u]?.label ?? u}
+                      </option>
+                    ))}
+                  </select>
+                </Cell>
+                <Cell dense>
+                  <input
+                    aria-label={`Uncertainty of ${name}, lot ${l.lotCode}`}
+                    className="w-20 rounded-md border border-line px-2 py-1"
+                    value={cells[k]!.u}
+                    onChange={(e) => set(k, { u: e.target.value })}
+                  />
+                </Cell>
+              </Row>
+            );
+          }),
+        )}
+      </DataTable>
       {errors.length > 0 && (
         <Notice tone="error">
           <ul className="list-disc pl-5">

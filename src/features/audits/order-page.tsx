@@ -19,6 +19,7 @@ import { CertificateUpload } from "../../components/certificate-upload.tsx";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 export function OrderPage() {
   const { orgId, membership } = useOrganisation();
@@ -165,31 +166,26 @@ export function OrderPage() {
 /** What the laboratory sent for one lot, in the spec's units, as the engine judged it. */
 function SentValues({ verdicts }: { verdicts: StoredVerdict[] }) {
   return (
-    <table className="w-full text-left text-sm">
-      <caption className="sr-only">Values sent by the laboratory</caption>
-      <thead className="border-b border-line text-ink-500">
-        <tr>
-          {["Parameter", "Result ± U (k = 2)", "Against the spec"].map((h) => (
-            <th key={h} scope="col" className="py-1 pr-3 font-semibold">
-              {h}
-            </th>
-          ))}
-        </tr>
-      </thead>
-      <tbody>
-        {verdicts.map((v) => (
-          <tr key={v.parameter} className="border-b border-line/60">
-            <th scope="row" className="py-1 pr-3 font-normal">
-              {findParameter(v.parameter)?.name ?? v.parameter}
-            </th>
-            <td className="py-1 pr-3 tabular-nums">{verdictText(v).result}</td>
-            <td className="py-1 pr-3">
-              <OutcomeBadge outcome={v.outcome} />
-            </td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <DataTable
+      headings={["Parameter", "Result ± U (k = 2)", "Against the spec"]}
+      dense
+      caption="Values sent by the laboratory"
+      captionHidden
+    >
+      {verdicts.map((v) => (
+        <Row key={v.parameter}>
+          <th scope="row" className="py-1 pr-3 font-normal">
+            {findParameter(v.parameter)?.name ?? v.parameter}
+          </th>
+          <Cell dense className="tabular-nums">
+            {verdictText(v).result}
+          </Cell>
+          <Cell dense>
+            <OutcomeBadge outcome={v.outcome} />
+          </Cell>
+        </Row>
+      ))}
+    </DataTable>
   );
 }
 

@@ -9,6 +9,7 @@ import { Notice } from "../../components/ui/states.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
 import { formatMoney } from "../../../shared/audits/vocabulary.ts";
 import type { AuditOrderDetail } from "../../../shared/audits/views.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const KIND_LABELS = { payment: "Payment received", refund: "Refunded", failure: "Payment declined" } as const;
 
@@ -20,37 +21,34 @@ export function PaymentPanel({ orgId, order }: { orgId: number; order: AuditOrde
   const paid = order.paidCents >= order.amountCents;
   return (
     <Card title="Payment">
-      <table className="w-full text-left text-sm">
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Parameter", "Price per lot", "Lots", "Amount"].map((h) => (
-              <th key={h} scope="col" className="py-1 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {order.lines.map((l) => (
-            <tr key={l.parameter} className="border-b border-line/60">
-              <th scope="row" className="py-1 pr-3 font-normal">
-                {l.name}
-              </th>
-              <td className="py-1 pr-3 tabular-nums">{money(l.unitCents)}</td>
-              <td className="py-1 pr-3 tabular-nums">{l.lots}</td>
-              <td className="py-1 pr-3 tabular-nums">{money(l.totalCents)}</td>
-            </tr>
-          ))}
-          <tr>
-            <th scope="row" className="py-1 pr-3 text-left">
-              Total
+      <DataTable headings={["Parameter", "Price per lot", "Lots", "Amount"]} dense>
+        {order.lines.map((l) => (
+          <Row key={l.parameter}>
+            <th scope="row" className="py-1 pr-3 font-normal">
+              {l.name}
             </th>
-            <td />
-            <td />
-            <td className="py-1 pr-3 font-semibold tabular-nums">{money(order.amountCents)}</td>
-          </tr>
-        </tbody>
-      </table>
+            <Cell dense className="tabular-nums">
+              {money(l.unitCents)}
+            </Cell>
+            <Cell dense className="tabular-nums">
+              {l.lots}
+            </Cell>
+            <Cell dense className="tabular-nums">
+              {money(l.totalCents)}
+            </Cell>
+          </Row>
+        ))}
+        <tr>
+          <th scope="row" className="py-1 pr-3 text-left">
+            Total
+          </th>
+          <Cell />
+          <Cell />
+          <Cell dense className="font-semibold tabular-nums">
+            {money(order.amountCents)}
+          </Cell>
+        </tr>
+      </DataTable>
       {order.payments.length > 0 && (
         <ul className="mt-3 flex flex-col gap-1 text-sm">
           {order.payments.map((p) => (

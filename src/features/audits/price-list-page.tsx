@@ -5,11 +5,12 @@ import { useOrganisation } from "../../lib/signed-in.tsx";
 import { priceListQuery, useSavePriceList } from "./api/audits.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { Button } from "../../components/ui/button.tsx";
-import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { Notice, QueryStatus } from "../../components/ui/states.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
 import { parseMoney } from "../../../shared/audits/vocabulary.ts";
 import { priceListSchema } from "../../../shared/audits/schemas.ts";
 import { PARAMETERS } from "../../../shared/engine/index.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const MEASURED = PARAMETERS.filter((p) => !("derivedFrom" in p && p.derivedFrom));
 
@@ -22,8 +23,7 @@ export function PriceListPage() {
         title="Price list"
         lead="What your laboratory analyses for buyers' audits, and the price per lot in euro. Orders keep the price they were placed at."
       />
-      {list.isPending && <LoadingState />}
-      {list.isError && <ErrorState error={list.error} onRetry={() => list.refetch()} />}
+      <QueryStatus query={list} />
       {list.data && <PriceListEditor orgId={orgId} items={list.data.items} />}
     </>
   );
@@ -53,43 +53,34 @@ function PriceListEditor({ orgId, items: saved }: { orgId: number; items: { para
 
   return (
     <Card>
-      <table className="w-full text-left text-sm">
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Parameter", "Group", "Price per lot (EUR)"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {MEASURED.map((p) => (
-            <tr key={p.id} className="border-b border-line/60">
-              <th scope="row" className="py-1 pr-3 font-normal">
-                {p.name}
-              </th>
-              <td className="py-1 pr-3 text-ink-500">{p.group}</td>
-              <td className="py-1 pr-3">
-                <input
-                  aria-label={`Price of ${p.name}`}
-                  aria-invalid={errors[p.id] ? true : undefined}
-                  inputMode="decimal"
-                  placeholder="not offered"
-                  className="w-32 rounded-md border border-line px-2 py-1 aria-[invalid=true]:border-alarm-700"
-                  value={texts[p.id] ?? ""}
-                  onChange={(e) => setTexts({ ...texts, [p.id]: e.target.value })}
-                />
-                {errors[p.id] && (
-                  <span role="alert" className="ml-2 text-xs font-semibold text-alarm-700">
-                    {errors[p.id]}
-                  </span>
-                )}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DataTable headings={["Parameter", "Group", "Price per lot (EUR)"]}>
+        {MEASURED.map((p) => (
+          <Row key={p.id}>
+            <th scope="row" className="py-1 pr-3 font-normal">
+              {p.name}
+            </th>
+            <Cell dense className="text-ink-500">
+              {p.group}
+            </Cell>
+            <Cell dense>
+              <input
+                aria-label={`Price of ${p.name}`}
+                aria-invalid={errors[p.id] ? true : undefined}
+                inputMode="decimal"
+                placeholder="not offered"
+                className="w-32 rounded-md border border-line px-2 py-1 aria-[invalid=true]:border-alarm-700"
+                value={texts[p.id] ?? ""}
+                onChange={(e) => setTexts({ ...texts, [p.id]: e.target.value })}
+              />
+              {errors[p.id] && (
+                <span role="alert" className="ml-2 text-xs font-semibold text-alarm-700">
+                  {errors[p.id]}
+                </span>
+              )}
+            </Cell>
+          </Row>
+        ))}
+      </DataTable>
       <div className="mt-4 flex items-center gap-3">
         <Button onClick={onSave} disabled={save.isPending}>
           Save the price list

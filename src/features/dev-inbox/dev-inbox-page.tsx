@@ -1,7 +1,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
 import { api } from "../../lib/api-client.ts";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { EmptyState, QueryStatus } from "../../components/ui/states.tsx";
 
 interface InboxMessage {
   id: string;
@@ -40,8 +40,7 @@ export function DevInboxPage() {
         </Link>
       </p>
       <div className="mt-6 flex flex-col gap-4">
-        {inbox.isPending && <LoadingState />}
-        {inbox.isError && <ErrorState error={inbox.error} onRetry={() => inbox.refetch()} />}
+        <QueryStatus query={inbox} />
         {inbox.data?.length === 0 && (
           <EmptyState title="No mail yet.">Invite someone or ask for a password reset, and the mail appears here.</EmptyState>
         )}

@@ -4,7 +4,7 @@ import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useOrganisation } from "../../lib/signed-in.tsx";
 import { deviationsQuery } from "./api/deviations.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { QueryStatus } from "../../components/ui/states.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
 import {
   DEVIATION_KIND_LABELS,
@@ -13,6 +13,7 @@ import {
   DEVIATION_STATUS_LABELS,
 } from "../../../shared/deviations/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 export function DeviationsPage() {
   const { orgId } = useOrganisation();
@@ -51,53 +52,40 @@ export function DeviationsPage() {
             ]}
           />
         </div>
-        {list.isPending && <LoadingState />}
-        {list.isError && <ErrorState error={list.error} onRetry={() => list.refetch()} />}
-        {list.data?.length === 0 && <EmptyState title="No deviation matches." />}
+        <QueryStatus query={list} empty="No deviation matches." />
         {list.data && list.data.length > 0 && (
-          <table className="w-full text-left text-sm">
-            <thead className="border-b border-line text-ink-500">
-              <tr>
-                {["#", "Lot", "Wine", "Parameters", "Status", "Respond by"].map((h) => (
-                  <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                    {h}
-                  </th>
-                ))}
-              </tr>
-            </thead>
-            <tbody>
-              {list.data.map((d) => (
-                <tr key={d.id} className="border-b border-line/60">
-                  <td className="py-2 pr-3">
-                    <Link to={`/deviations/${d.id}`} className="font-semibold text-must-700 underline">
-                      #{d.id}
-                    </Link>
-                  </td>
-                  <td className="py-2 pr-3">
-                    {d.lotCode}
-                    <span className="block text-xs text-ink-500">{d.vintage}</span>
-                  </td>
-                  <td className="py-2 pr-3">
-                    {d.wineName}
-                    <span className="block text-xs text-ink-500">{d.producerName}</span>
-                  </td>
-                  <td className="py-2 pr-3">
-                    {d.parameters.map((p) => findParameter(p)?.name ?? p).join(", ") || "—"}
-                    <span className="block text-xs text-ink-500">{DEVIATION_KIND_LABELS[d.kind]}</span>
-                  </td>
-                  <td className="py-2 pr-3">
-                    {DEVIATION_STATUS_LABELS[d.status]}
-                    {d.outcome && <span className="block text-xs text-ink-500">{DEVIATION_OUTCOME_LABELS[d.outcome]}</span>}
-                  </td>
-                  <td className="py-2 pr-3 tabular-nums">
-                    {/* A decided deviation waits for nobody's answer. */}
-                    {d.respondBy && !d.outcome ? d.respondBy.slice(0, 10) : "—"}
-                    {d.overdue && <span className="ml-2 rounded-full bg-alarm-50 px-2 text-xs font-semibold text-alarm-700">overdue</span>}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <DataTable headings={["#", "Lot", "Wine", "Parameters", "Status", "Respond by"]}>
+            {list.data.map((d) => (
+              <Row key={d.id}>
+                <Cell>
+                  <Link to={`/deviations/${d.id}`} className="font-semibold text-must-700 underline">
+                    #{d.id}
+                  </Link>
+                </Cell>
+                <Cell>
+                  {d.lotCode}
+                  <span className="block text-xs text-ink-500">{d.vintage}</span>
+                </Cell>
+                <Cell>
+                  {d.wineName}
+                  <span className="block text-xs text-ink-500">{d.producerName}</span>
+                </Cell>
+                <Cell>
+                  {d.parameters.map((p) => findParameter(p)?.name ?? p).join(", ") || "—"}
+                  <span className="block text-xs text-ink-500">{DEVIATION_KIND_LABELS[d.kind]}</span>
+                </Cell>
+                <Cell>
+                  {DEVIATION_STATUS_LABELS[d.status]}
+                  {d.outcome && <span className="block text-xs text-ink-500">{DEVIATION_OUTCOME_LABELS[d.outcome]}</span>}
+                </Cell>
+                <Cell className="tabular-nums">
+                  {/* A decided deviation waits for nobody's answer. */}
+                  {d.respondBy && !d.outcome ? d.respondBy.slice(0, 10) : "—"}
+                  {d.overdue && <span className="ml-2 rounded-full bg-alarm-50 px-2 text-xs font-semibold text-alarm-700">overdue</span>}
+                </Cell>
+              </Row>
+            ))}
+          </DataTable>
         )}
       </Card>
     </>

@@ -1,6 +1,7 @@
 /** The column-mapping step of the CSV import: what each column of the file means. */
 import { PARAMETERS, UNITS, findParameter, type UnitId } from "../../../shared/engine/index.ts";
 import { parseHeader, statedUnit, type ColumnRole } from "../../../shared/lots/csv.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const ROLE_OPTIONS: { value: string; label: string }[] = [
   { value: "ignore", label: "Ignore this column" },
@@ -40,83 +41,70 @@ export function CsvMapping({
 }) {
   const set = (i: number, role: ColumnRole) => onChange(mapping.map((m, j) => (j === i ? role : m)));
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm">
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Column in the file", "First values", "Means", "Unit"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {headers.map((h, i) => {
-            const role = mapping[i] ?? { kind: "ignore" };
-            const p = role.kind === "parameter" ? findParameter(role.parameter) : undefined;
-            return (
-              <tr key={`${h}-${i}`} className="border-b border-line/60">
-                <td className="py-2 pr-3 font-semibold">{h || `(column ${i + 1})`}</td>
-                <td className="py-2 pr-3 text-ink-500">
-                  {sample
-                    .slice(0, 3)
-                    .map((r) => r[i])
-                    .filter(Boolean)
-                    .join(" · ")}
-                </td>
-                <td className="py-2 pr-3">
-                  <label className="sr-only" htmlFor={`map-${i}`}>
-                    Meaning of column {h}
+    <DataTable headings={["Column in the file", "First values", "Means", "Unit"]}>
+      {headers.map((h, i) => {
+        const role = mapping[i] ?? { kind: "ignore" };
+        const p = role.kind === "parameter" ? findParameter(role.parameter) : undefined;
+        return (
+          <Row key={`${h}-${i}`}>
+            <Cell className="font-semibold">{h || `(column ${i + 1})`}</Cell>
+            <Cell className="text-ink-500">
+              {sample
+                .slice(0, 3)
+                .map((r) => r[i])
+                .filter(Boolean)
+                .join(" · ")}
+            </Cell>
+            <Cell>
+              <label className="sr-only" htmlFor={`map-${i}`}>
+                Meaning of column {h}
+              </label>
+              <select
+                id={`map-${i}`}
+                className="w-72 rounded border border-line px-2 py-1"
+                value={roleValue(role)}
+                onChange={(e) => set(i, roleFrom(e.target.value, h))}
+              >
+                {ROLE_OPTIONS.map((o) => (
+                  <option key={o.value} value={o.value}>
+                    {o.label}
+                  </option>
+                ))}
+              </select>
+            </Cell>
+            <Cell>
+              {role.kind === "parameter" && p && (
+                <>
+                  <label className="sr-only" htmlFor={`unit-${i}`}>
+                    Unit of column {h}
                   </label>
                   <select
-                    id={`map-${i}`}
-                    className="w-72 rounded border border-line px-2 py-1"
-                    value={roleValue(role)}
-                    onChange={(e) => set(i, roleFrom(e.target.value, h))}
+                    id={`unit-${i}`}
+                    className="rounded border border-line px-2 py-1"
+                    value={role.unit ?? ""}
+                    aria-invalid={role.unit === null ? true : undefined}
+                    onChange={(e) => set(i, { ...role, unit: (e.target.value || null) as UnitId | null })}
                   >
-                    {ROLE_OPTIONS.map((o) => (
-                      <option key={o.value} value={o.value}>
-                        {o.label}
+                    {role.unit === null && <option value="">Choose the unit…</option>}
+                    {p.units.map((u) => (
+                      <option key={u} value={u}>
+                        {UNITS[u as UnitId].label}
                       </option>
                     ))}
                   </select>
-                </td>
-                <td className="py-2 pr-3">
-                  {role.kind === "parameter" && p && (
-                    <>
-                      <label className="sr-only" htmlFor={`unit-${i}`}>
-                        Unit of column {h}
-                      </label>
-                      <select
-                        id={`unit-${i}`}
-                        className="rounded border border-line px-2 py-1"
-                        value={role.unit ?? ""}
-                        aria-invalid={role.unit === null ? true : undefined}
-                        onChange={(e) => set(i, { ...role, unit: (e.target.value || null) as UnitId | null })}
-                      >
-                        {role.unit === null && <option value="">Choose the unit…</option>}
-                        {p.units.map((u) => (
-                          <option key={u} value={u}>
-                            {UNITS[u as UnitId].label}
-                          </option>
-                        ))}
-                      </select>
-                      {role.unit === null && (
-                        <span role="alert" className="block text-xs font-semibold text-alarm-700">
-                          {role.headerUnit
-                            ? `"${role.headerUnit}" is not a unit for ${p.name}; choose one.`
-                            : "The header does not say; choose the unit."}
-                        </span>
-                      )}
-                    </>
+                  {role.unit === null && (
+                    <span role="alert" className="block text-xs font-semibold text-alarm-700">
+                      {role.headerUnit
+                        ? `"${role.headerUnit}" is not a unit for ${p.name}; choose one.`
+                        : "The header does not say; choose the unit."}
+                    </span>
                   )}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
+                </>
+              )}
+            </Cell>
+          </Row>
+        );
+      })}
+    </DataTable>
   );
 }

@@ -23,6 +23,7 @@ import { findParameter } from "../../../shared/engine/index.ts";
 import type { ImportResult } from "../../../shared/lots/views.ts";
 import { ImportSummary } from "./import-summary.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 interface Parsed {
   name: string;
@@ -207,40 +208,35 @@ export function ImportPage() {
                   </thead>
                   <tbody>
                     {preview.errors.slice(0, 200).map((e, i) => (
-                      <tr key={i} className="border-t border-line/60">
-                        <td className="px-3 py-1 tabular-nums">{e.row || "—"}</td>
-                        <td className="px-3 py-1">{e.column ?? "—"}</td>
-                        <td className="px-3 py-1">{e.message}</td>
-                      </tr>
+                      <Row key={i}>
+                        <Cell dense className="px-3 tabular-nums">
+                          {e.row || "—"}
+                        </Cell>
+                        <Cell dense className="px-3">
+                          {e.column ?? "—"}
+                        </Cell>
+                        <Cell dense className="px-3">
+                          {e.message}
+                        </Cell>
+                      </Row>
                     ))}
                   </tbody>
                 </table>
               </div>
             )}
             {preview.samples.length > 0 && (
-              <table className="mb-4 w-full text-left text-sm">
-                <thead className="border-b border-line text-ink-500">
-                  <tr>
-                    {["Lot", "Vintage", "Sampled", "Results"].map((h) => (
-                      <th key={h} scope="col" className="py-1 pr-3 font-semibold">
-                        {h}
-                      </th>
-                    ))}
-                  </tr>
-                </thead>
-                <tbody>
-                  {preview.samples.slice(0, 10).map((s) => (
-                    <tr key={`${s.lotCode}-${s.sampleDate}`} className="border-b border-line/60">
-                      <td className="py-1 pr-3">{s.lotCode}</td>
-                      <td className="py-1 pr-3">{s.vintage ?? "registered"}</td>
-                      <td className="py-1 pr-3">{s.sampleDate}</td>
-                      <td className="py-1 pr-3 text-xs">
-                        {s.results.map((r) => `${findParameter(r.parameter)?.name} ${r.raw} ${r.unit}`).join(" · ")}
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+              <DataTable headings={["Lot", "Vintage", "Sampled", "Results"]} dense className="mb-4">
+                {preview.samples.slice(0, 10).map((s) => (
+                  <Row key={`${s.lotCode}-${s.sampleDate}`}>
+                    <Cell dense>{s.lotCode}</Cell>
+                    <Cell dense>{s.vintage ?? "registered"}</Cell>
+                    <Cell dense>{s.sampleDate}</Cell>
+                    <Cell dense className="text-xs">
+                      {s.results.map((r) => `${findParameter(r.parameter)?.name} ${r.raw} ${r.unit}`).join(" · ")}
+                    </Cell>
+                  </Row>
+                ))}
+              </DataTable>
             )}
             {ambiguous.length > 0 && (
               <div className="mb-4 flex flex-col gap-2 rounded-md border border-ochre-700/40 bg-ochre-50 p-3 text-sm">

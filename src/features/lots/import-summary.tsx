@@ -3,6 +3,7 @@ import { findParameter, type Outcome } from "../../../shared/engine/index.ts";
 import { countsText, OUTCOME_RANK, type OutcomeCounts } from "../../../shared/lots/judge.ts";
 import type { ImportResult } from "../../../shared/lots/views.ts";
 import { Notice } from "../../components/ui/states.tsx";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const names = (ps: string[]) => ps.map((p) => findParameter(p)?.name ?? p).join(", ");
 
@@ -25,27 +26,19 @@ export function ImportSummary({
           ? `; ${outcome.failing.length} ${outcome.failing.length === 1 ? "falls" : "fall"} outside the specification and deviations were opened.`
           : "."}
       </Notice>
-      <table className="w-full text-left text-sm">
-        <caption className="sr-only">What was stored for each sample</caption>
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Lot", "Results stored", "Failing"].map((h) => (
-              <th key={h} scope="col" className="py-1 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {outcome.samples.slice(0, 100).map((s) => (
-            <tr key={s.analysisId} className="border-b border-line/60">
-              <td className="py-1 pr-3 font-semibold">{s.lotCode}</td>
-              <td className="py-1 pr-3">{countsText(s.counts)}</td>
-              <td className="py-1 pr-3 text-alarm-700">{failingBy.has(s.analysisId) ? names(failingBy.get(s.analysisId)!) : "—"}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DataTable headings={["Lot", "Results stored", "Failing"]} dense caption="What was stored for each sample" captionHidden>
+        {outcome.samples.slice(0, 100).map((s) => (
+          <Row key={s.analysisId}>
+            <Cell dense className="font-semibold">
+              {s.lotCode}
+            </Cell>
+            <Cell dense>{countsText(s.counts)}</Cell>
+            <Cell dense className="text-alarm-700">
+              {failingBy.has(s.analysisId) ? names(failingBy.get(s.analysisId)!) : "—"}
+            </Cell>
+          </Row>
+        ))}
+      </DataTable>
       {outcome.samples.length > 100 && (
         <p className="text-xs text-ink-500">First 100 samples of {outcome.samples.length} shown; every lot's page has its own.</p>
       )}

@@ -3,6 +3,7 @@ import type { LotDetail } from "../../../shared/lots/views.ts";
 import { labelCheck, type LabelCheckLine } from "../../../shared/lots/label-check.ts";
 import { judgedMarkets } from "../../../shared/lots/judge.ts";
 import { Card } from "../../components/ui/page.tsx";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const TONE: Record<LabelCheckLine["status"], string> = {
   ok: "text-verjus-700",
@@ -32,34 +33,23 @@ export function LabelCheckCard({ lot }: { lot: LotDetail }) {
         From the latest declared results. The sulphite allergen statement and the label's wording follow the law of the market of sale:
         confirm them with the competent authority, and borderline results with an accredited laboratory, before the label is printed.
       </p>
-      <table className="w-full text-left text-sm">
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Check", "Market", "Finding", "Source"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {lines.map((l, i) => (
-            <tr key={i} className="border-b border-line/60 align-top">
-              <th scope="row" className="py-2 pr-3 font-semibold">
-                {l.topic}
-              </th>
-              <td className="py-2 pr-3">{l.market ?? "—"}</td>
-              <td className={`py-2 pr-3 ${TONE[l.status]}`}>
-                {WORD[l.status] && <strong>{WORD[l.status]}: </strong>}
-                {l.text}
-              </td>
-              <td className="py-2 pr-3 text-xs text-ink-500">
-                {l.citation ? `${l.citation.document}, ${l.citation.article} (${l.citation.edition})` : "—"}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DataTable headings={["Check", "Market", "Finding", "Source"]}>
+        {lines.map((l, i) => (
+          <Row key={i}>
+            <th scope="row" className="py-2 pr-3 font-semibold">
+              {l.topic}
+            </th>
+            <Cell>{l.market ?? "—"}</Cell>
+            <Cell className={`${TONE[l.status]}`}>
+              {WORD[l.status] && <strong>{WORD[l.status]}: </strong>}
+              {l.text}
+            </Cell>
+            <Cell className="text-xs text-ink-500">
+              {l.citation ? `${l.citation.document}, ${l.citation.article} (${l.citation.edition})` : "—"}
+            </Cell>
+          </Row>
+        ))}
+      </DataTable>
     </Card>
   );
 }

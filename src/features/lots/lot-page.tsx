@@ -22,6 +22,7 @@ import { displayValue, findParameter, unitLabel } from "../../../shared/engine/i
 import { ComparisonTable } from "../../components/comparison-table.tsx";
 import { DEVIATION_KIND_LABELS, DEVIATION_OUTCOME_LABELS, DEVIATION_STATUS_LABELS } from "../../../shared/deviations/vocabulary.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 export function LotPage() {
   const { orgId, membership } = useOrganisation();
@@ -120,40 +121,29 @@ export function LotPage() {
         ))}
         {l.transit && (
           <Card title="Transit: arrival against pre-shipment">
-            <table className="w-full text-left text-sm">
-              <thead className="border-b border-line text-ink-500">
-                <tr>
-                  {["Parameter", "Pre-shipment", "On arrival", "Change", "Allowed", ""].map((h) => (
-                    <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                      {h}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {l.transit.map((f) => {
-                  // Transit values are in the parameter's canonical unit; shown rounded, with the unit.
-                  const unit = findParameter(f.parameter)!.unit;
-                  const show = (x: number) => `${displayValue(f.parameter, x, unit)} ${unitLabel(unit)}`;
-                  return (
-                    <tr key={f.parameter} className="border-b border-line/60">
-                      <td className="py-2 pr-3 font-semibold">{f.name}</td>
-                      <td className="py-2 pr-3 tabular-nums">{show(f.before)}</td>
-                      <td className="py-2 pr-3 tabular-nums">{show(f.after)}</td>
-                      <td className="py-2 pr-3 tabular-nums">
-                        {f.change > 0 ? "+" : ""}
-                        {show(f.change)}
-                      </td>
-                      <td className="py-2 pr-3 text-xs">
-                        {f.allowance.direction === "either" ? "±" : f.allowance.direction === "increase" ? "+" : "−"}
-                        {show(f.allowance.allowed)} <span className="block text-ink-500">{f.allowance.basis}</span>
-                      </td>
-                      <td className="py-2 pr-3">{f.exceeded ? <OutcomeBadge outcome="fail" /> : <OutcomeBadge outcome="pass" />}</td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
+            <DataTable headings={["Parameter", "Pre-shipment", "On arrival", "Change", "Allowed", ""]}>
+              {l.transit.map((f) => {
+                // Transit values are in the parameter's canonical unit; shown rounded, with the unit.
+                const unit = findParameter(f.parameter)!.unit;
+                const show = (x: number) => `${displayValue(f.parameter, x, unit)} ${unitLabel(unit)}`;
+                return (
+                  <Row key={f.parameter}>
+                    <Cell className="font-semibold">{f.name}</Cell>
+                    <Cell className="tabular-nums">{show(f.before)}</Cell>
+                    <Cell className="tabular-nums">{show(f.after)}</Cell>
+                    <Cell className="tabular-nums">
+                      {f.change > 0 ? "+" : ""}
+                      {show(f.change)}
+                    </Cell>
+                    <Cell className="text-xs">
+                      {f.allowance.direction === "either" ? "±" : f.allowance.direction === "increase" ? "+" : "−"}
+                      {show(f.allowance.allowed)} <span className="block text-ink-500">{f.allowance.basis}</span>
+                    </Cell>
+                    <Cell>{f.exceeded ? <OutcomeBadge outcome="fail" /> : <OutcomeBadge outcome="pass" />}</Cell>
+                  </Row>
+                );
+              })}
+            </DataTable>
           </Card>
         )}
         {l.analyses.length === 0 && (

@@ -17,6 +17,7 @@ import { ANALYSIS_STAGE_LABELS, CONTAINERS, CONTAINER_LABELS } from "../../../sh
 import { MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 export function LotsPage() {
   const { orgId, membership } = useOrganisation();
@@ -75,39 +76,26 @@ function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: num
   if (lots.isError) return <ErrorState error={lots.error} onRetry={() => lots.refetch()} />;
   if (lots.data.length === 0) return <EmptyState title="No lot matches." />;
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm">
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {lots.data.map((l) => (
-            <tr key={l.id} className="border-b border-line/60">
-              <td className="py-2 pr-3 font-semibold">
-                <Link to={`/lots/${l.id}`} className="text-must-700 underline">
-                  {l.lotCode}
-                </Link>
-              </td>
-              <td className="py-2 pr-3">{l.wineName}</td>
-              <td className="py-2 pr-3 tabular-nums">{l.vintage}</td>
-              <td className="py-2 pr-3">{CONTAINER_LABELS[l.container]}</td>
-              <td className="py-2 pr-3 tabular-nums">{l.plannedDate ?? "—"}</td>
-              <td className="py-2 pr-3">{l.latestStage ? ANALYSIS_STAGE_LABELS[l.latestStage] : "—"}</td>
-              <td className="py-2 pr-3">
-                <LotStatusBadge status={l.status} />
-              </td>
-              <td className="py-2 pr-3 tabular-nums">{l.status.openDeviations || "—"}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <DataTable headings={["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"]}>
+      {lots.data.map((l) => (
+        <Row key={l.id}>
+          <Cell className="font-semibold">
+            <Link to={`/lots/${l.id}`} className="text-must-700 underline">
+              {l.lotCode}
+            </Link>
+          </Cell>
+          <Cell>{l.wineName}</Cell>
+          <Cell className="tabular-nums">{l.vintage}</Cell>
+          <Cell>{CONTAINER_LABELS[l.container]}</Cell>
+          <Cell className="tabular-nums">{l.plannedDate ?? "—"}</Cell>
+          <Cell>{l.latestStage ? ANALYSIS_STAGE_LABELS[l.latestStage] : "—"}</Cell>
+          <Cell>
+            <LotStatusBadge status={l.status} />
+          </Cell>
+          <Cell className="tabular-nums">{l.status.openDeviations || "—"}</Cell>
+        </Row>
+      ))}
+    </DataTable>
   );
 }
 

@@ -3,12 +3,13 @@ import { Link } from "react-router-dom";
 import { useOrganisation } from "../../lib/signed-in.tsx";
 import { readinessQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { QueryStatus } from "../../components/ui/states.tsx";
 import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
 import { DEVIATION_OUTCOME_LABELS } from "../../../shared/deviations/vocabulary.ts";
 import { STAGE_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { CONTAINER_LABELS } from "../../../shared/lots/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const names = (ids: string[]) => ids.map((p) => findParameter(p)?.name ?? p).join(", ");
 
@@ -22,73 +23,58 @@ export function ReadinessPage() {
         lead="Lots due for filling or shipment in the next four months, or not yet planned: what each required stage still lacks, and what fails."
       />
       <Card>
-        {rows.isPending && <LoadingState />}
-        {rows.isError && <ErrorState error={rows.error} onRetry={() => rows.refetch()} />}
-        {rows.data?.length === 0 && <EmptyState title="No lot is due." />}
+        <QueryStatus query={rows} empty="No lot is due." />
         {rows.data && rows.data.length > 0 && (
-          <div className="overflow-x-auto">
-            <table className="w-full text-left text-sm">
-              <thead className="border-b border-line text-ink-500">
-                <tr>
-                  {["Lot", "Wine", "Due", "Status", "Stages"].map((h) => (
-                    <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                      {h}
-                    </th>
+          <DataTable headings={["Lot", "Wine", "Due", "Status", "Stages"]}>
+            {rows.data.map((r) => (
+              <Row key={r.id}>
+                <Cell className="font-semibold">
+                  <Link to={`/lots/${r.id}`} className="text-must-700 underline">
+                    {r.lotCode}
+                  </Link>
+                  <span className="block text-xs font-normal text-ink-500">{CONTAINER_LABELS[r.container]}</span>
+                </Cell>
+                <Cell>
+                  {r.wineName}
+                  <span className="block text-xs text-ink-500">
+                    {r.producerName} · {r.vintage}
+                  </span>
+                </Cell>
+                <Cell className="tabular-nums">{r.plannedDate ?? "not planned"}</Cell>
+                <Cell>
+                  <LotStatusBadge status={r.status} />
+                  {r.status.openDeviations > 0 && (
+                    <span className="block text-xs text-alarm-700">
+                      {r.status.openDeviations === 1 ? "1 open deviation" : `${r.status.openDeviations} open deviations`}
+                    </span>
+                  )}
+                  {r.decidedDeviations.map((d) => (
+                    <span key={d.id} className="block text-xs text-ink-500">
+                      Deviation #{d.id}: {DEVIATION_OUTCOME_LABELS[d.outcome]}
+                    </span>
                   ))}
-                </tr>
-              </thead>
-              <tbody>
-                {rows.data.map((r) => (
-                  <tr key={r.id} className="border-b border-line/60 align-top">
-                    <td className="py-2 pr-3 font-semibold">
-                      <Link to={`/lots/${r.id}`} className="text-must-700 underline">
-                        {r.lotCode}
-                      </Link>
-                      <span className="block text-xs font-normal text-ink-500">{CONTAINER_LABELS[r.container]}</span>
-                    </td>
-                    <td className="py-2 pr-3">
-                      {r.wineName}
-                      <span className="block text-xs text-ink-500">
-                        {r.producerName} · {r.vintage}
-                      </span>
-                    </td>
-                    <td className="py-2 pr-3 tabular-nums">{r.plannedDate ?? "not planned"}</td>
-                    <td className="py-2 pr-3">
-                      <LotStatusBadge status={r.status} />
-                      {r.status.openDeviations > 0 && (
-                        <span className="block text-xs text-alarm-700">
-                          {r.status.openDeviations === 1 ? "1 open deviation" : `${r.status.openDeviations} open deviations`}
-                        </span>
-                      )}
-                      {r.decidedDeviations.map((d) => (
-                        <span key={d.id} className="block text-xs text-ink-500">
-                          Deviation #{d.id}: {DEVIATION_OUTCOME_LABELS[d.outcome]}
-                        </span>
-                      ))}
-                    </td>
-                    <td className="py-2 pr-3 text-xs">
-                      {!r.hasAgreedSpec && <span className="text-ochre-700">No agreed specification for this vintage.</span>}
-                      <ul className="flex flex-col gap-1">
-                        {r.stages.map((s) => (
-                          <li key={s.stage}>
-                            <strong>{STAGE_LABELS[s.stage]}:</strong>{" "}
-                            {!s.analysed ? (
-                              <span className="text-ochre-700">no analysis yet</span>
-                            ) : s.missing.length ? (
-                              <span className="text-ochre-700">missing {names(s.missing)}</span>
-                            ) : (
-                              <span className="text-verjus-700">complete</span>
-                            )}
-                            {s.failing.length > 0 && <span className="text-alarm-700"> · failing {names(s.failing)}</span>}
-                          </li>
-                        ))}
-                      </ul>
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+                </Cell>
+                <Cell className="text-xs">
+                  {!r.hasAgreedSpec && <span className="text-ochre-700">No agreed specification for this vintage.</span>}
+                  <ul className="flex flex-col gap-1">
+                    {r.stages.map((s) => (
+                      <li key={s.stage}>
+                        <strong>{STAGE_LABELS[s.stage]}:</strong>{" "}
+                        {!s.analysed ? (
+                          <span className="text-ochre-700">no analysis yet</span>
+                        ) : s.missing.length ? (
+                          <span className="text-ochre-700">missing {names(s.missing)}</span>
+                        ) : (
+                          <span className="text-verjus-700">complete</span>
+                        )}
+                        {s.failing.length > 0 && <span className="text-alarm-700"> · failing {names(s.failing)}</span>}
+                      </li>
+                    ))}
+                  </ul>
+                </Cell>
+              </Row>
+            ))}
+          </DataTable>
         )}
       </Card>
     </>

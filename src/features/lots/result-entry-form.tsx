@@ -15,6 +15,7 @@ import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { errorMessage, ApiError } from "../../lib/api-client.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail }) {
   const submit = useSubmitAnalysis(orgId, lot.id);
@@ -101,93 +102,82 @@ export function ResultEntryForm({ orgId, lot }: { orgId: number; lot: LotDetail 
           error={errors.sampleDate}
         />
       </div>
-      <table className="w-full text-left text-sm">
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Parameter", "Result", "Unit", "U (k = 2)", "Verdict as you type"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {visible.map((r) => {
-            const p = findParameter(r.parameter);
-            const l = lines[r.parameter]!;
-            const i = results.findIndex((x) => x.parameter === r.parameter);
-            // The same reading the verdict was made from: one parse for the error, the plausibility and the verdict.
-            const read = readOf.get(r.parameter);
-            const verdict = read?.reading ? verdictOf.get(r.parameter) : null;
-            const odd = read?.reading ? implausibility(r.parameter, read.reading, read.unit) : null;
-            const set = (patch: Partial<EntryLine>) => setLines((all) => ({ ...all, [r.parameter]: { ...l, ...patch } }));
-            const error = read?.error ?? errors[`results.${i}.raw`] ?? errors[`results.${i}.unit`];
-            return (
-              <tr key={r.parameter} className="border-b border-line/60 align-top">
-                <td className="py-2 pr-3 font-semibold">
-                  <label htmlFor={`result-${r.parameter}`}>{p?.name ?? r.parameter}</label>
-                </td>
-                <td className="py-2 pr-3">
-                  <input
-                    id={`result-${r.parameter}`}
-                    inputMode="decimal"
-                    className="w-28 rounded border border-line px-2 py-1"
-                    value={l.raw}
-                    onChange={(e) => set({ raw: e.target.value })}
-                    aria-invalid={error ? true : undefined}
-                    placeholder={p?.kind === "presence" ? "absent" : "e.g. 0,45 or <0.5"}
-                  />
-                  {error && (
-                    <span role="alert" className="block text-xs font-semibold text-alarm-700">
-                      {error}
-                    </span>
-                  )}
-                </td>
-                <td className="py-2 pr-3">
-                  <label className="sr-only" htmlFor={`unit-${r.parameter}`}>
-                    Unit of {p?.name}
-                  </label>
-                  <select
-                    id={`unit-${r.parameter}`}
-                    className="rounded border border-line px-2 py-1"
-                    value={l.unit}
-                    onChange={(e) => set({ unit: e.target.value })}
-                  >
-                    {(p?.units ?? [r.unit]).map((x) => (
-                      <option key={x} value={x}>
-                        {UNITS[x]?.label ?? x}
-                      </option>
-                    ))}
-                  </select>
-                </td>
-                <td className="py-2 pr-3">
-                  <label className="sr-only" htmlFor={`u-${r.parameter}`}>
-                    Expanded uncertainty of {p?.name}
-                  </label>
-                  <input
-                    id={`u-${r.parameter}`}
-                    inputMode="decimal"
-                    className="w-20 rounded border border-line px-2 py-1"
-                    value={l.u}
-                    onChange={(e) => set({ u: e.target.value })}
-                  />
-                </td>
-                <td className="py-2 pr-3 text-xs">
-                  {verdict ? (
-                    <>
-                      <OutcomeBadge outcome={verdict.outcome} />{" "}
-                      <span className="text-ink-500">{verdict.uncertainty?.source === "default" ? "default uncertainty" : ""}</span>
-                    </>
-                  ) : (
-                    <span className="text-ink-500">—</span>
-                  )}
-                  {odd && <span className="block font-semibold text-ochre-700">{odd}</span>}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
+      <DataTable headings={["Parameter", "Result", "Unit", "U (k = 2)", "Verdict as you type"]}>
+        {visible.map((r) => {
+          const p = findParameter(r.parameter);
+          const l = lines[r.parameter]!;
+          const i = results.findIndex((x) => x.parameter === r.parameter);
+          // The same reading the verdict was made from: one parse for the error, the plausibility and the verdict.
+          const read = readOf.get(r.parameter);
+          const verdict = read?.reading ? verdictOf.get(r.parameter) : null;
+          const odd = read?.reading ? implausibility(r.parameter, read.reading, read.unit) : null;
+          const set = (patch: Partial<EntryLine>) => setLines((all) => ({ ...all, [r.parameter]: { ...l, ...patch } }));
+          const error = read?.error ?? errors[`results.${i}.raw`] ?? errors[`results.${i}.unit`];
+          return (
+            <Row key={r.parameter}>
+              <Cell className="font-semibold">
+                <label htmlFor={`result-${r.parameter}`}>{p?.name ?? r.parameter}</label>
+              </Cell>
+              <Cell>
+                <input
+                  id={`result-${r.parameter}`}
+                  inputMode="decimal"
+                  className="w-28 rounded border border-line px-2 py-1"
+                  value={l.raw}
+                  onChange={(e) => set({ raw: e.target.value })}
+                  aria-invalid={error ? true : undefined}
+                  placeholder={p?.kind === "presence" ? "absent" : "e.g. 0,45 or <0.5"}
+                />
+                {error && (
+                  <span role="alert" className="block text-xs font-semibold text-alarm-700">
+                    {error}
+                  </span>
+                )}
+              </Cell>
+              <Cell>
+                <label className="sr-only" htmlFor={`unit-${r.parameter}`}>
+                  Unit of {p?.name}
+                </label>
+                <select
+                  id={`unit-${r.parameter}`}
+                  className="rounded border border-line px-2 py-1"
+                  value={l.unit}
+                  onChange={(e) => set({ unit: e.target.value })}
+                >
+                  {(p?.units ?? [r.unit]).map((x) => (
+                    <option key={x} value={x}>
+                      {UNITS[x]?.label ?? x}
+                    </option>
+                  ))}
+                </select>
+              </Cell>
+              <Cell>
+                <label className="sr-only" htmlFor={`u-${r.parameter}`}>
+                  Expanded uncertainty of {p?.name}
+                </label>
+                <input
+                  id={`u-${r.parameter}`}
+                  inputMode="decimal"
+                  className="w-20 rounded border border-line px-2 py-1"
+                  value={l.u}
+                  onChange={(e) => set({ u: e.target.value })}
+                />
+              </Cell>
+              <Cell className="text-xs">
+                {verdict ? (
+                  <>
+                    <OutcomeBadge outcome={verdict.outcome} />{" "}
+                    <span className="text-ink-500">{verdict.uncertainty?.source === "default" ? "default uncertainty" : ""}</span>
+                  </>
+                ) : (
+                  <span className="text-ink-500">—</span>
+                )}
+                {odd && <span className="block font-semibold text-ochre-700">{odd}</span>}
+              </Cell>
+            </Row>
+          );
+        })}
+      </DataTable>
       {errors.results && <Notice tone="error">{errors.results}</Notice>}
       <Button onClick={onSubmit} disabled={submit.isPending}>
         {submit.isPending ? "Saving…" : "Submit the analysis"}

@@ -12,7 +12,7 @@ import { useOrganisation } from "../../lib/signed-in.tsx";
 import { contractQuery, specQuery } from "../../lib/contracts.ts";
 import { trendQuery } from "./api/lots.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { EmptyState, QueryStatus } from "../../components/ui/states.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import {
@@ -70,8 +70,7 @@ export function TrendsPage() {
             options={options.map((p) => ({ value: p, label: findParameter(p)?.name ?? p }))}
           />
         </div>
-        {trend.isPending && <LoadingState />}
-        {trend.isError && <ErrorState error={trend.error} onRetry={() => trend.refetch()} />}
+        <QueryStatus query={trend} />
         {trend.data && <TrendView data={trend.data} />}
       </div>
     </>

@@ -6,10 +6,11 @@ import { ROLE_LABELS, ROLES_BY_KIND, type Role } from "../../../shared/auth/role
 import { invitationsQueryOptions, membersQueryOptions, useChangeRole, useRemoveMember, useRevokeInvitation } from "./api/members.ts";
 import { InviteForm } from "./invite-form.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { EmptyState, Notice, QueryStatus } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const date = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
 
@@ -47,88 +48,76 @@ function MemberTable({ orgId, kind, selfId }: { orgId: number; kind: keyof typeo
   return (
     <Card title="Current members">
       {error && <Notice tone="error">{error}</Notice>}
-      {members.isPending && <LoadingState />}
-      {members.isError && <ErrorState error={members.error} onRetry={() => members.refetch()} />}
-      {members.data?.length === 0 && <EmptyState title="No members yet." />}
+      <QueryStatus query={members} empty="No members yet." />
       {members.data && members.data.length > 0 && (
-        <table className="mt-2 w-full text-left text-sm">
-          <thead className="border-b border-line text-ink-500">
-            <tr>
-              <th scope="col" className="py-2 pr-4 font-semibold">
-                Name
-              </th>
-              <th scope="col" className="py-2 pr-4 font-semibold">
-                E-mail
-              </th>
-              <th scope="col" className="py-2 pr-4 font-semibold">
-                Role
-              </th>
-              <th scope="col" className="py-2 pr-4 font-semibold">
-                Member since
-              </th>
-              <th scope="col" className="py-2 font-semibold">
-                <span className="sr-only">Actions</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {members.data.map((m) => (
-              <tr key={m.membershipId} className="border-b border-line/60">
-                <td className="py-2 pr-4 font-semibold">
-                  {m.name}
-                  {m.userId === selfId && " (you)"}
-                </td>
-                <td className="py-2 pr-4">{m.email}</td>
-                <td className="py-2 pr-4">
-                  <label className="sr-only" htmlFor={`role-${m.membershipId}`}>
-                    Role of {m.name}
-                  </label>
-                  <select
-                    id={`role-${m.membershipId}`}
-                    className="rounded border border-line bg-white px-2 py-1"
-                    value={m.role}
-                    disabled={changeRole.isPending}
-                    onChange={(e) => {
-                      const role = e.target.value as Role;
-                      setError(null);
-                      confirm.ask({
-                        title: `Make ${m.name} ${ROLE_LABELS[role].toLowerCase()}?`,
-                        consequence: `${m.name} is signed out everywhere and, at the next sign-in, can do what a ${ROLE_LABELS[role].toLowerCase()} does, and no longer what a ${ROLE_LABELS[m.role].toLowerCase()} does.`,
-                        confirmLabel: "Change the role",
-                        onConfirm: () => changeRole.mutate({ membershipId: m.membershipId, role }, { onError }),
-                      });
-                    }}
-                  >
-                    {ROLES_BY_KIND[kind].map((r) => (
-                      <option key={r} value={r}>
-                        {ROLE_LABELS[r]}
-                      </option>
-                    ))}
-                  </select>
-                </td>
-                <td className="py-2 pr-4">{date(m.since)}</td>
-                <td className="py-2 text-right">
-                  <Button
-                    variant="danger"
-                    disabled={remove.isPending}
-                    onClick={() => {
-                      setError(null);
-                      confirm.ask({
-                        title: `Remove ${m.name} from the organisation?`,
-                        consequence: `${m.name} is signed out and loses access to everything the organisation holds. What they did stays in the trail.`,
-                        confirmLabel: `Remove ${m.name}`,
-                        tone: "danger",
-                        onConfirm: () => remove.mutate(m.membershipId, { onError }),
-                      });
-                    }}
-                  >
-                    Remove
-                  </Button>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <DataTable
+          headings={[
+            "Name",
+            "E-mail",
+            "Role",
+            "Member since",
+            <>
+              <span className="sr-only">Actions</span>
+            </>,
+          ]}
+          className="mt-2"
+        >
+          {members.data.map((m) => (
+            <Row key={m.membershipId}>
+              <Cell className="font-semibold">
+                {m.name}
+                {m.userId === selfId && " (you)"}
+              </Cell>
+              <Cell>{m.email}</Cell>
+              <Cell>
+                <label className="sr-only" htmlFor={`role-${m.membershipId}`}>
+                  Role of {m.name}
+                </label>
+                <select
+                  id={`role-${m.membershipId}`}
+                  className="rounded border border-line bg-white px-2 py-1"
+                  value={m.role}
+                  disabled={changeRole.isPending}
+                  onChange={(e) => {
+                    const role = e.target.value as Role;
+                    setError(null);
+                    confirm.ask({
+                      title: `Make ${m.name} ${ROLE_LABELS[role].toLowerCase()}?`,
+                      consequence: `${m.name} is signed out everywhere and, at the next sign-in, can do what a ${ROLE_LABELS[role].toLowerCase()} does, and no longer what a ${ROLE_LABELS[m.role].toLowerCase()} does.`,
+                      confirmLabel: "Change the role",
+                      onConfirm: () => changeRole.mutate({ membershipId: m.membershipId, role }, { onError }),
+                    });
+                  }}
+                >
+                  {ROLES_BY_KIND[kind].map((r) => (
+                    <option key={r} value={r}>
+                      {ROLE_LABELS[r]}
+                    </option>
+                  ))}
+                </select>
+              </Cell>
+              <Cell>{date(m.since)}</Cell>
+              <Cell className="text-right">
+                <Button
+                  variant="danger"
+                  disabled={remove.isPending}
+                  onClick={() => {
+                    setError(null);
+                    confirm.ask({
+                      title: `Remove ${m.name} from the organisation?`,
+                      consequence: `${m.name} is signed out and loses access to everything the organisation holds. What they did stays in the trail.`,
+                      confirmLabel: `Remove ${m.name}`,
+                      tone: "danger",
+                      onConfirm: () => remove.mutate(m.membershipId, { onError }),
+                    });
+                  }}
+                >
+                  Remove
+                </Button>
+              </Cell>
+            </Row>
+          ))}
+        </DataTable>
       )}
       {confirm.dialog}
     </Card>
@@ -140,8 +129,7 @@ function OpenInvitations({ orgId }: { orgId: number }) {
   const revoke = useRevokeInvitation(orgId);
   return (
     <Card title="Open invitations">
-      {invitations.isPending && <LoadingState />}
-      {invitations.isError && <ErrorState error={invitations.error} onRetry={() => invitations.refetch()} />}
+      <QueryStatus query={invitations} />
       {invitations.data?.length === 0 && (
         <EmptyState title="No open invitations.">Invitations you send appear here until they are accepted.</EmptyState>
       )}

@@ -10,9 +10,10 @@ import type { ChainVerification } from "../../../shared/trail/views.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 import { useSignedIn } from "../../lib/signed-in.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { EmptyState, ErrorState, Notice, QueryStatus } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const organisationsQuery = {
   queryKey: ["platform", "organisations"],
@@ -38,38 +39,18 @@ function OrganisationList() {
   const orgs = useQuery(organisationsQuery);
   return (
     <Card title="All organisations">
-      {orgs.isPending && <LoadingState />}
-      {orgs.isError && <ErrorState error={orgs.error} onRetry={() => orgs.refetch()} />}
-      {orgs.data?.length === 0 && <EmptyState title="No organisations yet." />}
+      <QueryStatus query={orgs} empty="No organisations yet." />
       {orgs.data && orgs.data.length > 0 && (
-        <table className="w-full text-left text-sm">
-          <thead className="border-b border-line text-ink-500">
-            <tr>
-              <th scope="col" className="py-2 pr-4 font-semibold">
-                Name
-              </th>
-              <th scope="col" className="py-2 pr-4 font-semibold">
-                Kind
-              </th>
-              <th scope="col" className="py-2 pr-4 font-semibold">
-                Country
-              </th>
-              <th scope="col" className="py-2 font-semibold">
-                Members
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {orgs.data.map((o) => (
-              <tr key={o.id} className="border-b border-line/60">
-                <td className="py-2 pr-4 font-semibold">{o.name}</td>
-                <td className="py-2 pr-4">{ORGANISATION_KIND_LABELS[o.kind]}</td>
-                <td className="py-2 pr-4">{o.country}</td>
-                <td className="py-2 tabular-nums">{o.memberCount}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <DataTable headings={["Name", "Kind", "Country", "Members"]}>
+          {orgs.data.map((o) => (
+            <Row key={o.id}>
+              <Cell className="font-semibold">{o.name}</Cell>
+              <Cell>{ORGANISATION_KIND_LABELS[o.kind]}</Cell>
+              <Cell>{o.country}</Cell>
+              <Cell className="tabular-nums">{o.memberCount}</Cell>
+            </Row>
+          ))}
+        </DataTable>
       )}
     </Card>
   );

@@ -12,6 +12,7 @@ import { convert, findParameter, UNITS, type BacktestSummary, type DiffKind } fr
 import { runBacktest, toPastResults } from "./run-backtest.ts";
 import { errorMessage } from "../../lib/api-client.ts";
 import type { SpecVersionDetail } from "../../../shared/specs/views.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const KIND_STYLE: Record<DiffKind, string> = {
   added: "text-verjus-700",
@@ -60,44 +61,35 @@ export function ComparePage() {
           {diff.isPending && against > 0 && <LoadingState />}
           {diff.isError && <ErrorState error={diff.error} />}
           {diff.data && (
-            <table className="w-full text-left text-sm">
-              <thead className="border-b border-line text-ink-500">
-                <tr>
-                  {[
-                    "Parameter",
-                    "Change",
-                    `Min: v${diff.data.from.number} → v${diff.data.to.number}`,
-                    `Max: v${diff.data.from.number} → v${diff.data.to.number}`,
-                    "Also changed",
-                  ].map((h) => (
-                    <th key={h} scope="col" className="py-2 pr-4 font-semibold">
-                      {h}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {diff.data.parameters.map((p) => {
-                  const side = (s: "lower" | "upper") => p.sides.find((x) => x.side === s);
-                  // Show limits in the unit the buyer wrote them in, not the engine's canonical one.
-                  const canonical = findParameter(p.parameter)?.unit;
-                  const unit = v.requirements.find((r) => r.parameter === p.parameter)?.unit ?? canonical;
-                  const shown = (x: number | null) => (x === null || !canonical || !unit ? n(x) : n(convert(x, canonical, unit)));
-                  return (
-                    <tr key={p.parameter} className="border-b border-line/60">
-                      <td className="py-2 pr-4 font-semibold">{p.name}</td>
-                      <td className={`py-2 pr-4 font-semibold ${KIND_STYLE[p.kind]}`}>{p.kind}</td>
-                      {(["lower", "upper"] as const).map((s) => (
-                        <td key={s} className="py-2 pr-4 tabular-nums">
-                          {side(s) ? `${shown(side(s)!.before)} → ${shown(side(s)!.after)} ${unit ? UNITS[unit].label : ""}` : "—"}
-                        </td>
-                      ))}
-                      <td className="py-2 pr-4 text-ink-500">{p.otherChanges.join(", ") || "—"}</td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
+            <DataTable
+              headings={[
+                "Parameter",
+                "Change",
+                `Min: v${diff.data.from.number} → v${diff.data.to.number}`,
+                `Max: v${diff.data.from.number} → v${diff.data.to.number}`,
+                "Also changed",
+              ]}
+            >
+              {diff.data.parameters.map((p) => {
+                const side = (s: "lower" | "upper") => p.sides.find((x) => x.side === s);
+                // Show limits in the unit the buyer wrote them in, not the engine's canonical one.
+                const canonical = findParameter(p.parameter)?.unit;
+                const unit = v.requirements.find((r) => r.parameter === p.parameter)?.unit ?? canonical;
+                const shown = (x: number | null) => (x === null || !canonical || !unit ? n(x) : n(convert(x, canonical, unit)));
+                return (
+                  <Row key={p.parameter}>
+                    <Cell className="font-semibold">{p.name}</Cell>
+                    <Cell className={`font-semibold ${KIND_STYLE[p.kind]}`}>{p.kind}</Cell>
+                    {(["lower", "upper"] as const).map((s) => (
+                      <Cell key={s} className="tabular-nums">
+                        {side(s) ? `${shown(side(s)!.before)} → ${shown(side(s)!.after)} ${unit ? UNITS[unit].label : ""}` : "—"}
+                      </Cell>
+                    ))}
+                    <Cell className="text-ink-500">{p.otherChanges.join(", ") || "—"}</Cell>
+                  </Row>
+                );
+              })}
+            </DataTable>
           )}
           {diff.data && (
             <p className="mt-2 text-xs text-ink-500">
@@ -171,28 +163,19 @@ function BacktestCard({ orgId, version, againstId }: { orgId: number; version: S
             </p>
           ))}
           {summary.newlyFailing.length > 0 && (
-            <table className="mt-2 w-full text-left text-sm">
-              <thead className="border-b border-line text-ink-500">
-                <tr>
-                  {["Lot", "Vintage", "Parameter", "Before", "Now"].map((h) => (
-                    <th key={h} scope="col" className="py-1 pr-4 font-semibold">
-                      {h}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {[...summary.newlyFailing, ...summary.newlyPassing].map((c) => (
-                  <tr key={`${c.lotId}-${c.parameter}`} className="border-b border-line/60">
-                    <td className="py-1 pr-4">{c.lotCode}</td>
-                    <td className="py-1 pr-4">{c.vintage}</td>
-                    <td className="py-1 pr-4">{c.parameter.replace(/_/g, " ")}</td>
-                    <td className="py-1 pr-4">{c.before}</td>
-                    <td className="py-1 pr-4 font-semibold">{c.after}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
+            <DataTable headings={["Lot", "Vintage", "Parameter", "Before", "Now"]} dense className="mt-2">
+              {[...summary.newlyFailing, ...summary.newlyPassing].map((c) => (
+                <Row key={`${c.lotId}-${c.parameter}`}>
+                  <Cell dense>{c.lotCode}</Cell>
+                  <Cell dense>{c.vintage}</Cell>
+                  <Cell dense>{c.parameter.replace(/_/g, " ")}</Cell>
+                  <Cell dense>{c.before}</Cell>
+                  <Cell dense className="font-semibold">
+                    {c.after}
+                  </Cell>
+                </Row>
+              ))}
+            </DataTable>
           )}
         </div>
       )}

@@ -14,6 +14,7 @@ import { SEVERITIES, SEVERITY_LABELS, STAGE_LABELS, type Stage } from "../../../
 import type { SpecDraftInput } from "../../../shared/specs/schemas.ts";
 import { LegalCheck } from "./legal-check.tsx";
 import { presetOf, ruleOptions, RULE_PRESETS } from "./rule-presets.ts";
+import { Row, Cell } from "../../components/ui/table.tsx";
 
 const cell = "rounded border border-line bg-white px-2 py-1 text-sm aria-[invalid=true]:border-alarm-700";
 const toNumber = (v: unknown) =>
@@ -69,8 +70,8 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
     .filter(([, m]) => m);
 
   return (
-    <tr className="border-b border-line/60 align-top" aria-label={name}>
-      <td className="py-2 pr-3">
+    <Row aria-label={name}>
+      <Cell>
         <label htmlFor={id("parameter")} className="sr-only">
           Parameter of row {index + 1}
         </label>
@@ -100,8 +101,8 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
             </label>
           ))}
         </div>
-      </td>
-      <td className="py-2 pr-3">
+      </Cell>
+      <Cell>
         <div className="grid grid-cols-3 gap-2">
           {numberField("lower", "Min")}
           {numberField("upper", "Max")}
@@ -134,8 +135,8 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
             ))}
           </ul>
         )}
-      </td>
-      <td className="py-2 pr-3">
+      </Cell>
+      <Cell>
         <label htmlFor={id("method")} className="text-xs text-ink-500">
           Method
         </label>
@@ -172,15 +173,15 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
             </option>
           ))}
         </select>
-      </td>
-      <td className="w-72 py-2 pr-3">
+      </Cell>
+      <Cell className="w-72">
         <LegalCheck
           row={{ ...row, lower: toNumber(row.lower), upper: toNumber(row.upper), target: toNumber(row.target) }}
           markets={markets}
           profile={profile}
         />
-      </td>
-      <td className="py-2">
+      </Cell>
+      <Cell>
         <button
           type="button"
           onClick={onRemove}
@@ -189,7 +190,7 @@ export function RequirementRow({ index, versionStages, markets, profile, onRemov
         >
           Remove
         </button>
-      </td>
-    </tr>
+      </Cell>
+    </Row>
   );
 }

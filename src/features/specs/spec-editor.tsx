@@ -17,6 +17,7 @@ import { RequirementRow } from "./requirement-row.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { TextField } from "../../components/ui/field.tsx";
+import { DataTable } from "../../components/ui/table.tsx";
 
 const AUTOSAVE_MS = 900;
 
@@ -167,39 +168,28 @@ export function SpecEditor({
           )}
         </fieldset>
         <div className="overflow-x-auto">
-          <table className="w-full text-left text-sm">
-            <thead className="border-b border-line text-ink-500">
-              <tr>
-                <th scope="col" className="py-2 pr-3 font-semibold">
-                  Parameter and stages
-                </th>
-                <th scope="col" className="py-2 pr-3 font-semibold">
-                  Limits
-                </th>
-                <th scope="col" className="py-2 pr-3 font-semibold">
-                  Method, rule, severity
-                </th>
-                <th scope="col" className="py-2 pr-3 font-semibold">
-                  Law in {version.contract.wine.markets.join(", ")}
-                </th>
-                <th scope="col" className="py-2 font-semibold">
-                  <span className="sr-only">Remove</span>
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {rows.fields.map((f, i) => (
-                <RequirementRow
-                  key={f.id}
-                  index={i}
-                  versionStages={stages as typeof version.stages}
-                  markets={version.contract.wine.markets}
-                  profile={profile}
-                  onRemove={() => rows.remove(i)}
-                />
-              ))}
-            </tbody>
-          </table>
+          <DataTable
+            headings={[
+              "Parameter and stages",
+              "Limits",
+              "Method, rule, severity",
+              <>Law in {version.contract.wine.markets.join(", ")}</>,
+              <>
+                <span className="sr-only">Remove</span>
+              </>,
+            ]}
+          >
+            {rows.fields.map((f, i) => (
+              <RequirementRow
+                key={f.id}
+                index={i}
+                versionStages={stages as typeof version.stages}
+                markets={version.contract.wine.markets}
+                profile={profile}
+                onRemove={() => rows.remove(i)}
+              />
+            ))}
+          </DataTable>
           {rows.fields.length === 0 && (
             <p className="py-4 text-sm text-ink-500">No requirement yet. Add parameters from the catalogue below.</p>
           )}

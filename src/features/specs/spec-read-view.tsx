@@ -9,6 +9,7 @@ import { LegalCheck } from "./legal-check.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { errorMessage } from "../../lib/api-client.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const num = (x: number | null) => (x === null ? null : String(Number(x.toPrecision(6))));
 
@@ -25,46 +26,28 @@ export function SpecReadView({ orgId, version }: { orgId: number; version: SpecV
   const general = version.comments.filter((c) => c.requirementId === null);
   return (
     <div className="flex flex-col gap-4">
-      <div className="overflow-x-auto">
-        <table className="w-full text-left text-sm">
-          <thead className="border-b border-line text-ink-500">
-            <tr>
-              {["Parameter", "Limits", "Method and rule", "Law in " + version.contract.wine.markets.join(", "), "Comments"].map((h) => (
-                <th key={h} scope="col" className="py-2 pr-3 font-semibold">
-                  {h}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {version.requirements.map((r) => (
-              <tr key={r.id} className="border-b border-line/60 align-top">
-                <td className="py-2 pr-3">
-                  <span className="font-semibold">{findParameter(r.parameter)?.name ?? r.parameter}</span>
-                  <span className="block text-xs text-ink-500">{SEVERITY_LABELS[r.severity]}</span>
-                  <span className="block text-xs text-ink-500">{r.stages.map((s) => STAGE_LABELS[s]).join(", ")}</span>
-                </td>
-                <td className="py-2 pr-3 tabular-nums">{limits(r)}</td>
-                <td className="py-2 pr-3">
-                  {r.method ?? "—"}
-                  <span className="block text-xs text-ink-500">{ruleLabel(r.rule)}</span>
-                </td>
-                <td className="w-72 py-2 pr-3">
-                  <LegalCheck row={r} markets={version.contract.wine.markets} profile={profile} />
-                </td>
-                <td className="w-80 py-2">
-                  <Thread
-                    orgId={orgId}
-                    version={version}
-                    requirement={r}
-                    comments={version.comments.filter((c) => c.requirementId === r.id)}
-                  />
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable headings={["Parameter", "Limits", "Method and rule", "Law in " + version.contract.wine.markets.join(", "), "Comments"]}>
+        {version.requirements.map((r) => (
+          <Row key={r.id}>
+            <Cell>
+              <span className="font-semibold">{findParameter(r.parameter)?.name ?? r.parameter}</span>
+              <span className="block text-xs text-ink-500">{SEVERITY_LABELS[r.severity]}</span>
+              <span className="block text-xs text-ink-500">{r.stages.map((s) => STAGE_LABELS[s]).join(", ")}</span>
+            </Cell>
+            <Cell className="tabular-nums">{limits(r)}</Cell>
+            <Cell>
+              {r.method ?? "—"}
+              <span className="block text-xs text-ink-500">{ruleLabel(r.rule)}</span>
+            </Cell>
+            <Cell className="w-72">
+              <LegalCheck row={r} markets={version.contract.wine.markets} profile={profile} />
+            </Cell>
+            <Cell className="w-80">
+              <Thread orgId={orgId} version={version} requirement={r} comments={version.comments.filter((c) => c.requirementId === r.id)} />
+            </Cell>
+          </Row>
+        ))}
+      </DataTable>
       <section aria-label="General comments" className="rounded-card border border-line bg-card p-4">
         <h3 className="mb-2 font-semibold">Comments on the whole version</h3>
         <Thread orgId={orgId} version={version} comments={general} />

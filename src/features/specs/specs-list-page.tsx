@@ -5,7 +5,7 @@ import { useOrganisation } from "../../lib/signed-in.tsx";
 import { specListQuery, type SpecFilters } from "./api/specs.ts";
 import { contractsQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { EmptyState, ErrorState, LoadingState, QueryStatus } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { StatusBadge } from "./status-badge.tsx";
 import { LegalCaution } from "../../components/legal-caution.tsx";
@@ -13,6 +13,7 @@ import { NewContractForm } from "./new-contract-form.tsx";
 import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 const vintages = (from: number, to: number | null) => (to ? `${from}–${to}` : `${from} →`);
 
@@ -53,9 +54,7 @@ function ContractsCard({ orgId }: { orgId: number }) {
   const contracts = useQuery(contractsQuery(orgId));
   return (
     <Card title="Contracts">
-      {contracts.isPending && <LoadingState />}
-      {contracts.isError && <ErrorState error={contracts.error} onRetry={() => contracts.refetch()} />}
-      {contracts.data?.length === 0 && <EmptyState title="No contracts yet." />}
+      <QueryStatus query={contracts} empty="No contracts yet." />
       {contracts.data && contracts.data.length > 0 && (
         <ul className="grid gap-3 md:grid-cols-2">
           {contracts.data.map((c) => {
@@ -133,38 +132,25 @@ function SpecTable({ orgId, filters }: { orgId: number; filters: SpecFilters }) 
   if (list.isError) return <ErrorState error={list.error} onRetry={() => list.refetch()} />;
   if (list.data.length === 0) return <EmptyState title="No version matches these filters." />;
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm">
-        <thead className="border-b border-line text-ink-500">
-          <tr>
-            {["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"].map((h) => (
-              <th key={h} scope="col" className="py-2 pr-4 font-semibold">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {list.data.map((v) => (
-            <tr key={v.id} className="border-b border-line/60">
-              <td className="py-2 pr-4 font-semibold">
-                <Link to={`/specs/${v.id}`} className="text-must-700 underline">
-                  {v.contract.wine.name}
-                </Link>
-              </td>
-              <td className="py-2 pr-4">{v.contract.reference}</td>
-              <td className="py-2 pr-4">{v.contract.producer.name}</td>
-              <td className="py-2 pr-4 tabular-nums">v{v.number}</td>
-              <td className="py-2 pr-4">
-                <StatusBadge status={v.status} />
-              </td>
-              <td className="py-2 pr-4 tabular-nums">{vintages(v.vintageFrom, v.vintageTo)}</td>
-              <td className="py-2 pr-4 tabular-nums">{v.requirementCount}</td>
-              <td className="py-2 pr-4 tabular-nums">{v.updatedAt.slice(0, 10)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <DataTable headings={["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"]}>
+      {list.data.map((v) => (
+        <Row key={v.id}>
+          <Cell className="font-semibold">
+            <Link to={`/specs/${v.id}`} className="text-must-700 underline">
+              {v.contract.wine.name}
+            </Link>
+          </Cell>
+          <Cell>{v.contract.reference}</Cell>
+          <Cell>{v.contract.producer.name}</Cell>
+          <Cell className="tabular-nums">v{v.number}</Cell>
+          <Cell>
+            <StatusBadge status={v.status} />
+          </Cell>
+          <Cell className="tabular-nums">{vintages(v.vintageFrom, v.vintageTo)}</Cell>
+          <Cell className="tabular-nums">{v.requirementCount}</Cell>
+          <Cell className="tabular-nums">{v.updatedAt.slice(0, 10)}</Cell>
+        </Row>
+      ))}
+    </DataTable>
   );
 }

@@ -8,9 +8,10 @@ import { Button } from "../../components/ui/button.tsx";
 import type { TrailEntryView } from "../../../shared/trail/views.ts";
 import { useOrganisation } from "../../lib/signed-in.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { EmptyState, QueryStatus } from "../../components/ui/states.tsx";
 import { actionLabel, detailsText } from "../../../shared/trail/vocabulary.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
 
 export function ActivityPage() {
   const { orgId, membership } = useOrganisation();
@@ -88,49 +89,23 @@ export function ActivityPage() {
             </span>
           )}
         </div>
-        {entries.isPending && <LoadingState />}
-        {entries.isError && <ErrorState error={entries.error} onRetry={() => entries.refetch()} />}
-        {entries.data?.length === 0 && <EmptyState title="Nothing recorded yet." />}
+        <QueryStatus query={entries} empty="Nothing recorded yet." />
         {entries.data && entries.data.length > 0 && (
-          <table className="w-full text-left text-sm">
-            <thead className="border-b border-line text-ink-500">
-              <tr>
-                <th scope="col" className="py-2 pr-4 font-semibold">
-                  #
-                </th>
-                <th scope="col" className="py-2 pr-4 font-semibold">
-                  When (UTC)
-                </th>
-                <th scope="col" className="py-2 pr-4 font-semibold">
-                  Who
-                </th>
-                <th scope="col" className="py-2 pr-4 font-semibold">
-                  What
-                </th>
-                <th scope="col" className="py-2 pr-4 font-semibold">
-                  Details
-                </th>
-                <th scope="col" className="py-2 font-semibold">
-                  Hash
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {entries.data.map((e) => (
-                <tr key={e.seq} className="border-b border-line/60 align-top">
-                  <td className="py-2 pr-4 tabular-nums">{e.seq}</td>
-                  <td className="py-2 pr-4 tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</td>
-                  <td className="py-2 pr-4">{e.actorName ?? "system"}</td>
-                  <td className="py-2 pr-4">
-                    {actionLabel(e.action)}
-                    <span className="block font-mono text-xs text-ink-500">{e.action}</span>
-                  </td>
-                  <td className="py-2 pr-4 text-ink-700">{detailsText(e.details) || "—"}</td>
-                  <td className="py-2 font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <DataTable headings={["#", "When (UTC)", "Who", "What", "Details", "Hash"]}>
+            {entries.data.map((e) => (
+              <Row key={e.seq}>
+                <Cell className="tabular-nums">{e.seq}</Cell>
+                <Cell className="tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</Cell>
+                <Cell>{e.actorName ?? "system"}</Cell>
+                <Cell>
+                  {actionLabel(e.action)}
+                  <span className="block font-mono text-xs text-ink-500">{e.action}</span>
+                </Cell>
+                <Cell className="text-ink-700">{detailsText(e.details) || "—"}</Cell>
+                <Cell className="font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</Cell>
+              </Row>
+            ))}
+          </DataTable>
         )}
       </Card>
     </>
