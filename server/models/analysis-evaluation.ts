@@ -1,33 +1,24 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { StoredVerdict } from "../../shared/lots/views.ts";
 import type { WineProfile } from "../../shared/engine/index.ts";
+import { createdAt, id, optional, required, type Fields } from "../db/columns.ts";
 
-export class AnalysisEvaluation extends Model<InferAttributes<AnalysisEvaluation>, InferCreationAttributes<AnalysisEvaluation>> {
-  declare id: CreationOptional<number>;
-  declare analysisId: number;
-  declare specVersionId: number | null;
-  declare engineVersion: string;
-  declare marketVersions: Record<string, string>;
-  declare worstOutcome: string;
-  declare verdicts: StoredVerdict[];
+const columns = {
+  id,
+  analysisId: required<number>(DataTypes.INTEGER),
+  specVersionId: optional<number>(DataTypes.INTEGER),
+  engineVersion: required<string>(DataTypes.STRING(20)),
+  marketVersions: required<Record<string, string>>(DataTypes.JSON),
+  worstOutcome: required<string>(DataTypes.STRING(20)),
+  verdicts: required<StoredVerdict[]>(DataTypes.JSON),
   /** The profile the law was read with; null for verdicts stored before it was kept. */
-  declare profile: CreationOptional<WineProfile | null>;
-  declare createdAt: CreationOptional<Date>;
+  profile: optional<WineProfile>(DataTypes.JSON),
+  createdAt,
+};
 
+export interface AnalysisEvaluation extends Fields<typeof columns> {}
+export class AnalysisEvaluation extends Model<InferAttributes<AnalysisEvaluation>, InferCreationAttributes<AnalysisEvaluation>> {
   static initModel(sequelize: Sequelize) {
-    AnalysisEvaluation.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        analysisId: { type: DataTypes.INTEGER, allowNull: false },
-        specVersionId: { type: DataTypes.INTEGER, allowNull: true },
-        engineVersion: { type: DataTypes.STRING(20), allowNull: false },
-        marketVersions: { type: DataTypes.JSON, allowNull: false },
-        worstOutcome: { type: DataTypes.STRING(20), allowNull: false },
-        verdicts: { type: DataTypes.JSON, allowNull: false },
-        profile: { type: DataTypes.JSON, allowNull: true },
-        createdAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "analysis_evaluations", underscored: true, updatedAt: false },
-    );
+    AnalysisEvaluation.init(columns, { sequelize, tableName: "analysis_evaluations", underscored: true, updatedAt: false });
   }
 }

@@ -1,30 +1,22 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { Reading, ReportedUncertainty } from "../../shared/engine/index.ts";
 import type { UnitId } from "../../shared/engine/index.ts";
+import { id, optional, required, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  analysisId: required<number>(DataTypes.INTEGER),
+  parameter: required<string>(DataTypes.STRING(40)),
+  rawText: required<string>(DataTypes.STRING(40)),
+  reading: required<Reading>(DataTypes.JSON),
+  unit: required<UnitId>(DataTypes.STRING(30)),
+  uncertainty: optional<ReportedUncertainty>(DataTypes.JSON),
+  method: optional<string>(DataTypes.STRING(120)),
+};
+
+export interface AnalysisResult extends Fields<typeof columns> {}
 export class AnalysisResult extends Model<InferAttributes<AnalysisResult>, InferCreationAttributes<AnalysisResult>> {
-  declare id: CreationOptional<number>;
-  declare analysisId: number;
-  declare parameter: string;
-  declare rawText: string;
-  declare reading: Reading;
-  declare unit: UnitId;
-  declare uncertainty: ReportedUncertainty | null;
-  declare method: string | null;
-
   static initModel(sequelize: Sequelize) {
-    AnalysisResult.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        analysisId: { type: DataTypes.INTEGER, allowNull: false },
-        parameter: { type: DataTypes.STRING(40), allowNull: false },
-        rawText: { type: DataTypes.STRING(40), allowNull: false },
-        reading: { type: DataTypes.JSON, allowNull: false },
-        unit: { type: DataTypes.STRING(30), allowNull: false },
-        uncertainty: { type: DataTypes.JSON, allowNull: true },
-        method: { type: DataTypes.STRING(120), allowNull: true },
-      },
-      { sequelize, tableName: "analysis_results", underscored: true, timestamps: false },
-    );
+    AnalysisResult.init(columns, { sequelize, tableName: "analysis_results", underscored: true, timestamps: false });
   }
 }

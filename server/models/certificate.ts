@@ -1,17 +1,12 @@
-import { StoredFileModel, storedFileAttributes } from "./stored-file-attributes.ts";
-import { DataTypes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { required, type Fields } from "../db/columns.ts";
+import { storedFileColumns } from "./stored-file-columns.ts";
 
-export class Certificate extends StoredFileModel<Certificate> {
-  declare analysisId: number;
+const columns = { ...storedFileColumns, analysisId: required<number>(DataTypes.INTEGER) };
 
+export interface Certificate extends Fields<typeof columns> {}
+export class Certificate extends Model<InferAttributes<Certificate>, InferCreationAttributes<Certificate>> {
   static initModel(sequelize: Sequelize) {
-    Certificate.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        analysisId: { type: DataTypes.INTEGER, allowNull: false },
-        ...storedFileAttributes,
-      },
-      { sequelize, tableName: "certificates", underscored: true, updatedAt: false },
-    );
+    Certificate.init(columns, { sequelize, tableName: "certificates", underscored: true, updatedAt: false });
   }
 }

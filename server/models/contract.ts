@@ -1,30 +1,20 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { id, optional, required, timestamps, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  reference: required<string>(DataTypes.STRING(40)),
+  retailerOrgId: required<number>(DataTypes.INTEGER),
+  producerOrgId: required<number>(DataTypes.INTEGER),
+  wineId: required<number>(DataTypes.INTEGER),
+  startsOn: required<string>(DataTypes.DATEONLY),
+  endsOn: optional<string>(DataTypes.DATEONLY),
+  ...timestamps,
+};
+
+export interface Contract extends Fields<typeof columns> {}
 export class Contract extends Model<InferAttributes<Contract>, InferCreationAttributes<Contract>> {
-  declare id: CreationOptional<number>;
-  declare reference: string;
-  declare retailerOrgId: number;
-  declare producerOrgId: number;
-  declare wineId: number;
-  declare startsOn: string;
-  declare endsOn: string | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
   static initModel(sequelize: Sequelize) {
-    Contract.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        reference: { type: DataTypes.STRING(40), allowNull: false },
-        retailerOrgId: { type: DataTypes.INTEGER, allowNull: false },
-        producerOrgId: { type: DataTypes.INTEGER, allowNull: false },
-        wineId: { type: DataTypes.INTEGER, allowNull: false },
-        startsOn: { type: DataTypes.DATEONLY, allowNull: false },
-        endsOn: { type: DataTypes.DATEONLY, allowNull: true },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "contracts", underscored: true },
-    );
+    Contract.init(columns, { sequelize, tableName: "contracts", underscored: true });
   }
 }

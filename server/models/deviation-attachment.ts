@@ -1,17 +1,12 @@
-import { StoredFileModel, storedFileAttributes } from "./stored-file-attributes.ts";
-import { DataTypes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { required, type Fields } from "../db/columns.ts";
+import { storedFileColumns } from "./stored-file-columns.ts";
 
-export class DeviationAttachment extends StoredFileModel<DeviationAttachment> {
-  declare messageId: number;
+const columns = { ...storedFileColumns, messageId: required<number>(DataTypes.INTEGER) };
 
+export interface DeviationAttachment extends Fields<typeof columns> {}
+export class DeviationAttachment extends Model<InferAttributes<DeviationAttachment>, InferCreationAttributes<DeviationAttachment>> {
   static initModel(sequelize: Sequelize) {
-    DeviationAttachment.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        messageId: { type: DataTypes.INTEGER, allowNull: false },
-        ...storedFileAttributes,
-      },
-      { sequelize, tableName: "deviation_attachments", underscored: true, updatedAt: false },
-    );
+    DeviationAttachment.init(columns, { sequelize, tableName: "deviation_attachments", underscored: true, updatedAt: false });
   }
 }

@@ -1,20 +1,16 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { id, required, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  messageId: required<number>(DataTypes.INTEGER),
+  previousBody: required<string>(DataTypes.TEXT),
+  editedAt: required<Date>(DataTypes.DATE(3)),
+};
+
+export interface DeviationMessageEdit extends Fields<typeof columns> {}
 export class DeviationMessageEdit extends Model<InferAttributes<DeviationMessageEdit>, InferCreationAttributes<DeviationMessageEdit>> {
-  declare id: CreationOptional<number>;
-  declare messageId: number;
-  declare previousBody: string;
-  declare editedAt: Date;
-
   static initModel(sequelize: Sequelize) {
-    DeviationMessageEdit.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        messageId: { type: DataTypes.INTEGER, allowNull: false },
-        previousBody: { type: DataTypes.TEXT, allowNull: false },
-        editedAt: { type: DataTypes.DATE(3), allowNull: false },
-      },
-      { sequelize, tableName: "deviation_message_edits", underscored: true, timestamps: false },
-    );
+    DeviationMessageEdit.init(columns, { sequelize, tableName: "deviation_message_edits", underscored: true, timestamps: false });
   }
 }

@@ -1,48 +1,30 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { id, optional, required, timestamps, type Fields } from "../db/columns.ts";
 import type { DeviationDecision, DeviationKind, DeviationStatus } from "../../shared/deviations/vocabulary.ts";
 
-export class Deviation extends Model<InferAttributes<Deviation>, InferCreationAttributes<Deviation>> {
-  declare id: CreationOptional<number>;
-  declare contractId: number;
-  declare lotId: number;
-  declare analysisId: number | null;
-  declare kind: DeviationKind;
+const columns = {
+  id,
+  contractId: required<number>(DataTypes.INTEGER),
+  lotId: required<number>(DataTypes.INTEGER),
+  analysisId: optional<number>(DataTypes.INTEGER),
+  kind: required<DeviationKind>(DataTypes.ENUM("result", "transit", "manual", "audit")),
   /** The paid audit whose results opened it; its laboratory may read it. */
-  declare auditOrderId: CreationOptional<number | null>;
-  declare status: DeviationStatus;
-  declare parameters: string[];
-  declare summary: string;
-  declare openedBy: number | null;
-  declare respondBy: CreationOptional<Date | null>;
-  declare decision: CreationOptional<DeviationDecision | null>;
-  declare decidedAt: CreationOptional<Date | null>;
-  declare decidedBy: CreationOptional<number | null>;
-  declare deadlineWarnedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
+  auditOrderId: optional<number>(DataTypes.INTEGER),
+  status: required<DeviationStatus>(DataTypes.STRING(30)),
+  parameters: required<string[]>(DataTypes.JSON),
+  summary: required<string>(DataTypes.TEXT),
+  openedBy: optional<number>(DataTypes.INTEGER),
+  respondBy: optional<Date>(DataTypes.DATE(3)),
+  decision: optional<DeviationDecision>(DataTypes.JSON),
+  decidedAt: optional<Date>(DataTypes.DATE(3)),
+  decidedBy: optional<number>(DataTypes.INTEGER),
+  deadlineWarnedAt: optional<Date>(DataTypes.DATE(3)),
+  ...timestamps,
+};
 
+export interface Deviation extends Fields<typeof columns> {}
+export class Deviation extends Model<InferAttributes<Deviation>, InferCreationAttributes<Deviation>> {
   static initModel(sequelize: Sequelize) {
-    Deviation.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        contractId: { type: DataTypes.INTEGER, allowNull: false },
-        lotId: { type: DataTypes.INTEGER, allowNull: false },
-        analysisId: { type: DataTypes.INTEGER, allowNull: true },
-        kind: { type: DataTypes.ENUM("result", "transit", "manual", "audit"), allowNull: false },
-        auditOrderId: { type: DataTypes.INTEGER, allowNull: true },
-        status: { type: DataTypes.STRING(30), allowNull: false },
-        parameters: { type: DataTypes.JSON, allowNull: false },
-        summary: { type: DataTypes.TEXT, allowNull: false },
-        openedBy: { type: DataTypes.INTEGER, allowNull: true },
-        respondBy: { type: DataTypes.DATE(3), allowNull: true },
-        decision: { type: DataTypes.JSON, allowNull: true },
-        decidedAt: { type: DataTypes.DATE(3), allowNull: true },
-        decidedBy: { type: DataTypes.INTEGER, allowNull: true },
-        deadlineWarnedAt: { type: DataTypes.DATE(3), allowNull: true },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "deviations", underscored: true },
-    );
+    Deviation.init(columns, { sequelize, tableName: "deviations", underscored: true });
   }
 }

@@ -1,35 +1,23 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import { ROLES, type Role } from "../../shared/auth/roles.ts";
+import { id, optional, required, timestamps, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  organisationId: required<number>(DataTypes.INTEGER),
+  email: required<string>(DataTypes.STRING(254)),
+  role: required<Role>(DataTypes.ENUM(...ROLES)),
+  tokenHash: required<string>(DataTypes.CHAR(64)),
+  invitedByUserId: optional<number>(DataTypes.INTEGER),
+  expiresAt: required<Date>(DataTypes.DATE(3)),
+  acceptedAt: optional<Date>(DataTypes.DATE(3)),
+  revokedAt: optional<Date>(DataTypes.DATE(3)),
+  ...timestamps,
+};
+
+export interface Invitation extends Fields<typeof columns> {}
 export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
-  declare id: CreationOptional<number>;
-  declare organisationId: number;
-  declare email: string;
-  declare role: Role;
-  declare tokenHash: string;
-  declare invitedByUserId: number | null;
-  declare expiresAt: Date;
-  declare acceptedAt: CreationOptional<Date | null>;
-  declare revokedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
   static initModel(sequelize: Sequelize) {
-    Invitation.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        organisationId: { type: DataTypes.INTEGER, allowNull: false },
-        email: { type: DataTypes.STRING(254), allowNull: false },
-        role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
-        tokenHash: { type: DataTypes.CHAR(64), allowNull: false },
-        invitedByUserId: { type: DataTypes.INTEGER, allowNull: true },
-        expiresAt: { type: DataTypes.DATE(3), allowNull: false },
-        acceptedAt: { type: DataTypes.DATE(3), allowNull: true },
-        revokedAt: { type: DataTypes.DATE(3), allowNull: true },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "invitations", underscored: true },
-    );
+    Invitation.init(columns, { sequelize, tableName: "invitations", underscored: true });
   }
 }

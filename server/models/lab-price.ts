@@ -1,24 +1,18 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { id, required, updatedAt, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  organisationId: required<number>(DataTypes.INTEGER),
+  parameter: required<string>(DataTypes.STRING(40)),
+  priceCents: required<number>(DataTypes.INTEGER),
+  currency: required<string>(DataTypes.CHAR(3)),
+  updatedAt,
+};
+
+export interface LabPrice extends Fields<typeof columns> {}
 export class LabPrice extends Model<InferAttributes<LabPrice>, InferCreationAttributes<LabPrice>> {
-  declare id: CreationOptional<number>;
-  declare organisationId: number;
-  declare parameter: string;
-  declare priceCents: number;
-  declare currency: string;
-  declare updatedAt: CreationOptional<Date>;
-
   static initModel(sequelize: Sequelize) {
-    LabPrice.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        organisationId: { type: DataTypes.INTEGER, allowNull: false },
-        parameter: { type: DataTypes.STRING(40), allowNull: false },
-        priceCents: { type: DataTypes.INTEGER, allowNull: false },
-        currency: { type: DataTypes.CHAR(3), allowNull: false },
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "lab_prices", underscored: true, createdAt: false },
-    );
+    LabPrice.init(columns, { sequelize, tableName: "lab_prices", underscored: true, createdAt: false });
   }
 }

@@ -1,25 +1,18 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import { ROLES, type Role } from "../../shared/auth/roles.ts";
+import { id, required, timestamps, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  userId: required<number>(DataTypes.INTEGER),
+  organisationId: required<number>(DataTypes.INTEGER),
+  role: required<Role>(DataTypes.ENUM(...ROLES)),
+  ...timestamps,
+};
+
+export interface Membership extends Fields<typeof columns> {}
 export class Membership extends Model<InferAttributes<Membership>, InferCreationAttributes<Membership>> {
-  declare id: CreationOptional<number>;
-  declare userId: number;
-  declare organisationId: number;
-  declare role: Role;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
   static initModel(sequelize: Sequelize) {
-    Membership.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        userId: { type: DataTypes.INTEGER, allowNull: false },
-        organisationId: { type: DataTypes.INTEGER, allowNull: false },
-        role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "memberships", underscored: true },
-    );
+    Membership.init(columns, { sequelize, tableName: "memberships", underscored: true });
   }
 }

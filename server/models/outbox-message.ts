@@ -1,36 +1,23 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { defaulted, id, optional, required, timestamps, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  messageKey: required<string>(DataTypes.CHAR(36)),
+  toAddress: required<string>(DataTypes.STRING(254)),
+  subject: required<string>(DataTypes.STRING(250)),
+  textBody: required<string>(DataTypes.TEXT("medium")),
+  status: defaulted<"pending" | "sent" | "dead">(DataTypes.ENUM("pending", "sent", "dead"), "pending"),
+  attempts: defaulted<number>(DataTypes.INTEGER, 0),
+  nextAttemptAt: required<Date>(DataTypes.DATE(3)),
+  lastError: optional<string>(DataTypes.STRING(500)),
+  sentAt: optional<Date>(DataTypes.DATE(3)),
+  ...timestamps,
+};
+
+export interface OutboxMessage extends Fields<typeof columns> {}
 export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCreationAttributes<OutboxMessage>> {
-  declare id: CreationOptional<number>;
-  declare messageKey: string;
-  declare toAddress: string;
-  declare subject: string;
-  declare textBody: string;
-  declare status: CreationOptional<"pending" | "sent" | "dead">;
-  declare attempts: CreationOptional<number>;
-  declare nextAttemptAt: Date;
-  declare lastError: CreationOptional<string | null>;
-  declare sentAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
   static initModel(sequelize: Sequelize) {
-    OutboxMessage.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        messageKey: { type: DataTypes.CHAR(36), allowNull: false },
-        toAddress: { type: DataTypes.STRING(254), allowNull: false },
-        subject: { type: DataTypes.STRING(250), allowNull: false },
-        textBody: { type: DataTypes.TEXT("medium"), allowNull: false },
-        status: { type: DataTypes.ENUM("pending", "sent", "dead"), allowNull: false, defaultValue: "pending" },
-        attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        nextAttemptAt: { type: DataTypes.DATE(3), allowNull: false },
-        lastError: { type: DataTypes.STRING(500), allowNull: true },
-        sentAt: { type: DataTypes.DATE(3), allowNull: true },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "outbox_messages", underscored: true },
-    );
+    OutboxMessage.init(columns, { sequelize, tableName: "outbox_messages", underscored: true });
   }
 }

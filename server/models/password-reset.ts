@@ -1,26 +1,18 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { id, optional, required, timestamps, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  userId: required<number>(DataTypes.INTEGER),
+  tokenHash: required<string>(DataTypes.CHAR(64)),
+  expiresAt: required<Date>(DataTypes.DATE(3)),
+  usedAt: optional<Date>(DataTypes.DATE(3)),
+  ...timestamps,
+};
+
+export interface PasswordReset extends Fields<typeof columns> {}
 export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
-  declare id: CreationOptional<number>;
-  declare userId: number;
-  declare tokenHash: string;
-  declare expiresAt: Date;
-  declare usedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
   static initModel(sequelize: Sequelize) {
-    PasswordReset.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        userId: { type: DataTypes.INTEGER, allowNull: false },
-        tokenHash: { type: DataTypes.CHAR(64), allowNull: false },
-        expiresAt: { type: DataTypes.DATE(3), allowNull: false },
-        usedAt: { type: DataTypes.DATE(3), allowNull: true },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "password_resets", underscored: true },
-    );
+    PasswordReset.init(columns, { sequelize, tableName: "password_resets", underscored: true });
   }
 }

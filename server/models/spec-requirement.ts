@@ -1,39 +1,27 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { DecisionRule } from "../../shared/engine/index.ts";
 import type { Severity, Stage } from "../../shared/specs/vocabulary.ts";
 import type { UnitId } from "../../shared/engine/index.ts";
+import { id, optional, required, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  specVersionId: required<number>(DataTypes.INTEGER),
+  position: required<number>(DataTypes.SMALLINT),
+  parameter: required<string>(DataTypes.STRING(40)),
+  unit: required<UnitId>(DataTypes.STRING(30)),
+  lower: optional<number>(DataTypes.DOUBLE),
+  upper: optional<number>(DataTypes.DOUBLE),
+  target: optional<number>(DataTypes.DOUBLE),
+  method: optional<string>(DataTypes.STRING(120)),
+  rule: required<DecisionRule>(DataTypes.JSON),
+  severity: required<Severity>(DataTypes.ENUM("critical", "major", "minor")),
+  stages: required<Stage[]>(DataTypes.JSON),
+};
+
+export interface SpecRequirement extends Fields<typeof columns> {}
 export class SpecRequirement extends Model<InferAttributes<SpecRequirement>, InferCreationAttributes<SpecRequirement>> {
-  declare id: CreationOptional<number>;
-  declare specVersionId: number;
-  declare position: number;
-  declare parameter: string;
-  declare unit: UnitId;
-  declare lower: number | null;
-  declare upper: number | null;
-  declare target: number | null;
-  declare method: string | null;
-  declare rule: DecisionRule;
-  declare severity: Severity;
-  declare stages: Stage[];
-
   static initModel(sequelize: Sequelize) {
-    SpecRequirement.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        specVersionId: { type: DataTypes.INTEGER, allowNull: false },
-        position: { type: DataTypes.SMALLINT, allowNull: false },
-        parameter: { type: DataTypes.STRING(40), allowNull: false },
-        unit: { type: DataTypes.STRING(30), allowNull: false },
-        lower: { type: DataTypes.DOUBLE, allowNull: true },
-        upper: { type: DataTypes.DOUBLE, allowNull: true },
-        target: { type: DataTypes.DOUBLE, allowNull: true },
-        method: { type: DataTypes.STRING(120), allowNull: true },
-        rule: { type: DataTypes.JSON, allowNull: false },
-        severity: { type: DataTypes.ENUM("critical", "major", "minor"), allowNull: false },
-        stages: { type: DataTypes.JSON, allowNull: false },
-      },
-      { sequelize, tableName: "spec_requirements", underscored: true, timestamps: false },
-    );
+    SpecRequirement.init(columns, { sequelize, tableName: "spec_requirements", underscored: true, timestamps: false });
   }
 }

@@ -1,45 +1,28 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import { SPEC_STATUSES, type SpecStatus, type Stage } from "../../shared/specs/vocabulary.ts";
+import { defaulted, id, optional, required, timestamps, type Fields } from "../db/columns.ts";
 
+const columns = {
+  id,
+  contractId: required<number>(DataTypes.INTEGER),
+  number: required<number>(DataTypes.INTEGER),
+  status: required<SpecStatus>(DataTypes.ENUM(...SPEC_STATUSES)),
+  title: optional<string>(DataTypes.STRING(160)),
+  vintageFrom: required<number>(DataTypes.SMALLINT),
+  vintageTo: optional<number>(DataTypes.SMALLINT),
+  stages: required<Stage[]>(DataTypes.JSON),
+  basedOnVersionId: optional<number>(DataTypes.INTEGER),
+  lockVersion: defaulted<number>(DataTypes.INTEGER, 0),
+  createdBy: required<number>(DataTypes.INTEGER),
+  sentAt: optional<Date>(DataTypes.DATE(3)),
+  decidedAt: optional<Date>(DataTypes.DATE(3)),
+  decidedBy: optional<number>(DataTypes.INTEGER),
+  ...timestamps,
+};
+
+export interface SpecVersion extends Fields<typeof columns> {}
 export class SpecVersion extends Model<InferAttributes<SpecVersion>, InferCreationAttributes<SpecVersion>> {
-  declare id: CreationOptional<number>;
-  declare contractId: number;
-  declare number: number;
-  declare status: SpecStatus;
-  declare title: string | null;
-  declare vintageFrom: number;
-  declare vintageTo: number | null;
-  declare stages: Stage[];
-  declare basedOnVersionId: number | null;
-  declare lockVersion: CreationOptional<number>;
-  declare createdBy: number;
-  declare sentAt: CreationOptional<Date | null>;
-  declare decidedAt: CreationOptional<Date | null>;
-  declare decidedBy: CreationOptional<number | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
   static initModel(sequelize: Sequelize) {
-    SpecVersion.init(
-      {
-        id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        contractId: { type: DataTypes.INTEGER, allowNull: false },
-        number: { type: DataTypes.INTEGER, allowNull: false },
-        status: { type: DataTypes.ENUM(...SPEC_STATUSES), allowNull: false },
-        title: { type: DataTypes.STRING(160), allowNull: true },
-        vintageFrom: { type: DataTypes.SMALLINT, allowNull: false },
-        vintageTo: { type: DataTypes.SMALLINT, allowNull: true },
-        stages: { type: DataTypes.JSON, allowNull: false },
-        basedOnVersionId: { type: DataTypes.INTEGER, allowNull: true },
-        lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        createdBy: { type: DataTypes.INTEGER, allowNull: false },
-        sentAt: { type: DataTypes.DATE(3), allowNull: true },
-        decidedAt: { type: DataTypes.DATE(3), allowNull: true },
-        decidedBy: { type: DataTypes.INTEGER, allowNull: true },
-        createdAt: DataTypes.DATE(3),
-        updatedAt: DataTypes.DATE(3),
-      },
-      { sequelize, tableName: "spec_versions", underscored: true },
-    );
+    SpecVersion.init(columns, { sequelize, tableName: "spec_versions", underscored: true });
   }
 }
