@@ -46,15 +46,44 @@ export interface SignedInContext<B, Q, P> extends RouteContext<B, Q, P> {
   user: SessionUser;
 }
 
+/** A route's declaration without its method, path and tag, which the section's verb methods supply. */
+export type RouteOptions<B, Q, P> = Omit<RouteSpec<B, Q, P>, "method" | "path" | "tag">;
+type Handler<B, Q, P> = (ctx: SignedInContext<B, Q, P>) => Promise<unknown> | unknown;
+
+/** Routes under one OpenAPI tag, declared as `section.post(path, options, handler)`. */
+export class RouteSection {
+  constructor(
+    private readonly registry: RouteRegistry,
+    private readonly tag: string,
+  ) {}
+
+  get<B = undefined, Q = undefined, P = undefined>(path: string, options: RouteOptions<B, Q, P>, handler: Handler<B, Q, P>) {
+    this.registry.add({ method: "get", path, tag: this.tag, ...options }, handler);
+  }
+  post<B = undefined, Q = undefined, P = undefined>(path: string, options: RouteOptions<B, Q, P>, handler: Handler<B, Q, P>) {
+    this.registry.add({ method: "post", path, tag: this.tag, ...options }, handler);
+  }
+  put<B = undefined, Q = undefined, P = undefined>(path: string, options: RouteOptions<B, Q, P>, handler: Handler<B, Q, P>) {
+    this.registry.add({ method: "put", path, tag: this.tag, ...options }, handler);
+  }
+  patch<B = undefined, Q = undefined, P = undefined>(path: string, options: RouteOptions<B, Q, P>, handler: Handler<B, Q, P>) {
+    this.registry.add({ method: "patch", path, tag: this.tag, ...options }, handler);
+  }
+  delete<B = undefined, Q = undefined, P = undefined>(path: string, options: RouteOptions<B, Q, P>, handler: Handler<B, Q, P>) {
+    this.registry.add({ method: "delete", path, tag: this.tag, ...options }, handler);
+  }
+}
+
 export class RouteRegistry {
   readonly routes: RouteSpec[] = [];
 
   constructor(private readonly router: Router) {}
 
-  add<B = undefined, Q = undefined, P = undefined>(
-    spec: RouteSpec<B, Q, P>,
-    handler: (ctx: SignedInContext<B, Q, P>) => Promise<unknown> | unknown,
-  ): void {
+  section(tag: string): RouteSection {
+    return new RouteSection(this, tag);
+  }
+
+  add<B = undefined, Q = undefined, P = undefined>(spec: RouteSpec<B, Q, P>, handler: Handler<B, Q, P>): void {
     if (this.routes.some((r) => r.method === spec.method && r.path === spec.path)) {
       throw new Error(`route declared twice: ${spec.method} ${spec.path}`);
     }

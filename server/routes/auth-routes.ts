@@ -16,11 +16,11 @@ import * as invitations from "../services/invitation-service.ts";
 import { csrfTokenFor } from "../services/session-service.ts";
 
 export function registerAuthRoutes(r: RouteRegistry, cookies: CookieSettings): void {
-  r.add(
+  const authRoutes = r.section("auth");
+  const profileRoutes = r.section("profile");
+  authRoutes.post(
+    "/api/auth/sign-in",
     {
-      method: "post",
-      path: "/api/auth/sign-in",
-      tag: "auth",
       summary: "Sign in with e-mail and password",
       access: PUBLIC,
       body: signInSchema,
@@ -33,40 +33,28 @@ export function registerAuthRoutes(r: RouteRegistry, cookies: CookieSettings): v
     },
   );
 
-  r.add(
-    { method: "post", path: "/api/auth/sign-out", tag: "auth", summary: "Sign out everywhere", access: SIGNED_IN },
-    async ({ user, res }) => {
-      await auth.signOut(user.id);
-      endSession(res, cookies);
-    },
-  );
+  authRoutes.post("/api/auth/sign-out", { summary: "Sign out everywhere", access: SIGNED_IN }, async ({ user, res }) => {
+    await auth.signOut(user.id);
+    endSession(res, cookies);
+  });
 
-  r.add({ method: "get", path: "/api/auth/session", tag: "auth", summary: "The current user, or null", access: PUBLIC }, ({ req }) => ({
+  authRoutes.get("/api/auth/session", { summary: "The current user, or null", access: PUBLIC }, ({ req }) => ({
     user: req.user ?? null,
     csrfToken: req.user && req.sessionId ? csrfTokenFor(cookies.secret, req.sessionId) : null,
   }));
 
-  r.add(
-    {
-      method: "post",
-      path: "/api/auth/password-reset/request",
-      tag: "auth",
-      summary: "Mail a one-time password reset link",
-      access: PUBLIC,
-      body: passwordResetRequestSchema,
-      status: 202,
-    },
+  authRoutes.post(
+    "/api/auth/password-reset/request",
+    { summary: "Mail a one-time password reset link", access: PUBLIC, body: passwordResetRequestSchema, status: 202 },
     async ({ body }) => {
       await auth.requestPasswordReset(body.email);
       return { message: "If an account uses this address, a reset link is on its way." };
     },
   );
 
-  r.add(
+  authRoutes.post(
+    "/api/auth/password-reset",
     {
-      method: "post",
-      path: "/api/auth/password-reset",
-      tag: "auth",
       summary: "Set a new password with a reset link",
       access: PUBLIC,
       body: passwordResetSchema,
@@ -78,11 +66,9 @@ export function registerAuthRoutes(r: RouteRegistry, cookies: CookieSettings): v
     },
   );
 
-  r.add(
+  authRoutes.get(
+    "/api/invitations/:token",
     {
-      method: "get",
-      path: "/api/invitations/:token",
-      tag: "auth",
       summary: "What an invitation link offers",
       access: PUBLIC,
       params: z.object({ token: tokenSchema }),
@@ -91,11 +77,9 @@ export function registerAuthRoutes(r: RouteRegistry, cookies: CookieSettings): v
     ({ params }) => invitations.previewInvitation(params.token),
   );
 
-  r.add(
+  authRoutes.post(
+    "/api/invitations/accept",
     {
-      method: "post",
-      path: "/api/invitations/accept",
-      tag: "auth",
       summary: "Accept an invitation by choosing a password",
       access: PUBLIC,
       body: acceptInvitationSchema,
@@ -109,20 +93,13 @@ export function registerAuthRoutes(r: RouteRegistry, cookies: CookieSettings): v
     },
   );
 
-  r.add(
-    { method: "patch", path: "/api/me", tag: "profile", summary: "Change your display name", access: SIGNED_IN, body: profileSchema },
-    ({ user, body }) => auth.updateProfile(user.id, body.name),
+  profileRoutes.patch("/api/me", { summary: "Change your display name", access: SIGNED_IN, body: profileSchema }, ({ user, body }) =>
+    auth.updateProfile(user.id, body.name),
   );
 
-  r.add(
-    {
-      method: "post",
-      path: "/api/me/password",
-      tag: "profile",
-      summary: "Change your password (signs out other sessions)",
-      access: SIGNED_IN,
-      body: changePasswordSchema,
-    },
+  profileRoutes.post(
+    "/api/me/password",
+    { summary: "Change your password (signs out other sessions)", access: SIGNED_IN, body: changePasswordSchema },
     async ({ user, body, res }) => {
       const sessionVersion = await auth.changePassword(user.id, body.currentPassword, body.newPassword);
       const csrfToken = startSession(res, cookies, user.id, sessionVersion);

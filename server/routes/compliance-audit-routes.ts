@@ -17,34 +17,21 @@ const BUYERS = allowed("audits.browse");
 const READERS = allowed("audits.read");
 
 export function registerComplianceAuditRoutes(r: RouteRegistry): void {
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/laboratories",
-      tag: "audits",
-      summary: "Laboratories and their price lists, to order an audit from",
-      access: BUYERS,
-      params: orgParams,
-    },
+  const routes = r.section("audits");
+  routes.get(
+    "/api/orgs/:orgId/laboratories",
+    { summary: "Laboratories and their price lists, to order an audit from", access: BUYERS, params: orgParams },
     () => listLaboratories(),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/price-list",
-      tag: "audits",
-      summary: "Your laboratory's price list",
-      access: allowed("prices.read"),
-      params: orgParams,
-    },
+  routes.get(
+    "/api/orgs/:orgId/price-list",
+    { summary: "Your laboratory's price list", access: allowed("prices.read"), params: orgParams },
     ({ params }) => priceList(params.orgId),
   );
-  r.add(
+  routes.put(
+    "/api/orgs/:orgId/price-list",
     {
-      method: "put",
-      path: "/api/orgs/:orgId/price-list",
-      tag: "audits",
       summary: "Replace your laboratory's price list (prices in integer cents)",
       access: allowed("prices.manage"),
       params: orgParams,
@@ -53,11 +40,9 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
     ({ params, user, body }) => setPriceList(params.orgId, user, body),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/audit-orders",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/audit-orders",
-      tag: "audits",
       summary: "Order an independent audit of lots (priced from the laboratory's list; idempotent by key)",
       access: FINANCE,
       params: orgParams,
@@ -67,11 +52,9 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
     },
     async ({ params, user, body, res }) => idempotentAnswer(res, await orders.createOrder(params.orgId, user, body)),
   );
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/audit-orders",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/audit-orders",
-      tag: "audits",
       summary: "Audit orders you placed, carry out, or whose lots are yours",
       access: READERS,
       params: orgParams,
@@ -79,22 +62,14 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
     },
     ({ params, query }) => orders.listOrders(params.orgId, query),
   );
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/audit-orders/:orderId",
-      tag: "audits",
-      summary: "One audit order: lines, payments (buyer only), lots, comparisons and verdicts",
-      access: READERS,
-      params: orderParams,
-    },
+  routes.get(
+    "/api/orgs/:orgId/audit-orders/:orderId",
+    { summary: "One audit order: lines, payments (buyer only), lots, comparisons and verdicts", access: READERS, params: orderParams },
     ({ params, membership }) => orders.getOrder(params.orgId, params.orderId, membership!),
   );
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/audit-orders/:orderId/checkout",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/audit-orders/:orderId/checkout",
-      tag: "audits",
       summary: "Open the hosted payment page (one Stripe Checkout Session per order)",
       access: FINANCE,
       params: orderParams,
@@ -102,11 +77,9 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
     },
     ({ params, user }) => orders.startCheckout(params.orgId, params.orderId, user),
   );
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/audit-orders/:orderId/refund",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/audit-orders/:orderId/refund",
-      tag: "audits",
       summary: "Refund a paid order whose results are not in (recorded when Stripe confirms)",
       access: FINANCE,
       params: orderParams,
@@ -116,26 +89,17 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
     },
     ({ params, user, body }) => orders.requestRefund(params.orgId, params.orderId, user, body.reason),
   );
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/audit-orders/:orderId/invoice.pdf",
-      tag: "audits",
-      summary: "The order's invoice, or its receipt once paid",
-      access: BUYERS,
-      params: orderParams,
-      produces: "application/pdf",
-    },
+  routes.get(
+    "/api/orgs/:orgId/audit-orders/:orderId/invoice.pdf",
+    { summary: "The order's invoice, or its receipt once paid", access: BUYERS, params: orderParams, produces: "application/pdf" },
     async ({ params, membership, res }) => {
       const { filename, pdf } = await invoicePdf(params.orgId, params.orderId, membership!.role);
       res.status(200).type("application/pdf").attachment(filename).send(pdf);
     },
   );
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/audit-orders/:orderId/results",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/audit-orders/:orderId/results",
-      tag: "audits",
       summary: "The laboratory submits its results for a paid order (idempotent by key)",
       access: allowed("audits.report"),
       params: orderParams,
@@ -145,11 +109,9 @@ export function registerComplianceAuditRoutes(r: RouteRegistry): void {
     },
     async ({ params, user, body, res }) => idempotentAnswer(res, await submitLabResults(params.orgId, params.orderId, user, body)),
   );
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/audit-dashboard",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/audit-dashboard",
-      tag: "audits",
       summary: "Spend per producer and month, outstanding and refunded",
       access: FINANCE,
       params: orgParams,

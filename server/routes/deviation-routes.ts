@@ -25,27 +25,20 @@ const DISCUSSANTS = allowed("deviations.discuss");
 const BUYER = allowed("deviations.decide");
 
 export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxBytes: number }): void {
+  const deviationsRoutes = r.section("deviations");
+  const notificationsRoutes = r.section("notifications");
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.attachmentMaxBytes, files: 1, fields: 0 } }).single(
     "file",
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/deviations",
-      tag: "deviations",
-      summary: "Deviations on your contracts",
-      access: PARTIES,
-      params: orgParams,
-      query: deviationListQuerySchema,
-    },
+  deviationsRoutes.get(
+    "/api/orgs/:orgId/deviations",
+    { summary: "Deviations on your contracts", access: PARTIES, params: orgParams, query: deviationListQuerySchema },
     ({ params, query }) => queries.listDeviations(params.orgId, query),
   );
-  r.add(
+  deviationsRoutes.post(
+    "/api/orgs/:orgId/deviations",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/deviations",
-      tag: "deviations",
       summary: "Open a deviation by hand, with a reason",
       access: DISCUSSANTS,
       params: orgParams,
@@ -54,22 +47,14 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
     },
     ({ params, user, body }) => commands.openManualDeviation(params.orgId, user, body),
   );
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/deviations/:deviationId",
-      tag: "deviations",
-      summary: "One deviation with the verdicts that opened it and its discussion",
-      access: PARTIES,
-      params: devParams,
-    },
+  deviationsRoutes.get(
+    "/api/orgs/:orgId/deviations/:deviationId",
+    { summary: "One deviation with the verdicts that opened it and its discussion", access: PARTIES, params: devParams },
     ({ params, user, membership }) => queries.getDeviation(params.orgId, params.deviationId, user, membership!),
   );
-  r.add(
+  deviationsRoutes.post(
+    "/api/orgs/:orgId/deviations/:deviationId/messages",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/deviations/:deviationId/messages",
-      tag: "deviations",
       summary: "Comment, reply, propose an outcome or accept a proposal",
       access: DISCUSSANTS,
       params: devParams,
@@ -79,11 +64,9 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
     },
     ({ params, user, body }) => commands.postMessage(params.orgId, params.deviationId, user, body),
   );
-  r.add(
+  deviationsRoutes.patch(
+    "/api/orgs/:orgId/deviations/:deviationId/messages/:messageId",
     {
-      method: "patch",
-      path: "/api/orgs/:orgId/deviations/:deviationId/messages/:messageId",
-      tag: "deviations",
       summary: "Edit your message (the earlier wording is kept)",
       access: DISCUSSANTS,
       params: devParams.extend({ messageId: idParam }),
@@ -91,11 +74,9 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
     },
     ({ params, user, body }) => commands.editMessage(params.orgId, params.deviationId, params.messageId, user, body.body),
   );
-  r.add(
+  deviationsRoutes.post(
+    "/api/orgs/:orgId/deviations/:deviationId/messages/:messageId/attachments",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/deviations/:deviationId/messages/:messageId/attachments",
-      tag: "deviations",
       summary: "Attach a PDF or image to your message",
       access: DISCUSSANTS,
       params: devParams.extend({ messageId: idParam }),
@@ -109,11 +90,9 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
       return commands.attachToMessage(params.orgId, params.deviationId, params.messageId, user, req.file);
     },
   );
-  r.add(
+  deviationsRoutes.get(
+    "/api/orgs/:orgId/deviation-attachments/:attachmentId",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/deviation-attachments/:attachmentId",
-      tag: "deviations",
       summary: "Download an attachment",
       access: PARTIES,
       params: orgParams.extend({ attachmentId: idParam }),
@@ -124,11 +103,9 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
       res.status(200).type(a.mime).attachment(a.filename).send(a.body);
     },
   );
-  r.add(
+  deviationsRoutes.post(
+    "/api/orgs/:orgId/deviations/:deviationId/decision",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/deviations/:deviationId/decision",
-      tag: "deviations",
       summary: "Decide a deviation, with a reason (buyer's technologist)",
       access: BUYER,
       params: devParams,
@@ -137,68 +114,38 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
     },
     ({ params, user, body }) => commands.decide(params.orgId, params.deviationId, user, body),
   );
-  r.add(
-    {
-      method: "post",
-      path: "/api/orgs/:orgId/deviations/:deviationId/close",
-      tag: "deviations",
-      summary: "Close a decided deviation once its conditions are met",
-      access: BUYER,
-      params: devParams,
-      errors: { 409: "not decided" },
-    },
+  deviationsRoutes.post(
+    "/api/orgs/:orgId/deviations/:deviationId/close",
+    { summary: "Close a decided deviation once its conditions are met", access: BUYER, params: devParams, errors: { 409: "not decided" } },
     ({ params, user }) => commands.closeDeviation(params.orgId, params.deviationId, user),
   );
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/deviations/:deviationId/pdf",
-      tag: "deviations",
-      summary: "The deviation record as a PDF",
-      access: PARTIES,
-      params: devParams,
-      produces: "application/pdf",
-    },
+  deviationsRoutes.get(
+    "/api/orgs/:orgId/deviations/:deviationId/pdf",
+    { summary: "The deviation record as a PDF", access: PARTIES, params: devParams, produces: "application/pdf" },
     async ({ params, user, membership, res }) => {
       const { filename, pdf } = await deviationPdf(params.orgId, params.deviationId, user, membership!);
       res.status(200).type("application/pdf").attachment(filename).send(pdf);
     },
   );
 
-  r.add(
-    { method: "get", path: "/api/me/notifications", tag: "notifications", summary: "Your notifications, newest first", access: SIGNED_IN },
-    ({ user }) => notifications.listNotifications(user.id),
+  notificationsRoutes.get("/api/me/notifications", { summary: "Your notifications, newest first", access: SIGNED_IN }, ({ user }) =>
+    notifications.listNotifications(user.id),
   );
-  r.add(
+  notificationsRoutes.post(
+    "/api/me/notifications/read",
     {
-      method: "post",
-      path: "/api/me/notifications/read",
-      tag: "notifications",
       summary: "Mark notifications read",
       access: SIGNED_IN,
       body: z.object({ ids: z.union([z.literal("all"), z.array(z.number().int().positive()).max(500)]) }),
     },
     ({ user, body }) => notifications.markRead(user.id, body.ids),
   );
-  r.add(
-    {
-      method: "get",
-      path: "/api/me/notification-preferences",
-      tag: "notifications",
-      summary: "Your notification preferences",
-      access: SIGNED_IN,
-    },
-    ({ user }) => notifications.preferencesOf(user.id),
+  notificationsRoutes.get("/api/me/notification-preferences", { summary: "Your notification preferences", access: SIGNED_IN }, ({ user }) =>
+    notifications.preferencesOf(user.id),
   );
-  r.add(
-    {
-      method: "put",
-      path: "/api/me/notification-preferences",
-      tag: "notifications",
-      summary: "Choose e-mail now, a daily digest or none, and which kinds",
-      access: SIGNED_IN,
-      body: preferencesSchema,
-    },
+  notificationsRoutes.put(
+    "/api/me/notification-preferences",
+    { summary: "Choose e-mail now, a daily digest or none, and which kinds", access: SIGNED_IN, body: preferencesSchema },
     ({ user, body }) => notifications.setPreferences(user.id, body),
   );
 }

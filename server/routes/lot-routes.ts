@@ -18,16 +18,15 @@ const PRODUCER = allowed("lots.submit");
 const PARTIES = allowed("lots.read");
 
 export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes: number }): void {
+  const routes = r.section("lots");
   // Memory storage with a hard size limit; nothing reaches the disk before the content check passes.
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.certificateMaxBytes, files: 1, fields: 0 } }).single(
     "file",
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/lots",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/lots",
-      tag: "lots",
       summary: "Lots on your contracts",
       access: PARTIES,
       params: orgParams,
@@ -36,25 +35,15 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     ({ params, query }) => queries.listLots(params.orgId, query),
   );
 
-  r.add(
-    {
-      method: "post",
-      path: "/api/orgs/:orgId/lots",
-      tag: "lots",
-      summary: "Register a lot under a contract (producer)",
-      access: PRODUCER,
-      params: orgParams,
-      body: lotSchema,
-      status: 201,
-    },
+  routes.post(
+    "/api/orgs/:orgId/lots",
+    { summary: "Register a lot under a contract (producer)", access: PRODUCER, params: orgParams, body: lotSchema, status: 201 },
     ({ params, user, body }) => submissions.registerLot(params.orgId, user, body),
   );
 
-  r.add(
+  routes.patch(
+    "/api/orgs/:orgId/lots/:lotId",
     {
-      method: "patch",
-      path: "/api/orgs/:orgId/lots/:lotId",
-      tag: "lots",
       summary: "Correct a lot's volume, container, planned date or market (producer)",
       access: PRODUCER,
       params: orgParams.extend({ lotId: idParam }),
@@ -63,11 +52,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     ({ params, user, body }) => submissions.updateLot(params.orgId, params.lotId, user, body),
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/lots/:lotId",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/lots/:lotId",
-      tag: "lots",
       summary: "One lot: governing spec, analyses with stored verdicts, certificates, transit, deviations",
       access: PARTIES,
       params: orgParams.extend({ lotId: idParam }),
@@ -75,11 +62,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     ({ params, membership }) => queries.getLot(params.orgId, params.lotId, membership!.role),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/lots/:lotId/analyses",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/lots/:lotId/analyses",
-      tag: "lots",
       summary: "Submit one analysis; evaluated and stored at once (idempotent by key)",
       access: PRODUCER,
       params: orgParams.extend({ lotId: idParam }),
@@ -90,11 +75,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     async ({ params, user, body, res }) => idempotentAnswer(res, await submissions.submitAnalysis(params.orgId, params.lotId, user, body)),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/lots/:lotId/analyses/:analysisId/rejudge",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/lots/:lotId/analyses/:analysisId/rejudge",
-      tag: "lots",
       summary: "Judge an analysis again against the spec version now in force (a new, recorded analysis; the first stays as it was)",
       access: allowed("lots.rejudge"),
       params: orgParams.extend({ lotId: idParam, analysisId: idParam }),
@@ -104,11 +87,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     ({ params, user }) => rejudgeAnalysis(params.orgId, params.lotId, params.analysisId, user),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/contracts/:contractId/imports",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/contracts/:contractId/imports",
-      tag: "lots",
       summary: "Import a batch of analyses from a CSV (idempotent by key)",
       access: PRODUCER,
       params: orgParams.extend({ contractId: idParam }),
@@ -120,11 +101,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
       idempotentAnswer(res, await submissions.importAnalyses(params.orgId, params.contractId, user, body)),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/analyses/:analysisId/certificates",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/analyses/:analysisId/certificates",
-      tag: "lots",
       summary:
         "Upload the laboratory's certificate (PDF, PNG or JPEG, checked by content): the producer for its analyses, the audit laboratory for its own",
       access: allowed("certificates.attach"),
@@ -140,11 +119,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     },
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/certificates/:certificateId",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/certificates/:certificateId",
-      tag: "lots",
       summary: "Download a certificate",
       access: allowed("certificates.read"),
       params: orgParams.extend({ certificateId: idParam }),
@@ -157,11 +134,9 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     },
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/lots/:lotId/conformity.pdf",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/lots/:lotId/conformity.pdf",
-      tag: "lots",
       summary: "The lot's certificate of conformity, or its analysis statement when the lot's status allows no certificate",
       access: PARTIES,
       params: orgParams.extend({ lotId: idParam }),
@@ -174,23 +149,15 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     },
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/readiness",
-      tag: "lots",
-      summary: "Lots approaching filling or shipment: what is missing, what fails",
-      access: PARTIES,
-      params: orgParams,
-    },
+  routes.get(
+    "/api/orgs/:orgId/readiness",
+    { summary: "Lots approaching filling or shipment: what is missing, what fails", access: PARTIES, params: orgParams },
     ({ params }) => queries.readiness(params.orgId),
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/contracts/:contractId/trend",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/contracts/:contractId/trend",
-      tag: "lots",
       summary: "One parameter across the contract's lots and vintages",
       access: PARTIES,
       params: orgParams.extend({ contractId: idParam }),

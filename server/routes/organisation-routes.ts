@@ -13,35 +13,24 @@ const memberParams = orgParams.extend({ membershipId: idParam });
 const invitationParams = orgParams.extend({ invitationId: idParam });
 
 export function registerOrganisationRoutes(r: RouteRegistry): void {
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId",
-      tag: "organisations",
-      summary: "Your organisation",
-      access: allowed("organisation.read"),
-      params: orgParams,
-    },
+  const organisationsRoutes = r.section("organisations");
+  const membersRoutes = r.section("members");
+  const platformRoutes = r.section("platform");
+  organisationsRoutes.get(
+    "/api/orgs/:orgId",
+    { summary: "Your organisation", access: allowed("organisation.read"), params: orgParams },
     ({ params }) => organisations.getOrganisation(params.orgId),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/members",
-      tag: "members",
-      summary: "Members of your organisation",
-      access: allowed("organisation.read"),
-      params: orgParams,
-    },
+  membersRoutes.get(
+    "/api/orgs/:orgId/members",
+    { summary: "Members of your organisation", access: allowed("organisation.read"), params: orgParams },
     ({ params }) => members.listMembers(params.orgId),
   );
 
-  r.add(
+  membersRoutes.patch(
+    "/api/orgs/:orgId/members/:membershipId",
     {
-      method: "patch",
-      path: "/api/orgs/:orgId/members/:membershipId",
-      tag: "members",
       summary: "Change a member's role",
       access: allowed("members.manage"),
       params: memberParams,
@@ -51,36 +40,21 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
     ({ params, body, user }) => members.changeRole(params.orgId, params.membershipId, body.role, user.id),
   );
 
-  r.add(
-    {
-      method: "delete",
-      path: "/api/orgs/:orgId/members/:membershipId",
-      tag: "members",
-      summary: "Remove a member",
-      access: allowed("members.manage"),
-      params: memberParams,
-      errors: { 409: "would leave no admin" },
-    },
+  membersRoutes.delete(
+    "/api/orgs/:orgId/members/:membershipId",
+    { summary: "Remove a member", access: allowed("members.manage"), params: memberParams, errors: { 409: "would leave no admin" } },
     ({ params, user }) => members.removeMember(params.orgId, params.membershipId, user.id),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/invitations",
-      tag: "members",
-      summary: "Open invitations",
-      access: allowed("members.manage"),
-      params: orgParams,
-    },
+  membersRoutes.get(
+    "/api/orgs/:orgId/invitations",
+    { summary: "Open invitations", access: allowed("members.manage"), params: orgParams },
     ({ params }) => invitations.listOpenInvitations(params.orgId),
   );
 
-  r.add(
+  membersRoutes.post(
+    "/api/orgs/:orgId/invitations",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/invitations",
-      tag: "members",
       summary: "Invite someone by e-mail",
       access: allowed("members.manage"),
       params: orgParams,
@@ -91,27 +65,19 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
     ({ params, body, user }) => invitations.invite(params.orgId, user, body.email, body.role),
   );
 
-  r.add(
-    {
-      method: "delete",
-      path: "/api/orgs/:orgId/invitations/:invitationId",
-      tag: "members",
-      summary: "Revoke an open invitation",
-      access: allowed("members.manage"),
-      params: invitationParams,
-    },
+  membersRoutes.delete(
+    "/api/orgs/:orgId/invitations/:invitationId",
+    { summary: "Revoke an open invitation", access: allowed("members.manage"), params: invitationParams },
     ({ params, user }) => invitations.revokeInvitation(params.orgId, params.invitationId, user.id),
   );
 
-  r.add({ method: "get", path: "/api/platform/organisations", tag: "platform", summary: "All organisations", access: PLATFORM_ADMIN }, () =>
+  platformRoutes.get("/api/platform/organisations", { summary: "All organisations", access: PLATFORM_ADMIN }, () =>
     organisations.listOrganisations(),
   );
 
-  r.add(
+  platformRoutes.post(
+    "/api/platform/organisations",
     {
-      method: "post",
-      path: "/api/platform/organisations",
-      tag: "platform",
       summary: "Open an organisation and invite its first admin",
       access: PLATFORM_ADMIN,
       body: createOrganisationSchema,
@@ -121,14 +87,7 @@ export function registerOrganisationRoutes(r: RouteRegistry): void {
     ({ body, user }) => organisations.createOrganisation(body, user),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/platform/trail/verify",
-      tag: "platform",
-      summary: "Verify the whole trail's hash chain",
-      access: PLATFORM_ADMIN,
-    },
-    () => verifyTrailChain(),
+  platformRoutes.get("/api/platform/trail/verify", { summary: "Verify the whole trail's hash chain", access: PLATFORM_ADMIN }, () =>
+    verifyTrailChain(),
   );
 }

@@ -7,11 +7,10 @@ import { applyStripeEvent } from "../services/payments/webhook-service.ts";
 export const STRIPE_WEBHOOK_PATH = "/api/webhooks/stripe";
 
 export function registerPaymentWebhookRoutes(r: RouteRegistry): void {
-  r.add(
+  const routes = r.section("payments");
+  routes.post(
+    STRIPE_WEBHOOK_PATH,
     {
-      method: "post",
-      path: STRIPE_WEBHOOK_PATH,
-      tag: "payments",
       summary: "Stripe's events (signed; each applied once, duplicates answered 200)",
       access: PUBLIC,
       consumes: "application/json",

@@ -26,23 +26,16 @@ const PARTIES = allowed("specs.read");
 const COMMENTERS = allowed("specs.comment");
 
 export function registerSpecRoutes(r: RouteRegistry): void {
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/contracts",
-      tag: "specs",
-      summary: "Contracts your organisation is party to, with their versions",
-      access: PARTIES,
-      params: orgParams,
-    },
+  const routes = r.section("specs");
+  routes.get(
+    "/api/orgs/:orgId/contracts",
+    { summary: "Contracts your organisation is party to, with their versions", access: PARTIES, params: orgParams },
     ({ params }) => queries.listContracts(params.orgId),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/contracts",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/contracts",
-      tag: "specs",
       summary: "Open a contract for a wine bought from a producer",
       access: BUYER,
       params: orgParams,
@@ -57,35 +50,19 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     },
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/producers",
-      tag: "specs",
-      summary: "Producers a buyer can contract with",
-      access: BUYER,
-      params: orgParams,
-    },
-    () => listProducers(),
+  routes.get("/api/orgs/:orgId/producers", { summary: "Producers a buyer can contract with", access: BUYER, params: orgParams }, () =>
+    listProducers(),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/contracts/:contractId",
-      tag: "specs",
-      summary: "One contract with its spec versions",
-      access: PARTIES,
-      params: contractParams,
-    },
+  routes.get(
+    "/api/orgs/:orgId/contracts/:contractId",
+    { summary: "One contract with its spec versions", access: PARTIES, params: contractParams },
     ({ params, membership }) => queries.getContract(params.orgId, params.contractId, membership!.role),
   );
 
-  r.add(
+  routes.put(
+    "/api/orgs/:orgId/contracts/:contractId/law-facts",
     {
-      method: "put",
-      path: "/api/orgs/:orgId/contracts/:contractId/law-facts",
-      tag: "specs",
       summary: "State the wine's facts the law asks (organic, PDO/PGI, listings for higher limits)",
       access: BUYER,
       params: contractParams,
@@ -95,23 +72,15 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     ({ params, body, user }) => updateLawFacts(params.orgId, params.contractId, user, body.lawFacts),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/contracts/:contractId/results",
-      tag: "specs",
-      summary: "Past results of the contract's lots (for backtests)",
-      access: PARTIES,
-      params: contractParams,
-    },
+  routes.get(
+    "/api/orgs/:orgId/contracts/:contractId/results",
+    { summary: "Past results of the contract's lots (for backtests)", access: PARTIES, params: contractParams },
     ({ params }) => queries.pastResults(params.orgId, params.contractId),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/contracts/:contractId/specs",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/contracts/:contractId/specs",
-      tag: "specs",
       summary: "Start a new draft version: blank, from a template or from an earlier version",
       access: BUYER,
       params: contractParams,
@@ -121,11 +90,9 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     ({ params, body, user }) => lifecycle.createVersion(params.orgId, params.contractId, user, body),
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/specs",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/specs",
-      tag: "specs",
       summary: "Spec versions, filtered by wine, producer, market, status or text",
       access: PARTIES,
       params: orgParams,
@@ -134,23 +101,15 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     ({ params, query }) => queries.listSpecs(params.orgId, query),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/specs/:specId",
-      tag: "specs",
-      summary: "One version with its requirements, comments and what you may do",
-      access: PARTIES,
-      params: specParams,
-    },
+  routes.get(
+    "/api/orgs/:orgId/specs/:specId",
+    { summary: "One version with its requirements, comments and what you may do", access: PARTIES, params: specParams },
     ({ params, membership }) => queries.getVersion(params.orgId, params.specId, membership!.role),
   );
 
-  r.add(
+  routes.put(
+    "/api/orgs/:orgId/specs/:specId",
     {
-      method: "put",
-      path: "/api/orgs/:orgId/specs/:specId",
-      tag: "specs",
       summary: "Save a draft (optimistic locking on lockVersion)",
       access: BUYER,
       params: specParams,
@@ -160,50 +119,27 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     ({ params, body, user }) => lifecycle.saveDraft(params.orgId, params.specId, user, body),
   );
 
-  r.add(
-    {
-      method: "post",
-      path: "/api/orgs/:orgId/specs/:specId/send",
-      tag: "specs",
-      summary: "Send a draft to the producer; it can no longer change",
-      access: BUYER,
-      params: specParams,
-      errors: { 409: "not a draft" },
-    },
+  routes.post(
+    "/api/orgs/:orgId/specs/:specId/send",
+    { summary: "Send a draft to the producer; it can no longer change", access: BUYER, params: specParams, errors: { 409: "not a draft" } },
     ({ params, user }) => lifecycle.sendToProducer(params.orgId, params.specId, user),
   );
 
-  r.add(
-    {
-      method: "post",
-      path: "/api/orgs/:orgId/specs/:specId/withdraw",
-      tag: "specs",
-      summary: "Withdraw a sent or agreed version",
-      access: BUYER,
-      params: specParams,
-      errors: { 409: "not withdrawable" },
-    },
+  routes.post(
+    "/api/orgs/:orgId/specs/:specId/withdraw",
+    { summary: "Withdraw a sent or agreed version", access: BUYER, params: specParams, errors: { 409: "not withdrawable" } },
     ({ params, user }) => lifecycle.withdraw(params.orgId, params.specId, user),
   );
 
-  r.add(
-    {
-      method: "post",
-      path: "/api/orgs/:orgId/specs/:specId/agree",
-      tag: "specs",
-      summary: "Agree to a version (producer)",
-      access: PRODUCER,
-      params: specParams,
-      errors: { 409: "not waiting for the producer" },
-    },
+  routes.post(
+    "/api/orgs/:orgId/specs/:specId/agree",
+    { summary: "Agree to a version (producer)", access: PRODUCER, params: specParams, errors: { 409: "not waiting for the producer" } },
     ({ params, user }) => lifecycle.agree(params.orgId, params.specId, user),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/specs/:specId/request-changes",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/specs/:specId/request-changes",
-      tag: "specs",
       summary: "Ask the buyer for changes (producer)",
       access: PRODUCER,
       params: specParams,
@@ -213,11 +149,9 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     ({ params, body, user }) => lifecycle.requestChanges(params.orgId, params.specId, user, body.reason),
   );
 
-  r.add(
+  routes.post(
+    "/api/orgs/:orgId/specs/:specId/comments",
     {
-      method: "post",
-      path: "/api/orgs/:orgId/specs/:specId/comments",
-      tag: "specs",
       summary: "Comment on a version or one of its rows",
       access: COMMENTERS,
       params: specParams,
@@ -228,11 +162,9 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     ({ params, body, user }) => lifecycle.addComment(params.orgId, params.specId, user, body),
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/specs/:specId/diff",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/specs/:specId/diff",
-      tag: "specs",
       summary: "Diff against another version of the same contract",
       access: PARTIES,
       params: specParams,
@@ -241,16 +173,9 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     ({ params, query }) => queries.diffVersions(params.orgId, params.specId, query.against),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/specs/:specId/pdf",
-      tag: "specs",
-      summary: "The spec sheet as a PDF",
-      access: PARTIES,
-      params: specParams,
-      produces: "application/pdf",
-    },
+  routes.get(
+    "/api/orgs/:orgId/specs/:specId/pdf",
+    { summary: "The spec sheet as a PDF", access: PARTIES, params: specParams, produces: "application/pdf" },
     async ({ params, membership, res }) => {
       const { filename, pdf } = await specSheetPdf(params.orgId, params.specId, membership!.role);
       res.status(200).type("application/pdf").attachment(filename).send(pdf);

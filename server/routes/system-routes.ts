@@ -6,15 +6,10 @@ import { readDevInbox } from "../integrations/mail/dev-inbox.ts";
 import { upstreamFailed } from "../errors.ts";
 
 export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; devInboxUrl?: string }): void {
-  r.add(
-    {
-      method: "get",
-      path: "/api/health",
-      tag: "system",
-      summary: "Service and database state",
-      access: PUBLIC,
-      errors: { 503: "database down" },
-    },
+  const routes = r.section("system");
+  routes.get(
+    "/api/health",
+    { summary: "Service and database state", access: PUBLIC, errors: { 503: "database down" } },
     async ({ res }) => {
       const db = await databaseHealth();
       if (db.status !== "up") res.locals.status = 503;
@@ -22,17 +17,15 @@ export function registerSystemRoutes(r: RouteRegistry, opts: { version: string; 
     },
   );
 
-  r.add({ method: "get", path: "/api/openapi.json", tag: "system", summary: "This API's OpenAPI 3.1 document", access: PUBLIC }, () =>
+  routes.get("/api/openapi.json", { summary: "This API's OpenAPI 3.1 document", access: PUBLIC }, () =>
     buildOpenApi(r.routes, opts.version),
   );
 
   if (opts.devInboxUrl) {
     const url = opts.devInboxUrl;
-    r.add(
+    routes.get(
+      "/api/dev/inbox",
       {
-        method: "get",
-        path: "/api/dev/inbox",
-        tag: "system",
         summary: "Mail caught by the local SMTP fake (demo and development only)",
         access: PUBLIC,
         errors: { 502: "the mail fake is not running" },

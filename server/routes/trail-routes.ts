@@ -13,11 +13,10 @@ const orgParams = z.object({ orgId: idParam });
 const PARTIES = allowed("trail.history");
 
 export function registerTrailRoutes(r: RouteRegistry): void {
-  r.add(
+  const routes = r.section("trail");
+  routes.get(
+    "/api/orgs/:orgId/trail",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/trail",
-      tag: "trail",
       summary: "Your organisation's trail with filters; format=csv or json downloads it",
       access: allowed("trail.organisation"),
       params: orgParams,
@@ -62,11 +61,9 @@ export function registerTrailRoutes(r: RouteRegistry): void {
     },
   );
 
-  r.add(
+  routes.get(
+    "/api/orgs/:orgId/history/:entityType/:entityId",
     {
-      method: "get",
-      path: "/api/orgs/:orgId/history/:entityType/:entityId",
-      tag: "trail",
       summary: "The recorded history of a spec version, lot, deviation, contract or audit order you are party to",
       access: PARTIES,
       params: orgParams.extend({ entityType: z.enum(HISTORY_ENTITY_TYPES), entityId: idParam }),
@@ -74,15 +71,9 @@ export function registerTrailRoutes(r: RouteRegistry): void {
     ({ params }) => historyFor(params.orgId, params.entityType, params.entityId),
   );
 
-  r.add(
-    {
-      method: "get",
-      path: "/api/orgs/:orgId/trail/verify",
-      tag: "trail",
-      summary: "Verify the whole hash chain and report the first broken entry",
-      access: PARTIES,
-      params: orgParams,
-    },
+  routes.get(
+    "/api/orgs/:orgId/trail/verify",
+    { summary: "Verify the whole hash chain and report the first broken entry", access: PARTIES, params: orgParams },
     () => verifyTrailChain(),
   );
 }
