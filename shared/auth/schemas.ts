@@ -86,3 +86,10 @@ export const createOrganisationSchema = z.object({
   adminEmail: emailSchema,
 });
 export type CreateOrganisationInput = z.infer<typeof createOrganisationSchema>;
+
+/** A new password typed twice, as the reset and invitation forms ask: spread into a form's object, then `.refine(...passwordsMatch)`. */
+export const repeatedPassword = { password: newPasswordSchema, confirm: z.string() };
+export const passwordsMatch: [(v: { password: string; confirm: string }) => boolean, { path: string[]; error: string }] = [
+  (v) => v.password === v.confirm,
+  { path: ["confirm"], error: "The two passwords differ." },
+];

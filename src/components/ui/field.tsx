@@ -38,7 +38,7 @@ function FieldShell({ label, error, hint, id, children }: FieldShellProps) {
 const inputClass =
   "min-w-0 rounded-md border border-line bg-white px-3 py-2 text-base text-ink-900 aria-[invalid=true]:border-alarm-700 focus:border-must-600";
 
-type TextFieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; error?: string; hint?: string };
+export type TextFieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; error?: string; hint?: string };
 
 export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function TextField({ label, error, hint, id, ...props }, ref) {
   return (

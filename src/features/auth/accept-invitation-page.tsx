@@ -4,12 +4,13 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Link, useNavigate, useParams } from "react-router-dom";
 import { useState } from "react";
 import { z } from "zod";
-import { newPasswordSchema, personNameSchema, PASSWORD_MIN } from "../../../shared/auth/schemas.ts";
+import { passwordsMatch, personNameSchema, repeatedPassword } from "../../../shared/auth/schemas.ts";
 import { ROLE_LABELS, type OrganisationKind, type Role } from "../../../shared/auth/roles.ts";
 import { api } from "../../lib/api-client.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 import { AuthLayout } from "../../components/ui/page.tsx";
 import { TextField } from "../../components/ui/field.tsx";
+import { NewPasswordField } from "../../components/credential-fields.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
 import { sessionQueryOptions, type Session } from "../../lib/session.ts";
@@ -22,9 +23,7 @@ interface InvitationPreview {
   hasAccount: boolean;
 }
 
-const formSchema = z
-  .object({ name: personNameSchema, password: newPasswordSchema, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], error: "The two passwords differ." });
+const formSchema = z.object({ name: personNameSchema, ...repeatedPassword }).refine(...passwordsMatch);
 type FormValues = z.infer<typeof formSchema>;
 
 export function AcceptInvitationPage() {
@@ -71,21 +70,8 @@ export function AcceptInvitationPage() {
           </p>
           {formError && <Notice tone="error">{formError}</Notice>}
           <TextField label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
-          <TextField
-            label="Choose a password"
-            type="password"
-            autoComplete="new-password"
-            hint={`At least ${PASSWORD_MIN} characters.`}
-            error={formState.errors.password?.message}
-            {...register("password")}
-          />
-          <TextField
-            label="Repeat the password"
-            type="password"
-            autoComplete="new-password"
-            error={formState.errors.confirm?.message}
-            {...register("confirm")}
-          />
+          <NewPasswordField label="Choose a password" error={formState.errors.password?.message} {...register("password")} />
+          <NewPasswordField repeat label="Repeat the password" error={formState.errors.confirm?.message} {...register("confirm")} />
           <Button type="submit" disabled={accept.isPending}>
             {accept.isPending ? "Creating your account…" : "Accept and sign in"}
           </Button>

@@ -5,7 +5,7 @@ import { Link } from "react-router-dom";
 import { passwordResetRequestSchema, type PasswordResetRequestInput } from "../../../shared/auth/schemas.ts";
 import { api, errorMessage } from "../../lib/api-client.ts";
 import { AuthLayout } from "../../components/ui/page.tsx";
-import { TextField } from "../../components/ui/field.tsx";
+import { EmailField } from "../../components/credential-fields.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 
@@ -24,13 +24,7 @@ export function ForgotPasswordPage() {
         <form onSubmit={handleSubmit((v) => request.mutate(v))} noValidate className="flex flex-col gap-4">
           <p className="text-sm text-ink-500">Enter the address you sign in with. We will mail you a link to choose a new password.</p>
           {request.isError && <Notice tone="error">{errorMessage(request.error)}</Notice>}
-          <TextField
-            label="E-mail address"
-            type="email"
-            autoComplete="username"
-            error={formState.errors.email?.message}
-            {...register("email")}
-          />
+          <EmailField error={formState.errors.email?.message} {...register("email")} />
           <Button type="submit" disabled={request.isPending}>
             {request.isPending ? "Sending…" : "Send the reset link"}
           </Button>

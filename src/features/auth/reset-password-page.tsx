@@ -3,18 +3,16 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation } from "@tanstack/react-query";
 import { Link, useNavigate, useParams } from "react-router-dom";
 import { useState } from "react";
-import { newPasswordSchema, PASSWORD_MIN } from "../../../shared/auth/schemas.ts";
+import { passwordsMatch, repeatedPassword } from "../../../shared/auth/schemas.ts";
 import { api } from "../../lib/api-client.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 import { AuthLayout } from "../../components/ui/page.tsx";
-import { TextField } from "../../components/ui/field.tsx";
+import { NewPasswordField } from "../../components/credential-fields.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { z } from "zod";
 
-const formSchema = z
-  .object({ password: newPasswordSchema, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], error: "The two passwords differ." });
+const formSchema = z.object(repeatedPassword).refine(...passwordsMatch);
 type FormValues = z.infer<typeof formSchema>;
 
 export function ResetPasswordPage() {
@@ -44,21 +42,8 @@ export function ResetPasswordPage() {
             </Link>
           </Notice>
         )}
-        <TextField
-          label="New password"
-          type="password"
-          autoComplete="new-password"
-          hint={`At least ${PASSWORD_MIN} characters.`}
-          error={formState.errors.password?.message}
-          {...register("password")}
-        />
-        <TextField
-          label="Repeat the new password"
-          type="password"
-          autoComplete="new-password"
-          error={formState.errors.confirm?.message}
-          {...register("confirm")}
-        />
+        <NewPasswordField error={formState.errors.password?.message} {...register("password")} />
+        <NewPasswordField repeat label="Repeat the new password" error={formState.errors.confirm?.message} {...register("confirm")} />
         <Button type="submit" disabled={reset.isPending}>
           {reset.isPending ? "Saving…" : "Save the new password"}
         </Button>

@@ -6,7 +6,7 @@ import { signInSchema, type SignInInput } from "../../../shared/auth/schemas.ts"
 import { useSignIn } from "./api/session.ts";
 import { useSession } from "../../lib/session.ts";
 import { AuthLayout } from "../../components/ui/page.tsx";
-import { TextField } from "../../components/ui/field.tsx";
+import { CurrentPasswordField, EmailField } from "../../components/credential-fields.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { applyServerErrors } from "../../lib/form-errors.ts";
@@ -37,20 +37,8 @@ export function SignInPage() {
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {params.get("reset") === "done" && <Notice tone="success">Your password has been changed. Sign in with the new one.</Notice>}
         {formError && <Notice tone="error">{formError}</Notice>}
-        <TextField
-          label="E-mail address"
-          type="email"
-          autoComplete="username"
-          error={formState.errors.email?.message}
-          {...register("email")}
-        />
-        <TextField
-          label="Password"
-          type="password"
-          autoComplete="current-password"
-          error={formState.errors.password?.message}
-          {...register("password")}
-        />
+        <EmailField error={formState.errors.email?.message} {...register("email")} />
+        <CurrentPasswordField error={formState.errors.password?.message} {...register("password")} />
         <Button type="submit" disabled={signIn.isPending}>
           {signIn.isPending ? "Signing in…" : "Sign in"}
         </Button>

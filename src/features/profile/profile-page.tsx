@@ -2,13 +2,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import {
-  changePasswordSchema,
-  profileSchema,
-  type ChangePasswordInput,
-  type ProfileInput,
-  PASSWORD_MIN,
-} from "../../../shared/auth/schemas.ts";
+import { changePasswordSchema, profileSchema, type ChangePasswordInput, type ProfileInput } from "../../../shared/auth/schemas.ts";
 import { ROLE_LABELS } from "../../../shared/auth/roles.ts";
 import { api } from "../../lib/api-client.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
@@ -16,6 +10,7 @@ import { useSignedIn } from "../../lib/signed-in.tsx";
 import { sessionQueryOptions } from "../../lib/session.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { TextField } from "../../components/ui/field.tsx";
+import { CurrentPasswordField, NewPasswordField } from "../../components/credential-fields.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { PreferencesCard } from "./preferences-card.tsx";
@@ -100,21 +95,8 @@ function PasswordForm() {
     <Card title="Password">
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {msg && <Notice tone={msg.tone}>{msg.text}</Notice>}
-        <TextField
-          label="Current password"
-          type="password"
-          autoComplete="current-password"
-          error={formState.errors.currentPassword?.message}
-          {...register("currentPassword")}
-        />
-        <TextField
-          label="New password"
-          type="password"
-          autoComplete="new-password"
-          hint={`At least ${PASSWORD_MIN} characters.`}
-          error={formState.errors.newPassword?.message}
-          {...register("newPassword")}
-        />
+        <CurrentPasswordField label="Current password" error={formState.errors.currentPassword?.message} {...register("currentPassword")} />
+        <NewPasswordField error={formState.errors.newPassword?.message} {...register("newPassword")} />
         <Button type="submit" disabled={change.isPending}>
           Change password
         </Button>
