@@ -7,7 +7,8 @@ import type { QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
 import { SPEC_TEMPLATES } from "../shared/specs/templates.ts";
 import type { AnalysisStage } from "../shared/lots/vocabulary.ts";
-import { submitDemoAnalyses } from "./support/submit-demo-analysis.ts";
+import { useDemoServices } from "./support/demo-services.ts";
+import { party, reported } from "../tests/support/factories.ts";
 
 const now = new Date("2026-11-20T09:00:00Z");
 const stamps = { created_at: now, updated_at: now };
@@ -307,6 +308,8 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
       })),
     ),
   );
+  // Past lots keep their historical filling dates, so they go in as rows; their results go through the producers' service.
+  useDemoServices(qi);
   let lotId = 0;
   for (const lot of LOTS) {
     lotId += 1;
@@ -323,22 +326,17 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
         ...stamps,
       },
     ]);
-  }
-  await submitDemoAnalyses(
-    qi,
-    LOTS.flatMap((lot) =>
-      lot.analyses.map((a) => ({
-        lotCode: lot.code,
-        contractId: lot.contract,
-        by: PRODUCER_QUALITY[lot.contract]!,
+    const producer = await party(PRODUCER_QUALITY[lot.contract]!, "producer_quality");
+    for (const a of lot.analyses) {
+      await reported(producer, lotId, {
         stage: a.stage,
-        lab: a.lab,
+        laboratoryName: a.lab,
         accreditation: a.accreditation,
         sampleDate: a.date,
         results: a.results.map(([parameter, unit, value]): [string, string, string] => [parameter, String(value), unit]),
-      })),
-    ),
-  );
+      });
+    }
+  }
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {

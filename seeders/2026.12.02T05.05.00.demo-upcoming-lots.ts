@@ -6,44 +6,20 @@
 import type { QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
 import type { AnalysisStage } from "../shared/lots/vocabulary.ts";
-import { submitDemoAnalyses } from "./support/submit-demo-analysis.ts";
+import type { Container } from "../shared/lots/vocabulary.ts";
+import { useDemoServices } from "./support/demo-services.ts";
+import { party, plannedLot, reported } from "../tests/support/factories.ts";
 
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 const CODES = ["SB-25-11", "SB-25-12", "KF-SH-25-F1"];
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
-  const now = new Date();
-  const stamps = { created_at: now, updated_at: now };
-  const lots = [
-    {
-      contract_id: 1,
-      vintage: 2025,
-      lot_code: "SB-25-11",
-      volume_litres: 12000,
-      container: "bottles",
-      planned_date: inDays(12),
-      market: "GB",
-    },
-    {
-      contract_id: 1,
-      vintage: 2025,
-      lot_code: "SB-25-12",
-      volume_litres: 9000,
-      container: "bottles",
-      planned_date: inDays(30),
-      market: "GB",
-    },
-    {
-      contract_id: 3,
-      vintage: 2025,
-      lot_code: "KF-SH-25-F1",
-      volume_litres: 24000,
-      container: "flexitank",
-      planned_date: inDays(21),
-      market: "GB",
-    },
+  useDemoServices(qi);
+  const lots: { contract: number; lotCode: string; volumeLitres: number; container: Container; inDays: number }[] = [
+    { contract: 1, lotCode: "SB-25-11", volumeLitres: 12000, container: "bottles", inDays: 12 },
+    { contract: 1, lotCode: "SB-25-12", volumeLitres: 9000, container: "bottles", inDays: 30 },
+    { contract: 3, lotCode: "KF-SH-25-F1", volumeLitres: 24000, container: "flexitank", inDays: 21 },
   ];
-  for (const lot of lots) await qi.bulkInsert("lots", [{ ...lot, ...stamps }]);
   const TROIS_SENTES = "elise.carbonnel@troissentes.test";
   const analyses: {
     lot: string;
@@ -105,19 +81,25 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
       ],
     },
   ];
-  await submitDemoAnalyses(
-    qi,
-    analyses.map((a) => ({
-      lotCode: a.lot,
-      contractId: a.contract,
-      by: a.by,
+  for (const a of analyses) {
+    const producer = await party(a.by, "producer_quality");
+    const lot = lots.find((l) => l.lotCode === a.lot)!;
+    const { id } = await plannedLot(producer, a.contract, {
+      vintage: 2025,
+      lotCode: lot.lotCode,
+      volumeLitres: lot.volumeLitres,
+      container: lot.container,
+      plannedDate: inDays(lot.inDays),
+      market: "GB",
+    });
+    await reported(producer, id, {
       stage: a.stage,
-      lab: a.lab,
+      laboratoryName: a.lab,
       accreditation: a.accreditation,
       sampleDate: inDays(-3),
       results: a.results,
-    })),
-  );
+    });
+  }
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {

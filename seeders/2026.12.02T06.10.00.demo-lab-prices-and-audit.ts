@@ -4,9 +4,14 @@
  */
 import type { QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
+import { Lot } from "../server/models/lot.ts";
+import type { ParameterId } from "../shared/engine/index.ts";
+import { useDemoServices } from "./support/demo-services.ts";
+import { auditOrder, party, priced } from "../tests/support/factories.ts";
 
 const LAB = 5;
-const PRICES: [string, number][] = [
+const NOTE = "Spot check before the flexitank leaves.";
+const PRICES: [ParameterId, number][] = [
   ["alcohol", 1800],
   ["free_so2", 1400],
   ["total_so2", 1400],
@@ -38,44 +43,24 @@ const PRICES: [string, number][] = [
 ];
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
-  const now = new Date();
-  await qi.bulkInsert(
-    "lab_prices",
-    PRICES.map(([parameter, cents]) => ({ organisation_id: LAB, parameter, price_cents: cents, currency: "eur", updated_at: now })),
-  );
-  const [lot] = (await qi.sequelize.query("SELECT id FROM lots WHERE contract_id = 3 ORDER BY vintage DESC, id DESC LIMIT 1", {
-    type: "SELECT" as never,
-  })) as unknown as { id: number }[];
+  useDemoServices(qi);
+  await priced(await party("nadia.brook@northgate-lab.test", "org_admin"), PRICES);
+  const lot = await Lot.findOne({
+    where: { contractId: 3 },
+    order: [
+      ["vintage", "DESC"],
+      ["id", "DESC"],
+    ],
+  });
   if (!lot) return;
-  const lines = [
-    { parameter: "volatile_acidity", name: "Volatile acidity", unitCents: 1600, lots: 1, totalCents: 1600 },
-    { parameter: "free_so2", name: "Free SO2", unitCents: 1400, lots: 1, totalCents: 1400 },
-    { parameter: "dissolved_oxygen", name: "Dissolved oxygen", unitCents: 1500, lots: 1, totalCents: 1500 },
-  ];
-  await qi.bulkInsert("audit_orders", [
-    {
-      contract_id: 3,
-      buyer_org_id: 1,
-      producer_org_id: 3,
-      laboratory_org_id: LAB,
-      ordered_by: 3,
-      stage: "pre_shipment",
-      parameters: JSON.stringify(lines.map((l) => l.parameter)),
-      lines: JSON.stringify(lines),
-      amount_cents: 4500,
-      currency: "eur",
-      note: "Spot check before the flexitank leaves.",
-      status: "awaiting_payment",
-      paid_cents: 0,
-      refunded_cents: 0,
-      created_at: now,
-      updated_at: now,
-    },
-  ]);
-  const [order] = (await qi.sequelize.query("SELECT MAX(id) AS id FROM audit_orders", { type: "SELECT" as never })) as unknown as {
-    id: number;
-  }[];
-  await qi.bulkInsert("audit_order_lots", [{ audit_order_id: order!.id, lot_id: lot.id }]);
+  await auditOrder(await party("owen.pryce@harbourline.test", "buyer_finance"), {
+    contractId: 3,
+    laboratoryOrgId: LAB,
+    lotIds: [lot.id],
+    parameters: ["volatile_acidity", "free_so2", "dissolved_oxygen"],
+    stage: "pre_shipment",
+    note: NOTE,
+  });
 }
 
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {

@@ -7,23 +7,21 @@ import type { QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
 import { Deviation } from "../server/models/deviation.ts";
 import { Lot } from "../server/models/lot.ts";
-import { decide } from "../server/services/deviations/deviation-commands.ts";
-import { registerLot } from "../server/services/lots/submission-service.ts";
-import { demoMember, useDemoServices } from "./support/demo-services.ts";
-import { submitDemoAnalyses } from "./support/submit-demo-analysis.ts";
+import { useDemoServices } from "./support/demo-services.ts";
+import { decided, party, plannedLot, reported } from "../tests/support/factories.ts";
 
 const TESSA = "tessa.marlow@harbourline.test";
 const REJECTED_LOT = "SB-24-T1";
 
 export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   useDemoServices(qi);
-  const buyer = await demoMember(TESSA, "buyer_technologist");
-  const elise = await demoMember("elise.carbonnel@troissentes.test", "producer_quality");
+  const buyer = await party(TESSA, "buyer_technologist");
+  const elise = await party("elise.carbonnel@troissentes.test", "producer_quality");
 
   const kestrel = await Lot.findOne({ where: { contractId: 3, lotCode: "KF-SH-24-F2" } });
   const low = kestrel ? await Deviation.findOne({ where: { lotId: kestrel.id, kind: "result" } }) : null;
   if (low) {
-    await decide(buyer.orgId, low.id, buyer.user, {
+    await decided(buyer, low.id, {
       outcome: "concession",
       conditions: [
         { kind: "treatment", detail: "Free SO2 brought back to 30 mg/L on arrival, before bottling" },
@@ -33,43 +31,29 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
     });
   }
 
-  await registerLot(elise.orgId, elise.user, {
-    contractId: 1,
-    vintage: 2024,
-    lotCode: REJECTED_LOT,
-    volumeLitres: 6000,
-    container: "bottles",
-    plannedDate: null,
-    market: "GB",
+  const lot = await plannedLot(elise, 1, { vintage: 2024, lotCode: REJECTED_LOT, volumeLitres: 6000, plannedDate: null, market: "GB" });
+  const sent = await reported(elise, lot.id, {
+    stage: "pre_filling",
+    laboratoryName: "Northgate Oenology Laboratory",
+    accreditation: "UKAS 4412",
+    sampleDate: "2025-09-12",
+    results: [
+      ["alcohol", "12.4", "% vol"],
+      ["free_so2", "31", "mg/L"],
+      ["total_so2", "118", "mg/L"],
+      ["volatile_acidity", "0.82", "g/L as acetic acid"],
+      ["residual_sugar", "2.3", "g/L"],
+      ["total_acidity", "6.2", "g/L as tartaric acid"],
+      ["ph", "3.24", "pH"],
+      ["heat_test_haze", "0.7", "NTU"],
+      ["cold_stability_conductivity", "2.4", "%"],
+      ["copper", "0.12", "mg/L"],
+      ["iron", "2.0", "mg/L"],
+    ],
   });
-  await submitDemoAnalyses(qi, [
-    {
-      lotCode: REJECTED_LOT,
-      contractId: 1,
-      by: "elise.carbonnel@troissentes.test",
-      stage: "pre_filling",
-      lab: "Northgate Oenology Laboratory",
-      accreditation: "UKAS 4412",
-      sampleDate: "2025-09-12",
-      results: [
-        ["alcohol", "12.4", "% vol"],
-        ["free_so2", "31", "mg/L"],
-        ["total_so2", "118", "mg/L"],
-        ["volatile_acidity", "0.82", "g/L as acetic acid"],
-        ["residual_sugar", "2.3", "g/L"],
-        ["total_acidity", "6.2", "g/L as tartaric acid"],
-        ["ph", "3.24", "pH"],
-        ["heat_test_haze", "0.7", "NTU"],
-        ["cold_stability_conductivity", "2.4", "%"],
-        ["copper", "0.12", "mg/L"],
-        ["iron", "2.0", "mg/L"],
-      ],
-    },
-  ]);
-  const tainted = (await Lot.findOne({ where: { contractId: 1, lotCode: REJECTED_LOT } }))!;
-  const taint = await Deviation.findOne({ where: { lotId: tainted.id, kind: "result" } });
-  if (taint)
-    await decide(buyer.orgId, taint.id, buyer.user, {
+  const taint = sent.deviationIds[0];
+  if (taint !== undefined)
+    await decided(buyer, taint, {
       outcome: "rejected",
       conditions: [],
       reason: "Volatile acidity at 0.82 g/L is beyond what blending can correct within this contract's limits.",
