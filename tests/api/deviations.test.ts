@@ -3,6 +3,7 @@ import { QueryTypes } from "sequelize";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { startTestMail } from "../support/mail.ts";
+import { party, plannedLot, reported } from "../support/factories.ts";
 import { sendDigests } from "../../server/services/notification-service.ts";
 
 let t: TestApp;
@@ -25,28 +26,19 @@ afterAll(async () => {
 
 /** A lot of Sentier Blanc whose pre-filling analysis fails volatile acidity: one open deviation. */
 async function failingLot() {
-  const lot = await producer.agent
-    .post(P("/lots"))
-    .set("x-csrf-token", producer.csrf)
-    .send({
-      contractId: CONTRACT.sentierBlanc,
-      vintage: 2025,
-      lotCode: `SB-DV-${randomUUID().slice(0, 6)}`,
-      volumeLitres: 5000,
-      container: "bottles",
-      market: "EU",
-    });
-  const a = await producer.agent
-    .post(P(`/lots/${lot.body.id}/analyses`))
-    .set("x-csrf-token", producer.csrf)
-    .send({
-      idempotencyKey: randomUUID(),
-      stage: "pre_filling",
-      laboratoryName: "Domaine des Trois Sentes cellar laboratory",
-      sampleDate: "2026-11-30",
-      results: [{ parameter: "volatile_acidity", raw: "0.74", unit: "g/L as acetic acid" }],
-    });
-  return { lotId: lot.body.id as number, analysisId: a.body.analysisId as number, deviationId: a.body.deviationIds[0] as number };
+  const maker = await party(DEMO.producerQuality, "producer_quality");
+  const { id: lotId } = await plannedLot(maker, CONTRACT.sentierBlanc, {
+    lotCode: `SB-DV-${randomUUID().slice(0, 6)}`,
+    volumeLitres: 5000,
+    plannedDate: null,
+  });
+  const sent = await reported(maker, lotId, {
+    stage: "pre_filling",
+    laboratoryName: "Domaine des Trois Sentes cellar laboratory",
+    sampleDate: "2026-11-30",
+    results: [["volatile_acidity", "0.74", "g/L as acetic acid"]],
+  });
+  return { lotId, analysisId: sent.analysisId, deviationId: sent.deviationIds[0]! };
 }
 
 describe("deviations", () => {

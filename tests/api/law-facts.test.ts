@@ -6,10 +6,9 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
-import { agreedContract, party } from "../support/factories.ts";
+import { agreedContract, analysed, party, plannedLot } from "../support/factories.ts";
 import type { ContractDetail } from "../../shared/specs/views.ts";
 import type { LotDetail } from "../../shared/lots/views.ts";
-import { passingResults } from "../support/passing-results.ts";
 
 let t: TestApp;
 let tech: SignedInAgent;
@@ -49,37 +48,18 @@ describe("the wine's facts for the law", () => {
     }[];
     expect(history.map((h) => h.action)).toContain("wine.law_facts_changed");
 
-    const lot = await producer.agent
-      .post(P("/lots"))
-      .set("x-csrf-token", producer.csrf)
-      .send({
-        contractId,
-        vintage: 2025,
-        lotCode: `LF-${randomUUID().slice(0, 5)}`,
-        volumeLitres: 5000,
-        container: "bottles",
-        plannedDate: "2027-01-15",
-        market: "EU",
-      });
-    expect(lot.status).toBe(201);
-    const planned = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
-    const sent = await producer.agent
-      .post(P(`/lots/${lot.body.id}/analyses`))
-      .set("x-csrf-token", producer.csrf)
-      .send({
-        idempotencyKey: randomUUID(),
-        stage: "pre_filling",
-        laboratoryName: "Domaine des Trois Sentes cellar laboratory",
-        sampleDate: "2026-11-25",
-        results: passingResults(planned.governing!.requirements, "pre_filling", {}),
-      });
-    expect(sent.status).toBe(201);
-    const detail = (await producer.agent.get(P(`/lots/${lot.body.id}`))).body as LotDetail;
+    const lot = await plannedLot(await party(DEMO.producerQuality, "producer_quality"), contractId, {
+      lotCode: `LF-${randomUUID().slice(0, 5)}`,
+      volumeLitres: 5000,
+      plannedDate: "2027-01-15",
+    });
+    await analysed(await party(DEMO.producerQuality, "producer_quality"), lot.id);
+    const detail = (await producer.agent.get(P(`/lots/${lot.id}`))).body as LotDetail;
     const so2 = detail.analyses[0]!.evaluation!.verdicts.find((v) => v.parameter === "total_so2")!;
     // White, usual sugar 2.5 g/L → conventional 200 mg/L (2019/934 A.1(b)) and organic 170 mg/L.
     expect(so2.legalLimits.map((l) => l.value).sort((a, b) => a - b)).toEqual([170, 200]);
     expect(detail.analyses[0]!.evaluation!.factsChanged).toBe(false);
-    lotId = lot.body.id;
+    lotId = lot.id;
   });
 
   it("when the facts change after a verdict, then the verdict says so and a re-judgement reads the facts as they stand", async () => {

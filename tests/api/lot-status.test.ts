@@ -8,6 +8,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { setUpThreeLots, THREE_LOT_STATUSES, type ThreeLots } from "../support/three-lots.ts";
+import { agreedContract, agreedVersion, party, plannedLot, reported } from "../support/factories.ts";
+import type { SpecRowInput } from "../../shared/specs/schemas.ts";
 import type { LotDetail, LotSummary, ReadinessRow, TrendData } from "../../shared/lots/views.ts";
 import { chartDomain } from "../../src/features/lots/chart-domain.ts";
 
@@ -18,11 +20,24 @@ const P = (p: string) => `/api/orgs/${ORG.troisSentes}${p}`;
 const B = (p: string) => `/api/orgs/${ORG.retailer}${p}`;
 const tag = randomUUID().slice(0, 5);
 let lots: ThreeLots;
+const buyer = () => party(DEMO.buyerTechnologist, "buyer_technologist");
+/** A spec row holding only volatile acidity under `upper` g/L, at pre-filling. */
+const vaRow = (upper: number): SpecRowInput => ({
+  parameter: "volatile_acidity",
+  unit: "g/L as acetic acid",
+  lower: null,
+  upper,
+  target: null,
+  rule: { kind: "simple" },
+  severity: "major",
+  stages: ["pre_filling"],
+  method: null,
+});
 
 beforeAll(async () => {
   t = buildTestApp();
   [producer, tech] = await Promise.all([signInAs(t.app, DEMO.producerQuality), signInAs(t.app, DEMO.buyerTechnologist)]);
-  lots = await setUpThreeLots(producer, tech, tag);
+  lots = await setUpThreeLots(tag);
   expect(lots.good.submitted.failing).toEqual([]);
   expect(lots.bad.submitted.failing).toEqual(["volatile_acidity"]);
 });
@@ -104,7 +119,8 @@ describe("one status per lot", () => {
         idempotencyKey: randomUUID(),
         stage: "pre_filling",
         laboratoryName: "Domaine des Trois Sentes cellar laboratory",
-        sampleDate: "2026-11-26",
+        // The same day as the factory's analysis, and later stored: it speaks for the lot.
+        sampleDate: new Date().toISOString().slice(0, 10),
         results: [{ parameter: "volatile_acidity", raw: "0.40", unit: "g/L as acetic acid", uncertainty: null }],
       });
     const after = (await producer.agent.get(P(`/lots/${lots.bad.id}`))).body as LotDetail;
@@ -175,67 +191,20 @@ describe("trends", () => {
 
 describe("trends with the law governing", () => {
   it("when the buyer's row is looser than the law, then the trend draws the law's limit and says which market sets it", async () => {
-    const valsorda = await signInAs(t.app, DEMO.valsordaQuality);
-    const V = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
-    const c = await tech.agent
-      .post(B("/contracts"))
-      .set("x-csrf-token", tech.csrf)
-      .send({
-        reference: `HG-LAW-${tag}`,
-        producerOrgId: ORG.valsorda,
-        startsOn: "2026-01-01",
-        endsOn: null,
-        wine: {
-          name: "Valsorda Rosso",
-          colour: "red",
-          category: "still",
-          region: "Veneto",
-          markets: ["EU"],
-          nominalSugarGPerL: 2,
-          nominalAlcoholPercentVol: 13,
-        },
-      });
-    const draft = await tech.agent
-      .post(B(`/contracts/${c.body.id}/specs`))
-      .set("x-csrf-token", tech.csrf)
-      .send({ from: "blank" });
-    const v = (await tech.agent.get(B(`/specs/${draft.body.id}`))).body;
-    const row = {
-      parameter: "volatile_acidity",
-      unit: "g/L as acetic acid",
-      lower: null,
-      upper: 1.5,
-      target: null,
-      rule: { kind: "simple" },
-      severity: "major",
-      stages: ["pre_filling"],
-      method: null,
-    };
-    expect(
-      (
-        await tech.agent
-          .put(B(`/specs/${v.id}`))
-          .set("x-csrf-token", tech.csrf)
-          .send({ lockVersion: v.lockVersion, title: "Loose VA", vintageFrom: 2025, vintageTo: null, stages: ["pre_filling"], rows: [row] })
-      ).status,
-    ).toBe(200);
-    expect((await tech.agent.post(B(`/specs/${v.id}/send`)).set("x-csrf-token", tech.csrf)).status).toBe(204);
-    expect((await valsorda.agent.post(V(`/specs/${v.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
-    const lot = await valsorda.agent
-      .post(V("/lots"))
-      .set("x-csrf-token", valsorda.csrf)
-      .send({ contractId: c.body.id, vintage: 2025, lotCode: `VR-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
-    await valsorda.agent
-      .post(V(`/lots/${lot.body.id}/analyses`))
-      .set("x-csrf-token", valsorda.csrf)
-      .send({
-        idempotencyKey: randomUUID(),
-        stage: "pre_filling",
-        laboratoryName: "Valsorda lab",
-        sampleDate: "2026-11-20",
-        results: [{ parameter: "volatile_acidity", raw: "0.62", unit: "g/L as acetic acid", uncertainty: null }],
-      });
-    const d = (await tech.agent.get(B(`/contracts/${c.body.id}/trend?parameter=volatile_acidity`))).body as TrendData;
+    const valsorda = await party(DEMO.valsordaQuality, "producer_quality");
+    const { contractId } = await agreedContract(await buyer(), valsorda, {
+      wine: { name: "Valsorda Rosso", colour: "red", region: "Veneto", nominalSugarGPerL: 2, nominalAlcoholPercentVol: 13 },
+      rows: [vaRow(1.5)],
+      vintageFrom: 2025,
+    });
+    const lot = await plannedLot(valsorda, contractId, { lotCode: `VR-${tag}`, volumeLitres: 1000, plannedDate: null });
+    await reported(valsorda, lot.id, {
+      stage: "pre_filling",
+      laboratoryName: "Valsorda lab",
+      sampleDate: "2026-11-20",
+      results: [["volatile_acidity", "0.62", "g/L as acetic acid"]],
+    });
+    const d = (await tech.agent.get(B(`/contracts/${contractId}/trend?parameter=volatile_acidity`))).body as TrendData;
     // EU: 20 meq/L for red wine, 18 for white and rosé (Delegated Reg. (EU) 2019/934, Annex I Part C); 20 × 60.05 / 1000 = 1.201 g/L as acetic acid.
     expect(d.upper).toEqual({ value: expect.closeTo(1.201, 4), source: "law, EU" });
     expect(d.points.map((p) => p.text)).toEqual(["0.62"]);
@@ -244,91 +213,39 @@ describe("trends with the law governing", () => {
 
 describe("a later version and a recorded re-judgement", () => {
   it("when a stricter version is agreed, then nothing is re-judged silently; a re-judgement is a new recorded analysis and the first verdict stays reproducible", async () => {
-    const valsorda = await signInAs(t.app, DEMO.valsordaQuality);
-    const V = (p: string) => `/api/orgs/${ORG.valsorda}${p}`;
-    const c = await tech.agent
-      .post(B("/contracts"))
-      .set("x-csrf-token", tech.csrf)
-      .send({
-        reference: `HG-RJ-${tag}`,
-        producerOrgId: ORG.valsorda,
-        startsOn: "2026-01-01",
-        endsOn: null,
-        wine: {
-          name: "Valsorda Bianco",
-          colour: "white",
-          category: "still",
-          region: "Veneto",
-          markets: ["EU"],
-          nominalSugarGPerL: 2,
-          nominalAlcoholPercentVol: 12,
-        },
-      });
-    const agreeVersion = async (from: object, upper: number) => {
-      const draft = await tech.agent
-        .post(B(`/contracts/${c.body.id}/specs`))
-        .set("x-csrf-token", tech.csrf)
-        .send(from);
-      const v = (await tech.agent.get(B(`/specs/${draft.body.id}`))).body;
-      const row = {
-        parameter: "volatile_acidity",
-        unit: "g/L as acetic acid",
-        lower: null,
-        upper,
-        target: null,
-        rule: { kind: "simple" },
-        severity: "major",
-        stages: ["pre_filling"],
-        method: null,
-      };
-      expect(
-        (
-          await tech.agent
-            .put(B(`/specs/${v.id}`))
-            .set("x-csrf-token", tech.csrf)
-            .send({
-              lockVersion: v.lockVersion,
-              title: `VA ≤ ${upper}`,
-              vintageFrom: 2025,
-              vintageTo: null,
-              stages: ["pre_filling"],
-              rows: [row],
-            })
-        ).status,
-      ).toBe(200);
-      expect((await tech.agent.post(B(`/specs/${v.id}/send`)).set("x-csrf-token", tech.csrf)).status).toBe(204);
-      expect((await valsorda.agent.post(V(`/specs/${v.id}/agree`)).set("x-csrf-token", valsorda.csrf)).status).toBe(204);
-      return v;
-    };
-    const v1 = await agreeVersion({ from: "blank" }, 0.9);
-    const lot = await valsorda.agent
-      .post(V("/lots"))
-      .set("x-csrf-token", valsorda.csrf)
-      .send({ contractId: c.body.id, vintage: 2025, lotCode: `VB-${tag}`, volumeLitres: 1000, container: "bottles", market: "EU" });
-    await valsorda.agent
-      .post(V(`/lots/${lot.body.id}/analyses`))
-      .set("x-csrf-token", valsorda.csrf)
-      .send({
-        idempotencyKey: randomUUID(),
-        stage: "pre_filling",
-        laboratoryName: "Valsorda lab",
-        sampleDate: "2026-11-20",
-        results: [{ parameter: "volatile_acidity", raw: "0.70", unit: "g/L as acetic acid", uncertainty: null }],
-      });
-    const first = (await tech.agent.get(B(`/lots/${lot.body.id}`))).body as LotDetail;
+    const valsorda = await party(DEMO.valsordaQuality, "producer_quality");
+    const { contractId, versionId } = await agreedContract(await buyer(), valsorda, {
+      wine: { name: "Valsorda Bianco", region: "Veneto", nominalSugarGPerL: 2, nominalAlcoholPercentVol: 12 },
+      rows: [vaRow(0.9)],
+      vintageFrom: 2025,
+    });
+    const v1 = { id: versionId, number: 1 };
+    const { id: lotId } = await plannedLot(valsorda, contractId, { lotCode: `VB-${tag}`, volumeLitres: 1000, plannedDate: null });
+    await reported(valsorda, lotId, {
+      stage: "pre_filling",
+      laboratoryName: "Valsorda lab",
+      sampleDate: "2026-11-20",
+      results: [["volatile_acidity", "0.70", "g/L as acetic acid"]],
+    });
+    const first = (await tech.agent.get(B(`/lots/${lotId}`))).body as LotDetail;
     expect(first.status.label).toBe("Conforms");
-    const v2 = await agreeVersion({ from: "version", versionId: v1.id }, 0.6);
+    const second = await agreedVersion(await buyer(), valsorda, contractId, {
+      from: { from: "version", versionId: v1.id },
+      rows: [vaRow(0.6)],
+      vintageFrom: 2025,
+    });
+    const v2 = { id: second.versionId, number: second.number };
 
-    const before = (await tech.agent.get(B(`/lots/${lot.body.id}`))).body as LotDetail;
+    const before = (await tech.agent.get(B(`/lots/${lotId}`))).body as LotDetail;
     expect(before.governing!.id).toBe(v2.id);
     // Not re-judged silently: the analysis still speaks, judged against version 1.
     expect(before.status.label).toBe("Conforms");
     expect(before.analyses[0]!.evaluation!.specVersion).toEqual({ id: v1.id, number: v1.number });
 
-    const re = await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf);
+    const re = await tech.agent.post(B(`/lots/${lotId}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf);
     expect(re.status).toBe(201);
     expect(re.body.failing).toEqual(["volatile_acidity"]);
-    const after = (await tech.agent.get(B(`/lots/${lot.body.id}`))).body as LotDetail;
+    const after = (await tech.agent.get(B(`/lots/${lotId}`))).body as LotDetail;
     expect(after.status.label).toBe("Does not conform");
     expect(after.analyses).toHaveLength(2);
     // The first verdict is kept exactly as stored.
@@ -339,17 +256,16 @@ describe("a later version and a recorded re-judgement", () => {
     });
     expect(after.deviations).toHaveLength(1);
     expect(
-      (await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status,
+      (await tech.agent.post(B(`/lots/${lotId}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status,
     ).toBe(409);
     expect(
-      (await tech.agent.post(B(`/lots/${lot.body.id}/analyses/${after.analyses[1]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status,
+      (await tech.agent.post(B(`/lots/${lotId}/analyses/${after.analyses[1]!.id}/rejudge`)).set("x-csrf-token", tech.csrf)).status,
     ).toBe(409);
-    const trail = (await tech.agent.get(B(`/history/lot/${lot.body.id}`))).body as { action: string }[];
+    const trail = (await tech.agent.get(B(`/history/lot/${lotId}`))).body as { action: string }[];
     expect(trail.map((e) => e.action)).toContain("analysis.rejudged");
     // Another organisation cannot re-judge.
     expect(
-      (await producer.agent.post(P(`/lots/${lot.body.id}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", producer.csrf))
-        .status,
+      (await producer.agent.post(P(`/lots/${lotId}/analyses/${before.analyses[0]!.id}/rejudge`)).set("x-csrf-token", producer.csrf)).status,
     ).toBe(404);
   });
 });

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import { expectAccessible, screenshot, signInThroughForm, startStack, type Stack } from "../support/stack.ts";
-import { buildTestApp, DEMO, signInAs, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, type TestApp } from "../support/api.ts";
 import { setUpThreeLots, THREE_LOT_STATUSES, type ThreeLots } from "../support/three-lots.ts";
 
 let s: Stack;
@@ -17,10 +17,9 @@ const tag = randomUUID().slice(0, 5);
 
 beforeAll(async () => {
   s = await startStack();
-  // The lots are set up over the API on the same database the browser's server uses.
+  // The lots are made through the services, on the same database the browser's server uses.
   api = buildTestApp();
-  const [producer, tech] = await Promise.all([signInAs(api.app, DEMO.producerQuality), signInAs(api.app, DEMO.buyerTechnologist)]);
-  lots = await setUpThreeLots(producer, tech, tag);
+  lots = await setUpThreeLots(tag);
 });
 afterAll(async () => {
   await s?.stop();

@@ -15,11 +15,10 @@ import { getVersion } from "../../server/services/specs/spec-queries.ts";
 import { registerLot, submitAnalysis } from "../../server/services/lots/submission-service.ts";
 import { getLot } from "../../server/services/lots/lot-queries.ts";
 import type { Role } from "../../shared/auth/roles.ts";
-import type { NewContractInput } from "../../shared/specs/schemas.ts";
 import { specStageFor, type AnalysisStage } from "../../shared/lots/vocabulary.ts";
 import type { MarketId } from "../../shared/engine/index.ts";
 import type { LotInput } from "../../shared/lots/schemas.ts";
-import type { SpecRowInput } from "../../shared/specs/schemas.ts";
+import type { NewContractInput, NewVersionInput, SpecRowInput } from "../../shared/specs/schemas.ts";
 import type { DecisionInput } from "../../shared/deviations/schemas.ts";
 import type { OrganisationKind } from "../../shared/auth/roles.ts";
 import type { ParameterId } from "../../shared/engine/index.ts";
@@ -99,13 +98,7 @@ const WINE: NewContractInput["wine"] = {
 export async function agreedContract(
   buyer: Party,
   producer: Party,
-  opts: {
-    wine?: Partial<NewContractInput["wine"]>;
-    template?: string;
-    rows?: SpecRowInput[];
-    vintageFrom?: number;
-    reference?: string;
-  } = {},
+  opts: { wine?: Partial<NewContractInput["wine"]>; reference?: string } & VersionOptions = {},
 ): Promise<{ contractId: number; versionId: number; reference: string }> {
   const reference = opts.reference ?? `F-${randomUUID().slice(0, 8)}`;
   const { id: contractId } = await createContract(buyer.orgId, buyer.user, {
@@ -115,12 +108,24 @@ export async function agreedContract(
     endsOn: null,
     wine: { ...WINE, ...opts.wine },
   });
-  const { id: versionId } = await createVersion(
-    buyer.orgId,
-    contractId,
-    buyer.user,
-    opts.rows ? { from: "blank" } : { from: "template", templateId: opts.template ?? "still-white" },
-  );
+  const { versionId } = await agreedVersion(buyer, producer, contractId, opts);
+  return { contractId, versionId, reference };
+}
+
+interface VersionOptions {
+  /** Where the draft starts; a template by default, or a blank sheet when `rows` are given. */
+  from?: NewVersionInput;
+  template?: string;
+  /** The draft's rows, in place of what it started with. */
+  rows?: SpecRowInput[];
+  vintageFrom?: number;
+}
+
+/** A new version of the contract's spec, sent by the buyer and agreed by the producer. */
+export async function agreedVersion(buyer: Party, producer: Party, contractId: number, opts: VersionOptions = {}) {
+  const from =
+    opts.from ?? (opts.rows ? { from: "blank" as const } : { from: "template" as const, templateId: opts.template ?? "still-white" });
+  const { id: versionId } = await createVersion(buyer.orgId, contractId, buyer.user, from);
   const draft = await getVersion(buyer.orgId, versionId, buyer.role);
   const rows = opts.rows ?? draft.requirements.map(({ id: _id, ...row }) => row);
   await saveDraft(buyer.orgId, versionId, buyer.user, {
@@ -133,7 +138,7 @@ export async function agreedContract(
   });
   await sendToProducer(buyer.orgId, versionId, buyer.user);
   await agree(producer.orgId, versionId, producer.user);
-  return { contractId, versionId, reference };
+  return { versionId, number: draft.number };
 }
 
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
