@@ -1,20 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import request from "supertest";
 import jwt from "jsonwebtoken";
-import { buildTestApp, DEMO, DEMO_PASSWORD, ORG, signInAs, type TestApp } from "../support/api.ts";
-import { startTestMail, linkIn } from "../support/mail.ts";
+import { DEMO, DEMO_PASSWORD, ORG, signInAs } from "../support/api.ts";
+import { linkIn } from "../support/mail.ts";
+import { mail, openAppAndMail, t } from "../support/app-and-mail.ts";
 import { SIGN_IN_FAILED } from "../../server/services/auth-service.ts";
 
-let t: TestApp;
-let mail: Awaited<ReturnType<typeof startTestMail>>;
-beforeAll(async () => {
-  t = buildTestApp();
-  mail = await startTestMail();
-});
-afterAll(async () => {
-  await mail.stop();
-  await t.close();
-});
+openAppAndMail();
 
 describe("sign-in", () => {
   it("when the password is right, then a session cookie is HttpOnly and SameSite and the CSRF token comes back", async () => {

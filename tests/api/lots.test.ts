@@ -76,7 +76,7 @@ describe("submitting an analysis", () => {
     const lot = (await buyer.agent.get(B(`/lots/${lotId}`))).body;
     const ev = lot.analyses[0].evaluation;
     expect(ev).toMatchObject({
-      specVersionId: 1,
+      specVersionId: lot.governing.id,
       engineVersion: ENGINE_VERSION,
       marketVersions: { EU: MARKET_PACKS.EU.version },
       worstOutcome: "fail",

@@ -1,18 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import request from "supertest";
-import { buildTestApp, DEMO, ORG, signInAs, uniqueEmail, type TestApp } from "../support/api.ts";
-import { startTestMail, linkIn } from "../support/mail.ts";
+import { DEMO, ORG, signInAs, uniqueEmail } from "../support/api.ts";
+import { linkIn } from "../support/mail.ts";
+import { mail, openAppAndMail, t } from "../support/app-and-mail.ts";
 
-let t: TestApp;
-let mail: Awaited<ReturnType<typeof startTestMail>>;
-beforeAll(async () => {
-  t = buildTestApp();
-  mail = await startTestMail();
-});
-afterAll(async () => {
-  await mail.stop();
-  await t.close();
-});
+openAppAndMail();
 
 describe("invitations", () => {
   it("when an admin invites someone, then the mailed link creates the account, the membership and a session", async () => {

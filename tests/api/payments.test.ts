@@ -65,7 +65,7 @@ async function anyLotOfContract(contractId: number) {
 }
 
 async function placeOrder(parameters = ["volatile_acidity", "free_so2"]) {
-  const lotId = await anyLotOfContract(1);
+  const lotId = await anyLotOfContract(CONTRACT.sentierBlanc);
   const res = await finance.agent
     .post(B("/audit-orders"))
     .set("x-csrf-token", finance.csrf)
@@ -102,7 +102,7 @@ describe("ordering and paying an audit", () => {
   });
 
   it("refuses a parameter the laboratory does not price, and lets only finance order", async () => {
-    const lotId = await anyLotOfContract(1);
+    const lotId = await anyLotOfContract(CONTRACT.sentierBlanc);
     const body = {
       idempotencyKey: randomUUID(),
       contractId: CONTRACT.sentierBlanc,

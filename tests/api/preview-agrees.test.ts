@@ -11,6 +11,7 @@ import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp } f
 import { judgeForLot, previewJudgement } from "../../src/features/lots/entry-preview.ts";
 import type { LotDetail } from "../../shared/lots/views.ts";
 import type { AnalysisStage } from "../../shared/lots/vocabulary.ts";
+import { contract, party } from "../support/factories.ts";
 
 let t: TestApp;
 let buyer: SignedInAgent;
@@ -98,26 +99,14 @@ const result = (r: { parameter: string; unit: string; lower: number | null; uppe
 beforeAll(async () => {
   t = buildTestApp();
   [buyer, producer] = await Promise.all([signInAs(t.app, DEMO.buyerTechnologist), signInAs(t.app, DEMO.valsordaQuality)]);
-  const c = await buyer.agent
-    .post(B("/contracts"))
-    .set("x-csrf-token", buyer.csrf)
-    .send({
-      reference: `HG-PROP-${randomUUID().slice(0, 6)}`,
-      producerOrgId: ORG.valsorda,
-      startsOn: "2026-01-01",
-      endsOn: null,
-      wine: {
-        name: "Valsorda Bianco",
-        colour: "white",
-        category: "still",
-        region: "Veneto",
-        markets: ["EU", "US"],
-        nominalSugarGPerL: 3,
-        nominalAlcoholPercentVol: 12,
-      },
-    });
-  expect(c.status).toBe(201);
-  contractId = c.body.id;
+  const opened = await contract(
+    await party(DEMO.buyerTechnologist, "buyer_technologist"),
+    await party(DEMO.valsordaQuality, "producer_quality"),
+    {
+      wine: { name: "Valsorda Bianco", region: "Veneto", markets: ["EU", "US"], nominalSugarGPerL: 3, nominalAlcoholPercentVol: 12 },
+    },
+  );
+  contractId = opened.contractId;
 });
 
 let vintage = 1960;

@@ -13,8 +13,7 @@ import { dropAllTables } from "../../server/db/reset.ts";
 import { useServiceSettings } from "../../server/settings.ts";
 import { importAnalyses } from "../../server/services/lots/submission-service.ts";
 import { createContract } from "../../server/services/specs/contract-service.ts";
-import { toSessionUser } from "../../server/services/session-service.ts";
-import { User } from "../../server/models/user.ts";
+import { party } from "../support/factories.ts";
 import { buildSamples, guessMapping } from "../../shared/lots/csv.ts";
 import { IMPORT_BATCH_MAX } from "../../shared/lots/schemas.ts";
 
@@ -53,8 +52,8 @@ for (let i = 0; i < ROWS; i++) {
 }
 const csv = lines.join("\n");
 
-const buyer = await toSessionUser((await User.findOne({ where: { email: "tessa.marlow@harbourline.test" } }))!);
-const producer = await toSessionUser((await User.findOne({ where: { email: "elise.carbonnel@troissentes.test" } }))!);
+const buyer = await party("tessa.marlow@harbourline.test", "buyer_technologist");
+const producer = await party("elise.carbonnel@troissentes.test", "producer_quality");
 
 const time = async <T>(fn: () => Promise<T> | T) => {
   const t = performance.now();
@@ -71,9 +70,9 @@ let run = 0;
 const phases = { parse: 0, validate: 0, store: 0 };
 async function fullImport() {
   run += 1;
-  const { id: contractId } = await createContract(1, buyer, {
+  const { id: contractId } = await createContract(buyer.orgId, buyer.user, {
     reference: `BENCH-${run}`,
-    producerOrgId: 2,
+    producerOrgId: producer.orgId,
     startsOn: "2026-01-01",
     endsOn: null,
     wine: {
@@ -97,7 +96,7 @@ async function fullImport() {
   const t2 = performance.now();
   let stored = 0;
   for (let i = 0; i < samples.length; i += IMPORT_BATCH_MAX) {
-    const { response } = await importAnalyses(2, contractId, producer, {
+    const { response } = await importAnalyses(producer.orgId, contractId, producer.user, {
       idempotencyKey: `bench-${run}-${i}`,
       stage: "pre_filling",
       laboratoryName: "Bench laboratory",

@@ -100,6 +100,13 @@ export async function agreedContract(
   producer: Party,
   opts: { wine?: Partial<NewContractInput["wine"]>; reference?: string } & VersionOptions = {},
 ): Promise<{ contractId: number; versionId: number; reference: string }> {
+  const { contractId, reference } = await contract(buyer, producer, opts);
+  const { versionId } = await agreedVersion(buyer, producer, contractId, opts);
+  return { contractId, versionId, reference };
+}
+
+/** A contract the buyer opened with the producer, with no spec version yet. */
+export async function contract(buyer: Party, producer: Party, opts: { wine?: Partial<NewContractInput["wine"]>; reference?: string } = {}) {
   const reference = opts.reference ?? `F-${randomUUID().slice(0, 8)}`;
   const { id: contractId } = await createContract(buyer.orgId, buyer.user, {
     reference,
@@ -108,8 +115,7 @@ export async function agreedContract(
     endsOn: null,
     wine: { ...WINE, ...opts.wine },
   });
-  const { versionId } = await agreedVersion(buyer, producer, contractId, opts);
-  return { contractId, versionId, reference };
+  return { contractId, reference };
 }
 
 interface VersionOptions {
