@@ -29,7 +29,7 @@ export default defineConfig({
       OUTBOX_POLL_MS: "50",
     },
     projects: [
-      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.ts"] } },
+      { extends: true, test: { name: "unit", include: ["tests/unit/**/*.test.ts"], setupFiles: ["tests/support/fail-on-console.ts"] } },
       // API and browser tests share the test database, rebuilt once before them.
       {
         extends: true,

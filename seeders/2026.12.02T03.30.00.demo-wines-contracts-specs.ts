@@ -13,6 +13,16 @@ import { party, reported } from "../tests/support/factories.ts";
 const now = new Date("2026-11-20T09:00:00Z");
 const stamps = { created_at: now, updated_at: now };
 
+/** What the law needs to know of the two Loire wines (an appellation wine from zones A/B, filtered). */
+const LOIRE_PDO = {
+  organic: false,
+  protectedOrigin: "pdo",
+  filtered: true,
+  euZonesAB: true,
+  oivSulphateCase: "none",
+  cryoliteTreatedVineyard: false,
+};
+
 const WINES = [
   {
     id: 1,
@@ -25,14 +35,7 @@ const WINES = [
     markets: ["GB", "EU", "OIV"],
     nominal_sugar_g_per_l: 2.5,
     nominal_alcohol_percent_vol: 12.5,
-    law_facts: {
-      organic: false,
-      protectedOrigin: "pdo",
-      filtered: true,
-      euZonesAB: true,
-      oivSulphateCase: "none",
-      cryoliteTreatedVineyard: false,
-    },
+    law_facts: LOIRE_PDO,
   },
   {
     id: 2,
@@ -45,14 +48,7 @@ const WINES = [
     markets: ["GB", "EU", "OIV"],
     nominal_sugar_g_per_l: 1.8,
     nominal_alcohol_percent_vol: 13,
-    law_facts: {
-      organic: false,
-      protectedOrigin: "pdo",
-      filtered: true,
-      euZonesAB: true,
-      oivSulphateCase: "none",
-      cryoliteTreatedVineyard: false,
-    },
+    law_facts: LOIRE_PDO,
   },
   {
     id: 3,

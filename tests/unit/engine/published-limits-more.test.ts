@@ -5,15 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { applicableLimits, type MarketId, type ParameterId, type WineProfile } from "../../../shared/engine/index.ts";
-
-const still = (colour: WineProfile["colour"], extra: Partial<WineProfile> = {}): WineProfile => ({
-  colour,
-  category: "still",
-  sugarGPerL: 2,
-  harvestYear: 2024,
-  alcoholPercentVol: 12.5,
-  ...extra,
-});
+import { still } from "../../support/wine-profiles.ts";
 
 function governing(market: MarketId, parameter: ParameterId, profile: WineProfile, side: "max" | "min" = "max") {
   const values = applicableLimits([market], profile, { parameter })

@@ -16,15 +16,7 @@ import {
   type ParameterId,
   type WineProfile,
 } from "../../../shared/engine/index.ts";
-
-const still = (colour: WineProfile["colour"], extra: Partial<WineProfile> = {}): WineProfile => ({
-  colour,
-  category: "still",
-  sugarGPerL: 2,
-  harvestYear: 2024,
-  alcoholPercentVol: 12.5,
-  ...extra,
-});
+import { still } from "../../support/wine-profiles.ts";
 
 /** [market, parameter, profile, expected value as the law states it, source] */
 const ROWS: [MarketId, ParameterId, WineProfile, number, string][] = [
