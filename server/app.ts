@@ -1,6 +1,7 @@
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 import express, { type Express } from "express";
 import helmet from "helmet";
+import compression from "compression";
 import cookieParser from "cookie-parser";
 import { pinoHttp } from "pino-http";
 import type { Logger } from "pino";
@@ -66,6 +67,8 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
       strictTransportSecurity: production && config.COOKIE_SECURE,
     }),
   );
+  // Answers and static files go compressed when the client accepts it (JSON compresses about threefold).
+  app.use(compression());
   app.use(cookieParser());
   // Stripe signs the exact bytes it sends, so its webhook gets the raw body, before any JSON parser runs.
   app.use(STRIPE_WEBHOOK_PATH, express.raw({ type: "application/json", limit: "1mb" }));
@@ -91,7 +94,14 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
 
   if (config.CLIENT_DIR) {
     const dir = path.resolve(config.CLIENT_DIR);
-    app.use(express.static(dir, { index: false, maxAge: production ? "1h" : 0 }));
+    // Vite names built assets by their content hash, so a browser may keep them for good; index.html is asked for afresh.
+    app.use(
+      "/assets",
+      express.static(path.join(dir, "assets"), { index: false, immutable: production, maxAge: production ? "365d" : 0 }),
+      // A missing asset is a 404, not the single page in its place.
+      (_req: express.Request, res: express.Response) => res.status(404).end(),
+    );
+    app.use(express.static(dir, { index: false, maxAge: 0 }));
     // Any other GET is a client-side route: serve the single page.
     app.get(/.*/, (_req, res) => res.sendFile(path.join(dir, "index.html")));
   }

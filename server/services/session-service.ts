@@ -1,6 +1,6 @@
 /** Session tokens (JWT in an HttpOnly cookie) and the user loaded for each request. */
 import jwt from "jsonwebtoken";
-import { createHmac, randomUUID } from "node:crypto";
+import { createHmac, createSecretKey, randomUUID, type KeyObject } from "node:crypto";
 import type { SessionUser } from "../../shared/auth/session.ts";
 
 export type { SessionMembership, SessionUser } from "../../shared/auth/session.ts";
@@ -21,9 +21,17 @@ export interface SessionSettings {
   hours: number;
 }
 
+// A string secret makes jsonwebtoken try it as a PEM public key on every call; a secret KeyObject goes straight to HMAC.
+const keys = new Map<string, KeyObject>();
+function keyOf(secret: string): KeyObject {
+  let key = keys.get(secret);
+  if (!key) keys.set(secret, (key = createSecretKey(Buffer.from(secret, "utf8"))));
+  return key;
+}
+
 export function issueSessionToken(s: SessionSettings, userId: number, sessionVersion: number): { token: string; sessionId: string } {
   const sessionId = randomUUID();
-  const token = jwt.sign({ sv: sessionVersion }, s.secret, {
+  const token = jwt.sign({ sv: sessionVersion }, keyOf(s.secret), {
     algorithm: "HS256",
     subject: String(userId),
     jwtid: sessionId,
@@ -38,39 +46,40 @@ export const csrfTokenFor = (secret: string, sessionId: string) =>
 
 export function readSessionToken(s: SessionSettings, token: string): TokenClaims | null {
   try {
-    return jwt.verify(token, s.secret, { algorithms: ["HS256"] }) as TokenClaims;
+    return jwt.verify(token, keyOf(s.secret), { algorithms: ["HS256"] }) as TokenClaims;
   } catch {
     return null;
   }
 }
 
-/** Loads the user behind valid claims; null when the user is gone or the session was revoked. */
+/** Loads the user behind valid claims, with their memberships, in one query; null when the user is gone or the session was revoked. */
 export async function loadSessionUser(claims: TokenClaims): Promise<SessionUser | null> {
-  const user = await User.findByPk(Number(claims.sub));
+  const user = await User.findByPk(Number(claims.sub), { include: membershipsInclude });
   if (!user || user.sessionVersion !== claims.sv || !user.passwordHash) return null;
-  return toSessionUser(user);
+  return sessionUserOf(user as UserWithMemberships);
 }
 
+const membershipsInclude = [{ model: Membership, as: "memberships", include: [{ model: Organisation, as: "organisation" }] }];
+type UserWithMemberships = User & { memberships: (Membership & { organisation: Organisation })[] };
+
 export async function toSessionUser(user: User): Promise<SessionUser> {
-  const memberships = await Membership.findAll({
-    where: { userId: user.id },
-    include: [{ model: Organisation, as: "organisation" }],
-    order: [["id", "ASC"]],
-  });
+  return sessionUserOf((await User.findByPk(user.id, { include: membershipsInclude })) as UserWithMemberships);
+}
+
+function sessionUserOf(user: UserWithMemberships): SessionUser {
   return {
     id: user.id,
     email: user.email,
     name: user.name,
     isPlatformAdmin: user.isPlatformAdmin,
-    memberships: memberships.map((m) => {
-      const org = (m as Membership & { organisation: Organisation }).organisation;
-      return {
+    memberships: [...user.memberships]
+      .sort((a, b) => a.id - b.id)
+      .map((m) => ({
         membershipId: m.id,
         organisationId: m.organisationId,
-        organisationName: org.name,
-        organisationKind: org.kind,
+        organisationName: m.organisation.name,
+        organisationKind: m.organisation.kind,
         role: m.role,
-      };
-    }),
+      })),
   };
 }
