@@ -6,6 +6,9 @@ import path from "node:path";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { readCsv } from "../support/csv.ts";
+import { agreedContract, party } from "../support/factories.ts";
+import { passingResults } from "../support/passing-results.ts";
+import { getVersion } from "../../server/services/specs/spec-queries.ts";
 import { IMPORT_BATCH_MAX } from "../../shared/lots/schemas.ts";
 import { ENGINE_VERSION, MARKET_PACKS } from "../../shared/engine/index.ts";
 
@@ -310,6 +313,37 @@ describe("CSV import through the API", () => {
       type: QueryTypes.SELECT,
     });
     expect(lots[0]!.n).toBe(10_000);
+  }, 240_000);
+});
+
+describe("an import the size a laboratory sends", () => {
+  it("when 2,000 samples are imported against a 15-row spec, then all are stored, however large their evaluations (regression: one insert passed max_allowed_packet)", async () => {
+    const [maker, tech] = await Promise.all([
+      party(DEMO.producerQuality, "producer_quality"),
+      party(DEMO.buyerTechnologist, "buyer_technologist"),
+    ]);
+    const { contractId, versionId } = await agreedContract(tech, maker, { template: "still-white", vintageFrom: 2025 });
+    const { requirements } = await getVersion(tech.orgId, versionId, tech.role);
+    expect(requirements.length).toBeGreaterThanOrEqual(15);
+    const results = passingResults(requirements, "pre_filling");
+    const before = await count("analysis_evaluations");
+    const res = await producer.agent
+      .post(P(`/contracts/${contractId}/imports`))
+      .set("x-csrf-token", producer.csrf)
+      .send({
+        idempotencyKey: randomUUID(),
+        stage: "pre_filling",
+        laboratoryName: "Northgate Oenology Laboratory",
+        accreditation: "UKAS 4412",
+        samples: Array.from({ length: IMPORT_BATCH_MAX }, (_, i) => ({
+          lotCode: `PK-${i}`,
+          vintage: 2025,
+          sampleDate: "2026-11-30",
+          results,
+        })),
+      });
+    expect(res.status).toBe(201);
+    expect(await count("analysis_evaluations")).toBe(before + IMPORT_BATCH_MAX);
   }, 240_000);
 });
 

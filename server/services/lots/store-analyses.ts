@@ -2,8 +2,9 @@
  * Stores analyses with their results and the engine's stored evaluation, opens deviations for
  * failing results and for transit drift, all inside the caller's transaction (never half-written).
  */
-import { Op, type QueryInterface, type Transaction } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import { database } from "../../db/database.ts";
+import { insertInChunks } from "../../db/chunked-insert.ts";
 import { compareTransit, findParameter } from "../../../shared/engine/index.ts";
 import {
   judgeAnalysis,
@@ -22,10 +23,6 @@ import { type Lot } from "../../models/lot.ts";
 import { openDeviations, type NewDeviation } from "../deviations/open-deviations.ts";
 import type { ContractWithParties } from "../specs/spec-access.ts";
 import { governingVersion } from "./governing.ts";
-
-async function insertInChunks(qi: QueryInterface, t: Transaction, table: string, rows: object[], size = 2000) {
-  for (let i = 0; i < rows.length; i += size) await qi.bulkInsert(table, rows.slice(i, i + size), { transaction: t });
-}
 
 export interface AnalysisHeader {
   stage: AnalysisStage;
