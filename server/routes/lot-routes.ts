@@ -5,7 +5,14 @@ import { idempotentAnswer } from "../http/idempotent-answer.ts";
 import { allowed } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { PARAMETERS } from "../../shared/engine/index.ts";
-import { analysisSubmissionSchema, importBatchSchema, lotSchema, lotUpdateSchema } from "../../shared/lots/schemas.ts";
+import {
+  analysisSubmissionSchema,
+  importBatchSchema,
+  lotListQuerySchema,
+  lotSchema,
+  lotUpdateSchema,
+  readinessQuerySchema,
+} from "../../shared/lots/schemas.ts";
 import * as submissions from "../services/lots/submission-service.ts";
 import * as queries from "../services/lots/lot-queries.ts";
 import { readCertificate, storeCertificate } from "../services/lots/certificate-service.ts";
@@ -30,7 +37,7 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
       summary: "Lots on your contracts",
       access: PARTIES,
       params: orgParams,
-      query: z.object({ contract: z.coerce.number().int().positive().optional(), q: z.string().trim().max(60).optional() }),
+      query: lotListQuerySchema,
     },
     ({ params, query }) => queries.listLots(params.orgId, query),
   );
@@ -151,8 +158,13 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
 
   routes.get(
     "/api/orgs/:orgId/readiness",
-    { summary: "Lots approaching filling or shipment: what is missing, what fails", access: PARTIES, params: orgParams },
-    ({ params }) => queries.readiness(params.orgId),
+    {
+      summary: "Lots due within the horizon, soonest first and undated last: what is missing, what fails",
+      access: PARTIES,
+      params: orgParams,
+      query: readinessQuerySchema,
+    },
+    ({ params, query }) => queries.readiness(params.orgId, query),
   );
 
   routes.get(

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { pageQuery } from "../paging.ts";
 import { CONDITION_KINDS, DEVIATION_OUTCOMES, DEVIATION_STATUSES, NOTIFICATION_KINDS } from "./vocabulary.ts";
 
 const body = z.string().trim().min(1, { error: "Write something." }).max(5000, { error: "A message has at most 5,000 characters." });
@@ -42,11 +43,13 @@ export const manualDeviationSchema = z.object({
 });
 
 export const deviationListQuerySchema = z.object({
+  ...pageQuery,
   status: z.enum(DEVIATION_STATUSES).optional(),
   lot: z.coerce.number().int().positive().optional(),
   contract: z.coerce.number().int().positive().optional(),
   overdue: z.enum(["true", "false"]).optional(),
 });
+export type DeviationListQuery = z.infer<typeof deviationListQuerySchema>;
 
 export const preferencesSchema = z.object({
   emailMode: z.enum(["immediate", "daily_digest", "off"]),

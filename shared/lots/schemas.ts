@@ -1,5 +1,6 @@
 /** Lot and analysis schemas shared by the forms, the CSV import and the API. */
 import { z } from "zod";
+import { pageQuery } from "../paging.ts";
 import { findParameter, MARKET_IDS, parseReading, PARAMETERS, UNITS, type MarketId, type UnitId } from "../engine/index.ts";
 import { ANALYSIS_STAGES, CONTAINERS } from "./vocabulary.ts";
 
@@ -128,3 +129,25 @@ export const lotUpdateSchema = lotSchema.pick({
   labelledAlcoholPercentVol: true,
 });
 export type LotUpdate = z.infer<typeof lotUpdateSchema>;
+
+/** The lots list: a page of lots, newest vintage first, optionally of one contract or matching a lot code. */
+export const lotListQuerySchema = z.object({
+  ...pageQuery,
+  contract: z.coerce.number().int().positive().optional(),
+  q: z.string().trim().max(60).optional(),
+});
+export type LotListQuery = z.infer<typeof lotListQuerySchema>;
+
+export const READINESS_HORIZON_DEFAULT = 120;
+export const READINESS_HORIZON_MAX = 730;
+/** The readiness board: lots due within the horizon (days from today), soonest first, undated ones last. */
+export const readinessQuerySchema = z.object({
+  ...pageQuery,
+  horizon: z.coerce
+    .number({ error: "The horizon is a number of days." })
+    .int({ error: "The horizon is a whole number of days." })
+    .min(1, { error: "The horizon is at least 1 day." })
+    .max(READINESS_HORIZON_MAX, { error: `The horizon is at most ${READINESS_HORIZON_MAX} days.` })
+    .default(READINESS_HORIZON_DEFAULT),
+});
+export type ReadinessQuery = z.infer<typeof readinessQuerySchema>;

@@ -188,11 +188,11 @@ describe("the laboratory's side", () => {
 
   it("the laboratory reads the deviations of its audit, and only those, without taking part", async () => {
     const o = (await finance.agent.get(B(`/audit-orders/${orderId}`))).body;
-    const list = await lab.agent.get(L("/deviations"));
+    const list = await lab.agent.get(L("/deviations?limit=200"));
     expect(list.status).toBe(200);
-    const ids = list.body.map((d: { id: number }) => d.id);
+    const ids = list.body.items.map((d: { id: number }) => d.id);
     for (const id of o.deviationIds) expect(ids).toContain(id);
-    const audit = list.body.find((d: { kind: string; lotId: number }) => d.kind === "audit" && d.lotId === lotId);
+    const audit = list.body.items.find((d: { kind: string; lotId: number }) => d.kind === "audit" && d.lotId === lotId);
     expect(audit.summary).toMatch(/Volatile acidity \(En = -1\.89/);
     const detail = await lab.agent.get(L(`/deviations/${audit.id}`));
     expect(detail.status).toBe(200);
@@ -213,7 +213,7 @@ describe("the laboratory's side", () => {
       .send({ lotId, parameters: ["ph"], reason: "Capsule batch changed on the line; checking the lot." });
     expect(other.status).toBe(201);
     expect((await lab.agent.get(L(`/deviations/${other.body.id}`))).status).toBe(404);
-    expect((await lab.agent.get(L("/deviations"))).body.map((d: { id: number }) => d.id)).not.toContain(other.body.id);
+    expect((await lab.agent.get(L("/deviations?limit=200"))).body.items.map((d: { id: number }) => d.id)).not.toContain(other.body.id);
     const valsorda = await signInAs(t.app, DEMO.valsordaQuality);
     expect((await valsorda.agent.get(`/api/orgs/${ORG.valsorda}/deviations/${audit.id}`)).status).toBe(404);
   });

@@ -160,12 +160,14 @@ describe("deviations", () => {
     const kestrel = await signInAs(t.app, DEMO.bulkProducerQuality);
     expect((await kestrel.agent.get(`/api/orgs/${ORG.kestrelFlats}/deviations/${deviationId}`)).status).toBe(404);
     expect((await kestrel.agent.get(`/api/orgs/${ORG.kestrelFlats}/history/deviation/${deviationId}`)).status).toBe(404);
-    const list = (await kestrel.agent.get(`/api/orgs/${ORG.kestrelFlats}/deviations`)).body as { contractId: number }[];
+    const list = (await kestrel.agent.get(`/api/orgs/${ORG.kestrelFlats}/deviations`)).body.items as { contractId: number }[];
     expect(list.every((d) => d.contractId === 3)).toBe(true);
     const lab = await signInAs(t.app, DEMO.labAdmin);
     expect((await lab.agent.get(`/api/orgs/${ORG.lab}/deviations/${deviationId}`)).status).toBe(404);
     // The laboratory lists only what its paid audits opened (tests/api/audits.test.ts), never this one.
-    expect((await lab.agent.get(`/api/orgs/${ORG.lab}/deviations`)).body.map((d: { id: number }) => d.id)).not.toContain(deviationId);
+    expect((await lab.agent.get(`/api/orgs/${ORG.lab}/deviations?limit=200`)).body.items.map((d: { id: number }) => d.id)).not.toContain(
+      deviationId,
+    );
   });
 
   it("when a producer attaches a PDF to a message and the record is printed, then the file is kept with its hash and the PDF holds the discussion", async () => {

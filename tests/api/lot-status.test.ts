@@ -45,8 +45,8 @@ beforeAll(async () => {
 describe("one status per lot", () => {
   it("when a lot conforms, fails, or is accepted under concession, then the list, the lot and the readiness board use the same words", async () => {
     const expected = THREE_LOT_STATUSES;
-    const list = (await tech.agent.get(B(`/lots?q=${tag}`))).body as LotSummary[];
-    const board = (await tech.agent.get(B("/readiness"))).body as ReadinessRow[];
+    const list = (await tech.agent.get(B(`/lots?q=${tag}`))).body.items as LotSummary[];
+    const board = (await tech.agent.get(B("/readiness?limit=200"))).body.items as ReadinessRow[];
     for (const [key, [code, label]] of Object.entries(expected)) {
       const lot = lots[key as keyof typeof lots];
       const detail = (await tech.agent.get(B(`/lots/${lot.id}`))).body as LotDetail;
@@ -289,7 +289,7 @@ describe("a laboratory's number format", () => {
     const point = await send(`NF-P-${tag}`, "point");
     expect([comma.status, point.status]).toEqual([201, 201]);
     const reading = async (code: string) => {
-      const lot = ((await producer.agent.get(P(`/lots?q=${code}`))).body as LotSummary[])[0]!;
+      const lot = ((await producer.agent.get(P(`/lots?q=${code}`))).body.items as LotSummary[])[0]!;
       const detail = (await producer.agent.get(P(`/lots/${lot.id}`))).body as LotDetail;
       return detail.analyses[0]!.results[0]!;
     };

@@ -155,7 +155,7 @@ describe("lots and authorization", () => {
           .send(failingAnalysis())
       ).status,
     ).toBe(403);
-    const mine = (await kestrel.agent.get(K("/lots"))).body as { contractId: number }[];
+    const mine = (await kestrel.agent.get(K("/lots"))).body.items as { contractId: number }[];
     expect(mine.every((l) => l.contractId === KESTREL_CONTRACT)).toBe(true);
   });
 

@@ -61,7 +61,7 @@ async function waitFor<T>(what: string, probe: () => Promise<T | null | undefine
 async function anyLotOfContract(contractId: number) {
   const lots = await finance.agent.get(B(`/lots?contract=${contractId}`));
   expect(lots.status).toBe(200);
-  return lots.body[0].id as number;
+  return lots.body.items[0].id as number;
 }
 
 async function placeOrder(parameters = ["volatile_acidity", "free_so2"]) {

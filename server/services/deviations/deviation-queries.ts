@@ -1,5 +1,8 @@
 /** Reading deviations: the list with filters, one deviation with its thread, and an attachment. */
-import { Op } from "sequelize";
+import { Op, type WhereOptions } from "sequelize";
+import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
+import type { Page } from "../../../shared/paging.ts";
+import type { DeviationListQuery } from "../../../shared/deviations/schemas.ts";
 import { Deviation } from "../../models/deviation.ts";
 import { DeviationAttachment } from "../../models/deviation-attachment.ts";
 import { DeviationMessage } from "../../models/deviation-message.ts";
@@ -12,7 +15,6 @@ import { notFound } from "../../errors.ts";
 import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { AuditOrder } from "../../models/audit-order.ts";
 import { readStoredFile } from "../../integrations/storage/stored-files.ts";
-import { type DeviationStatus } from "../../../shared/deviations/vocabulary.ts";
 import type { DeviationDetail, DeviationSummaryView, MessageView } from "../../../shared/deviations/views.ts";
 import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import type { SessionUser, SessionMembership } from "../session-service.ts";
@@ -41,10 +43,19 @@ function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationS
   };
 }
 
-export async function listDeviations(
-  orgId: number,
-  f: { status?: DeviationStatus; lot?: number; contract?: number; overdue?: "true" | "false" },
-) {
+const NEWEST_FIRST: SortKey[] = [
+  { attribute: "createdAt", direction: "DESC" },
+  { attribute: "id", direction: "DESC" },
+];
+
+/** Overdue: still open and past its respond-by date (as `isOverdue` says), written in SQL so the filter pages. */
+const overdueWhere = (overdue: boolean, now: Date): WhereOptions<Deviation> =>
+  overdue
+    ? { status: { [Op.notIn]: CLOSED }, respondBy: { [Op.lt]: now } }
+    : { [Op.or]: [{ status: CLOSED }, { respondBy: null }, { respondBy: { [Op.gte]: now } }] };
+
+/** A page of the deviations the organisation may see, newest first: its contracts' and, for a laboratory, its audits'. */
+export async function listDeviations(orgId: number, f: DeviationListQuery): Promise<Page<DeviationSummaryView>> {
   const labOrders = await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] });
   const contracts = (await Contract.findAll({
     where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] },
@@ -56,14 +67,30 @@ export async function listDeviations(
   const labWhere = labOrders.length
     ? [{ auditOrderId: labOrders.map((o) => o.id), ...(f.contract ? { contractId: f.contract } : {}) }]
     : [];
-  const rows = await Deviation.findAll({
-    where: { [Op.or]: [{ contractId: ids }, ...labWhere], ...(f.status ? { status: f.status } : {}), ...(f.lot ? { lotId: f.lot } : {}) },
-    include: [{ model: Lot, as: "lot" }],
-    order: [["createdAt", "DESC"]],
-    limit: 500,
-  });
-  const views = rows.map((d) => summaryView(d, (d as Deviation & { lot: Lot }).lot, byId.get(d.contractId)!));
-  return f.overdue === "true" ? views.filter((v) => v.overdue) : f.overdue === "false" ? views.filter((v) => !v.overdue) : views;
+  const filter: WhereOptions<Deviation> = {
+    [Op.and]: [
+      { [Op.or]: [{ contractId: ids }, ...labWhere] },
+      f.status ? { status: f.status } : {},
+      f.lot ? { lotId: f.lot } : {},
+      f.overdue ? overdueWhere(f.overdue === "true", new Date()) : {},
+    ],
+  };
+  const [rows, total] = await Promise.all([
+    Deviation.findAll({
+      where: { [Op.and]: [filter, afterCursor(NEWEST_FIRST, f.cursor)] },
+      include: [{ model: Lot, as: "lot" }],
+      order: orderBy(NEWEST_FIRST),
+      limit: f.limit + 1,
+    }),
+    Deviation.count({ where: filter }),
+  ]);
+  return toPage(
+    rows,
+    f.limit,
+    (d) => [d.createdAt.toISOString(), d.id],
+    (page) => page.map((d) => summaryView(d, (d as Deviation & { lot: Lot }).lot, byId.get(d.contractId)!)),
+    total,
+  );
 }
 
 export async function getDeviation(orgId: number, id: number, user: SessionUser, membership: SessionMembership): Promise<DeviationDetail> {

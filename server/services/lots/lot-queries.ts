@@ -1,5 +1,8 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
-import { literal, Op } from "sequelize";
+import { Op, type WhereOptions } from "sequelize";
+import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
+import type { Page } from "../../../shared/paging.ts";
+import type { LotListQuery, ReadinessQuery } from "../../../shared/lots/schemas.ts";
 import {
   compareTransit,
   convert,
@@ -112,21 +115,25 @@ async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties
   });
 }
 
-export async function listLots(orgId: number, f: { contract?: number; q?: string }) {
+const LOT_ORDER: SortKey[] = [
+  { attribute: "vintage", direction: "DESC" },
+  { attribute: "lotCode", direction: "ASC" },
+  { attribute: "id", direction: "ASC" },
+];
+
+/** A page of the lots on the organisation's contracts, newest vintage first. */
+export async function listLots(orgId: number, f: LotListQuery): Promise<Page<LotSummary>> {
   const contracts = await partyContracts(orgId);
   const byId = new Map(contracts.map((c) => [c.id, c]));
-  const lots = await Lot.findAll({
-    where: {
-      contractId: f.contract ? [f.contract].filter((id) => byId.has(id)) : [...byId.keys()],
-      ...(f.q ? { lotCode: { [Op.like]: `%${f.q.replace(/[%_]/g, "")}%` } } : {}),
-    },
-    order: [
-      ["vintage", "DESC"],
-      ["lotCode", "ASC"],
-    ],
-    limit: 500,
-  });
-  return summaries(lots, byId);
+  const filter: WhereOptions<Lot> = {
+    contractId: f.contract ? [f.contract].filter((id) => byId.has(id)) : [...byId.keys()],
+    ...(f.q ? { lotCode: { [Op.like]: `%${f.q.replace(/[%_\\]/g, "")}%` } } : {}),
+  };
+  const [lots, total] = await Promise.all([
+    Lot.findAll({ where: { [Op.and]: [filter, afterCursor(LOT_ORDER, f.cursor)] }, order: orderBy(LOT_ORDER), limit: f.limit + 1 }),
+    Lot.count({ where: filter }),
+  ]);
+  return toPage(lots, f.limit, (l) => [l.vintage, l.lotCode, l.id], (page) => summaries(page, byId), total);
 }
 
 function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>, profileNow: WineProfile): AnalysisView {
@@ -244,37 +251,52 @@ export async function lotAudits(lotId: number, side: "buyer" | "producer"): Prom
   }));
 }
 
-/** Lots not yet shipped or due within the horizon, with what each required stage still lacks. */
-export async function readiness(orgId: number, horizonDays = 120): Promise<ReadinessRow[]> {
+// Undated lots sort after every dated one; the expression is fixed text, never user input.
+const DUE_ORDER: SortKey[] = [
+  { attribute: "plannedDate", sql: "COALESCE(`Lot`.`planned_date`, '9999-12-31')", direction: "ASC" },
+  { attribute: "lotCode", direction: "ASC" },
+  { attribute: "id", direction: "ASC" },
+];
+
+/** A page of the lots due within the horizon (soonest first, undated last), with what each required stage still lacks. */
+export async function readiness(orgId: number, f: ReadinessQuery): Promise<Page<ReadinessRow>> {
   const contracts = await partyContracts(orgId);
   const byId = new Map(contracts.map((c) => [c.id, c]));
   const today = new Date().toISOString().slice(0, 10);
-  const horizon = new Date(Date.now() + horizonDays * 86_400_000).toISOString().slice(0, 10);
-  const lots = await Lot.findAll({
-    where: { contractId: [...byId.keys()], [Op.or]: [{ plannedDate: null }, { plannedDate: { [Op.between]: [today, horizon] } }] },
-    // Dated lots first, soonest first; undated ones after them (MariaDB sorts NULL first otherwise).
-    order: [
-      [literal("planned_date IS NULL"), "ASC"],
-      ["plannedDate", "ASC"],
-      ["lotCode", "ASC"],
-    ],
-    limit: 300,
-  });
+  const horizon = new Date(Date.now() + f.horizon * 86_400_000).toISOString().slice(0, 10);
+  const filter: WhereOptions<Lot> = {
+    contractId: [...byId.keys()],
+    [Op.or]: [{ plannedDate: null }, { plannedDate: { [Op.between]: [today, horizon] } }],
+  };
+  const [lots, total] = await Promise.all([
+    Lot.findAll({ where: { [Op.and]: [filter, afterCursor(DUE_ORDER, f.cursor)] }, order: orderBy(DUE_ORDER), limit: f.limit + 1 }),
+    Lot.count({ where: filter }),
+  ]);
+  return toPage(lots, f.limit, (l) => [l.plannedDate ?? "9999-12-31", l.lotCode, l.id], (page) => readinessRows(page, byId), total);
+}
+
+async function readinessRows(lots: Lot[], byId: Map<number, ContractWithParties>): Promise<ReadinessRow[]> {
   const base = await summaries(lots, byId);
   const analyses = (await Analysis.findAll({
     where: { lotId: lots.map((l) => l.id) },
     include: [
       { model: AnalysisResult, as: "results", attributes: ["parameter"] },
-      { model: AnalysisEvaluation, as: "evaluation" },
+      { model: AnalysisEvaluation, as: "evaluation", attributes: ["verdicts"] },
+    ],
+    order: [
+      ["sampleDate", "ASC"],
+      ["id", "ASC"],
     ],
   })) as LoadedAnalysis[];
+  const analysesOf = new Map<number, LoadedAnalysis[]>();
+  for (const a of analyses) analysesOf.set(a.lotId, [...(analysesOf.get(a.lotId) ?? []), a]);
   const governingCache = new Map<string, Awaited<ReturnType<typeof governingVersion>>>();
   const rows: ReadinessRow[] = [];
   for (const [i, lot] of lots.entries()) {
     const key = `${lot.contractId}|${lot.vintage}`;
     if (!governingCache.has(key)) governingCache.set(key, await governingVersion(lot.contractId, lot.vintage));
     const g = governingCache.get(key);
-    const mine = analyses.filter((a) => a.lotId === lot.id);
+    const mine = analysesOf.get(lot.id) ?? [];
     const stages = (g?.version.stages ?? []).map((stage: Stage) => {
       const atStage = mine.filter((a) => a.stage === stage || (stage === "pre_filling" && a.stage === "retest"));
       const measured = new Set(atStage.flatMap((a) => a.results.map((r) => r.parameter)));

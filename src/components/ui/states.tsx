@@ -49,9 +49,22 @@ export function Notice({ tone = "info", children }: { tone?: "info" | "success" 
 }
 
 /** What a query shows before its data: a spinner, the error with a retry, or `empty` when a list came back empty. */
-export function QueryStatus({ query, empty }: { query: UseQueryResult<unknown>; empty?: string }) {
+export function QueryStatus({
+  query,
+  empty,
+}: {
+  query: Pick<UseQueryResult<unknown>, "isPending" | "isError" | "error" | "refetch" | "data">;
+  empty?: string;
+}) {
   if (query.isPending) return <LoadingState />;
   if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
-  if (empty !== undefined && Array.isArray(query.data) && query.data.length === 0) return <EmptyState title={empty} />;
+  if (empty !== undefined && isEmpty(query.data)) return <EmptyState title={empty} />;
   return null;
+}
+
+/** An empty list, whether it came whole or as pages. */
+function isEmpty(data: unknown): boolean {
+  if (Array.isArray(data)) return data.length === 0;
+  const pages = (data as { pages?: { items: unknown[] }[] } | undefined)?.pages;
+  return !!pages && pages.every((p) => p.items.length === 0);
 }

@@ -21,12 +21,13 @@ export function DueLotsCard({ orgId }: { orgId: number }) {
         <ErrorState error={due.error} onRetry={() => due.refetch()} />
       </Card>
     );
+  const { items, total } = due.data;
   const byStatus = new Map<string, { status: LotStatus; count: number }>();
-  for (const row of due.data) byStatus.set(row.status.code, { status: row.status, count: (byStatus.get(row.status.code)?.count ?? 0) + 1 });
-  const open = due.data.reduce((n, r) => n + r.status.openDeviations, 0);
+  for (const row of items) byStatus.set(row.status.code, { status: row.status, count: (byStatus.get(row.status.code)?.count ?? 0) + 1 });
+  const open = items.reduce((n, r) => n + r.status.openDeviations, 0);
   return (
     <Card title="Lots due soon">
-      {due.data.length === 0 ? (
+      {items.length === 0 ? (
         <p className="text-sm text-ink-700">No lot is due for filling or shipment in the next four months.</p>
       ) : (
         <ul className="flex flex-col gap-2 text-sm" aria-label="Lots due soon by status">
@@ -37,6 +38,11 @@ export function DueLotsCard({ orgId }: { orgId: number }) {
             </li>
           ))}
         </ul>
+      )}
+      {total > items.length && (
+        <p className="mt-3 text-sm text-ink-500">
+          The {items.length.toLocaleString("en-GB")} soonest of {total.toLocaleString("en-GB")} lots due.
+        </p>
       )}
       {open > 0 && (
         <p className="mt-3 text-sm text-alarm-700">

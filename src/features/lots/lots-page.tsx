@@ -1,4 +1,4 @@
-import { useQuery } from "@tanstack/react-query";
+import { useInfiniteQuery, useQuery } from "@tanstack/react-query";
 import { Link, useNavigate } from "react-router-dom";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useForm, useWatch } from "react-hook-form";
@@ -8,7 +8,10 @@ import { useOrganisation } from "../../lib/signed-in.tsx";
 import { lotsQuery, useRegisterLot } from "./api/lots.ts";
 import { contractsQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
+import { Notice, QueryStatus } from "../../components/ui/states.tsx";
+import { MoreRows } from "../../components/ui/more-rows.tsx";
+import { rowsOf } from "../../lib/paged.ts";
+import { useDebouncedCallback } from "../../lib/use-debounced.ts";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
@@ -54,9 +57,10 @@ function LotFilters({
   set: (k: string, v: string) => void;
 }) {
   const contracts = useQuery(contractsQuery(orgId));
+  const setQuery = useDebouncedCallback((q: string) => set("q", q));
   return (
     <div className="mb-4 grid gap-3 md:grid-cols-3">
-      <TextField label="Lot code contains" type="search" defaultValue={filters.q ?? ""} onChange={(e) => set("q", e.target.value)} />
+      <TextField label="Lot code contains" type="search" defaultValue={filters.q ?? ""} onChange={(e) => setQuery(e.target.value)} />
       <SelectField
         label="Contract"
         value={filters.contract ?? ""}
@@ -71,31 +75,32 @@ function LotFilters({
 }
 
 function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: number; q?: string } }) {
-  const lots = useQuery(lotsQuery(orgId, filters));
-  if (lots.isPending) return <LoadingState />;
-  if (lots.isError) return <ErrorState error={lots.error} onRetry={() => lots.refetch()} />;
-  if (lots.data.length === 0) return <EmptyState title="No lot matches." />;
+  const lots = useInfiniteQuery(lotsQuery(orgId, filters));
+  if (lots.isPending || lots.isError || rowsOf(lots.data).length === 0) return <QueryStatus query={lots} empty="No lot matches." />;
   return (
-    <DataTable headings={["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"]}>
-      {lots.data.map((l) => (
-        <Row key={l.id}>
-          <Cell className="font-semibold">
-            <Link to={`/lots/${l.id}`} className="text-must-700 underline">
-              {l.lotCode}
-            </Link>
-          </Cell>
-          <Cell>{l.wineName}</Cell>
-          <Cell className="tabular-nums">{l.vintage}</Cell>
-          <Cell>{CONTAINER_LABELS[l.container]}</Cell>
-          <Cell className="tabular-nums">{l.plannedDate ?? "—"}</Cell>
-          <Cell>{l.latestStage ? ANALYSIS_STAGE_LABELS[l.latestStage] : "—"}</Cell>
-          <Cell>
-            <LotStatusBadge status={l.status} />
-          </Cell>
-          <Cell className="tabular-nums">{l.status.openDeviations || "—"}</Cell>
-        </Row>
-      ))}
-    </DataTable>
+    <>
+      <DataTable headings={["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"]}>
+        {rowsOf(lots.data).map((l) => (
+          <Row key={l.id}>
+            <Cell className="font-semibold">
+              <Link to={`/lots/${l.id}`} className="text-must-700 underline">
+                {l.lotCode}
+              </Link>
+            </Cell>
+            <Cell>{l.wineName}</Cell>
+            <Cell className="tabular-nums">{l.vintage}</Cell>
+            <Cell>{CONTAINER_LABELS[l.container]}</Cell>
+            <Cell className="tabular-nums">{l.plannedDate ?? "—"}</Cell>
+            <Cell>{l.latestStage ? ANALYSIS_STAGE_LABELS[l.latestStage] : "—"}</Cell>
+            <Cell>
+              <LotStatusBadge status={l.status} />
+            </Cell>
+            <Cell className="tabular-nums">{l.status.openDeviations || "—"}</Cell>
+          </Row>
+        ))}
+      </DataTable>
+      <MoreRows query={lots} noun="lots" />
+    </>
   );
 }
 

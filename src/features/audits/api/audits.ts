@@ -1,5 +1,6 @@
 import { queryOptions, useMutation } from "@tanstack/react-query";
 import { useRefreshOrganisation } from "../../../lib/refresh.ts";
+import { PAGE_SIZE_MAX, type Page } from "../../../../shared/paging.ts";
 import { api } from "../../../lib/api-client.ts";
 import type { LabResultsInput, NewAuditOrder, PriceListInput } from "../../../../shared/audits/schemas.ts";
 import type { AuditOrderDetail, AuditOrderSummary, FinanceDashboard, LaboratoryOffer } from "../../../../shared/audits/views.ts";
@@ -42,11 +43,11 @@ export const priceListQuery = (orgId: number) =>
     queryFn: () => api<{ currency: string; items: PriceListInput["items"] }>(`${base(orgId)}/price-list`),
   });
 
-/** The contract's lots an order can cover. */
+/** The contract's lots an order can cover: the newest page of them, as one order covers at most a few. */
 export const orderableLotsQuery = (orgId: number, contractId: number) =>
   queryOptions({
     queryKey: auditKeys.lotsOf(orgId, contractId),
-    queryFn: () => api<LotSummary[]>(`${base(orgId)}/lots?contract=${contractId}`),
+    queryFn: async () => (await api<Page<LotSummary>>(`${base(orgId)}/lots?contract=${contractId}&limit=${PAGE_SIZE_MAX}`)).items,
   });
 
 export const invoiceUrl = (orgId: number, id: number) => `${base(orgId)}/audit-orders/${id}/invoice.pdf`;

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation } from "@tanstack/react-query";
 import { useRefreshOrganisation } from "../../../lib/refresh.ts";
 import { api } from "../../../lib/api-client.ts";
+import { pagedQuery } from "../../../lib/paged.ts";
 import type { DecisionInput, MessageInput } from "../../../../shared/deviations/schemas.ts";
 import type { DeviationDetail, DeviationSummaryView } from "../../../../shared/deviations/views.ts";
 
@@ -13,17 +14,7 @@ export const deviationKeys = {
 };
 
 export const deviationsQuery = (orgId: number, f: Record<string, string | undefined>) =>
-  queryOptions({
-    queryKey: deviationKeys.list(orgId, f),
-    queryFn: () => {
-      const qs = new URLSearchParams(
-        Object.entries(f)
-          .filter(([, v]) => v)
-          .map(([k, v]) => [k, v!]),
-      );
-      return api<DeviationSummaryView[]>(`${base(orgId)}/deviations${qs.size ? `?${qs}` : ""}`);
-    },
-  });
+  pagedQuery<DeviationSummaryView>(deviationKeys.list(orgId, f), `${base(orgId)}/deviations`, f);
 export const deviationQuery = (orgId: number, id: number) =>
   queryOptions({ queryKey: deviationKeys.detail(orgId, id), queryFn: () => api<DeviationDetail>(`${base(orgId)}/deviations/${id}`) });
 export const deviationPdfUrl = (orgId: number, id: number) => `${base(orgId)}/deviations/${id}/pdf`;

@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
+import { pagedQuery } from "../../../lib/paged.ts";
 import type { AnalysisSubmission, ImportBatch, LotInput } from "../../../../shared/lots/schemas.ts";
 import type { ImportResult, LotDetail, LotSummary, ReadinessRow, SubmissionResult, TrendData } from "../../../../shared/lots/views.ts";
 
@@ -9,26 +10,16 @@ export const lotKeys = {
   all: (orgId: number) => ["orgs", orgId, "lots"] as const,
   list: (orgId: number, f: { contract?: number; q?: string }) => [...lotKeys.all(orgId), "list", f] as const,
   detail: (orgId: number, id: number) => [...lotKeys.all(orgId), "detail", id] as const,
-  readiness: (orgId: number) => [...lotKeys.all(orgId), "readiness"] as const,
+  readiness: (orgId: number, horizon: number) => [...lotKeys.all(orgId), "readiness", horizon] as const,
   trend: (orgId: number, contractId: number, parameter: string) => [...lotKeys.all(orgId), "trend", contractId, parameter] as const,
 };
 
 export const lotsQuery = (orgId: number, f: { contract?: number; q?: string }) =>
-  queryOptions({
-    queryKey: lotKeys.list(orgId, f),
-    queryFn: () => {
-      const qs = new URLSearchParams(
-        Object.entries(f)
-          .filter(([, v]) => v !== undefined && v !== "")
-          .map(([k, v]) => [k, String(v)]),
-      );
-      return api<LotSummary[]>(`${base(orgId)}/lots${qs.size ? `?${qs}` : ""}`);
-    },
-  });
+  pagedQuery<LotSummary>(lotKeys.list(orgId, f), `${base(orgId)}/lots`, f);
 export const lotQuery = (orgId: number, id: number) =>
   queryOptions({ queryKey: lotKeys.detail(orgId, id), queryFn: () => api<LotDetail>(`${base(orgId)}/lots/${id}`) });
-export const readinessQuery = (orgId: number) =>
-  queryOptions({ queryKey: lotKeys.readiness(orgId), queryFn: () => api<ReadinessRow[]>(`${base(orgId)}/readiness`) });
+export const readinessQuery = (orgId: number, horizon: number) =>
+  pagedQuery<ReadinessRow>(lotKeys.readiness(orgId, horizon), `${base(orgId)}/readiness`, { horizon });
 export const trendQuery = (orgId: number, contractId: number, parameter: string) =>
   queryOptions({
     queryKey: lotKeys.trend(orgId, contractId, parameter),
