@@ -26,7 +26,7 @@ export function decodeCursor(cursor: string, keys: SortKey[]): KeyValue[] {
   } catch {
     // Falls through to the refusal below.
   }
-  throw validationFailed([{ path: "cursor", message: "This cursor is not one the list gave; start again from the first page." }]);
+  throw validationFailed([{ path: "query.cursor", message: "This cursor is not one the list gave; start again from the first page." }]);
 }
 
 const compare = (key: SortKey, op: symbol, value: KeyValue): WhereOptions =>

@@ -48,6 +48,11 @@ export async function party(email: string, role: Role): Promise<Party> {
   return { user, orgId: membership.organisationId, role };
 }
 
+/** A platform admin, by e-mail (they act for no organisation). */
+export async function platformAdmin(email: string): Promise<SessionUser> {
+  return toSessionUser((await User.findOne({ where: { email, isPlatformAdmin: true } }))!);
+}
+
 /** An organisation opened by a platform admin, as the platform page does; its first admin is invited by mail. */
 export async function organisation(
   platformAdmin: SessionUser,
