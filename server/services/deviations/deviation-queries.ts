@@ -43,10 +43,13 @@ function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationS
   };
 }
 
+// By column, not attribute: Sequelize orders a timestamp attribute by its select alias, which no index serves.
 const NEWEST_FIRST: SortKey[] = [
-  { attribute: "createdAt", direction: "DESC" },
-  { attribute: "id", direction: "DESC" },
+  { attribute: "createdAt", sql: "`Deviation`.`created_at`", direction: "DESC" },
+  { attribute: "id", sql: "`Deviation`.`id`", direction: "DESC" },
 ];
+/** The stored UTC time as MariaDB writes it (the connection's time zone is +00:00). */
+const sqlTime = (d: Date) => d.toISOString().replace("T", " ").replace("Z", "");
 
 /** Overdue: still open and past its respond-by date (as `isOverdue` says), written in SQL so the filter pages. */
 const overdueWhere = (overdue: boolean, now: Date): WhereOptions<Deviation> =>
@@ -87,7 +90,7 @@ export async function listDeviations(orgId: number, f: DeviationListQuery): Prom
   return toPage(
     rows,
     f.limit,
-    (d) => [d.createdAt.toISOString(), d.id],
+    (d) => [sqlTime(d.createdAt), d.id],
     (page) => page.map((d) => summaryView(d, (d as Deviation & { lot: Lot }).lot, byId.get(d.contractId)!)),
     total,
   );

@@ -1,5 +1,5 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
-import { Op, type WhereOptions } from "sequelize";
+import { literal, Op, where, type WhereOptions } from "sequelize";
 import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
 import type { Page } from "../../../shared/paging.ts";
 import type { LotListQuery, ReadinessQuery } from "../../../shared/lots/schemas.ts";
@@ -251,9 +251,10 @@ export async function lotAudits(lotId: number, side: "buyer" | "producer"): Prom
   }));
 }
 
-// Undated lots sort after every dated one; the expression is fixed text, never user input.
+// `due_on` is the planned date, or 9999-12-31 for an undated lot, so undated lots sort last (a stored column with an index).
+const UNDATED = "9999-12-31";
 const DUE_ORDER: SortKey[] = [
-  { attribute: "plannedDate", sql: "COALESCE(`Lot`.`planned_date`, '9999-12-31')", direction: "ASC" },
+  { attribute: "dueOn", sql: "`Lot`.`due_on`", direction: "ASC" },
   { attribute: "lotCode", direction: "ASC" },
   { attribute: "id", direction: "ASC" },
 ];
@@ -266,13 +267,13 @@ export async function readiness(orgId: number, f: ReadinessQuery): Promise<Page<
   const horizon = new Date(Date.now() + f.horizon * 86_400_000).toISOString().slice(0, 10);
   const filter: WhereOptions<Lot> = {
     contractId: [...byId.keys()],
-    [Op.or]: [{ plannedDate: null }, { plannedDate: { [Op.between]: [today, horizon] } }],
+    [Op.or]: [where(literal("`Lot`.`due_on`"), { [Op.between]: [today, horizon] }), where(literal("`Lot`.`due_on`"), UNDATED)],
   };
   const [lots, total] = await Promise.all([
     Lot.findAll({ where: { [Op.and]: [filter, afterCursor(DUE_ORDER, f.cursor)] }, order: orderBy(DUE_ORDER), limit: f.limit + 1 }),
     Lot.count({ where: filter }),
   ]);
-  return toPage(lots, f.limit, (l) => [l.plannedDate ?? "9999-12-31", l.lotCode, l.id], (page) => readinessRows(page, byId), total);
+  return toPage(lots, f.limit, (l) => [l.plannedDate ?? UNDATED, l.lotCode, l.id], (page) => readinessRows(page, byId), total);
 }
 
 async function readinessRows(lots: Lot[], byId: Map<number, ContractWithParties>): Promise<ReadinessRow[]> {
