@@ -4,6 +4,7 @@ import { allowed } from "../http/access.ts";
 import { validationFailed } from "../errors.ts";
 import { idParam } from "../../shared/ids.ts";
 import {
+  backtestQuerySchema,
   commentSchema,
   newContractSchema,
   newVersionSchema,
@@ -74,8 +75,13 @@ export function registerSpecRoutes(r: RouteRegistry): void {
 
   routes.get(
     "/api/orgs/:orgId/contracts/:contractId/results",
-    { summary: "Past results of the contract's lots (for backtests)", access: PARTIES, params: contractParams },
-    ({ params }) => queries.pastResults(params.orgId, params.contractId),
+    {
+      summary: "Past results of the contract's last lots, for the named parameters (for backtests)",
+      access: PARTIES,
+      params: contractParams,
+      query: backtestQuerySchema,
+    },
+    ({ params, query }) => queries.pastResults(params.orgId, params.contractId, query),
   );
 
   routes.post(

@@ -4,7 +4,7 @@
  */
 import { z } from "zod";
 import { wineLawFactsSchema } from "./law-facts.ts";
-import { buyerRequirementSchema, MARKET_IDS, type MarketId } from "../engine/index.ts";
+import { buyerRequirementSchema, isParameterId, MARKET_IDS, type MarketId } from "../engine/index.ts";
 import { SEVERITIES, STAGES, SPEC_STATUSES, WINE_CATEGORIES, COLOURS } from "./vocabulary.ts";
 
 export const specRowSchema = buyerRequirementSchema.and(
@@ -101,3 +101,26 @@ export const newContractSchema = z
   })
   .refine((c) => !c.endsOn || c.endsOn >= c.startsOn, { path: ["endsOn"], error: "The contract cannot end before it starts." });
 export type NewContractInput = z.infer<typeof newContractSchema>;
+
+export const BACKTEST_LOTS_DEFAULT = 200;
+export const BACKTEST_LOTS_MAX = 2000;
+/** Past results are read over a window: the contract's last `lots` lots, and only the parameters the two versions name. */
+export const backtestQuerySchema = z.object({
+  lots: z.coerce
+    .number({ error: "The window is a number of lots." })
+    .int({ error: "The window is a whole number of lots." })
+    .min(1, { error: "The window holds at least 1 lot." })
+    .max(BACKTEST_LOTS_MAX, { error: `The window holds at most ${BACKTEST_LOTS_MAX} lots.` })
+    .default(BACKTEST_LOTS_DEFAULT),
+  parameters: z
+    .string({ error: "Name the parameters, separated by commas." })
+    .min(1, { error: "Name at least one parameter." })
+    .max(4000)
+    .transform((v, ctx) => {
+      const ids = [...new Set(v.split(",").map((p) => p.trim()))];
+      const unknown = ids.filter((p) => !isParameterId(p));
+      if (unknown.length) ctx.addIssue({ code: "custom", message: `Unknown parameter: ${unknown.join(", ")}.` });
+      return ids;
+    }),
+});
+export type BacktestQuery = z.infer<typeof backtestQuerySchema>;

@@ -100,6 +100,13 @@ export interface SpecDiff {
   parameters: ParameterDiff[];
 }
 
+/** The past results a backtest reads: the window's rows, how many lots it covers, and whether the row cap cut it short. */
+export interface PastResults {
+  rows: PastResultRow[];
+  lots: number;
+  truncated: boolean;
+}
+
 export interface PastResultRow {
   lotId: string;
   lotCode: string;

@@ -90,7 +90,7 @@ describe("spec sheet lifecycle and authorization", () => {
     expect((await other.agent.get(`/api/orgs/${ORG.kestrelFlats}/specs/${v.id}`)).status).toBe(200);
     expect((await producer.agent.get(producerUrl(`/specs/${v.id}`))).status).toBe(404);
     expect((await producer.agent.get(producerUrl(`/contracts/${KESTREL}`))).status).toBe(404);
-    expect((await producer.agent.get(producerUrl(`/contracts/${KESTREL}/results`))).status).toBe(404);
+    expect((await producer.agent.get(producerUrl(`/contracts/${KESTREL}/results?parameters=free_so2`))).status).toBe(404);
     expect((await producer.agent.post(producerUrl(`/specs/${v.id}/agree`)).set("x-csrf-token", producer.csrf)).status).toBe(404);
     const lab = await signInAs(t.app, DEMO.labAdmin);
     expect((await lab.agent.get(`/api/orgs/${ORG.lab}/specs/${v.id}`)).status).toBe(404);
@@ -193,6 +193,36 @@ describe("bad input: the API enforces every editor validation with the same mess
     const sent = await buyer.agent.post(buyerUrl(`/specs/${v.id}/send`)).set("x-csrf-token", buyer.csrf);
     expect(sent.status).toBe(400);
     expect(sent.body.errors[0]).toMatchObject({ path: "rows.0.lower", message: expect.stringMatching(/no wine could conform/) });
+  });
+});
+
+describe("past results for a backtest", () => {
+  it("when the buyer asks for the last lots' results of some parameters, then only those come back, within the window", async () => {
+    const all = await buyer.agent.get(
+      buyerUrl(`/contracts/${CONTRACT.sentierRouge}/results?lots=2000&parameters=free_so2,volatile_acidity`),
+    );
+    expect(all.status).toBe(200);
+    expect(all.body.truncated).toBe(false);
+    expect(new Set(all.body.rows.map((r: { parameter: string }) => r.parameter))).toEqual(new Set(["free_so2", "volatile_acidity"]));
+    const two = await buyer.agent.get(buyerUrl(`/contracts/${CONTRACT.sentierRouge}/results?lots=2&parameters=free_so2`));
+    expect(two.body.lots).toBe(2);
+    const lotsSeen = new Set(two.body.rows.map((r: { lotId: string }) => r.lotId));
+    expect(lotsSeen.size).toBeLessThanOrEqual(2);
+    // The window is the newest lots: no lot in it is of an older vintage than any lot left out.
+    const vintagesIn = two.body.rows.map((r: { vintage: number }) => r.vintage);
+    const vintagesAll = all.body.rows.map((r: { vintage: number }) => r.vintage);
+    expect(Math.min(...vintagesIn)).toBeGreaterThanOrEqual(Math.max(...vintagesAll) - 1);
+    expect(two.body.rows.every((r: { parameter: string }) => r.parameter === "free_so2")).toBe(true);
+  });
+
+  it("when the window or the parameters are out of bounds, then 400 names the field", async () => {
+    const wide = await buyer.agent.get(buyerUrl(`/contracts/${CONTRACT.sentierRouge}/results?lots=100000&parameters=free_so2`));
+    expect(wide.status).toBe(400);
+    expect(wide.body.errors[0]).toMatchObject({ path: "query.lots", message: "The window holds at most 2000 lots." });
+    const unknown = await buyer.agent.get(buyerUrl(`/contracts/${CONTRACT.sentierRouge}/results?parameters=free_so2,ghost`));
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.errors[0]).toMatchObject({ path: "query.parameters", message: "Unknown parameter: ghost." });
+    expect((await buyer.agent.get(buyerUrl(`/contracts/${CONTRACT.sentierRouge}/results`))).status).toBe(400);
   });
 });
 

@@ -133,7 +133,13 @@ export async function listLots(orgId: number, f: LotListQuery): Promise<Page<Lot
     Lot.findAll({ where: { [Op.and]: [filter, afterCursor(LOT_ORDER, f.cursor)] }, order: orderBy(LOT_ORDER), limit: f.limit + 1 }),
     Lot.count({ where: filter }),
   ]);
-  return toPage(lots, f.limit, (l) => [l.vintage, l.lotCode, l.id], (page) => summaries(page, byId), total);
+  return toPage(
+    lots,
+    f.limit,
+    (l) => [l.vintage, l.lotCode, l.id],
+    (page) => summaries(page, byId),
+    total,
+  );
 }
 
 function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>, profileNow: WineProfile): AnalysisView {
@@ -273,7 +279,13 @@ export async function readiness(orgId: number, f: ReadinessQuery): Promise<Page<
     Lot.findAll({ where: { [Op.and]: [filter, afterCursor(DUE_ORDER, f.cursor)] }, order: orderBy(DUE_ORDER), limit: f.limit + 1 }),
     Lot.count({ where: filter }),
   ]);
-  return toPage(lots, f.limit, (l) => [l.plannedDate ?? UNDATED, l.lotCode, l.id], (page) => readinessRows(page, byId), total);
+  return toPage(
+    lots,
+    f.limit,
+    (l) => [l.plannedDate ?? UNDATED, l.lotCode, l.id],
+    (page) => readinessRows(page, byId),
+    total,
+  );
 }
 
 async function readinessRows(lots: Lot[], byId: Map<number, ContractWithParties>): Promise<ReadinessRow[]> {

@@ -3,6 +3,8 @@ import { Link, useParams, useSearchParams } from "react-router-dom";
 import { useState } from "react";
 import { useOrganisation } from "../../lib/signed-in.tsx";
 import { diffQuery, pastResultsQuery } from "./api/specs.ts";
+import { BACKTEST_LOTS_DEFAULT, BACKTEST_LOTS_MAX } from "../../../shared/specs/schemas.ts";
+
 import { specQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { EmptyState, ErrorState, LoadingState, Notice } from "../../components/ui/states.tsx";
@@ -103,20 +105,25 @@ export function ComparePage() {
   );
 }
 
+const BACKTEST_WINDOWS = [50, BACKTEST_LOTS_DEFAULT, 500, 1000, BACKTEST_LOTS_MAX];
+
 function BacktestCard({ orgId, version, againstId }: { orgId: number; version: SpecVersionDetail; againstId: number }) {
   const qc = useQueryClient();
   const [progress, setProgress] = useState<{ done: number; total: number } | null>(null);
   const [summary, setSummary] = useState<BacktestSummary | null>(null);
   const [error, setError] = useState<string | null>(null);
+  const [windowLots, setWindowLots] = useState(BACKTEST_LOTS_DEFAULT);
+  const [covered, setCovered] = useState<{ lots: number; truncated: boolean } | null>(null);
   const run = async () => {
     setError(null);
     setSummary(null);
     try {
-      const [rows, current] = await Promise.all([
-        qc.fetchQuery(pastResultsQuery(orgId, version.contract.id)),
-        qc.fetchQuery(specQuery(orgId, againstId)),
-      ]);
-      const results = toPastResults(rows, version.contract.wine);
+      const current = await qc.fetchQuery(specQuery(orgId, againstId));
+      // Only the parameters either version names: the rest cannot change a verdict.
+      const parameters = [...new Set([...current.requirements, ...version.requirements].map((r) => r.parameter))];
+      const past = await qc.fetchQuery(pastResultsQuery(orgId, version.contract.id, windowLots, parameters));
+      setCovered({ lots: past.lots, truncated: past.truncated });
+      const results = toPastResults(past.rows, version.contract.wine);
       setProgress({ done: 0, total: results.length });
       setSummary(
         await runBacktest(results, current.requirements, version.requirements, version.contract.wine.markets, (done, total) =>
@@ -131,12 +138,28 @@ function BacktestCard({ orgId, version, againstId }: { orgId: number; version: S
   return (
     <Card title="Backtest against past results">
       <p className="mb-3 text-sm text-ink-700">
-        Evaluates every past result of this contract's lots under the other version and under this one, with the engine in your browser, and
-        lists what would change.
+        Evaluates the past results of this contract's latest lots under the other version and under this one, with the engine in your
+        browser, and lists what would change.
       </p>
-      <Button onClick={() => void run()} disabled={running}>
-        {running ? "Running…" : "Run backtest"}
-      </Button>
+      <div className="flex flex-wrap items-end gap-3">
+        <div className="w-56">
+          <SelectField
+            label="Over"
+            value={String(windowLots)}
+            onChange={(e) => setWindowLots(Number(e.target.value))}
+            options={BACKTEST_WINDOWS.map((n) => ({ value: String(n), label: `the last ${n.toLocaleString("en-GB")} lots` }))}
+          />
+        </div>
+        <Button onClick={() => void run()} disabled={running}>
+          {running ? "Running…" : "Run backtest"}
+        </Button>
+      </div>
+      {covered && (
+        <p className="mt-2 text-xs text-ink-500">
+          {covered.lots.toLocaleString("en-GB")} lots read
+          {covered.truncated ? "; the window held more results than one backtest reads, so the oldest were left out." : "."}
+        </p>
+      )}
       {progress && (
         <div className="mt-3">
           <progress

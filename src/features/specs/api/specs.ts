@@ -2,7 +2,7 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
 import type { CommentInput, NewContractInput, NewVersionInput, SpecDraftInput } from "../../../../shared/specs/schemas.ts";
-import type { PastResultRow, SpecDiff, SpecListItem } from "../../../../shared/specs/views.ts";
+import type { PastResults, SpecDiff, SpecListItem } from "../../../../shared/specs/views.ts";
 import { contractKeys } from "../../../lib/contracts.ts";
 
 export interface SpecFilters {
@@ -19,7 +19,8 @@ export const specKeys = {
   all: (orgId: number) => ["orgs", orgId, "specs"] as const,
   list: (orgId: number, f: SpecFilters) => [...specKeys.all(orgId), "list", f] as const,
   diff: (orgId: number, id: number, against: number) => [...specKeys.all(orgId), "diff", id, against] as const,
-  results: (orgId: number, contractId: number) => [...specKeys.all(orgId), "results", contractId] as const,
+  results: (orgId: number, contractId: number, lots: number, parameters: string[]) =>
+    [...specKeys.all(orgId), "results", contractId, lots, parameters] as const,
 };
 
 export const specListQuery = (orgId: number, f: SpecFilters) =>
@@ -40,10 +41,14 @@ export const diffQuery = (orgId: number, id: number, against: number) =>
     queryKey: specKeys.diff(orgId, id, against),
     queryFn: () => api<SpecDiff>(`${base(orgId)}/specs/${id}/diff?against=${against}`),
   });
-export const pastResultsQuery = (orgId: number, contractId: number) =>
+/** The past results of the contract's last `lots` lots, for the parameters a backtest compares. */
+export const pastResultsQuery = (orgId: number, contractId: number, lots: number, parameters: string[]) =>
   queryOptions({
-    queryKey: specKeys.results(orgId, contractId),
-    queryFn: () => api<PastResultRow[]>(`${base(orgId)}/contracts/${contractId}/results`),
+    queryKey: specKeys.results(orgId, contractId, lots, parameters),
+    queryFn: () =>
+      api<PastResults>(
+        `${base(orgId)}/contracts/${contractId}/results?lots=${lots}&parameters=${encodeURIComponent(parameters.join(","))}`,
+      ),
   });
 
 export const specPdfUrl = (orgId: number, id: number) => `${base(orgId)}/specs/${id}/pdf`;
