@@ -4,7 +4,6 @@ import type { RouteRegistry } from "../http/route-registry.ts";
 import { idempotentAnswer } from "../http/idempotent-answer.ts";
 import { allowed } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
-import { PARAMETERS } from "../../shared/engine/index.ts";
 import {
   analysisSubmissionSchema,
   importBatchSchema,
@@ -12,6 +11,7 @@ import {
   lotSchema,
   lotUpdateSchema,
   readinessQuerySchema,
+  trendQuerySchema,
 } from "../../shared/lots/schemas.ts";
 import * as submissions from "../services/lots/submission-service.ts";
 import * as queries from "../services/lots/lot-queries.ts";
@@ -170,11 +170,11 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
   routes.get(
     "/api/orgs/:orgId/contracts/:contractId/trend",
     {
-      summary: "One parameter across the contract's lots and vintages",
+      summary: "One parameter across the contract's lots over its latest vintages",
       access: PARTIES,
       params: orgParams.extend({ contractId: idParam }),
-      query: z.object({ parameter: z.enum(PARAMETERS.map((p) => p.id) as [string, ...string[]], { error: "Choose a parameter." }) }),
+      query: trendQuerySchema,
     },
-    ({ params, query }) => queries.trend(params.orgId, params.contractId, query.parameter),
+    ({ params, query }) => queries.trend(params.orgId, params.contractId, query),
   );
 }

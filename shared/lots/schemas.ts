@@ -151,3 +151,17 @@ export const readinessQuerySchema = z.object({
     .default(READINESS_HORIZON_DEFAULT),
 });
 export type ReadinessQuery = z.infer<typeof readinessQuerySchema>;
+
+export const TREND_VINTAGES_DEFAULT = 3;
+export const TREND_VINTAGES_MAX = 10;
+/** A trend: one parameter over the contract's latest vintages. */
+export const trendQuerySchema = z.object({
+  parameter: z.enum(PARAMETERS.map((p) => p.id) as [string, ...string[]], { error: "Choose a parameter." }),
+  vintages: z.coerce
+    .number({ error: "Say how many vintages." })
+    .int({ error: "Say how many vintages, as a whole number." })
+    .min(1, { error: "Show at least 1 vintage." })
+    .max(TREND_VINTAGES_MAX, { error: `Show at most ${TREND_VINTAGES_MAX} vintages.` })
+    .default(TREND_VINTAGES_DEFAULT),
+});
+export type TrendQuery = z.infer<typeof trendQuerySchema>;

@@ -173,7 +173,12 @@ export interface TrendData {
   /** The governing limits (the stricter of the buyer's and the law's), in `unit`, with where each comes from. */
   lower: { value: number; source: string } | null;
   upper: { value: number; source: string } | null;
+  /** The points of the vintages shown, oldest first; at most TREND_POINTS_MAX (the latest), with `truncated` said. */
   points: TrendPoint[];
+  truncated: boolean;
+  /** Every vintage with results for the parameter, newest first, and how many; the latest `vintagesShown` are drawn. */
+  vintages: { vintage: number; results: number }[];
+  vintagesShown: number[];
 }
 
 /** What one submitted analysis stored: its verdicts counted by outcome, the failing parameters and any deviation opened. */

@@ -161,6 +161,22 @@ describe("a lot's market", () => {
 });
 
 describe("trends", () => {
+  it("when a trend is asked for the latest vintage only, then it draws that vintage's points and lists every vintage with its count", async () => {
+    const all = (await tech.agent.get(B(`/contracts/${CONTRACT.sentierBlanc}/trend?parameter=volatile_acidity&vintages=10`)))
+      .body as TrendData;
+    const one = (await tech.agent.get(B(`/contracts/${CONTRACT.sentierBlanc}/trend?parameter=volatile_acidity&vintages=1`)))
+      .body as TrendData;
+    expect(all.vintages.length).toBeGreaterThan(1);
+    expect(one.vintages).toEqual(all.vintages);
+    expect(one.vintagesShown).toEqual([all.vintages[0]!.vintage]);
+    expect(new Set(one.points.map((p) => p.vintage))).toEqual(new Set([all.vintages[0]!.vintage]));
+    expect(one.points).toHaveLength(all.vintages[0]!.results);
+    expect(all.points).toHaveLength(all.vintages.reduce((n, v) => n + v.results, 0));
+    expect(one.truncated).toBe(false);
+    const sorted = [...all.points].sort((a, b) => a.sampleDate.localeCompare(b.sampleDate));
+    expect(all.points.map((p) => p.sampleDate)).toEqual(sorted.map((p) => p.sampleDate));
+  });
+
   it("when a parameter is charted, then it is in the spec row's unit with the governing limits, and every value is rounded to the parameter's precision (regression)", async () => {
     const res = await tech.agent.get(B(`/contracts/${CONTRACT.sentierBlanc}/trend?parameter=volatile_acidity`));
     expect(res.status).toBe(200);

@@ -1,8 +1,9 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
-import { literal, Op, where, type WhereOptions } from "sequelize";
+import { literal, Op, QueryTypes, where, type WhereOptions } from "sequelize";
+import { database } from "../../db/database.ts";
 import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
 import type { Page } from "../../../shared/paging.ts";
-import type { LotListQuery, ReadinessQuery } from "../../../shared/lots/schemas.ts";
+import type { LotListQuery, ReadinessQuery, TrendQuery } from "../../../shared/lots/schemas.ts";
 import {
   compareTransit,
   convert,
@@ -331,16 +332,40 @@ async function readinessRows(lots: Lot[], byId: Map<number, ContractWithParties>
  * One parameter across the contract's lots and vintages, in the unit the governing spec row uses
  * (the parameter's canonical unit when no row names it), rounded to the parameter's precision.
  */
-export async function trend(orgId: number, contractId: number, parameterId: string): Promise<TrendData> {
+/** A trend draws at most this many points (the latest); the answer says when there were more. */
+export const TREND_POINTS_MAX = 5000;
+
+export async function trend(orgId: number, contractId: number, q: TrendQuery): Promise<TrendData> {
   const { contract } = await contractFor(orgId, contractId);
+  const parameterId = q.parameter;
   const p = findParameter(parameterId)!;
-  const lots = await Lot.findAll({ where: { contractId } });
-  const lotById = new Map(lots.map((l) => [l.id, l]));
-  const results = (await AnalysisResult.findAll({
-    where: { parameter: parameterId },
-    include: [{ model: Analysis, as: "analysis", where: { lotId: lots.map((l) => l.id) }, attributes: ["lotId", "stage", "sampleDate"] }],
-  })) as (AnalysisResult & { analysis: Analysis })[];
-  const latestVintage = Math.max(0, ...lots.map((l) => l.vintage));
+  const vintages = await database().query<{ vintage: number; results: number }>(
+    `SELECT l.vintage, COUNT(*) AS results
+       FROM lots l JOIN analyses a ON a.lot_id = l.id JOIN analysis_results r ON r.analysis_id = a.id
+      WHERE l.contract_id = :contractId AND r.parameter = :parameter
+      GROUP BY l.vintage ORDER BY l.vintage DESC`,
+    { replacements: { contractId, parameter: parameterId }, type: QueryTypes.SELECT },
+  );
+  const shown = vintages.slice(0, q.vintages).map((v) => Number(v.vintage));
+  const rows = shown.length
+    ? await database().query<{
+        lotId: number;
+        lotCode: string;
+        vintage: number;
+        stage: AnalysisStage;
+        sampleDate: string;
+        reading: string | Reading;
+        unit: UnitId;
+      }>(
+        `SELECT l.id AS lotId, l.lot_code AS lotCode, l.vintage, a.stage, DATE_FORMAT(a.sample_date, '%Y-%m-%d') AS sampleDate, r.reading, r.unit
+           FROM lots l JOIN analyses a ON a.lot_id = l.id JOIN analysis_results r ON r.analysis_id = a.id
+          WHERE l.contract_id = :contractId AND l.vintage IN (:shown) AND r.parameter = :parameter
+          ORDER BY a.sample_date DESC, l.lot_code DESC, a.id DESC
+          LIMIT :cap`,
+        { replacements: { contractId, shown, parameter: parameterId, cap: TREND_POINTS_MAX + 1 }, type: QueryTypes.SELECT },
+      )
+    : [];
+  const latestVintage = shown[0] ?? 0;
   const governing = latestVintage ? await governingVersion(contract.id, latestVintage) : null;
   const row = governing?.requirements.find((r) => r.parameter === parameterId);
   const unit = (row?.unit ?? p.unit) as UnitId;
@@ -352,27 +377,20 @@ export async function trend(orgId: number, contractId: number, parameterId: stri
     b
       ? { value: convert(b.value, built!.unit, unit), source: b.source.kind === "buyer" ? "buyer" : `law, ${b.source.limit.market}` }
       : null;
-  const points = results
+  const points = rows
+    .slice(0, TREND_POINTS_MAX)
+    .reverse()
     .map((r) => {
-      const lot = lotById.get(r.analysis.lotId)!;
-      const value = r.reading.kind === "value" ? convert(r.reading.value, r.unit as UnitId, unit) : null;
+      const reading = typeof r.reading === "string" ? (JSON.parse(r.reading) as Reading) : r.reading;
+      const value = reading.kind === "value" ? convert(reading.value, r.unit, unit) : null;
       const censored =
-        r.reading.kind === "below" || r.reading.kind === "above"
-          ? { ...r.reading, limit: r.reading.limit === null ? null : convert(r.reading.limit, r.unit as UnitId, unit) }
-          : r.reading;
+        reading.kind === "below" || reading.kind === "above"
+          ? { ...reading, limit: reading.limit === null ? null : convert(reading.limit, r.unit, unit) }
+          : reading;
       const text =
         value !== null ? displayValue(parameterId, value, unit) : formatReading(censored as Reading, displayDigits(parameterId, unit));
-      return {
-        lotId: lot.id,
-        lotCode: lot.lotCode,
-        vintage: lot.vintage,
-        stage: r.analysis.stage,
-        sampleDate: r.analysis.sampleDate,
-        value,
-        text,
-      };
-    })
-    .sort((a, b) => (a.sampleDate < b.sampleDate ? -1 : a.sampleDate > b.sampleDate ? 1 : a.lotCode.localeCompare(b.lotCode)));
+      return { lotId: r.lotId, lotCode: r.lotCode, vintage: r.vintage, stage: r.stage, sampleDate: r.sampleDate, value, text };
+    });
   return {
     parameter: parameterId,
     unit,
@@ -380,5 +398,8 @@ export async function trend(orgId: number, contractId: number, parameterId: stri
     lower: bound(built?.lower),
     upper: bound(built?.upper),
     points,
+    truncated: rows.length > TREND_POINTS_MAX,
+    vintages: vintages.map((v) => ({ vintage: Number(v.vintage), results: Number(v.results) })),
+    vintagesShown: shown,
   };
 }

@@ -27,6 +27,7 @@ import {
 } from "../../../shared/engine/index.ts";
 import { ANALYSIS_STAGE_LABELS } from "../../../shared/lots/vocabulary.ts";
 import type { TrendData } from "../../../shared/lots/views.ts";
+import { TREND_VINTAGES_DEFAULT, TREND_VINTAGES_MAX } from "../../../shared/lots/schemas.ts";
 import { chartDomain } from "./chart-domain.ts";
 
 /** A number to `digits` decimal places; "—" for none. */
@@ -38,10 +39,21 @@ export function TrendsPage() {
   const { contractId } = useParams();
   const [params, setParams] = useSearchParams();
   const parameter = params.get("parameter") ?? "volatile_acidity";
+  const asked = Number(params.get("vintages"));
+  const vintages = asked >= 1 && asked <= TREND_VINTAGES_MAX ? asked : TREND_VINTAGES_DEFAULT;
+  const choose = (key: string, value: string) =>
+    setParams(
+      (current) => {
+        const next = new URLSearchParams(current);
+        next.set(key, value);
+        return next;
+      },
+      { replace: true },
+    );
   const contract = useQuery({ ...contractQuery(orgId, Number(contractId)) });
   const agreed = contract.data?.versions.find((v) => v.status === "agreed");
   const spec = useQuery({ ...specQuery(orgId, agreed?.id ?? 0), enabled: !!agreed });
-  const trend = useQuery({ ...trendQuery(orgId, Number(contractId), parameter) });
+  const trend = useQuery({ ...trendQuery(orgId, Number(contractId), parameter, vintages) });
   const options = (spec.data?.requirements.map((r) => r.parameter) ?? [])
     .concat(PARAMETERS.map((p) => p.id))
     .filter((p, i, all) => all.indexOf(p) === i);
@@ -56,20 +68,39 @@ export function TrendsPage() {
               <Link className="underline" to={`/contracts/${contract.data.id}`}>
                 {contract.data.reference}
               </Link>
-              , all lots and vintages.
+              , its lots over the latest vintages.
             </>
           )
         }
       />
       <div className="flex flex-col gap-6">
-        <div className="max-w-sm">
+        <div className="grid max-w-2xl gap-3 md:grid-cols-2">
           <SelectField
             label="Parameter"
             value={parameter}
-            onChange={(e) => setParams({ parameter: e.target.value }, { replace: true })}
+            onChange={(e) => choose("parameter", e.target.value)}
             options={options.map((p) => ({ value: p, label: findParameter(p)?.name ?? p }))}
           />
+          <SelectField
+            label="Vintages"
+            value={String(vintages)}
+            onChange={(e) => choose("vintages", e.target.value)}
+            options={[1, 2, 3, 5, TREND_VINTAGES_MAX].map((n) => ({
+              value: String(n),
+              label: n === 1 ? "The latest vintage" : `The latest ${n}`,
+            }))}
+          />
         </div>
+        {trend.data && trend.data.vintages.length > trend.data.vintagesShown.length && (
+          <p className="text-sm text-ink-500">
+            Showing {trend.data.vintagesShown.join(", ")} of the {trend.data.vintages.length} vintages with results.
+          </p>
+        )}
+        {trend.data?.truncated && (
+          <p className="text-sm text-ochre-700">
+            These vintages hold more results than one chart draws; the latest {trend.data.points.length.toLocaleString("en-GB")} are shown.
+          </p>
+        )}
         <QueryStatus query={trend} />
         {trend.data && <TrendView data={trend.data} />}
       </div>

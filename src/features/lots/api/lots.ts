@@ -11,7 +11,8 @@ export const lotKeys = {
   list: (orgId: number, f: { contract?: number; q?: string }) => [...lotKeys.all(orgId), "list", f] as const,
   detail: (orgId: number, id: number) => [...lotKeys.all(orgId), "detail", id] as const,
   readiness: (orgId: number, horizon: number) => [...lotKeys.all(orgId), "readiness", horizon] as const,
-  trend: (orgId: number, contractId: number, parameter: string) => [...lotKeys.all(orgId), "trend", contractId, parameter] as const,
+  trend: (orgId: number, contractId: number, parameter: string, vintages: number) =>
+    [...lotKeys.all(orgId), "trend", contractId, parameter, vintages] as const,
 };
 
 export const lotsQuery = (orgId: number, f: { contract?: number; q?: string }) =>
@@ -20,10 +21,10 @@ export const lotQuery = (orgId: number, id: number) =>
   queryOptions({ queryKey: lotKeys.detail(orgId, id), queryFn: () => api<LotDetail>(`${base(orgId)}/lots/${id}`) });
 export const readinessQuery = (orgId: number, horizon: number) =>
   pagedQuery<ReadinessRow>(lotKeys.readiness(orgId, horizon), `${base(orgId)}/readiness`, { horizon });
-export const trendQuery = (orgId: number, contractId: number, parameter: string) =>
+export const trendQuery = (orgId: number, contractId: number, parameter: string, vintages: number) =>
   queryOptions({
-    queryKey: lotKeys.trend(orgId, contractId, parameter),
-    queryFn: () => api<TrendData>(`${base(orgId)}/contracts/${contractId}/trend?parameter=${parameter}`),
+    queryKey: lotKeys.trend(orgId, contractId, parameter, vintages),
+    queryFn: () => api<TrendData>(`${base(orgId)}/contracts/${contractId}/trend?parameter=${parameter}&vintages=${vintages}`),
   });
 
 function useInvalidateLots(orgId: number) {
