@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { pageQuery } from "../../shared/paging.ts";
 import multer from "multer";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { allowed, SIGNED_IN } from "../http/access.ts";
@@ -128,8 +129,10 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
     },
   );
 
-  notificationsRoutes.get("/api/me/notifications", { summary: "Your notifications, newest first", access: SIGNED_IN }, ({ user }) =>
-    notifications.listNotifications(user.id),
+  notificationsRoutes.get(
+    "/api/me/notifications",
+    { summary: "A page of your notifications, newest first, with the unread count", access: SIGNED_IN, query: z.object(pageQuery) },
+    ({ user, query }) => notifications.listNotifications(user.id, query),
   );
   notificationsRoutes.post(
     "/api/me/notifications/read",

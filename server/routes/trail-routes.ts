@@ -4,8 +4,8 @@ import { actionLabel, detailsText } from "../../shared/trail/vocabulary.ts";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { allowed } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
-import { trailQuerySchema } from "../../shared/trail/schemas.ts";
-import { listOrganisationTrail, verifyTrailChain } from "../services/trail/trail-service.ts";
+import { TRAIL_EXPORT_MAX, trailQuerySchema } from "../../shared/trail/schemas.ts";
+import { listOrganisationTrail, pageOrganisationTrail, verifyTrailChain } from "../services/trail/trail-service.ts";
 import { historyFor } from "../services/trail/trail-access.ts";
 import { HISTORY_ENTITY_TYPES } from "../../shared/trail/history.ts";
 
@@ -23,15 +23,16 @@ export function registerTrailRoutes(r: RouteRegistry): void {
       query: trailQuerySchema,
     },
     async ({ params, query, res }) => {
-      const rows = await listOrganisationTrail(params.orgId, {
+      const filters = {
         action: query.action,
         entityType: query.entityType,
         entityId: query.entityId,
         actorUserId: query.actor,
         from: query.from,
         to: query.to,
-        limit: query.limit,
-      });
+      };
+      if (!query.format) return pageOrganisationTrail(params.orgId, { ...filters, limit: query.limit, cursor: query.cursor });
+      const rows = await listOrganisationTrail(params.orgId, filters, TRAIL_EXPORT_MAX);
       if (query.format === "csv") {
         const csv = Papa.unparse(
           rows.map((e) => ({
@@ -46,18 +47,14 @@ export function registerTrailRoutes(r: RouteRegistry): void {
             hash: e.hash,
           })),
         );
-        res.status(200).type("text/csv").attachment(`audit-${params.orgId}.csv`).send(`\uFEFF${csv}`);
+        res.status(200).type("text/csv").attachment(`trail-${params.orgId}.csv`).send(`\uFEFF${csv}`);
         return;
       }
-      if (query.format === "json") {
-        res
-          .status(200)
-          .type("application/json")
-          .attachment(`audit-${params.orgId}.json`)
-          .send(JSON.stringify(rows, null, 2));
-        return;
-      }
-      return rows;
+      res
+        .status(200)
+        .type("application/json")
+        .attachment(`trail-${params.orgId}.json`)
+        .send(JSON.stringify(rows, null, 2));
     },
   );
 

@@ -2,6 +2,7 @@
  * In-app notifications, mirrored by e-mail through the outbox according to each user's preference:
  * at once, in a daily digest, or not at all; and only for the kinds the user chose.
  */
+import { afterCursor, orderBy, toPage, type SortKey } from "../db/keyset.ts";
 import { Op, type Transaction } from "sequelize";
 import { Notification } from "../models/notification.ts";
 import { NotificationPreference } from "../models/notification-preference.ts";
@@ -63,28 +64,37 @@ export async function notify(
   }
 }
 
-export async function listNotifications(userId: number, limit = 50) {
-  const rows = await Notification.findAll({
-    where: { userId },
-    order: [
-      ["createdAt", "DESC"],
-      ["id", "DESC"],
-    ],
-    limit,
-  });
-  const unread = await Notification.count({ where: { userId, readAt: null } });
-  return {
-    unread,
-    items: rows.map((r) => ({
-      id: r.id,
-      kind: r.kind,
-      title: r.title,
-      body: r.body,
-      link: r.link,
-      read: r.readAt !== null,
-      createdAt: r.createdAt.toISOString(),
-    })),
-  };
+const NEWEST_FIRST: SortKey[] = [{ attribute: "id", direction: "DESC" }];
+
+/** A page of the user's notifications, newest first, with how many are unread in all. */
+export async function listNotifications(userId: number, q: { limit: number; cursor?: string }) {
+  const [rows, total, unread] = await Promise.all([
+    Notification.findAll({
+      where: { [Op.and]: [{ userId }, afterCursor(NEWEST_FIRST, q.cursor)] },
+      order: orderBy(NEWEST_FIRST),
+      limit: q.limit + 1,
+      raw: true,
+    }),
+    Notification.count({ where: { userId } }),
+    Notification.count({ where: { userId, readAt: null } }),
+  ]);
+  const page = await toPage(
+    rows,
+    q.limit,
+    (r) => [r.id],
+    (shown) =>
+      shown.map((r) => ({
+        id: r.id,
+        kind: r.kind,
+        title: r.title,
+        body: r.body,
+        link: r.link,
+        read: r.readAt !== null,
+        createdAt: new Date(r.createdAt).toISOString(),
+      })),
+    total,
+  );
+  return { ...page, unread };
 }
 
 export async function markRead(userId: number, ids: number[] | "all"): Promise<void> {

@@ -1,5 +1,6 @@
 /** Schemas for ordering audits, laboratory price lists and laboratory results, shared by forms and API. */
 import { z } from "zod";
+import { pageQuery } from "../paging.ts";
 import { PARAMETERS } from "../engine/index.ts";
 import { ANALYSIS_STAGES } from "../lots/vocabulary.ts";
 import { ORDER_STATUSES } from "./vocabulary.ts";
@@ -63,6 +64,7 @@ export const labResultsSchema = z.object({
 export type LabResultsInput = z.infer<typeof labResultsSchema>;
 
 export const auditListQuerySchema = z.object({
+  ...pageQuery,
   status: z.enum(ORDER_STATUSES).optional(),
   from: isoDate.optional(),
   to: isoDate.optional(),

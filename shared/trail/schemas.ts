@@ -1,5 +1,6 @@
 /** Filters for reading an organisation's trail. */
 import { z } from "zod";
+import { pageQuery } from "../paging.ts";
 
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: "Use a date like 2026-03-31." });
 
@@ -10,6 +11,10 @@ export const trailQuerySchema = z.object({
   actor: z.coerce.number().int().positive().optional(),
   from: day.optional(),
   to: day.optional(),
-  limit: z.coerce.number().int().min(1).max(5000).default(200),
+  ...pageQuery,
+  /** A download (csv or json) holds every matching entry up to TRAIL_EXPORT_MAX, newest first; without it the answer is one page. */
   format: z.enum(["json", "csv"]).optional(),
 });
+
+export const TRAIL_EXPORT_MAX = 10_000;
+export type TrailQuery = z.infer<typeof trailQuerySchema>;

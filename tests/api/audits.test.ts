@@ -105,7 +105,7 @@ describe("the laboratory's side", () => {
     const note = notes.find((n) => n.title.startsWith("New paid audit"))!;
     expect(matchPath(ROUTES.order, note.link)?.params.orderId).toBe(String(orderId));
     const list = await lab.agent.get(L("/audit-orders"));
-    expect(list.body.map((o: { id: number }) => o.id)).toContain(orderId);
+    expect(list.body.items.map((o: { id: number }) => o.id)).toContain(orderId);
     const detail = await lab.agent.get(L(`/audit-orders/${orderId}`));
     expect(detail.status).toBe(200);
     expect(detail.body.actions.submitResults).toBe(true);

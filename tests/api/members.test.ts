@@ -100,7 +100,7 @@ describe("roles", () => {
     expect(changed.status).toBe(200);
     expect(changed.body.role).toBe("org_admin");
     expect((await analyst.agent.get(`/api/orgs/${ORG.lab}/members`)).status).toBe(401);
-    const log = (await admin.agent.get(`/api/orgs/${ORG.lab}/trail`)).body as { action: string; details: { to?: string } }[];
+    const log = (await admin.agent.get(`/api/orgs/${ORG.lab}/trail`)).body.items as { action: string; details: { to?: string } }[];
     expect(log.find((e) => e.action === "membership.role_changed")?.details.to).toBe("org_admin");
     // Restore the demo role.
     await admin.agent

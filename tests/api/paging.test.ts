@@ -118,3 +118,13 @@ describe("the deviations list", () => {
     expect(open.pages[0]!.total).toBe(3);
   });
 });
+
+describe("notifications", () => {
+  it("when the buyer's notifications are read two at a time, then each comes once, newest first, and the unread count covers them all", async () => {
+    const { rows, pages } = await allPages<{ id: number; read: boolean }>("/api/me/notifications?limit=2");
+    expect(rows.length).toBeGreaterThanOrEqual(3);
+    expect(rows.map((n) => n.id)).toEqual([...rows.map((n) => n.id)].sort((a, b) => b - a));
+    expect(pages[0]!.total).toBe(rows.length);
+    expect((pages[0] as unknown as { unread: number }).unread).toBe(rows.filter((n) => !n.read).length);
+  });
+});

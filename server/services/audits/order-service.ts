@@ -17,7 +17,7 @@ import { contractFor } from "../specs/spec-access.ts";
 import { serviceSettings } from "../../settings.ts";
 import { paymentServiceError, stripe } from "../../integrations/payments/stripe-client.ts";
 import { orderFor } from "./order-access.ts";
-import { detailOf, loadOrders, summaryOf } from "./order-views.ts";
+import { detailOf, pageOrders } from "./order-views.ts";
 import { quoteAudit } from "../../../shared/audits/pricing.ts";
 import { CURRENCY, orderReference, orderStatus, type OrderStatus } from "../../../shared/audits/vocabulary.ts";
 import { findParameter } from "../../../shared/engine/index.ts";
@@ -87,12 +87,13 @@ export interface OrderFilters {
   to?: string;
 }
 
-export async function listOrders(orgId: number, f: OrderFilters = {}) {
+/** A page of the orders the organisation may see, newest first: the buyer's own, the laboratory's once paid, the producer's once reported. */
+export async function listOrders(orgId: number, f: OrderFilters & { limit: number; cursor?: string }) {
   const created = {
     ...(f.from ? { [Op.gte]: new Date(`${f.from}T00:00:00Z`) } : {}),
     ...(f.to ? { [Op.lt]: new Date(new Date(`${f.to}T00:00:00Z`).getTime() + 86_400_000) } : {}),
   };
-  const orders = await loadOrders({
+  const where = {
     [Op.or]: [
       { buyerOrgId: orgId },
       { laboratoryOrgId: orgId, paidAt: { [Op.ne]: null } },
@@ -100,8 +101,8 @@ export async function listOrders(orgId: number, f: OrderFilters = {}) {
     ],
     ...(f.status ? { status: f.status } : {}),
     ...(f.from || f.to ? { createdAt: created } : {}),
-  });
-  return orders.map((o) => summaryOf(o, o.buyerOrgId === orgId));
+  };
+  return pageOrders(where, f.limit, f.cursor, (o) => o.buyerOrgId === orgId);
 }
 
 export async function getOrder(orgId: number, id: number, membership: SessionMembership) {

@@ -1,5 +1,6 @@
 /** Audit orders as the API shows them; payment details only to the buyer who paid. */
-import { Op } from "sequelize";
+import { Op, type WhereOptions } from "sequelize";
+import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
 import { AuditOrder } from "../../models/audit-order.ts";
 import { AuditOrderLot } from "../../models/audit-order-lot.ts";
 import { AuditPayment } from "../../models/audit-payment.ts";
@@ -56,6 +57,37 @@ export function summaryOf(o: Loaded, forBuyer: boolean): AuditOrderSummary {
     paidAt: o.paidAt ? o.paidAt.toISOString() : null,
     resultsSubmittedAt: o.resultsSubmittedAt ? o.resultsSubmittedAt.toISOString() : null,
   };
+}
+
+// By column: Sequelize orders a timestamp attribute by its select alias, which no index serves.
+const NEWEST_FIRST: SortKey[] = [
+  { attribute: "createdAt", sql: "`AuditOrder`.`created_at`", direction: "DESC" },
+  { attribute: "id", sql: "`AuditOrder`.`id`", direction: "DESC" },
+];
+
+/** A page of orders, newest first: the page's ids by keyset, then those orders with their lots and parties. */
+export async function pageOrders(where: WhereOptions, limit: number, cursor: string | undefined, forBuyer: (o: Loaded) => boolean) {
+  const [keys, total] = await Promise.all([
+    AuditOrder.findAll({
+      where: { [Op.and]: [where, afterCursor(NEWEST_FIRST, cursor)] },
+      attributes: ["id", "createdAt"],
+      order: orderBy(NEWEST_FIRST),
+      limit: limit + 1,
+    }),
+    AuditOrder.count({ where }),
+  ]);
+  return toPage(
+    keys,
+    limit,
+    (o) => [o.createdAt.toISOString().replace("T", " ").replace("Z", ""), o.id],
+    async (shown) => {
+      const full = new Map(
+        ((await AuditOrder.findAll({ where: { id: shown.map((o) => o.id) }, include: orderInclude })) as Loaded[]).map((o) => [o.id, o]),
+      );
+      return shown.map((k) => summaryOf(full.get(k.id)!, forBuyer(full.get(k.id)!)));
+    },
+    total,
+  );
 }
 
 export async function loadOrders(where: Record<string, unknown>): Promise<Loaded[]> {

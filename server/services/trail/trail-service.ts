@@ -4,6 +4,8 @@
  */
 import type { Transaction } from "sequelize";
 import type { TrailAction } from "../../../shared/trail/vocabulary.ts";
+import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
+import type { Page } from "../../../shared/paging.ts";
 import { Op, type WhereOptions } from "sequelize";
 import { TrailEntry } from "../../models/trail-entry.ts";
 import { TrailHead } from "../../models/trail-head.ts";
@@ -128,13 +130,13 @@ export interface AuditFilters {
   actorUserId?: number;
   from?: string;
   to?: string;
-  limit?: number;
 }
 
-/** Entries recorded for an organisation, newest first, narrowed by the filters. */
-export async function listOrganisationTrail(organisationId: number, f: AuditFilters = {}): Promise<TrailEntryView[]> {
+const NEWEST_FIRST: SortKey[] = [{ attribute: "seq", direction: "DESC" }];
+
+function trailWhere(organisationId: number, f: AuditFilters): WhereOptions {
   const where: WhereOptions = { organisationId };
-  if (f.action) Object.assign(where, { action: { [Op.like]: `${f.action.replace(/[%_]/g, "")}%` } });
+  if (f.action) Object.assign(where, { action: { [Op.like]: `${f.action.replace(/[%_\\]/g, "")}%` } });
   if (f.entityType) Object.assign(where, { entityType: f.entityType });
   if (f.entityId) Object.assign(where, { entityId: f.entityId });
   if (f.actorUserId) Object.assign(where, { actorUserId: f.actorUserId });
@@ -145,7 +147,30 @@ export async function listOrganisationTrail(organisationId: number, f: AuditFilt
         ...(f.to ? { [Op.lte]: new Date(`${f.to}T23:59:59.999Z`) } : {}),
       },
     });
-  return toViews(await TrailEntry.findAll({ where, order: [["seq", "DESC"]], limit: f.limit ?? 200, raw: true }));
+  return where;
+}
+
+/** A page of the entries recorded for an organisation, newest first, narrowed by the filters. */
+export async function pageOrganisationTrail(
+  organisationId: number,
+  f: AuditFilters & { limit: number; cursor?: string },
+): Promise<Page<TrailEntryView>> {
+  const where = trailWhere(organisationId, f);
+  const [rows, total] = await Promise.all([
+    TrailEntry.findAll({
+      where: { [Op.and]: [where, afterCursor(NEWEST_FIRST, f.cursor)] },
+      order: orderBy(NEWEST_FIRST),
+      limit: f.limit + 1,
+      raw: true,
+    }),
+    TrailEntry.count({ where }),
+  ]);
+  return toPage(rows, f.limit, (r) => [r.seq], toViews, total);
+}
+
+/** Every entry matching the filters, newest first, up to `max`: what a download holds. */
+export async function listOrganisationTrail(organisationId: number, f: AuditFilters, max: number): Promise<TrailEntryView[]> {
+  return toViews(await TrailEntry.findAll({ where: trailWhere(organisationId, f), order: orderBy(NEWEST_FIRST), limit: max, raw: true }));
 }
 
 /** The history of one entity, across the organisations that recorded it. */

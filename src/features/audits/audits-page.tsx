@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { useQuery } from "@tanstack/react-query";
+import { useInfiniteQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
 import { useOrganisation } from "../../lib/signed-in.tsx";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
@@ -15,6 +15,8 @@ import { formatMoney, ORDER_STATUSES, ORDER_STATUS_LABELS } from "../../../share
 import { findParameter } from "../../../shared/engine/index.ts";
 import { can } from "../../../shared/auth/permissions.ts";
 import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
+import { MoreRows } from "../../components/ui/more-rows.tsx";
+import { rowsOf } from "../../lib/paged.ts";
 
 const LEADS = {
   buyer_finance: "Independent compliance audits: order them from a laboratory's price list, pay them, and follow what they cost.",
@@ -28,7 +30,7 @@ export function AuditsPage() {
   const [params, set] = useFilterParams();
   const f = { status: params.get("status") ?? undefined, from: params.get("from") ?? undefined, to: params.get("to") ?? undefined };
   const [ordering, setOrdering] = useState(false);
-  const list = useQuery({ ...ordersQuery(orgId, f) });
+  const list = useInfiniteQuery(ordersQuery(orgId, f));
   const finance = can(role, "audits.order");
   const lab = can(role, "audits.report");
   return (
@@ -60,31 +62,34 @@ export function AuditsPage() {
             <TextField label="Ordered until" type="date" value={f.to ?? ""} onChange={(e) => set("to", e.target.value)} />
           </div>
           <QueryStatus query={list} empty="No audit order matches." />
-          {list.data && list.data.length > 0 && (
-            <DataTable headings={["Order", "Wine and lots", "Parameters", "Laboratory", finance ? "Amount" : "Ordered", "Status"]}>
-              {list.data.map((o) => (
-                <Row key={o.id}>
-                  <Cell>
-                    <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">
-                      {o.reference}
-                    </Link>
-                    <span className="block text-xs text-ink-500">{o.createdAt.slice(0, 10)}</span>
-                  </Cell>
-                  <Cell>
-                    {o.wineName}
-                    <span className="block text-xs text-ink-500">
-                      {o.producerName} · {o.lotCodes.join(", ")}
-                    </span>
-                  </Cell>
-                  <Cell>{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</Cell>
-                  <Cell>{o.laboratoryName}</Cell>
-                  <Cell className="tabular-nums">{finance ? formatMoney(o.amountCents, o.currency) : o.createdAt.slice(0, 10)}</Cell>
-                  <Cell>
-                    <OrderStatusBadge status={o.status} />
-                  </Cell>
-                </Row>
-              ))}
-            </DataTable>
+          {rowsOf(list.data).length > 0 && (
+            <>
+              <DataTable headings={["Order", "Wine and lots", "Parameters", "Laboratory", finance ? "Amount" : "Ordered", "Status"]}>
+                {rowsOf(list.data).map((o) => (
+                  <Row key={o.id}>
+                    <Cell>
+                      <Link to={`/audits/${o.id}`} className="font-semibold text-must-700 underline">
+                        {o.reference}
+                      </Link>
+                      <span className="block text-xs text-ink-500">{o.createdAt.slice(0, 10)}</span>
+                    </Cell>
+                    <Cell>
+                      {o.wineName}
+                      <span className="block text-xs text-ink-500">
+                        {o.producerName} · {o.lotCodes.join(", ")}
+                      </span>
+                    </Cell>
+                    <Cell>{o.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")}</Cell>
+                    <Cell>{o.laboratoryName}</Cell>
+                    <Cell className="tabular-nums">{finance ? formatMoney(o.amountCents, o.currency) : o.createdAt.slice(0, 10)}</Cell>
+                    <Cell>
+                      <OrderStatusBadge status={o.status} />
+                    </Cell>
+                  </Row>
+                ))}
+              </DataTable>
+              <MoreRows query={list} noun="orders" />
+            </>
           )}
         </Card>
       </div>

@@ -1,12 +1,14 @@
-import { useQuery } from "@tanstack/react-query";
+import { useInfiniteQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
-import { notificationsQuery, useMarkRead } from "./api.ts";
+import { notificationPagesQuery, useMarkRead } from "./api.ts";
+import { rowsOf } from "../../lib/paged.ts";
+import { MoreRows } from "../../components/ui/more-rows.tsx";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState } from "../../components/ui/states.tsx";
+import { QueryStatus } from "../../components/ui/states.tsx";
 import { Button } from "../../components/ui/button.tsx";
 
 export function NotificationsPage() {
-  const q = useQuery(notificationsQuery());
+  const q = useInfiniteQuery(notificationPagesQuery());
   const mark = useMarkRead();
   return (
     <>
@@ -20,11 +22,9 @@ export function NotificationsPage() {
         }
       />
       <Card>
-        {q.isPending && <LoadingState />}
-        {q.isError && <ErrorState error={q.error} />}
-        {q.data?.items.length === 0 && <EmptyState title="Nothing yet." />}
+        <QueryStatus query={q} empty="Nothing yet." />
         <ul className="flex flex-col divide-y divide-line/60">
-          {q.data?.items.map((n) => (
+          {rowsOf(q.data).map((n) => (
             <li key={n.id} className={`py-2 text-sm ${n.read ? "text-ink-500" : ""}`}>
               <Link to={n.link} className="font-semibold text-must-700 underline" onClick={() => !n.read && mark.mutate([n.id])}>
                 {n.title}
@@ -34,6 +34,7 @@ export function NotificationsPage() {
             </li>
           ))}
         </ul>
+        <MoreRows query={q} noun="notifications" />
       </Card>
     </>
   );

@@ -1,5 +1,7 @@
-import { useQuery } from "@tanstack/react-query";
-import { api } from "../../lib/api-client.ts";
+import { useInfiniteQuery } from "@tanstack/react-query";
+import { pagedQuery, rowsOf } from "../../lib/paged.ts";
+import { useDebouncedCallback } from "../../lib/use-debounced.ts";
+import { MoreRows } from "../../components/ui/more-rows.tsx";
 import { useMutation } from "@tanstack/react-query";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { verifyChain } from "../../lib/trail.ts";
@@ -17,12 +19,12 @@ export function ActivityPage() {
   const { orgId, membership } = useOrganisation();
   const [params, set] = useFilterParams();
   const filters = Object.fromEntries(["action", "entityType", "from", "to"].map((k) => [k, params.get(k) ?? ""]).filter(([, v]) => v));
-  const qs = new URLSearchParams({ ...filters, limit: "500" });
-  const entries = useQuery({
-    queryKey: ["orgs", orgId, "trail", filters],
-    queryFn: () => api<TrailEntryView[]>(`/api/orgs/${orgId}/trail?${qs}`),
+  const qs = new URLSearchParams(filters);
+  const entries = useInfiniteQuery({
+    ...pagedQuery<TrailEntryView>(["orgs", orgId, "trail", filters], `/api/orgs/${orgId}/trail`, filters),
     enabled: can(membership.role, "trail.organisation"),
   });
+  const setAction = useDebouncedCallback((v: string) => set("action", v));
   const verify = useMutation({ mutationFn: () => verifyChain(orgId) });
   if (!can(membership.role, "trail.organisation")) return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
   return (
@@ -37,7 +39,7 @@ export function ActivityPage() {
             label="Action starts with"
             placeholder="deviation."
             defaultValue={filters.action ?? ""}
-            onChange={(e) => set("action", e.target.value)}
+            onChange={(e) => setAction(e.target.value)}
           />
           <SelectField
             label="Entity"
@@ -90,22 +92,25 @@ export function ActivityPage() {
           )}
         </div>
         <QueryStatus query={entries} empty="Nothing recorded yet." />
-        {entries.data && entries.data.length > 0 && (
-          <DataTable headings={["#", "When (UTC)", "Who", "What", "Details", "Hash"]}>
-            {entries.data.map((e) => (
-              <Row key={e.seq}>
-                <Cell className="tabular-nums">{e.seq}</Cell>
-                <Cell className="tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</Cell>
-                <Cell>{e.actorName ?? "system"}</Cell>
-                <Cell>
-                  {actionLabel(e.action)}
-                  <span className="block font-mono text-xs text-ink-500">{e.action}</span>
-                </Cell>
-                <Cell className="text-ink-700">{detailsText(e.details) || "—"}</Cell>
-                <Cell className="font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</Cell>
-              </Row>
-            ))}
-          </DataTable>
+        {rowsOf(entries.data).length > 0 && (
+          <>
+            <DataTable headings={["#", "When (UTC)", "Who", "What", "Details", "Hash"]}>
+              {rowsOf(entries.data).map((e) => (
+                <Row key={e.seq}>
+                  <Cell className="tabular-nums">{e.seq}</Cell>
+                  <Cell className="tabular-nums">{e.occurredAt.replace("T", " ").slice(0, 19)}</Cell>
+                  <Cell>{e.actorName ?? "system"}</Cell>
+                  <Cell>
+                    {actionLabel(e.action)}
+                    <span className="block font-mono text-xs text-ink-500">{e.action}</span>
+                  </Cell>
+                  <Cell className="text-ink-700">{detailsText(e.details) || "—"}</Cell>
+                  <Cell className="font-mono text-xs text-ink-500">{e.hash.slice(0, 12)}…</Cell>
+                </Row>
+              ))}
+            </DataTable>
+            <MoreRows query={entries} noun="entries" />
+          </>
         )}
       </Card>
     </>

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation } from "@tanstack/react-query";
 import { useRefreshOrganisation } from "../../../lib/refresh.ts";
 import { PAGE_SIZE_MAX, type Page } from "../../../../shared/paging.ts";
+import { pagedQuery } from "../../../lib/paged.ts";
 import { api } from "../../../lib/api-client.ts";
 import type { LabResultsInput, NewAuditOrder, PriceListInput } from "../../../../shared/audits/schemas.ts";
 import type { AuditOrderDetail, AuditOrderSummary, FinanceDashboard, LaboratoryOffer } from "../../../../shared/audits/views.ts";
@@ -27,7 +28,7 @@ export const auditKeys = {
 };
 
 export const ordersQuery = (orgId: number, f: Record<string, string | undefined>) =>
-  queryOptions({ queryKey: auditKeys.list(orgId, f), queryFn: () => api<AuditOrderSummary[]>(`${base(orgId)}/audit-orders${query(f)}`) });
+  pagedQuery<AuditOrderSummary>(auditKeys.list(orgId, f), `${base(orgId)}/audit-orders`, f);
 export const orderQuery = (orgId: number, id: number) =>
   queryOptions({ queryKey: auditKeys.detail(orgId, id), queryFn: () => api<AuditOrderDetail>(`${base(orgId)}/audit-orders/${id}`) });
 export const dashboardQuery = (orgId: number, f: Record<string, string | undefined>) =>
