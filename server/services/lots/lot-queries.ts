@@ -36,7 +36,7 @@ import { AuditOrder } from "../../models/audit-order.ts";
 import { AuditOrderLot } from "../../models/audit-order-lot.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { orderReference } from "../../../shared/audits/vocabulary.ts";
-import { governingVersion } from "./governing.ts";
+import { governingVersion, governingVersions } from "./governing.ts";
 import { isFailing, judgeFor, transitValues } from "../../../shared/lots/judge.ts";
 import { lotStatus, type StatusAnalysis } from "../../../shared/lots/lot-status.ts";
 import { profileDiffers, wineProfile } from "../../../shared/specs/profile.ts";
@@ -89,8 +89,12 @@ export async function statusOfLot(lotId: number) {
   return lotStatus(analyses, deviations, parameterName);
 }
 
-async function summaries(lots: Lot[], contracts: Map<number, ContractWithParties>): Promise<LotSummary[]> {
-  const inputsOf = await statusInputs(lots.map((l) => l.id));
+async function summaries(
+  lots: Lot[],
+  contracts: Map<number, ContractWithParties>,
+  inputs?: Awaited<ReturnType<typeof statusInputs>>,
+): Promise<LotSummary[]> {
+  const inputsOf = inputs ?? (await statusInputs(lots.map((l) => l.id)));
   return lots.map((l) => {
     const c = contracts.get(l.contractId)!;
     const { analyses: mine, deviations: ofLot } = inputsOf(l.id);
@@ -290,30 +294,27 @@ export async function readiness(orgId: number, f: ReadinessQuery): Promise<Page<
 }
 
 async function readinessRows(lots: Lot[], byId: Map<number, ContractWithParties>): Promise<ReadinessRow[]> {
-  const base = await summaries(lots, byId);
-  const analyses = (await Analysis.findAll({
-    where: { lotId: lots.map((l) => l.id) },
-    include: [
-      { model: AnalysisResult, as: "results", attributes: ["parameter"] },
-      { model: AnalysisEvaluation, as: "evaluation", attributes: ["verdicts"] },
-    ],
-    order: [
-      ["sampleDate", "ASC"],
-      ["id", "ASC"],
-    ],
-  })) as LoadedAnalysis[];
-  const analysesOf = new Map<number, LoadedAnalysis[]>();
-  for (const a of analyses) analysesOf.set(a.lotId, [...(analysesOf.get(a.lotId) ?? []), a]);
-  const governingCache = new Map<string, Awaited<ReturnType<typeof governingVersion>>>();
+  const ids = lots.map((l) => l.id);
+  // The analyses and verdicts the status already reads serve the stages too; only the measured parameters are read besides.
+  const [inputsOf, measuredRows] = await Promise.all([
+    statusInputs(ids),
+    database().query<{ analysisId: number; parameter: string }>(
+      "SELECT r.analysis_id AS analysisId, r.parameter FROM analysis_results r JOIN analyses a ON a.id = r.analysis_id WHERE a.lot_id IN (:ids)",
+      { replacements: { ids: ids.length ? ids : [0] }, type: QueryTypes.SELECT },
+    ),
+  ]);
+  const measuredBy = new Map<number, string[]>();
+  for (const m of measuredRows) measuredBy.set(m.analysisId, [...(measuredBy.get(m.analysisId) ?? []), m.parameter]);
+  const base = await summaries(lots, byId, inputsOf);
+  const analysesOf = new Map(ids.map((id) => [id, inputsOf(id).analyses]));
+  const governing = await governingVersions(lots);
   const rows: ReadinessRow[] = [];
   for (const [i, lot] of lots.entries()) {
-    const key = `${lot.contractId}|${lot.vintage}`;
-    if (!governingCache.has(key)) governingCache.set(key, await governingVersion(lot.contractId, lot.vintage));
-    const g = governingCache.get(key);
+    const g = governing.get(`${lot.contractId}|${lot.vintage}`);
     const mine = analysesOf.get(lot.id) ?? [];
     const stages = (g?.version.stages ?? []).map((stage: Stage) => {
       const atStage = mine.filter((a) => a.stage === stage || (stage === "pre_filling" && a.stage === "retest"));
-      const measured = new Set(atStage.flatMap((a) => a.results.map((r) => r.parameter)));
+      const measured = new Set(atStage.flatMap((a) => measuredBy.get(a.id) ?? []));
       const required = (g?.requirements ?? []).filter((r) => r.stages.includes(stage)).map((r) => r.parameter);
       const latest = atStage.at(-1)?.evaluation?.verdicts ?? [];
       return {

@@ -1,0 +1,194 @@
+/**
+ * The bench's floor: a bare Express 5 + mariadb server answering the lots and deviations pages with
+ * the same JSON as Cellarpact, from hand-written SQL and the same pure status code in shared/. No
+ * session, no ORM, no validation layer: what the answer costs at the least.
+ */
+import express from "express";
+import * as mariadb from "mariadb";
+import type { AddressInfo } from "node:net";
+import type { Config } from "../../server/config.ts";
+import { findParameter } from "../../shared/engine/index.ts";
+import { lotStatus, type StatusAnalysis, type StatusDeviation } from "../../shared/lots/lot-status.ts";
+
+interface LotRow {
+  id: number;
+  contract_id: number;
+  vintage: number;
+  lot_code: string;
+  volume_litres: number;
+  container: string;
+  planned_date: string | null;
+  market: string;
+  labelled_alcohol_percent_vol: number | null;
+}
+interface DeviationRow {
+  id: number;
+  kind: string;
+  status: string;
+  parameters: string;
+  summary: string;
+  lot_id: number;
+  lot_code: string;
+  vintage: number;
+  contract_id: number;
+  respond_by: string | null;
+  decision: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+const json = <T>(v: unknown): T => (typeof v === "string" ? (JSON.parse(v) as T) : (v as T));
+const name = (p: string) => findParameter(p)?.name ?? p;
+
+export async function startBareServer(config: Config) {
+  const pool = mariadb.createPool({
+    host: config.DB_HOST,
+    port: config.DB_PORT,
+    user: config.DB_USER,
+    password: config.DB_PASSWORD,
+    database: config.DB_NAME,
+    connectionLimit: 5,
+    dateStrings: true,
+    bigIntAsNumber: true,
+    decimalAsNumber: true,
+  });
+  const app = express();
+
+  const contractsOf = async (orgId: number) => {
+    const rows: { id: number; reference: string; wineName: string; producerName: string }[] = await pool.query(
+      `SELECT c.id, c.reference, w.name AS wineName, p.name AS producerName
+         FROM contracts c JOIN wines w ON w.id = c.wine_id JOIN organisations p ON p.id = c.producer_org_id
+        WHERE c.retailer_org_id = ? OR c.producer_org_id = ?`,
+      [orgId, orgId],
+    );
+    return new Map(rows.map((c) => [c.id, c]));
+  };
+
+  app.get("/api/orgs/:orgId/lots", async (req, res) => {
+    const limit = Number(req.query.limit ?? 50);
+    const contracts = await contractsOf(Number(req.params.orgId));
+    const ids = [...contracts.keys()];
+    const [lots, [{ n }]] = await Promise.all([
+      pool.query(
+        `SELECT id, contract_id, vintage, lot_code, volume_litres, container, planned_date, market, labelled_alcohol_percent_vol
+           FROM lots WHERE contract_id IN (?) ORDER BY vintage DESC, lot_code, id LIMIT ?`,
+        [ids, limit + 1],
+      ),
+      pool.query("SELECT COUNT(*) AS n FROM lots WHERE contract_id IN (?)", [ids]),
+    ]);
+    const page = (lots as LotRow[]).slice(0, limit);
+    const lotIds = page.map((l) => l.id);
+    const [analyses, deviations] = await Promise.all([
+      pool.query(
+        `SELECT a.id, a.lot_id, a.stage, a.audit_order_id, e.spec_version_id, e.verdicts
+           FROM analyses a LEFT JOIN analysis_evaluations e ON e.analysis_id = a.id
+          WHERE a.lot_id IN (?) ORDER BY a.sample_date, a.id`,
+        [lotIds],
+      ),
+      pool.query("SELECT id, lot_id, kind, status, parameters, decision FROM deviations WHERE lot_id IN (?)", [lotIds]),
+    ]);
+    const analysesOf = new Map<number, (StatusAnalysis & { stage: string })[]>();
+    for (const a of analyses) {
+      const list = analysesOf.get(a.lot_id) ?? [];
+      list.push({
+        id: a.id,
+        stage: a.stage,
+        auditOrderId: a.audit_order_id,
+        evaluation: a.verdicts === null ? null : { specVersionId: a.spec_version_id, verdicts: json(a.verdicts) },
+      });
+      analysesOf.set(a.lot_id, list);
+    }
+    const deviationsOf = new Map<number, StatusDeviation[]>();
+    for (const d of deviations) {
+      const list = deviationsOf.get(d.lot_id) ?? [];
+      list.push({ id: d.id, kind: d.kind, status: d.status, parameters: json(d.parameters), decision: json(d.decision) });
+      deviationsOf.set(d.lot_id, list);
+    }
+    const items = (page as LotRow[]).map((l) => {
+      const c = contracts.get(l.contract_id)!;
+      const mine = analysesOf.get(l.id) ?? [];
+      const ofLot = deviationsOf.get(l.id) ?? [];
+      return {
+        id: l.id,
+        contractId: l.contract_id,
+        contractReference: c.reference,
+        wineName: c.wineName,
+        producerName: c.producerName,
+        vintage: l.vintage,
+        lotCode: l.lot_code,
+        volumeLitres: Number(l.volume_litres),
+        container: l.container,
+        plannedDate: l.planned_date,
+        market: l.market,
+        labelledAlcoholPercentVol: l.labelled_alcohol_percent_vol === null ? null : Number(l.labelled_alcohol_percent_vol),
+        latestStage: mine.at(-1)?.stage ?? null,
+        status: lotStatus(mine as StatusAnalysis[], ofLot, name),
+        decidedDeviations: ofLot.filter((d) => d.decision).map((d) => ({ id: d.id, outcome: d.decision!.outcome })),
+      };
+    });
+    const last = page.at(-1);
+    res.json({
+      items,
+      nextCursor: lots.length > limit ? Buffer.from(JSON.stringify([last!.vintage, last!.lot_code, last!.id])).toString("base64url") : null,
+      total: n,
+    });
+  });
+
+  app.get("/api/orgs/:orgId/deviations", async (req, res) => {
+    const limit = Number(req.query.limit ?? 50);
+    const contracts = await contractsOf(Number(req.params.orgId));
+    const ids = [...contracts.keys()];
+    const [rows, [{ n }]] = await Promise.all([
+      pool.query(
+        `SELECT d.id, d.kind, d.status, d.parameters, d.summary, d.lot_id, l.lot_code, l.vintage, d.contract_id, d.respond_by, d.decision,
+                d.created_at, d.updated_at
+           FROM deviations d JOIN lots l ON l.id = d.lot_id
+          WHERE d.contract_id IN (?) ORDER BY d.created_at DESC, d.id DESC LIMIT ?`,
+        [ids, limit + 1],
+      ),
+      pool.query("SELECT COUNT(*) AS n FROM deviations WHERE contract_id IN (?)", [ids]),
+    ]);
+    const iso = (v: string | null) => (v === null ? null : `${v.replace(" ", "T")}Z`);
+    const page = (rows as DeviationRow[]).slice(0, limit);
+    const items = (page as DeviationRow[]).map((d) => {
+      const c = contracts.get(d.contract_id)!;
+      const decision = json<{ outcome: string } | null>(d.decision);
+      const open = !["decided", "closed"].includes(d.status);
+      return {
+        id: d.id,
+        kind: d.kind,
+        status: d.status,
+        parameters: json(d.parameters),
+        summary: d.summary,
+        lotId: d.lot_id,
+        lotCode: d.lot_code,
+        vintage: d.vintage,
+        contractId: c.id,
+        contractReference: c.reference,
+        wineName: c.wineName,
+        producerName: c.producerName,
+        respondBy: iso(d.respond_by),
+        overdue: open && d.respond_by !== null && Date.parse(iso(d.respond_by)!) < Date.now(),
+        outcome: decision?.outcome ?? null,
+        createdAt: iso(d.created_at),
+        updatedAt: iso(d.updated_at),
+      };
+    });
+    const last = page.at(-1);
+    res.json({
+      items,
+      nextCursor: rows.length > limit ? Buffer.from(JSON.stringify([last!.created_at, last!.id])).toString("base64url") : null,
+      total: n,
+    });
+  });
+
+  const server = app.listen(0, "127.0.0.1");
+  await new Promise((r) => server.once("listening", r));
+  return {
+    url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`,
+    close: async () => {
+      server.close();
+      await pool.end();
+    },
+  };
+}
