@@ -4,6 +4,7 @@ import helmet from "helmet";
 import compression from "compression";
 import cookieParser from "cookie-parser";
 import { pinoHttp } from "pino-http";
+import { requestBudget } from "./http/request-budget.ts";
 import type { Logger } from "pino";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
@@ -74,6 +75,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   app.use(STRIPE_WEBHOOK_PATH, express.raw({ type: "application/json", limit: "1mb" }));
   app.use(/^\/api\/orgs\/\d+\/contracts\/\d+\/imports$/, express.json({ limit: IMPORT_BODY_LIMIT }));
   app.use("/api", express.json({ limit: BODY_LIMIT }));
+  app.use("/api", requestBudget(config.REQUEST_BUDGET_MS));
   app.use("/api", sessionMiddleware(cookies));
   app.use("/api/auth/sign-in", ...signInLimiters(limits));
   app.use("/api/auth/password-reset/request", mailLimiter(limits));

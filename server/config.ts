@@ -38,6 +38,8 @@ const schema = z
     LOGIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(8),
     LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
     CLIENT_DIR: z.string().optional(),
+    // The longest an API request may take before it is answered 503 (see server/http/request-budget.ts).
+    REQUEST_BUDGET_MS: z.coerce.number().int().min(1).max(600_000).default(30_000),
     // Outside the web root: certificates are only ever served by the download route.
     CERTIFICATE_DIR: z.string().default(".data/certificates"),
     CERTIFICATE_MAX_BYTES: z.coerce

@@ -27,7 +27,9 @@ function toAppError(err: unknown): AppError | null {
 }
 
 export function errorHandler(production: boolean): ErrorRequestHandler {
-  return (err, req, res, _next) => {
+  return (err, req, res, next) => {
+    // Already answered (the time budget ran out first): Express's own handler closes the connection.
+    if (res.headersSent) return next(err);
     const known = toAppError(err);
     const status = known ? statusOf(known) : 500;
     if (!known) req.log?.error({ err }, "unhandled error");
