@@ -11,6 +11,7 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.sequelize.query("CREATE INDEX lots_newest ON lots (vintage DESC, lot_code, id)");
   await qi.sequelize.query("CREATE INDEX lots_contract_newest ON lots (contract_id, vintage DESC, lot_code, id)");
   await qi.sequelize.query("CREATE INDEX lots_due ON lots (due_on, lot_code, id)");
+  await qi.sequelize.query("CREATE INDEX lots_contract_due ON lots (contract_id, due_on)");
   await qi.sequelize.query("CREATE INDEX deviations_newest ON deviations (created_at, id)");
   await qi.sequelize.query("CREATE INDEX deviations_contract_newest ON deviations (contract_id, created_at, id)");
 }
@@ -18,6 +19,7 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
 export async function down({ context: qi }: MigrationParams<QueryInterface>) {
   await qi.sequelize.query("DROP INDEX deviations_contract_newest ON deviations");
   await qi.sequelize.query("DROP INDEX deviations_newest ON deviations");
+  await qi.sequelize.query("DROP INDEX lots_contract_due ON lots");
   await qi.sequelize.query("DROP INDEX lots_due ON lots");
   await qi.sequelize.query("DROP INDEX lots_contract_newest ON lots");
   await qi.sequelize.query("DROP INDEX lots_newest ON lots");

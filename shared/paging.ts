@@ -4,6 +4,7 @@
  * millionth row as at the first, and rows added meanwhile neither repeat nor go missing.
  */
 import { z } from "zod";
+import { countQuery } from "./count-query.ts";
 
 export const PAGE_SIZE_DEFAULT = 50;
 export const PAGE_SIZE_MAX = 200;
@@ -17,11 +18,13 @@ export interface Page<T> {
 
 /** The paging part of a list's query string, spread into the list's own query schema. */
 export const pageQuery = {
-  limit: z.coerce
-    .number({ error: "The page size is a number." })
-    .int({ error: "The page size is a whole number." })
-    .min(1, { error: "A page holds at least 1 row." })
-    .max(PAGE_SIZE_MAX, { error: `A page holds at most ${PAGE_SIZE_MAX} rows.` })
-    .default(PAGE_SIZE_DEFAULT),
+  limit: countQuery({
+    fallback: PAGE_SIZE_DEFAULT,
+    min: 1,
+    max: PAGE_SIZE_MAX,
+    notWhole: "The page size is a whole number.",
+    tooFew: "A page holds at least 1 row.",
+    tooMany: `A page holds at most ${PAGE_SIZE_MAX} rows.`,
+  }),
   cursor: z.string().max(400, { error: "This cursor is not one the list gave." }).optional(),
 };

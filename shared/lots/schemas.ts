@@ -1,6 +1,7 @@
 /** Lot and analysis schemas shared by the forms, the CSV import and the API. */
 import { z } from "zod";
 import { pageQuery } from "../paging.ts";
+import { countQuery } from "../count-query.ts";
 import { findParameter, MARKET_IDS, parseReading, PARAMETERS, UNITS, type MarketId, type UnitId } from "../engine/index.ts";
 import { ANALYSIS_STAGES, CONTAINERS } from "./vocabulary.ts";
 
@@ -143,12 +144,14 @@ export const READINESS_HORIZON_MAX = 730;
 /** The readiness board: lots due within the horizon (days from today), soonest first, undated ones last. */
 export const readinessQuerySchema = z.object({
   ...pageQuery,
-  horizon: z.coerce
-    .number({ error: "The horizon is a number of days." })
-    .int({ error: "The horizon is a whole number of days." })
-    .min(1, { error: "The horizon is at least 1 day." })
-    .max(READINESS_HORIZON_MAX, { error: `The horizon is at most ${READINESS_HORIZON_MAX} days.` })
-    .default(READINESS_HORIZON_DEFAULT),
+  horizon: countQuery({
+    fallback: READINESS_HORIZON_DEFAULT,
+    min: 1,
+    max: READINESS_HORIZON_MAX,
+    notWhole: "The horizon is a whole number of days.",
+    tooFew: "The horizon is at least 1 day.",
+    tooMany: `The horizon is at most ${READINESS_HORIZON_MAX} days.`,
+  }),
 });
 export type ReadinessQuery = z.infer<typeof readinessQuerySchema>;
 
@@ -157,11 +160,13 @@ export const TREND_VINTAGES_MAX = 10;
 /** A trend: one parameter over the contract's latest vintages. */
 export const trendQuerySchema = z.object({
   parameter: z.enum(PARAMETERS.map((p) => p.id) as [string, ...string[]], { error: "Choose a parameter." }),
-  vintages: z.coerce
-    .number({ error: "Say how many vintages." })
-    .int({ error: "Say how many vintages, as a whole number." })
-    .min(1, { error: "Show at least 1 vintage." })
-    .max(TREND_VINTAGES_MAX, { error: `Show at most ${TREND_VINTAGES_MAX} vintages.` })
-    .default(TREND_VINTAGES_DEFAULT),
+  vintages: countQuery({
+    fallback: TREND_VINTAGES_DEFAULT,
+    min: 1,
+    max: TREND_VINTAGES_MAX,
+    notWhole: "Say how many vintages, as a whole number.",
+    tooFew: "Show at least 1 vintage.",
+    tooMany: `Show at most ${TREND_VINTAGES_MAX} vintages.`,
+  }),
 });
 export type TrendQuery = z.infer<typeof trendQuerySchema>;

@@ -4,6 +4,7 @@
  */
 import { z } from "zod";
 import { wineLawFactsSchema } from "./law-facts.ts";
+import { countQuery } from "../count-query.ts";
 import { buyerRequirementSchema, isParameterId, MARKET_IDS, type MarketId } from "../engine/index.ts";
 import { SEVERITIES, STAGES, SPEC_STATUSES, WINE_CATEGORIES, COLOURS } from "./vocabulary.ts";
 
@@ -106,12 +107,14 @@ export const BACKTEST_LOTS_DEFAULT = 200;
 export const BACKTEST_LOTS_MAX = 2000;
 /** Past results are read over a window: the contract's last `lots` lots, and only the parameters the two versions name. */
 export const backtestQuerySchema = z.object({
-  lots: z.coerce
-    .number({ error: "The window is a number of lots." })
-    .int({ error: "The window is a whole number of lots." })
-    .min(1, { error: "The window holds at least 1 lot." })
-    .max(BACKTEST_LOTS_MAX, { error: `The window holds at most ${BACKTEST_LOTS_MAX} lots.` })
-    .default(BACKTEST_LOTS_DEFAULT),
+  lots: countQuery({
+    fallback: BACKTEST_LOTS_DEFAULT,
+    min: 1,
+    max: BACKTEST_LOTS_MAX,
+    notWhole: "The window is a whole number of lots.",
+    tooFew: "The window holds at least 1 lot.",
+    tooMany: `The window holds at most ${BACKTEST_LOTS_MAX} lots.`,
+  }),
   parameters: z
     .string({ error: "Name the parameters, separated by commas." })
     .min(1, { error: "Name at least one parameter." })

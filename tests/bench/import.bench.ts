@@ -2,10 +2,10 @@
  * CSV import of 10,000 rows (parse, map, validate, evaluate, store in MariaDB) against a bare mariadb batch insert of the same rows, and papaparse
  * parsing alone, in the same run. Uses its own database, cellarpact_bench, rebuilt each time.
  */
-import { execFileSync } from "node:child_process";
 import path from "node:path";
 import Papa from "papaparse";
 import * as mariadb from "mariadb";
+import { openBenchDatabase } from "./bench-db.ts";
 import { loadConfig } from "../../server/config.ts";
 import { createSequelize } from "../../server/db/connection.ts";
 import { useDatabase } from "../../server/db/database.ts";
@@ -20,16 +20,7 @@ import { IMPORT_BATCH_MAX } from "../../shared/lots/schemas.ts";
 
 const ROWS = 10_000;
 const root = path.resolve(import.meta.dirname, "../..");
-// Start the private database unless it already runs, and stop it again at the end only if this run started it.
-const dbWasRunning = (() => {
-  try {
-    execFileSync("bash", ["server/scripts/db.sh", "status"], { cwd: root, stdio: "ignore" });
-    return true;
-  } catch {
-    return false;
-  }
-})();
-if (!dbWasRunning) execFileSync("bash", ["server/scripts/db.sh", "start"], { cwd: root, stdio: "ignore" });
+const benchDb = openBenchDatabase();
 const config = loadConfig({ ...process.env, DB_NAME: "cellarpact_bench", LOG_LEVEL: "silent" });
 const sequelize = createSequelize(config);
 useDatabase(sequelize);
@@ -174,4 +165,4 @@ console.log(
 );
 console.log(`  ratio full import / bare batch insert: ${(full.ms / floor.ms).toFixed(2)}× (goal ≤ 2)`);
 await sequelize.close();
-if (!dbWasRunning) execFileSync("bash", ["server/scripts/db.sh", "stop"], { cwd: root, stdio: "ignore" });
+benchDb.stop();

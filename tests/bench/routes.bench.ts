@@ -6,11 +6,10 @@
  * longest event-loop block during the heaviest request at 100k (goal < 100 ms).
  * Set BENCH_LARGE to change the large size.
  */
-import { execFileSync } from "node:child_process";
-import path from "node:path";
 import { monitorEventLoopDelay } from "node:perf_hooks";
 import type { AddressInfo } from "node:net";
 import { pino } from "pino";
+import { openBenchDatabase } from "./bench-db.ts";
 import { loadConfig } from "../../server/config.ts";
 import { createSequelize } from "../../server/db/connection.ts";
 import { useDatabase } from "../../server/db/database.ts";
@@ -21,18 +20,9 @@ import { createApp } from "../../server/app.ts";
 import { startBareServer } from "./bare-server.ts";
 import { DEMO_PASSWORD } from "../../seeders/2026.12.02T02.00.00.demo-organisations-and-people.ts";
 
-const root = path.resolve(import.meta.dirname, "../..");
 const LARGE = Number(process.env.BENCH_LARGE ?? 100_000);
 const RUNS = 25;
-const dbWasRunning = (() => {
-  try {
-    execFileSync("bash", ["server/scripts/db.sh", "status"], { cwd: root, stdio: "ignore" });
-    return true;
-  } catch {
-    return false;
-  }
-})();
-if (!dbWasRunning) execFileSync("bash", ["server/scripts/db.sh", "start"], { cwd: root, stdio: "ignore" });
+const benchDb = openBenchDatabase();
 
 const config = loadConfig({ ...process.env, DB_NAME: "cellarpact_bench", LOG_LEVEL: "silent", BCRYPT_COST: "4" });
 const sequelize = createSequelize(config);
@@ -146,4 +136,4 @@ console.log(
 server.close();
 await bare.close();
 await sequelize.close();
-if (!dbWasRunning) execFileSync("bash", ["server/scripts/db.sh", "stop"], { cwd: root, stdio: "ignore" });
+benchDb.stop();
