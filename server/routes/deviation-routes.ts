@@ -35,7 +35,7 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
   deviationsRoutes.get(
     "/api/orgs/:orgId/deviations",
     { summary: "Deviations on your contracts", access: PARTIES, params: orgParams, query: deviationListQuerySchema },
-    ({ params, query }) => queries.listDeviations(params.orgId, query),
+    ({ params, query, membership }) => queries.listDeviations(params.orgId, query, membership!.organisationKind),
   );
   deviationsRoutes.post(
     "/api/orgs/:orgId/deviations",

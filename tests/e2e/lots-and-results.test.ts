@@ -57,6 +57,8 @@ describe("lots and results: import, certificate, verdicts and trends", () => {
   it("when the producer opens the failing lot and attaches the certificate, then the certificate is listed with its hash", async () => {
     const { page } = s;
     await nav("Lots");
+    // Among thousands of lots, as a technologist would: by its code.
+    await page.getByLabel("Lot code contains").fill("SB-25-E2");
     await page.getByRole("link", { name: "SB-25-E2" }).click();
     await page.getByRole("heading", { level: 1, name: "Lot SB-25-E2" }).waitFor();
     const dir = mkdtempSync(path.join(os.tmpdir(), "cert-"));
@@ -73,6 +75,8 @@ describe("lots and results: import, certificate, verdicts and trends", () => {
     const { page, baseUrl } = s;
     await signInThroughForm(page, baseUrl, DEMO.buyerTechnologist);
     await nav("Lots");
+    // Among thousands of lots, as a technologist would: by its code.
+    await page.getByLabel("Lot code contains").fill("SB-25-E2");
     await page.getByRole("link", { name: "SB-25-E2" }).click();
     const va = page.getByRole("row", { name: "Volatile acidity", exact: true });
     await va.getByText("fail", { exact: true }).waitFor();

@@ -20,6 +20,7 @@ import type { StoredVerdict } from "../../../shared/lots/views.ts";
 import type { SessionUser, SessionMembership } from "../session-service.ts";
 import { CLOSED, deviationFor, isOverdue, participants } from "./deviation-access.ts";
 import { can } from "../../../shared/auth/permissions.ts";
+import type { OrganisationKind } from "../../../shared/auth/roles.ts";
 
 function summaryView(d: Deviation, lot: Lot, c: ContractWithParties): DeviationSummaryView {
   return {
@@ -58,12 +59,17 @@ const overdueWhere = (overdue: boolean, now: Date): WhereOptions<Deviation> =>
     : { [Op.or]: [{ status: CLOSED }, { respondBy: null }, { respondBy: { [Op.gte]: now } }] };
 
 /** A page of the deviations the organisation may see, newest first: its contracts' and, for a laboratory, its audits'. */
-export async function listDeviations(orgId: number, f: DeviationListQuery): Promise<Page<DeviationSummaryView>> {
-  const labOrders = await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] });
+export async function listDeviations(orgId: number, f: DeviationListQuery, kind: OrganisationKind): Promise<Page<DeviationSummaryView>> {
+  // Only a laboratory reads deviations through its audits; the others skip that lookup.
+  const labOrders =
+    kind === "laboratory" ? await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] }) : [];
   const contracts = (await Contract.findAll({
     where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] },
     include: contractInclude,
-  })) as ContractWithParties[];
+    // Plain rows: the list only reads the contracts' names.
+    raw: true,
+    nest: true,
+  })) as unknown as ContractWithParties[];
   const byId = new Map(contracts.map((c) => [c.id, c]));
   const own = contracts.filter((c) => c.retailerOrgId === orgId || c.producerOrgId === orgId).map((c) => c.id);
   const ids = f.contract ? [f.contract].filter((id) => own.includes(id)) : own;

@@ -3,7 +3,7 @@ import type { DeviationKind } from "../../../shared/deviations/vocabulary.ts";
 import { deviationPath } from "../../../shared/paths.ts";
 import type { Transaction } from "sequelize";
 import { Deviation } from "../../models/deviation.ts";
-import { recordTrail } from "../trail/trail-service.ts";
+import { recordTrails } from "../trail/trail-service.ts";
 import { notify, usersWithRoles } from "../notification-service.ts";
 import { RESPONSE_DAYS } from "../../../shared/deviations/vocabulary.ts";
 import type { ContractWithParties } from "../specs/spec-access.ts";
@@ -31,17 +31,18 @@ export async function openDeviations(
     { transaction: t },
   );
   const parties = await usersWithRoles([contract.retailerOrgId, contract.producerOrgId], ["buyer_technologist", "producer_quality"], t);
-  for (const d of created) {
-    await recordTrail(t, {
+  await recordTrails(
+    t,
+    created.map((d) => ({
       actorUserId: actor.userId,
       organisationId: actor.organisationId,
-      action: "deviation.opened",
+      action: "deviation.opened" as const,
       entityType: "deviation",
       entityId: d.id,
       after: { kind: d.kind, parameters: d.parameters },
       details: { lotId: d.lotId, kind: d.kind, parameters: d.parameters },
-    });
-  }
+    })),
+  );
   // One notification per party for the whole batch keeps a large import from flooding inboxes.
   await notify(
     t,

@@ -47,11 +47,14 @@ const parameterName = (p: string) => findParameter(p)?.name ?? p;
 
 type LoadedAnalysis = Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null; certificates: Certificate[] };
 
+/** The organisation's contracts with wine and parties, as plain rows: lists only read their names. */
 async function partyContracts(orgId: number) {
   return (await Contract.findAll({
     where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] },
     include: contractInclude,
-  })) as ContractWithParties[];
+    raw: true,
+    nest: true,
+  })) as unknown as ContractWithParties[];
 }
 
 /** What a lot's status rests on, for many lots at once: their analyses (oldest first) and deviations. */
