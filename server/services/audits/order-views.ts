@@ -90,18 +90,6 @@ export async function pageOrders(where: WhereOptions, limit: number, cursor: str
   );
 }
 
-export async function loadOrders(where: Record<string, unknown>): Promise<Loaded[]> {
-  return (await AuditOrder.findAll({
-    where,
-    include: orderInclude,
-    order: [
-      ["createdAt", "DESC"],
-      ["id", "DESC"],
-    ],
-    limit: 1000,
-  })) as Loaded[];
-}
-
 export async function detailOf(id: number, side: OrderSide, role: Role): Promise<AuditOrderDetail> {
   const o = (await AuditOrder.findByPk(id, { include: orderInclude })) as Loaded;
   const payments =

@@ -197,10 +197,11 @@ export async function getLot(orgId: number, lotId: number, role: Role): Promise<
   const [summary] = await summaries([lot], new Map([[contract.id, contract]]));
   const analyses = (await Analysis.findAll({
     where: { lotId },
+    // Results and certificates in their own queries: joined, every result row would carry a copy of the evaluation's verdicts.
     include: [
-      { model: AnalysisResult, as: "results" },
+      { model: AnalysisResult, as: "results", separate: true, order: [["id", "ASC"]] },
       { model: AnalysisEvaluation, as: "evaluation" },
-      { model: Certificate, as: "certificates" },
+      { model: Certificate, as: "certificates", separate: true, order: [["id", "ASC"]] },
     ],
     order: [
       ["sampleDate", "ASC"],

@@ -23,8 +23,9 @@ export async function rejudgeAnalysis(orgId: number, lotId: number, analysisId: 
     const { lot, contract } = await lotFor(orgId, lotId, t);
     const analysis = (await Analysis.findOne({
       where: { id: analysisId, lotId },
+      // Results in their own query, so the evaluation's verdicts are not copied into every result row.
       include: [
-        { model: AnalysisResult, as: "results" },
+        { model: AnalysisResult, as: "results", separate: true, order: [["id", "ASC"]] },
         { model: AnalysisEvaluation, as: "evaluation" },
       ],
       transaction: t,
