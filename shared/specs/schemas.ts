@@ -5,6 +5,7 @@
 import { z } from "zod";
 import { wineLawFactsSchema } from "./law-facts.ts";
 import { countQuery } from "../count-query.ts";
+import { pageQuery } from "../paging.ts";
 import { buyerRequirementSchema, isParameterId, MARKET_IDS, type MarketId } from "../engine/index.ts";
 import { SEVERITIES, STAGES, SPEC_STATUSES, WINE_CATEGORIES, COLOURS } from "./vocabulary.ts";
 
@@ -67,6 +68,7 @@ export const requestChangesSchema = z.object({
 });
 
 export const specListQuerySchema = z.object({
+  ...pageQuery,
   wine: z.coerce.number().int().positive().optional(),
   producer: z.coerce.number().int().positive().optional(),
   market: z.enum(MARKET_IDS as [MarketId, ...MarketId[]]).optional(),

@@ -11,6 +11,8 @@ import { agreedContract, analysed, member, organisation, platformAdmin, plannedL
 import type { LotSummary, ReadinessRow } from "../../shared/lots/views.ts";
 import type { DeviationSummaryView } from "../../shared/deviations/views.ts";
 import type { Page } from "../../shared/paging.ts";
+import { createVersion } from "../../server/services/specs/spec-lifecycle.ts";
+import { listSpecs } from "../../server/services/specs/spec-queries.ts";
 
 let t: TestApp;
 let buyer: Party;
@@ -126,5 +128,21 @@ describe("notifications", () => {
     expect(rows.map((n) => n.id)).toEqual([...rows.map((n) => n.id)].sort((a, b) => b - a));
     expect(pages[0]!.total).toBe(rows.length);
     expect((pages[0] as unknown as { unread: number }).unread).toBe(rows.filter((n) => !n.read).length);
+  });
+});
+
+describe("the spec versions list", () => {
+  it("when versions are read two at a time, then each comes once, newest change first, and the producer's list leaves the buyer's draft out", async () => {
+    await agreedContract(buyer, producer, { vintageFrom: 2021 });
+    const { contractId: third } = await agreedContract(buyer, producer, { vintageFrom: 2022 });
+    const draft = await createVersion(buyer.orgId, third, buyer.user, { from: "blank" });
+    const { rows, pages } = await allPages<{ id: number; updatedAt: string; status: string }>(L("/specs?limit=2"));
+    expect(rows).toHaveLength(4);
+    expect(pages.map((p) => p.items.length)).toEqual([2, 2]);
+    expect(rows.map((v) => v.updatedAt)).toEqual([...rows.map((v) => v.updatedAt)].sort().reverse());
+    expect(rows.map((v) => v.id)).toContain(draft.id);
+    const mine = (await listSpecs(producer.orgId, { limit: 200 })).items.map((v) => v.id);
+    expect(mine).toHaveLength(3);
+    expect(mine).not.toContain(draft.id);
   });
 });

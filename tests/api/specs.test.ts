@@ -94,7 +94,7 @@ describe("spec sheet lifecycle and authorization", () => {
     expect((await producer.agent.post(producerUrl(`/specs/${v.id}/agree`)).set("x-csrf-token", producer.csrf)).status).toBe(404);
     const lab = await signInAs(t.app, DEMO.labAdmin);
     expect((await lab.agent.get(`/api/orgs/${ORG.lab}/specs/${v.id}`)).status).toBe(404);
-    expect((await lab.agent.get(`/api/orgs/${ORG.lab}/specs`)).body).toEqual([]);
+    expect((await lab.agent.get(`/api/orgs/${ORG.lab}/specs`)).body).toEqual({ items: [], nextCursor: null, total: 0 });
   });
 
   it("when only the owning buyer may edit, then the producer gets 403 for the role and 404 for a draft it cannot see", async () => {

@@ -2,7 +2,9 @@
 import { Op, QueryTypes, type WhereOptions } from "sequelize";
 import type { Transaction } from "sequelize";
 import { diffSpecs, type Reading, type ReportedUncertainty, type UnitId } from "../../../shared/engine/index.ts";
-import type { PastResults, RequirementView } from "../../../shared/specs/views.ts";
+import type { PastResults, RequirementView, SpecListItem } from "../../../shared/specs/views.ts";
+import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
+import type { Page } from "../../../shared/paging.ts";
 import type { BacktestQuery } from "../../../shared/specs/schemas.ts";
 import { database } from "../../db/database.ts";
 import type { SpecStatus } from "../../../shared/specs/vocabulary.ts";
@@ -27,10 +29,25 @@ export interface SpecListFilters {
   q?: string;
 }
 
-/** Every version the organisation may see, newest first, with its contract and wine. */
-export async function listSpecs(orgId: number, f: SpecListFilters) {
+// By column: Sequelize orders a timestamp attribute by its select alias, which no index serves.
+const NEWEST_FIRST: SortKey[] = [
+  { attribute: "updatedAt", sql: "`SpecVersion`.`updated_at`", direction: "DESC" },
+  { attribute: "id", sql: "`SpecVersion`.`id`", direction: "DESC" },
+];
+
+/**
+ * A page of the versions the organisation may see, newest change first, with contract and wine.
+ * The contracts' filters (wine, producer, market, text) pick the contracts; status and paging are SQL
+ * on the versions, and a producer never sees a draft.
+ */
+export async function listSpecs(orgId: number, f: SpecListFilters & { limit: number; cursor?: string }): Promise<Page<SpecListItem>> {
   const contractWhere: WhereOptions = { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] };
-  const contracts = (await Contract.findAll({ where: contractWhere, include: contractInclude })) as ContractWithParties[];
+  const contracts = (await Contract.findAll({
+    where: contractWhere,
+    include: contractInclude,
+    raw: true,
+    nest: true,
+  })) as unknown as ContractWithParties[];
   const visible = contracts.filter(
     (c) =>
       (!f.wine || c.wineId === f.wine) &&
@@ -38,17 +55,39 @@ export async function listSpecs(orgId: number, f: SpecListFilters) {
       (!f.market || c.wine.markets.includes(f.market as never)) &&
       (!f.q || `${c.wine.name} ${c.reference} ${c.producer.name} ${c.wine.region}`.toLowerCase().includes(f.q.toLowerCase())),
   );
-  if (!visible.length) return [];
+  if (!visible.length) return { items: [], nextCursor: null, total: 0 };
   const byId = new Map(visible.map((c) => [c.id, c]));
-  const versions = await SpecVersion.findAll({
-    where: { contractId: [...byId.keys()], ...(f.status ? { status: f.status } : {}) },
-    order: [["updatedAt", "DESC"]],
-  });
-  const counts = await SpecRequirement.count({ where: { specVersionId: versions.map((v) => v.id) }, group: ["specVersionId"] });
-  const countOf = new Map(counts.map((c) => [Number(c.specVersionId), Number(c.count)]));
-  return versions
-    .filter((v) => !(sideOf(byId.get(v.contractId)!, orgId) === "producer" && v.status === "draft"))
-    .map((v) => ({ ...versionSummary(v), requirementCount: countOf.get(v.id) ?? 0, contract: contractView(byId.get(v.contractId)!) }));
+  const asBuyer = visible.filter((c) => sideOf(c as Contract, orgId) === "buyer").map((c) => c.id);
+  const asProducer = visible.filter((c) => sideOf(c as Contract, orgId) === "producer").map((c) => c.id);
+  const where: WhereOptions = {
+    [Op.and]: [
+      { [Op.or]: [{ contractId: asBuyer }, { contractId: asProducer, status: { [Op.ne]: "draft" } }] },
+      f.status ? { status: f.status } : {},
+    ],
+  };
+  const [versions, total] = await Promise.all([
+    SpecVersion.findAll({
+      where: { [Op.and]: [where, afterCursor(NEWEST_FIRST, f.cursor)] },
+      order: orderBy(NEWEST_FIRST),
+      limit: f.limit + 1,
+    }),
+    SpecVersion.count({ where }),
+  ]);
+  return toPage(
+    versions,
+    f.limit,
+    (v) => [v.updatedAt.toISOString().replace("T", " ").replace("Z", ""), v.id],
+    async (shown) => {
+      const counts = await SpecRequirement.count({ where: { specVersionId: shown.map((v) => v.id) }, group: ["specVersionId"] });
+      const countOf = new Map(counts.map((c) => [Number(c.specVersionId), Number(c.count)]));
+      return shown.map((v) => ({
+        ...versionSummary(v),
+        requirementCount: countOf.get(v.id) ?? 0,
+        contract: contractView(byId.get(v.contractId)!),
+      }));
+    },
+    total,
+  );
 }
 
 /** Contracts of the organisation, with the versions it may see. */

@@ -1,11 +1,11 @@
-import { useQuery } from "@tanstack/react-query";
+import { useInfiniteQuery, useQuery } from "@tanstack/react-query";
 import { Link } from "react-router-dom";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useOrganisation } from "../../lib/signed-in.tsx";
 import { specListQuery, type SpecFilters } from "./api/specs.ts";
 import { contractsQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { EmptyState, ErrorState, LoadingState, QueryStatus } from "../../components/ui/states.tsx";
+import { QueryStatus } from "../../components/ui/states.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { StatusBadge } from "./status-badge.tsx";
 import { LegalCaution } from "../../components/legal-caution.tsx";
@@ -14,6 +14,9 @@ import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { can } from "../../../shared/auth/permissions.ts";
 import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
+import { MoreRows } from "../../components/ui/more-rows.tsx";
+import { rowsOf } from "../../lib/paged.ts";
+import { useDebouncedCallback } from "../../lib/use-debounced.ts";
 
 const vintages = (from: number, to: number | null) => (to ? `${from}–${to}` : `${from} →`);
 
@@ -87,6 +90,7 @@ function ContractsCard({ orgId }: { orgId: number }) {
 
 function SpecFiltersBar({ orgId, filters, set }: { orgId: number; filters: SpecFilters; set: (k: string, v: string) => void }) {
   const contracts = useQuery(contractsQuery(orgId));
+  const setQuery = useDebouncedCallback((q: string) => set("q", q));
   const wines = [...new Map((contracts.data ?? []).map((c) => [c.wine.id, c.wine.name])).entries()];
   const producers = [...new Map((contracts.data ?? []).map((c) => [c.producer.id, c.producer.name])).entries()];
   return (
@@ -96,7 +100,7 @@ function SpecFiltersBar({ orgId, filters, set }: { orgId: number; filters: SpecF
         type="search"
         placeholder="Wine, contract, region"
         defaultValue={filters.q ?? ""}
-        onChange={(e) => set("q", e.target.value)}
+        onChange={(e) => setQuery(e.target.value)}
       />
       <SelectField
         label="Wine"
@@ -127,30 +131,32 @@ function SpecFiltersBar({ orgId, filters, set }: { orgId: number; filters: SpecF
 }
 
 function SpecTable({ orgId, filters }: { orgId: number; filters: SpecFilters }) {
-  const list = useQuery(specListQuery(orgId, filters));
-  if (list.isPending) return <LoadingState />;
-  if (list.isError) return <ErrorState error={list.error} onRetry={() => list.refetch()} />;
-  if (list.data.length === 0) return <EmptyState title="No version matches these filters." />;
+  const list = useInfiniteQuery(specListQuery(orgId, filters));
+  if (list.isPending || list.isError || rowsOf(list.data).length === 0)
+    return <QueryStatus query={list} empty="No version matches these filters." />;
   return (
-    <DataTable headings={["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"]}>
-      {list.data.map((v) => (
-        <Row key={v.id}>
-          <Cell className="font-semibold">
-            <Link to={`/specs/${v.id}`} className="text-must-700 underline">
-              {v.contract.wine.name}
-            </Link>
-          </Cell>
-          <Cell>{v.contract.reference}</Cell>
-          <Cell>{v.contract.producer.name}</Cell>
-          <Cell className="tabular-nums">v{v.number}</Cell>
-          <Cell>
-            <StatusBadge status={v.status} />
-          </Cell>
-          <Cell className="tabular-nums">{vintages(v.vintageFrom, v.vintageTo)}</Cell>
-          <Cell className="tabular-nums">{v.requirementCount}</Cell>
-          <Cell className="tabular-nums">{v.updatedAt.slice(0, 10)}</Cell>
-        </Row>
-      ))}
-    </DataTable>
+    <>
+      <DataTable headings={["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"]}>
+        {rowsOf(list.data).map((v) => (
+          <Row key={v.id}>
+            <Cell className="font-semibold">
+              <Link to={`/specs/${v.id}`} className="text-must-700 underline">
+                {v.contract.wine.name}
+              </Link>
+            </Cell>
+            <Cell>{v.contract.reference}</Cell>
+            <Cell>{v.contract.producer.name}</Cell>
+            <Cell className="tabular-nums">v{v.number}</Cell>
+            <Cell>
+              <StatusBadge status={v.status} />
+            </Cell>
+            <Cell className="tabular-nums">{vintages(v.vintageFrom, v.vintageTo)}</Cell>
+            <Cell className="tabular-nums">{v.requirementCount}</Cell>
+            <Cell className="tabular-nums">{v.updatedAt.slice(0, 10)}</Cell>
+          </Row>
+        ))}
+      </DataTable>
+      <MoreRows query={list} noun="versions" />
+    </>
   );
 }

@@ -1,6 +1,7 @@
 /** Requests of the spec-sheet feature, with their query keys kept next to them. */
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "../../../lib/api-client.ts";
+import { pagedQuery } from "../../../lib/paged.ts";
 import type { CommentInput, NewContractInput, NewVersionInput, SpecDraftInput } from "../../../../shared/specs/schemas.ts";
 import type { PastResults, SpecDiff, SpecListItem } from "../../../../shared/specs/views.ts";
 import { contractKeys } from "../../../lib/contracts.ts";
@@ -24,17 +25,7 @@ export const specKeys = {
 };
 
 export const specListQuery = (orgId: number, f: SpecFilters) =>
-  queryOptions({
-    queryKey: specKeys.list(orgId, f),
-    queryFn: () => {
-      const qs = new URLSearchParams(
-        Object.entries(f)
-          .filter(([, v]) => v !== undefined && v !== "")
-          .map(([k, v]) => [k, String(v)]),
-      );
-      return api<SpecListItem[]>(`${base(orgId)}/specs${qs.size ? `?${qs}` : ""}`);
-    },
-  });
+  pagedQuery<SpecListItem>(specKeys.list(orgId, f), `${base(orgId)}/specs`, { ...f });
 
 export const diffQuery = (orgId: number, id: number, against: number) =>
   queryOptions({
