@@ -8,10 +8,9 @@ import { useOrganisation } from "../../lib/signed-in.tsx";
 import { lotsQuery, useRegisterLot } from "./api/lots.ts";
 import { contractsQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
-import { Notice, QueryStatus } from "../../components/ui/states.tsx";
-import { MoreRows } from "../../components/ui/more-rows.tsx";
-import { rowsOf } from "../../lib/paged.ts";
-import { useDebouncedCallback } from "../../lib/use-debounced.ts";
+import { Notice } from "../../components/ui/states.tsx";
+import { FilterField } from "../../components/ui/filter-field.tsx";
+import { PagedTable } from "../../components/ui/paged-table.tsx";
 import { SelectField, TextField } from "../../components/ui/field.tsx";
 import { Button } from "../../components/ui/button.tsx";
 import { LotStatusBadge } from "../../components/lot-status-badge.tsx";
@@ -20,7 +19,7 @@ import { ANALYSIS_STAGE_LABELS, CONTAINERS, CONTAINER_LABELS } from "../../../sh
 import { MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { applyServerErrors } from "../../lib/form-errors.ts";
 import { can } from "../../../shared/auth/permissions.ts";
-import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
+import { Row, Cell } from "../../components/ui/table.tsx";
 
 export function LotsPage() {
   const { orgId, membership } = useOrganisation();
@@ -57,10 +56,9 @@ function LotFilters({
   set: (k: string, v: string) => void;
 }) {
   const contracts = useQuery(contractsQuery(orgId));
-  const setQuery = useDebouncedCallback((q: string) => set("q", q));
   return (
     <div className="mb-4 grid gap-3 md:grid-cols-3">
-      <TextField label="Lot code contains" type="search" defaultValue={filters.q ?? ""} onChange={(e) => setQuery(e.target.value)} />
+      <FilterField label="Lot code contains" value={filters.q} onFilter={(q) => set("q", q)} />
       <SelectField
         label="Contract"
         value={filters.contract ?? ""}
@@ -76,11 +74,15 @@ function LotFilters({
 
 function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: number; q?: string } }) {
   const lots = useInfiniteQuery(lotsQuery(orgId, filters));
-  if (lots.isPending || lots.isError || rowsOf(lots.data).length === 0) return <QueryStatus query={lots} empty="No lot matches." />;
   return (
-    <>
-      <DataTable headings={["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"]}>
-        {rowsOf(lots.data).map((l) => (
+    <PagedTable
+      query={lots}
+      empty="No lot matches."
+      noun="lots"
+      headings={["Lot", "Wine", "Vintage", "Container", "Planned", "Latest analysis", "Status", "Open deviations"]}
+    >
+      {(rows) =>
+        rows.map((l) => (
           <Row key={l.id}>
             <Cell className="font-semibold">
               <Link to={`/lots/${l.id}`} className="text-must-700 underline">
@@ -97,10 +99,9 @@ function LotTable({ orgId, filters }: { orgId: number; filters: { contract?: num
             </Cell>
             <Cell className="tabular-nums">{l.status.openDeviations || "—"}</Cell>
           </Row>
-        ))}
-      </DataTable>
-      <MoreRows query={lots} noun="lots" />
-    </>
+        ))
+      }
+    </PagedTable>
   );
 }
 

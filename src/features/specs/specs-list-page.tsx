@@ -6,17 +6,16 @@ import { specListQuery, type SpecFilters } from "./api/specs.ts";
 import { contractsQuery } from "../../lib/contracts.ts";
 import { Card, PageHeader } from "../../components/ui/page.tsx";
 import { QueryStatus } from "../../components/ui/states.tsx";
-import { SelectField, TextField } from "../../components/ui/field.tsx";
+import { SelectField } from "../../components/ui/field.tsx";
 import { StatusBadge } from "./status-badge.tsx";
 import { LegalCaution } from "../../components/legal-caution.tsx";
 import { NewContractForm } from "./new-contract-form.tsx";
 import { MARKET_IDS, MARKET_PACKS } from "../../../shared/engine/index.ts";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { can } from "../../../shared/auth/permissions.ts";
-import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
-import { MoreRows } from "../../components/ui/more-rows.tsx";
-import { rowsOf } from "../../lib/paged.ts";
-import { useDebouncedCallback } from "../../lib/use-debounced.ts";
+import { Row, Cell } from "../../components/ui/table.tsx";
+import { FilterField } from "../../components/ui/filter-field.tsx";
+import { PagedTable } from "../../components/ui/paged-table.tsx";
 
 const vintages = (from: number, to: number | null) => (to ? `${from}–${to}` : `${from} →`);
 
@@ -90,18 +89,11 @@ function ContractsCard({ orgId }: { orgId: number }) {
 
 function SpecFiltersBar({ orgId, filters, set }: { orgId: number; filters: SpecFilters; set: (k: string, v: string) => void }) {
   const contracts = useQuery(contractsQuery(orgId));
-  const setQuery = useDebouncedCallback((q: string) => set("q", q));
   const wines = [...new Map((contracts.data ?? []).map((c) => [c.wine.id, c.wine.name])).entries()];
   const producers = [...new Map((contracts.data ?? []).map((c) => [c.producer.id, c.producer.name])).entries()];
   return (
     <div className="mb-4 grid gap-3 md:grid-cols-5">
-      <TextField
-        label="Search"
-        type="search"
-        placeholder="Wine, contract, region"
-        defaultValue={filters.q ?? ""}
-        onChange={(e) => setQuery(e.target.value)}
-      />
+      <FilterField label="Search" placeholder="Wine, contract, region" value={filters.q} onFilter={(q) => set("q", q)} />
       <SelectField
         label="Wine"
         value={filters.wine ?? ""}
@@ -132,12 +124,15 @@ function SpecFiltersBar({ orgId, filters, set }: { orgId: number; filters: SpecF
 
 function SpecTable({ orgId, filters }: { orgId: number; filters: SpecFilters }) {
   const list = useInfiniteQuery(specListQuery(orgId, filters));
-  if (list.isPending || list.isError || rowsOf(list.data).length === 0)
-    return <QueryStatus query={list} empty="No version matches these filters." />;
   return (
-    <>
-      <DataTable headings={["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"]}>
-        {rowsOf(list.data).map((v) => (
+    <PagedTable
+      query={list}
+      empty="No version matches these filters."
+      noun="versions"
+      headings={["Wine", "Contract", "Producer", "Version", "Status", "Vintages", "Rows", "Updated"]}
+    >
+      {(rows) =>
+        rows.map((v) => (
           <Row key={v.id}>
             <Cell className="font-semibold">
               <Link to={`/specs/${v.id}`} className="text-must-700 underline">
@@ -154,9 +149,8 @@ function SpecTable({ orgId, filters }: { orgId: number; filters: SpecFilters }) 
             <Cell className="tabular-nums">{v.requirementCount}</Cell>
             <Cell className="tabular-nums">{v.updatedAt.slice(0, 10)}</Cell>
           </Row>
-        ))}
-      </DataTable>
-      <MoreRows query={list} noun="versions" />
-    </>
+        ))
+      }
+    </PagedTable>
   );
 }

@@ -1,6 +1,6 @@
 import { useInfiniteQuery } from "@tanstack/react-query";
 import { pagedQuery, rowsOf } from "../../lib/paged.ts";
-import { useDebouncedCallback } from "../../lib/use-debounced.ts";
+import { FilterField } from "../../components/ui/filter-field.tsx";
 import { MoreRows } from "../../components/ui/more-rows.tsx";
 import { useMutation } from "@tanstack/react-query";
 import { useFilterParams } from "../../lib/use-filter-params.ts";
@@ -24,7 +24,6 @@ export function ActivityPage() {
     ...pagedQuery<TrailEntryView>(["orgs", orgId, "trail", filters], `/api/orgs/${orgId}/trail`, filters),
     enabled: can(membership.role, "trail.organisation"),
   });
-  const setAction = useDebouncedCallback((v: string) => set("action", v));
   const verify = useMutation({ mutationFn: () => verifyChain(orgId) });
   if (!can(membership.role, "trail.organisation")) return <EmptyState title="Only an organisation admin sees the organisation's trail." />;
   return (
@@ -35,12 +34,7 @@ export function ActivityPage() {
       />
       <Card>
         <div className="mb-4 grid gap-3 md:grid-cols-4">
-          <TextField
-            label="Action starts with"
-            placeholder="deviation."
-            defaultValue={filters.action ?? ""}
-            onChange={(e) => setAction(e.target.value)}
-          />
+          <FilterField label="Action starts with" placeholder="deviation." value={filters.action} onFilter={(v) => set("action", v)} />
           <SelectField
             label="Entity"
             value={filters.entityType ?? ""}
