@@ -7,9 +7,8 @@ import type { QueryInterface } from "sequelize";
 import type { MigrationParams } from "umzug";
 import type { AnalysisStage, Container } from "../shared/lots/vocabulary.ts";
 import { useDemoServices } from "./support/demo-services.ts";
-import { party, plannedLot, reported } from "../tests/support/factories.ts";
+import { inDays, party, plannedLot, reported } from "../tests/support/factories.ts";
 
-const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 const TROIS_SENTES = {
   by: "elise.carbonnel@troissentes.test",
   contract: 1,

@@ -16,6 +16,9 @@ export interface SortKey {
 
 type KeyValue = string | number;
 
+/** A DATETIME sort key's cursor value: the stored UTC time as MariaDB writes it (the connection's time zone is +00:00). */
+export const sqlTime = (d: Date) => d.toISOString().replace("T", " ").replace("Z", "");
+
 export const encodeCursor = (values: KeyValue[]) => Buffer.from(JSON.stringify(values), "utf8").toString("base64url");
 
 export function decodeCursor(cursor: string, keys: SortKey[]): KeyValue[] {

@@ -7,7 +7,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, signInAs, type SignedInAgent, type TestApp } from "../support/api.ts";
-import { agreedContract, analysed, member, organisation, platformAdmin, plannedLot, type Party } from "../support/factories.ts";
+import { agreedContract, analysed, inDays, member, organisation, platformAdmin, plannedLot, type Party } from "../support/factories.ts";
 import type { LotSummary, ReadinessRow } from "../../shared/lots/views.ts";
 import type { DeviationSummaryView } from "../../shared/deviations/views.ts";
 import type { Page } from "../../shared/paging.ts";
@@ -20,7 +20,6 @@ let producer: Party;
 let agent: SignedInAgent;
 let contractId: number;
 const password = `pw-${randomUUID()}`;
-const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 const L = (p: string) => `/api/orgs/${buyer.orgId}${p}`;
 
 /** Every page of a list, following the cursors; fails if a page comes back other than 200. */

@@ -152,7 +152,8 @@ export async function agreedVersion(buyer: Party, producer: Party, contractId: n
   return { versionId, number: draft.number };
 }
 
-const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+/** The date n days from today (negative: before), as YYYY-MM-DD. */
+export const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
 /** A lot the producer plans to fill, in three weeks unless `plannedDate` says otherwise. */
 export async function plannedLot(producer: Party, contractId: number, opts: Partial<Omit<LotInput, "contractId">> = {}) {

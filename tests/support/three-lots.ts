@@ -4,7 +4,7 @@
  * Made with the factories, through the services.
  */
 import { CONTRACT, DEMO } from "./api.ts";
-import { analysed, decided, party, plannedLot } from "./factories.ts";
+import { analysed, decided, inDays, party, plannedLot } from "./factories.ts";
 
 export type ThreeLots = Record<
   "good" | "bad" | "conceded",
@@ -34,5 +34,3 @@ export async function setUpThreeLots(tag: string): Promise<ThreeLots> {
   });
   return { good, bad, conceded };
 }
-
-const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);

@@ -1,6 +1,6 @@
 /** Audit orders as the API shows them; payment details only to the buyer who paid. */
 import { Op, type WhereOptions } from "sequelize";
-import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
+import { afterCursor, orderBy, sqlTime, toPage, type SortKey } from "../../db/keyset.ts";
 import { AuditOrder } from "../../models/audit-order.ts";
 import { AuditOrderLot } from "../../models/audit-order-lot.ts";
 import { AuditPayment } from "../../models/audit-payment.ts";
@@ -79,7 +79,7 @@ export async function pageOrders(where: WhereOptions, limit: number, cursor: str
   return toPage(
     keys,
     limit,
-    (o) => [o.createdAt.toISOString().replace("T", " ").replace("Z", ""), o.id],
+    (o) => [sqlTime(o.createdAt), o.id],
     async (shown) => {
       const full = new Map(
         ((await AuditOrder.findAll({ where: { id: shown.map((o) => o.id) }, include: orderInclude })) as Loaded[]).map((o) => [o.id, o]),

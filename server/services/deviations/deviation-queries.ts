@@ -1,6 +1,6 @@
 /** Reading deviations: the list with filters, one deviation with its thread, and an attachment. */
 import { Op, type WhereOptions } from "sequelize";
-import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
+import { afterCursor, orderBy, sqlTime, toPage, type SortKey } from "../../db/keyset.ts";
 import type { Page } from "../../../shared/paging.ts";
 import type { DeviationListQuery } from "../../../shared/deviations/schemas.ts";
 import { Deviation } from "../../models/deviation.ts";
@@ -49,8 +49,6 @@ const NEWEST_FIRST: SortKey[] = [
   { attribute: "createdAt", sql: "`Deviation`.`created_at`", direction: "DESC" },
   { attribute: "id", sql: "`Deviation`.`id`", direction: "DESC" },
 ];
-/** The stored UTC time as MariaDB writes it (the connection's time zone is +00:00). */
-const sqlTime = (d: Date) => d.toISOString().replace("T", " ").replace("Z", "");
 
 /** Overdue: still open and past its respond-by date (as `isOverdue` says), written in SQL so the filter pages. */
 const overdueWhere = (overdue: boolean, now: Date): WhereOptions<Deviation> =>

@@ -43,7 +43,11 @@ export async function governingVersions(pairs: { contractId: number; vintage: nu
   const ids = [...new Set([...chosen.values()].filter((v) => v).map((v) => v!.id))];
   const rows = ids.length ? await SpecRequirement.findAll({ where: { specVersionId: ids }, order: [["position", "ASC"]] }) : [];
   const byVersion = new Map<number, RequirementView[]>();
-  for (const r of rows) byVersion.set(r.specVersionId, [...(byVersion.get(r.specVersionId) ?? []), requirementView(r)]);
+  for (const r of rows) {
+    const list = byVersion.get(r.specVersionId);
+    if (list) list.push(requirementView(r));
+    else byVersion.set(r.specVersionId, [requirementView(r)]);
+  }
   for (const [key, version] of chosen) found.set(key, version ? { version, requirements: byVersion.get(version.id) ?? [] } : null);
   return found;
 }

@@ -1,6 +1,7 @@
 /** Reading lots: lists, one lot in full, the readiness board and trends. */
 import { literal, Op, QueryTypes, where, type WhereOptions } from "sequelize";
 import { database } from "../../db/database.ts";
+import { jsonColumn } from "../../db/json-column.ts";
 import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
 import type { Page } from "../../../shared/paging.ts";
 import type { LotListQuery, ReadinessQuery, TrendQuery } from "../../../shared/lots/schemas.ts";
@@ -268,8 +269,9 @@ export async function lotAudits(lotId: number, side: "buyer" | "producer"): Prom
 
 // `due_on` is the planned date, or 9999-12-31 for an undated lot, so undated lots sort last (a stored column with an index).
 const UNDATED = "9999-12-31";
+const DUE_ON = "`Lot`.`due_on`";
 const DUE_ORDER: SortKey[] = [
-  { attribute: "dueOn", sql: "`Lot`.`due_on`", direction: "ASC" },
+  { attribute: "dueOn", sql: DUE_ON, direction: "ASC" },
   { attribute: "lotCode", direction: "ASC" },
   { attribute: "id", direction: "ASC" },
 ];
@@ -282,7 +284,7 @@ export async function readiness(orgId: number, f: ReadinessQuery): Promise<Page<
   const horizon = new Date(Date.now() + f.horizon * 86_400_000).toISOString().slice(0, 10);
   const filter: WhereOptions<Lot> = {
     contractId: [...byId.keys()],
-    [Op.or]: [where(literal("`Lot`.`due_on`"), { [Op.between]: [today, horizon] }), where(literal("`Lot`.`due_on`"), UNDATED)],
+    [Op.or]: [where(literal(DUE_ON), { [Op.between]: [today, horizon] }), where(literal(DUE_ON), UNDATED)],
   };
   const [lots, total] = await Promise.all([
     Lot.findAll({ where: { [Op.and]: [filter, afterCursor(DUE_ORDER, f.cursor)] }, order: orderBy(DUE_ORDER), limit: f.limit + 1 }),
@@ -308,14 +310,17 @@ async function readinessRows(lots: Lot[], byId: Map<number, ContractWithParties>
     ),
   ]);
   const measuredBy = new Map<number, string[]>();
-  for (const m of measuredRows) measuredBy.set(m.analysisId, [...(measuredBy.get(m.analysisId) ?? []), m.parameter]);
+  for (const m of measuredRows) {
+    const list = measuredBy.get(m.analysisId);
+    if (list) list.push(m.parameter);
+    else measuredBy.set(m.analysisId, [m.parameter]);
+  }
   const base = await summaries(lots, byId, inputsOf);
-  const analysesOf = new Map(ids.map((id) => [id, inputsOf(id).analyses]));
   const governing = await governingVersions(lots);
   const rows: ReadinessRow[] = [];
   for (const [i, lot] of lots.entries()) {
     const g = governing.get(`${lot.contractId}|${lot.vintage}`);
-    const mine = analysesOf.get(lot.id) ?? [];
+    const mine = inputsOf(lot.id).analyses;
     const stages = (g?.version.stages ?? []).map((stage: Stage) => {
       const atStage = mine.filter((a) => a.stage === stage || (stage === "pre_filling" && a.stage === "retest"));
       const measured = new Set(atStage.flatMap((a) => measuredBy.get(a.id) ?? []));
@@ -333,13 +338,13 @@ async function readinessRows(lots: Lot[], byId: Map<number, ContractWithParties>
   return rows;
 }
 
-/**
- * One parameter across the contract's lots and vintages, in the unit the governing spec row uses
- * (the parameter's canonical unit when no row names it), rounded to the parameter's precision.
- */
 /** A trend draws at most this many points (the latest); the answer says when there were more. */
 export const TREND_POINTS_MAX = 5000;
 
+/**
+ * One parameter across the contract's lots over its latest vintages, in the unit the governing spec
+ * row uses (the parameter's canonical unit when no row names it), rounded to the parameter's precision.
+ */
 export async function trend(orgId: number, contractId: number, q: TrendQuery): Promise<TrendData> {
   const { contract } = await contractFor(orgId, contractId);
   const parameterId = q.parameter;
@@ -386,7 +391,7 @@ export async function trend(orgId: number, contractId: number, q: TrendQuery): P
     .slice(0, TREND_POINTS_MAX)
     .reverse()
     .map((r) => {
-      const reading = typeof r.reading === "string" ? (JSON.parse(r.reading) as Reading) : r.reading;
+      const reading = jsonColumn<Reading>(r.reading);
       const value = reading.kind === "value" ? convert(reading.value, r.unit, unit) : null;
       const censored =
         reading.kind === "below" || reading.kind === "above"

@@ -3,10 +3,11 @@ import { Op, QueryTypes, type WhereOptions } from "sequelize";
 import type { Transaction } from "sequelize";
 import { diffSpecs, type Reading, type ReportedUncertainty, type UnitId } from "../../../shared/engine/index.ts";
 import type { PastResults, RequirementView, SpecListItem } from "../../../shared/specs/views.ts";
-import { afterCursor, orderBy, toPage, type SortKey } from "../../db/keyset.ts";
+import { afterCursor, orderBy, sqlTime, toPage, type SortKey } from "../../db/keyset.ts";
 import type { Page } from "../../../shared/paging.ts";
 import type { BacktestQuery } from "../../../shared/specs/schemas.ts";
 import { database } from "../../db/database.ts";
+import { jsonColumn } from "../../db/json-column.ts";
 import type { SpecStatus } from "../../../shared/specs/vocabulary.ts";
 import { Contract } from "../../models/contract.ts";
 import { SpecVersion } from "../../models/spec-version.ts";
@@ -76,7 +77,7 @@ export async function listSpecs(orgId: number, f: SpecListFilters & { limit: num
   return toPage(
     versions,
     f.limit,
-    (v) => [v.updatedAt.toISOString().replace("T", " ").replace("Z", ""), v.id],
+    (v) => [sqlTime(v.updatedAt), v.id],
     async (shown) => {
       const counts = await SpecRequirement.count({ where: { specVersionId: shown.map((v) => v.id) }, group: ["specVersionId"] });
       const countOf = new Map(counts.map((c) => [Number(c.specVersionId), Number(c.count)]));
@@ -215,7 +216,6 @@ export async function pastResults(orgId: number, contractId: number, q: Backtest
       LIMIT :cap`,
     { replacements: { lots: [...byId.keys()], parameters: q.parameters, cap: BACKTEST_ROWS_MAX + 1 }, type: QueryTypes.SELECT },
   );
-  const json = <T>(v: string | T): T => (typeof v === "string" ? (JSON.parse(v) as T) : v);
   return {
     lots: lots.length,
     truncated: results.length > BACKTEST_ROWS_MAX,
@@ -228,9 +228,9 @@ export async function pastResults(orgId: number, contractId: number, q: Backtest
         stage: r.stage,
         sampleDate: r.sampleDate,
         parameter: r.parameter,
-        reading: json<Reading>(r.reading),
+        reading: jsonColumn<Reading>(r.reading),
         unit: r.unit,
-        uncertainty: r.uncertainty === null ? null : json<ReportedUncertainty>(r.uncertainty),
+        uncertainty: r.uncertainty === null ? null : jsonColumn<ReportedUncertainty>(r.uncertainty),
       };
     }),
   };

@@ -3,7 +3,8 @@
  * Western Electric signals and capability, plus the full result list (virtualised) and a CSV export.
  */
 import { useQuery } from "@tanstack/react-query";
-import { Link, useParams, useSearchParams } from "react-router-dom";
+import { Link, useParams } from "react-router-dom";
+import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useRef } from "react";
 import { CartesianGrid, ComposedChart, Line, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis, Legend } from "recharts";
 import { useVirtualizer } from "@tanstack/react-virtual";
@@ -37,19 +38,10 @@ const fixed = (x: number | null | undefined, digits: number) =>
 export function TrendsPage() {
   const { orgId } = useOrganisation();
   const { contractId } = useParams();
-  const [params, setParams] = useSearchParams();
+  const [params, choose] = useFilterParams();
   const parameter = params.get("parameter") ?? "volatile_acidity";
   const asked = Number(params.get("vintages"));
   const vintages = asked >= 1 && asked <= TREND_VINTAGES_MAX ? asked : TREND_VINTAGES_DEFAULT;
-  const choose = (key: string, value: string) =>
-    setParams(
-      (current) => {
-        const next = new URLSearchParams(current);
-        next.set(key, value);
-        return next;
-      },
-      { replace: true },
-    );
   const contract = useQuery({ ...contractQuery(orgId, Number(contractId)) });
   const agreed = contract.data?.versions.find((v) => v.status === "agreed");
   const spec = useQuery({ ...specQuery(orgId, agreed?.id ?? 0), enabled: !!agreed });

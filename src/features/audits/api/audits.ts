@@ -1,21 +1,13 @@
 import { queryOptions, useMutation } from "@tanstack/react-query";
 import { useRefreshOrganisation } from "../../../lib/refresh.ts";
 import { PAGE_SIZE_MAX, type Page } from "../../../../shared/paging.ts";
-import { pagedQuery } from "../../../lib/paged.ts";
+import { pagedQuery, queryString } from "../../../lib/paged.ts";
 import { api } from "../../../lib/api-client.ts";
 import type { LabResultsInput, NewAuditOrder, PriceListInput } from "../../../../shared/audits/schemas.ts";
 import type { AuditOrderDetail, AuditOrderSummary, FinanceDashboard, LaboratoryOffer } from "../../../../shared/audits/views.ts";
 import type { LotSummary } from "../../../../shared/lots/views.ts";
 
 const base = (orgId: number) => `/api/orgs/${orgId}`;
-const query = (f: Record<string, string | undefined>) => {
-  const qs = new URLSearchParams(
-    Object.entries(f)
-      .filter(([, v]) => v)
-      .map(([k, v]) => [k, v!]),
-  );
-  return qs.size ? `?${qs}` : "";
-};
 
 export const auditKeys = {
   all: (orgId: number) => ["orgs", orgId, "audits"] as const,
@@ -34,7 +26,7 @@ export const orderQuery = (orgId: number, id: number) =>
 export const dashboardQuery = (orgId: number, f: Record<string, string | undefined>) =>
   queryOptions({
     queryKey: auditKeys.dashboard(orgId, f),
-    queryFn: () => api<FinanceDashboard>(`${base(orgId)}/audit-dashboard${query(f)}`),
+    queryFn: () => api<FinanceDashboard>(`${base(orgId)}/audit-dashboard${queryString(f)}`),
   });
 export const laboratoriesQuery = (orgId: number) =>
   queryOptions({ queryKey: auditKeys.laboratories(orgId), queryFn: () => api<LaboratoryOffer[]>(`${base(orgId)}/laboratories`) });
