@@ -96,6 +96,11 @@ describe.sequential("spec sheets from draft to agreed version, then a tightened 
     await vaRow.getByText("tightened").waitFor();
     await page.getByRole("button", { name: "Run backtest" }).click();
     await page.getByText("3 lots of the 2024 vintage would now fail Volatile acidity.").waitFor();
+    // The changes name the parameter as the catalogue does (regression: it printed the id, "volatile acidity").
+    await page
+      .getByRole("row", { name: /SR-24-3/ })
+      .getByRole("cell", { name: "Volatile acidity", exact: true })
+      .waitFor();
     expect(await page.getByRole("progressbar", { name: "Backtest progress" }).getAttribute("value")).toBe(
       await page.getByRole("progressbar", { name: "Backtest progress" }).getAttribute("max"),
     );

@@ -191,7 +191,7 @@ function BacktestCard({ orgId, version, againstId }: { orgId: number; version: S
                 <Row key={`${c.lotId}-${c.parameter}`}>
                   <Cell dense>{c.lotCode}</Cell>
                   <Cell dense>{c.vintage}</Cell>
-                  <Cell dense>{c.parameter.replace(/_/g, " ")}</Cell>
+                  <Cell dense>{findParameter(c.parameter)?.name ?? c.parameter}</Cell>
                   <Cell dense>{c.before}</Cell>
                   <Cell dense className="font-semibold">
                     {c.after}
