@@ -12,7 +12,8 @@ export async function idempotent<T>(
   organisationId: number,
   key: string,
   body: unknown,
-  work: (t: Transaction) => Promise<T>,
+  /** Given the request's digest too, so a trail entry for the same body need not hash it again. */
+  work: (t: Transaction, requestHash: string) => Promise<T>,
 ): Promise<{ replayed: boolean; response: T }> {
   const requestHash = sha256(canonicalJson(body));
   const replay = async () => {
@@ -25,7 +26,7 @@ export async function idempotent<T>(
   try {
     return await inTransaction(async (t) => {
       const claim = await IdempotencyKey.create({ organisationId, key, requestHash, response: {} }, { transaction: t });
-      const response = await work(t);
+      const response = await work(t, requestHash);
       await claim.update({ response }, { transaction: t });
       return { replayed: false, response };
     });

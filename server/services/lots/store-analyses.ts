@@ -3,8 +3,8 @@
  * failing results and for transit drift, all inside the caller's transaction (never half-written).
  */
 import { Op, type Transaction } from "sequelize";
-import { database } from "../../db/database.ts";
-import { insertInChunks } from "../../db/chunked-insert.ts";
+import { insertReturningIds, insertRows } from "../../db/bulk-insert.ts";
+import { sqlTime } from "../../db/keyset.ts";
 import { compareTransit, findParameter } from "../../../shared/engine/index.ts";
 import {
   judgeAnalysis,
@@ -38,8 +38,11 @@ export interface AnalysisHeader {
   numberFormat?: "point" | "comma" | null;
 }
 
+/** What storing needs of a lot: a model instance or a row just inserted. */
+export type StoredLot = Pick<Lot, "id" | "vintage" | "market" | "lotCode" | "container">;
+
 export interface SampleToStore {
-  lot: Lot;
+  lot: StoredLot;
   sampleDate: string;
   results: ResultEntry[];
 }
@@ -51,6 +54,32 @@ export interface StoredSummary {
   failing: { analysisId: number; lotCode: string; parameters: string[] }[];
   deviationIds: number[];
 }
+
+const ANALYSIS_COLUMNS = [
+  "lot_id",
+  "stage",
+  "laboratory_name",
+  "accreditation",
+  "sample_date",
+  "spec_version_id",
+  "submitted_by",
+  "audit_order_id",
+  "rejudged_from_id",
+  "number_format",
+  "created_at",
+  "updated_at",
+];
+const RESULT_COLUMNS = ["analysis_id", "parameter", "raw_text", "reading", "unit", "uncertainty", "method"];
+const EVALUATION_COLUMNS = [
+  "analysis_id",
+  "spec_version_id",
+  "engine_version",
+  "market_versions",
+  "worst_outcome",
+  "verdicts",
+  "profile",
+  "created_at",
+];
 
 export async function storeAnalyses(
   t: Transaction,
@@ -68,44 +97,47 @@ export async function storeAnalyses(
   // Each result is read once: the stored reading and the verdict come from the same parse.
   const read: ReadResult[][] = samples.map((s) => s.results.map((r) => readResult(r, header.numberFormat)));
 
-  const analyses = await Analysis.bulkCreate(
-    samples.map((s) => ({
-      lotId: s.lot.id,
-      stage: header.stage,
-      laboratoryName: header.laboratoryName,
-      accreditation: header.accreditation ?? null,
-      sampleDate: s.sampleDate,
-      specVersionId: governingCache.get(s.lot.vintage)?.version.id ?? null,
-      submittedBy: userId,
-      auditOrderId: header.auditOrderId ?? null,
-      rejudgedFromId: header.rejudgedFromId ?? null,
-      numberFormat: header.numberFormat ?? null,
-    })),
-    { transaction: t },
+  const now = sqlTime(new Date());
+  const analysisIds = await insertReturningIds(
+    t,
+    "analyses",
+    ANALYSIS_COLUMNS,
+    samples.map((s) => [
+      s.lot.id,
+      header.stage,
+      header.laboratoryName,
+      header.accreditation ?? null,
+      s.sampleDate,
+      governingCache.get(s.lot.vintage)?.version.id ?? null,
+      userId,
+      header.auditOrderId ?? null,
+      header.rejudgedFromId ?? null,
+      header.numberFormat ?? null,
+      now,
+      now,
+    ]),
   );
-  // Raw multi-row inserts: building a model instance per result costs more than the insert itself.
-  const qi = database().getQueryInterface();
-  await insertInChunks(
-    qi,
+  await insertRows(
     t,
     "analysis_results",
+    RESULT_COLUMNS,
     samples.flatMap((s, i) =>
-      s.results.map((r, j) => ({
-        analysis_id: analyses[i]!.id,
-        parameter: r.parameter,
-        raw_text: r.raw,
+      s.results.map((r, j) => [
+        analysisIds[i],
+        r.parameter,
+        r.raw,
         // The schema refuses unreadable text before this point; "not detected" is the safe reading if one slips through.
-        reading: JSON.stringify(read[i]![j]!.reading ?? { kind: "below", limit: null }),
-        unit: r.unit,
-        uncertainty: r.uncertainty ? JSON.stringify(r.uncertainty) : null,
-        method: r.method ?? null,
-      })),
+        JSON.stringify(read[i]![j]!.reading ?? { kind: "below", limit: null }),
+        r.unit,
+        r.uncertainty ? JSON.stringify(r.uncertainty) : null,
+        r.method ?? null,
+      ]),
     ),
   );
 
-  const summary: StoredSummary = { analysisIds: analyses.map((a) => a.id), samples: [], failing: [], deviationIds: [] };
+  const summary: StoredSummary = { analysisIds: analysisIds, samples: [], failing: [], deviationIds: [] };
   const judges = new Map<string, Judge>();
-  const judgeOf = (lot: Lot) => {
+  const judgeOf = (lot: StoredLot) => {
     const key = `${lot.vintage}|${lot.market}`;
     if (!judges.has(key))
       judges.set(key, judgeFor({ wine: contract.wine, lot, requirements: governingCache.get(lot.vintage)?.requirements ?? null }));
@@ -114,10 +146,10 @@ export async function storeAnalyses(
   const evaluations = samples.map((s, i) => {
     const g = governingCache.get(s.lot.vintage);
     const e = judgeAnalysis(judgeOf(s.lot), header.stage, read[i]!, { onlyReported: !!header.auditOrderId });
-    summary.samples.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, counts: e.counts });
-    if (e.failing.length) summary.failing.push({ analysisId: analyses[i]!.id, lotCode: s.lot.lotCode, parameters: e.failing });
+    summary.samples.push({ analysisId: analysisIds[i]!, lotCode: s.lot.lotCode, counts: e.counts });
+    if (e.failing.length) summary.failing.push({ analysisId: analysisIds[i]!, lotCode: s.lot.lotCode, parameters: e.failing });
     return {
-      analysisId: analyses[i]!.id,
+      analysisId: analysisIds[i]!,
       specVersionId: g?.version.id ?? null,
       engineVersion: e.engineVersion,
       marketVersions: e.marketVersions,
@@ -126,24 +158,23 @@ export async function storeAnalyses(
       profile: judgeOf(s.lot).profile,
     };
   });
-  const now = new Date();
-  await insertInChunks(
-    qi,
+  await insertRows(
     t,
     "analysis_evaluations",
-    evaluations.map((e) => ({
-      analysis_id: e.analysisId,
-      spec_version_id: e.specVersionId,
-      engine_version: e.engineVersion,
-      market_versions: JSON.stringify(e.marketVersions),
-      worst_outcome: e.worstOutcome,
-      verdicts: JSON.stringify(e.verdicts),
-      profile: JSON.stringify(e.profile),
-      created_at: now,
-    })),
+    EVALUATION_COLUMNS,
+    evaluations.map((e) => [
+      e.analysisId,
+      e.specVersionId,
+      e.engineVersion,
+      JSON.stringify(e.marketVersions),
+      e.worstOutcome,
+      JSON.stringify(e.verdicts),
+      JSON.stringify(e.profile),
+      now,
+    ]),
   );
 
-  const lotOf = new Map(samples.map((s, i) => [analyses[i]!.id, s.lot]));
+  const lotOf = new Map(samples.map((s, i) => [analysisIds[i]!, s.lot]));
   const deviations: NewDeviation[] = summary.failing.map((f) => ({
     lotId: lotOf.get(f.analysisId)!.id,
     analysisId: f.analysisId,
@@ -152,7 +183,7 @@ export async function storeAnalyses(
     summary: `Lot ${f.lotCode}: ${f.parameters.map((p) => findParameter(p)?.name ?? p).join(", ")} outside the agreed specification in the ${ANALYSIS_STAGE_LABELS[header.stage].toLowerCase()} analysis${header.auditOrderId ? ", by the independent laboratory" : ""}.`,
     auditOrderId: header.auditOrderId ?? null,
   }));
-  if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analyses, read)));
+  if (header.stage === "on_arrival") deviations.push(...(await transitDeviations(t, samples, analysisIds, read)));
   summary.deviationIds = await openDeviations(
     t,
     contract,
@@ -165,13 +196,13 @@ export async function storeAnalyses(
 async function transitDeviations(
   t: Transaction,
   samples: SampleToStore[],
-  analyses: Analysis[],
+  analysisIds: number[],
   read: ReadResult[][],
 ): Promise<NewDeviation[]> {
-  const bulk = samples.map((s, i) => ({ s, analysis: analyses[i]!, arrival: read[i]! })).filter((x) => isBulk(x.s.lot.container));
+  const bulk = samples.map((s, i) => ({ s, analysisId: analysisIds[i]!, arrival: read[i]! })).filter((x) => isBulk(x.s.lot.container));
   if (!bulk.length) return [];
   const before = await Analysis.findAll({
-    where: { lotId: bulk.map((b) => b.s.lot.id), stage: "pre_shipment", id: { [Op.notIn]: analyses.map((a) => a.id) } },
+    where: { lotId: bulk.map((b) => b.s.lot.id), stage: "pre_shipment", id: { [Op.notIn]: analysisIds } },
     include: [{ model: AnalysisResult, as: "results" }],
     order: [
       ["sampleDate", "DESC"],
@@ -179,15 +210,18 @@ async function transitDeviations(
     ],
     transaction: t,
   });
+  // Newest first, so the first analysis kept per lot is its latest before shipment.
+  const latestBefore = new Map<number, Analysis & { results: AnalysisResult[] }>();
+  for (const a of before) if (!latestBefore.has(a.lotId)) latestBefore.set(a.lotId, a as Analysis & { results: AnalysisResult[] });
   const found: NewDeviation[] = [];
-  for (const { s, analysis, arrival } of bulk) {
-    const pre = before.find((a) => a.lotId === s.lot.id) as (Analysis & { results: AnalysisResult[] }) | undefined;
+  for (const { s, analysisId, arrival } of bulk) {
+    const pre = latestBefore.get(s.lot.id);
     if (!pre) continue;
     const exceeded = compareTransit(transitValues(pre.results), transitValues(arrival)).filter((f) => f.exceeded);
     if (exceeded.length) {
       found.push({
         lotId: s.lot.id,
-        analysisId: analysis.id,
+        analysisId,
         kind: "transit" as const,
         parameters: exceeded.map((f) => f.parameter),
         summary: `Lot ${s.lot.lotCode} changed in transit: ${exceeded.map((f) => f.message).join(" ")}`,

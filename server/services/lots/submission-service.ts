@@ -8,7 +8,9 @@ import type { AnalysisSubmission, ImportBatch, LotInput, LotUpdate } from "../..
 import { contractFor, type ContractWithParties } from "../specs/spec-access.ts";
 import type { MarketId } from "../../../shared/engine/index.ts";
 import { lotFor } from "./lot-access.ts";
-import { storeAnalyses } from "./store-analyses.ts";
+import { storeAnalyses, type StoredLot } from "./store-analyses.ts";
+import { insertRows } from "../../db/bulk-insert.ts";
+import { sqlTime } from "../../db/keyset.ts";
 import type { SessionUser } from "../session-service.ts";
 
 /** A lot goes only to a market its contract names: the spec and the law were agreed for those. */
@@ -121,14 +123,27 @@ export async function submitAnalysis(orgId: number, lotId: number, user: Session
 /** A batch from the CSV import: unknown lot codes become lots when the row gives a vintage. */
 export async function importAnalyses(orgId: number, contractId: number, user: SessionUser, batch: ImportBatch) {
   const { idempotencyKey, samples, market, ...header } = batch;
-  return idempotent(orgId, idempotencyKey, { contractId, ...batch, idempotencyKey: undefined }, async (t) => {
+  const body = { contractId, ...batch, idempotencyKey: undefined };
+  // A batch is thousands of results: it is hashed once, for the retry check and the trail alike.
+  return idempotent(orgId, idempotencyKey, body, async (t, bodyDigest) => {
     const { contract, side } = await contractFor(orgId, contractId, t);
     if (side !== "producer") throw notFound("The contract");
     if (market) assertContractMarket(contract, market);
-    const codes = [...new Set(samples.map((s) => s.lotCode))];
-    const existing = new Map((await Lot.findAll({ where: { contractId, lotCode: codes }, transaction: t })).map((l) => [l.lotCode, l]));
+    const vintageOf = new Map<string, number | undefined>();
+    for (const s of samples) if (!vintageOf.get(s.lotCode)) vintageOf.set(s.lotCode, s.vintage ?? undefined);
+    const codes = [...vintageOf.keys()];
+    const existing = new Map<string, StoredLot>(
+      (
+        await Lot.findAll({
+          attributes: ["id", "vintage", "market", "lotCode", "container"],
+          where: { contractId, lotCode: codes },
+          raw: true,
+          transaction: t,
+        })
+      ).map((l) => [l.lotCode, l]),
+    );
     const missing = codes.filter((c) => !existing.has(c));
-    const unknown = missing.filter((c) => !samples.some((s) => s.lotCode === c && s.vintage));
+    const unknown = missing.filter((c) => !vintageOf.get(c));
     if (unknown.length) {
       throw validationFailed(
         unknown
@@ -137,18 +152,22 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
       );
     }
     if (missing.length) {
-      const created = await Lot.bulkCreate(
-        missing.map((code) => ({
-          contractId,
-          lotCode: code,
-          vintage: samples.find((s) => s.lotCode === code && s.vintage)!.vintage!,
-          volumeLitres: "0",
-          container: "bottles" as const,
-          plannedDate: null,
-          market: market ?? contract.wine.markets[0]!,
-        })),
-        { transaction: t },
+      const lotMarket = market ?? contract.wine.markets[0]!;
+      const now = sqlTime(new Date());
+      // Created as the import finds them: no volume or date yet, bottles until the producer says otherwise.
+      await insertRows(
+        t,
+        "lots",
+        ["contract_id", "lot_code", "vintage", "volume_litres", "container", "planned_date", "market", "created_at", "updated_at"],
+        missing.map((code) => [contractId, code, vintageOf.get(code)!, "0", "bottles", null, lotMarket, now, now]),
       );
+      // Read back by the unique (contract, lot code) key: the ids are whatever the server gave.
+      const created = await Lot.findAll({
+        attributes: ["id", "vintage", "market", "lotCode", "container"],
+        where: { contractId, lotCode: missing },
+        raw: true,
+        transaction: t,
+      });
       for (const l of created) existing.set(l.lotCode, l);
     }
     for (const s of samples) {
@@ -168,7 +187,7 @@ export async function importAnalyses(orgId: number, contractId: number, user: Se
       action: "analysis.imported",
       entityType: "contract",
       entityId: contractId,
-      after: batch,
+      afterDigest: bodyDigest,
       details: {
         stage: header.stage,
         analyses: stored.analysisIds.length,

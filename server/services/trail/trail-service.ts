@@ -24,6 +24,8 @@ export interface TrailInput {
   entityId: string | number | null;
   before?: unknown;
   after?: unknown;
+  /** The digest of `after` when the caller already took it (sha256 of its canonical JSON), instead of `after`. */
+  afterDigest?: string;
   details?: Record<string, unknown>;
 }
 
@@ -86,7 +88,7 @@ export async function recordTrails(t: Transaction, inputs: TrailInput[]): Promis
       entityType: input.entityType,
       entityId: input.entityId === null ? null : String(input.entityId),
       beforeDigest: digest(input.before),
-      afterDigest: digest(input.after),
+      afterDigest: input.afterDigest ?? digest(input.after),
       details: input.details ?? null,
       prevHash: lastHash,
     };

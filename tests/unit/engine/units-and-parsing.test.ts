@@ -173,6 +173,22 @@ describe("lab notation as laboratories write it (common practice in lab reports)
     );
   });
 
+  it("when a plain number is read by the quick path, then the answer is the one the full rules give (fast-check)", () => {
+    // A leading space skips the quick path, so both readings of the same text can be compared.
+    fc.assert(
+      fc.property(
+        fc.stringMatching(/^[0-9]{1,6}([.,][0-9]{0,6})?$/),
+        fc.constantFrom<"point" | "comma" | undefined>("point", "comma", undefined),
+        fc.boolean(),
+        (text, numberFormat, presence) => {
+          const opts = { ...(numberFormat ? { numberFormat } : {}), presence, unit: "g/L" };
+          expect(parseReading(text, opts)).toEqual(parseReading(` ${text}`, opts));
+        },
+      ),
+      { numRuns: 3000 },
+    );
+  });
+
   it("when a number is written in either format and read with that format, then it is the number written (fast-check)", () => {
     fc.assert(
       fc.property(

@@ -3,7 +3,7 @@
  * "max_allowed_packet": default 16 MiB since 10.2.4), so rows are grouped by their SQL's size.
  */
 import { describe, expect, it } from "vitest";
-import { chunkByBytes, sqlBytesOf } from "../../server/db/chunked-insert.ts";
+import { chunkByBytes, sqlBytesOf } from "../../server/db/bulk-insert.ts";
 
 const row = (i: number, size: number) => ({ id: i, verdicts: "v".repeat(size) });
 
