@@ -5,6 +5,7 @@ import compression from "compression";
 import cookieParser from "cookie-parser";
 import { pinoHttp } from "pino-http";
 import { requestBudget } from "./http/request-budget.ts";
+import { memoryBudget } from "./http/memory-budget.ts";
 import type { Logger } from "pino";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
@@ -76,6 +77,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   app.use(/^\/api\/orgs\/\d+\/contracts\/\d+\/imports$/, express.json({ limit: IMPORT_BODY_LIMIT }));
   app.use("/api", express.json({ limit: BODY_LIMIT }));
   app.use("/api", requestBudget(config.REQUEST_BUDGET_MS));
+  app.use("/api", memoryBudget({ heapFraction: config.HEAP_BUDGET_FRACTION, answerBytes: config.ANSWER_BUDGET_BYTES }));
   app.use("/api", sessionMiddleware(cookies));
   app.use("/api/auth/sign-in", ...signInLimiters(limits));
   app.use("/api/auth/password-reset/request", mailLimiter(limits));

@@ -40,6 +40,14 @@ const schema = z
     CLIENT_DIR: z.string().optional(),
     // The longest an API request may take before it is answered 503 (see server/http/request-budget.ts).
     REQUEST_BUDGET_MS: z.coerce.number().int().min(1).max(600_000).default(30_000),
+    // New requests are refused 503 while the heap is above this share of its limit, and no JSON answer may pass
+    // ANSWER_BUDGET_BYTES (see server/http/memory-budget.ts).
+    HEAP_BUDGET_FRACTION: z.coerce.number().gt(0).max(1).default(0.85),
+    ANSWER_BUDGET_BYTES: z.coerce
+      .number()
+      .int()
+      .min(1024)
+      .default(32 * 1024 * 1024),
     // Outside the web root: certificates are only ever served by the download route.
     CERTIFICATE_DIR: z.string().default(".data/certificates"),
     CERTIFICATE_MAX_BYTES: z.coerce

@@ -3,7 +3,7 @@ import type { ErrorRequestHandler, RequestHandler } from "express";
 import { ZodError } from "zod";
 import { MulterError } from "multer";
 import { AppError, tooLarge, unsupportedMedia, validationFailed } from "../errors.ts";
-import { statusOf } from "./problem.ts";
+import { sendProblem, statusOf } from "./problem.ts";
 import { zodFieldErrors } from "./validate.ts";
 
 interface BodyParserError {
@@ -33,32 +33,18 @@ export function errorHandler(production: boolean): ErrorRequestHandler {
     const known = toAppError(err);
     const status = known ? statusOf(known) : 500;
     if (!known) req.log?.error({ err }, "unhandled error");
-    const body: Record<string, unknown> = {
-      type: "about:blank",
-      title: known?.title ?? "Internal server error",
+    const extra: Record<string, unknown> = {};
+    if (known?.errors) extra.errors = known.errors;
+    if (!known && !production && err instanceof Error) extra.stack = err.stack;
+    sendProblem(req, res, {
       status,
+      title: known?.title ?? "Internal server error",
       detail: known?.detail ?? "Something went wrong on our side. The request id identifies it in the server log.",
-      instance: req.originalUrl,
-      requestId: req.id,
-    };
-    if (known?.errors) body.errors = known.errors;
-    if (!known && !production && err instanceof Error) body.stack = err.stack;
-    res.status(status).type("application/problem+json").send(JSON.stringify(body));
+      extra,
+    });
   };
 }
 
 export const notFoundHandler: RequestHandler = (req, res) => {
-  res
-    .status(404)
-    .type("application/problem+json")
-    .send(
-      JSON.stringify({
-        type: "about:blank",
-        title: "Not found",
-        status: 404,
-        detail: `No API route matches ${req.method} ${req.path}.`,
-        instance: req.originalUrl,
-        requestId: req.id,
-      }),
-    );
+  sendProblem(req, res, { status: 404, title: "Not found", detail: `No API route matches ${req.method} ${req.path}.` });
 };

@@ -1,4 +1,5 @@
 /** How each kind of error reads over HTTP: its status code in an RFC 9457 problem document. */
+import type { Request, Response } from "express";
 import type { AppError, ErrorKind } from "../errors.ts";
 
 export const STATUS_OF: Record<ErrorKind, number> = {
@@ -17,3 +18,22 @@ export const STATUS_OF: Record<ErrorKind, number> = {
 };
 
 export const statusOf = (err: AppError) => STATUS_OF[err.kind];
+
+/** Writes one problem document; every error answer of the API goes through here. */
+export function sendProblem(
+  req: Request,
+  res: Response,
+  problem: { status: number; title: string; detail: string; retryAfterSeconds?: number; extra?: Record<string, unknown> },
+) {
+  if (problem.retryAfterSeconds) res.set("Retry-After", String(problem.retryAfterSeconds));
+  const body = {
+    type: "about:blank",
+    title: problem.title,
+    status: problem.status,
+    detail: problem.detail,
+    instance: req.originalUrl,
+    requestId: req.id,
+    ...problem.extra,
+  };
+  return res.status(problem.status).type("application/problem+json").send(JSON.stringify(body));
+}

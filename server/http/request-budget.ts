@@ -5,26 +5,19 @@
  * so no single request can hold an unbounded amount of data in memory.
  */
 import type { RequestHandler } from "express";
+import { sendProblem } from "./problem.ts";
 
 export function requestBudget(ms: number): RequestHandler {
   return (req, res, next) => {
     const timer = setTimeout(() => {
       if (res.headersSent) return;
       req.log?.warn({ ms }, "request over its time budget");
-      res
-        .status(503)
-        .set("Retry-After", "30")
-        .type("application/problem+json")
-        .send(
-          JSON.stringify({
-            type: "about:blank",
-            title: "Took too long",
-            status: 503,
-            detail: `This request took longer than the ${Math.round(ms / 1000)} s the server allows. Narrow it (a shorter period, fewer lots) or try again later.`,
-            instance: req.originalUrl,
-            requestId: req.id,
-          }),
-        );
+      sendProblem(req, res, {
+        status: 503,
+        title: "Took too long",
+        detail: `This request took longer than the ${Math.round(ms / 1000)} s the server allows. Narrow it (a shorter period, fewer lots) or try again later.`,
+        retryAfterSeconds: 30,
+      });
     }, ms);
     const done = () => clearTimeout(timer);
     res.once("finish", done);
