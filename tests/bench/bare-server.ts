@@ -1,5 +1,5 @@
 /**
- * The bench's floor: a bare Express 5 + mariadb server answering the lots and deviations pages with
+ * The bench's floor: a bare Express 5 + mariadb server answering the lots, deviations and specs pages with
  * the same JSON as Cellarpact, from hand-written SQL and the same pure status code in shared/. No
  * session, no ORM, no validation layer: what the answer costs at the least.
  */
@@ -178,6 +178,88 @@ export async function startBareServer(config: Config) {
     res.json({
       items,
       nextCursor: rows.length > limit ? Buffer.from(JSON.stringify([last!.created_at, last!.id])).toString("base64url") : null,
+      total: n,
+    });
+  });
+
+  app.get("/api/orgs/:orgId/specs", async (req, res) => {
+    const limit = Number(req.query.limit ?? 50);
+    const orgId = Number(req.params.orgId);
+    const contracts: Record<string, unknown>[] = await pool.query(
+      `SELECT c.id, c.reference, c.starts_on, c.ends_on, c.retailer_org_id, r.name AS retailer_name, c.producer_org_id, p.name AS producer_name,
+              w.id AS wine_id, w.name AS wine_name, w.colour, w.category, w.region, w.markets, w.nominal_sugar_g_per_l,
+              w.nominal_alcohol_percent_vol, w.law_facts
+         FROM contracts c JOIN wines w ON w.id = c.wine_id JOIN organisations r ON r.id = c.retailer_org_id
+         JOIN organisations p ON p.id = c.producer_org_id
+        WHERE c.retailer_org_id = ? OR c.producer_org_id = ?`,
+      [orgId, orgId],
+    );
+    const byId = new Map(contracts.map((c) => [c.id as number, c]));
+    const asBuyer = contracts.filter((c) => c.retailer_org_id === orgId).map((c) => c.id);
+    const asProducer = contracts.filter((c) => c.retailer_org_id !== orgId).map((c) => c.id);
+    const visible = `(contract_id IN (?) OR (contract_id IN (?) AND status <> 'draft'))`;
+    const [versions, [{ n }]] = await Promise.all([
+      pool.query(
+        `SELECT id, contract_id, number, status, title, vintage_from, vintage_to, stages, lock_version, based_on_version_id, sent_at, decided_at,
+                updated_at
+           FROM spec_versions WHERE ${visible} ORDER BY updated_at DESC, id DESC LIMIT ?`,
+        [asBuyer.length ? asBuyer : [0], asProducer.length ? asProducer : [0], limit + 1],
+      ),
+      pool.query(`SELECT COUNT(*) AS n FROM spec_versions WHERE ${visible}`, [
+        asBuyer.length ? asBuyer : [0],
+        asProducer.length ? asProducer : [0],
+      ]),
+    ]);
+    const page = (versions as Record<string, unknown>[]).slice(0, limit);
+    const counts: { id: number; n: number }[] = page.length
+      ? await pool.query(
+          "SELECT spec_version_id AS id, COUNT(*) AS n FROM spec_requirements WHERE spec_version_id IN (?) GROUP BY spec_version_id",
+          [page.map((v) => v.id)],
+        )
+      : [];
+    const countOf = new Map(counts.map((c) => [c.id, c.n]));
+    const iso = (v: unknown) => (v === null ? null : `${String(v).replace(" ", "T")}Z`);
+    const items = page.map((v) => {
+      const c = byId.get(v.contract_id as number)!;
+      return {
+        id: v.id,
+        number: v.number,
+        status: v.status,
+        title: v.title,
+        vintageFrom: v.vintage_from,
+        vintageTo: v.vintage_to,
+        stages: json(v.stages),
+        lockVersion: v.lock_version,
+        basedOnVersionId: v.based_on_version_id,
+        sentAt: iso(v.sent_at),
+        decidedAt: iso(v.decided_at),
+        updatedAt: iso(v.updated_at),
+        requirementCount: countOf.get(v.id as number) ?? 0,
+        contract: {
+          id: c.id,
+          reference: c.reference,
+          startsOn: c.starts_on,
+          endsOn: c.ends_on,
+          retailer: { id: c.retailer_org_id, name: c.retailer_name },
+          producer: { id: c.producer_org_id, name: c.producer_name },
+          wine: {
+            id: c.wine_id,
+            name: c.wine_name,
+            colour: c.colour,
+            category: c.category,
+            region: c.region,
+            markets: json(c.markets),
+            nominalSugarGPerL: c.nominal_sugar_g_per_l,
+            nominalAlcoholPercentVol: c.nominal_alcohol_percent_vol,
+            lawFacts: json(c.law_facts) ?? null,
+          },
+        },
+      };
+    });
+    const last = page.at(-1);
+    res.json({
+      items,
+      nextCursor: versions.length > limit ? Buffer.from(JSON.stringify([last!.updated_at, last!.id])).toString("base64url") : null,
       total: n,
     });
   });

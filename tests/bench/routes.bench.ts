@@ -49,7 +49,7 @@ const ROUTES: Route[] = [
   { name: "lot", path: (c) => `/api/orgs/${c.orgId}/lots/${c.lotId}` },
   { name: "readiness", path: (c) => `/api/orgs/${c.orgId}/readiness?limit=50` },
   { name: "deviations", path: (c) => `/api/orgs/${c.orgId}/deviations?limit=50`, bare: true },
-  { name: "specs", path: (c) => `/api/orgs/${c.orgId}/specs` },
+  { name: "specs", path: (c) => `/api/orgs/${c.orgId}/specs?limit=50`, bare: true },
 ];
 
 async function signIn() {
@@ -87,13 +87,21 @@ async function measure() {
     type: "SELECT" as never,
   })) as unknown as [{ id: number }];
   const ctx = { orgId: session.orgId, lotId };
-  const out: Record<string, { p50: number; statements: number; bare?: number }> = {};
+  const out: Record<string, { p50: number; statements: number; bare?: number; same?: boolean }> = {};
   for (const r of ROUTES) {
     statements = 0;
     await fetch(`${base}${r.path(ctx)}`, { headers }).then((x) => x.arrayBuffer());
     const perRequest = statements;
     out[r.name] = { p50: await p50(`${base}${r.path(ctx)}`, headers), statements: perRequest };
-    if (r.bare) out[r.name]!.bare = await p50(`${bare.url}${r.path(ctx)}`, {});
+    if (r.bare) {
+      out[r.name]!.bare = await p50(`${bare.url}${r.path(ctx)}`, {});
+      // The twin is a floor only if it answers the same: the same rows, in the same order, the same total.
+      const [mine, twin] = await Promise.all([
+        fetch(`${base}${r.path(ctx)}`, { headers }).then((x) => x.json()),
+        fetch(`${bare.url}${r.path(ctx)}`).then((x) => x.json()),
+      ]);
+      out[r.name]!.same = JSON.stringify(mine) === JSON.stringify(twin);
+    }
   }
   return { out, ctx, headers };
 }
@@ -119,14 +127,16 @@ for (const r of ROUTES) await fetch(`${base}${r.path(large.ctx)}`, { headers: la
 loop.disable();
 
 console.log(`Hot routes: small ${smallSize}; large ${largeSize}; p50 of ${RUNS} requests each`);
-console.log("  route        p50 small   p50 large   large/small   statements small/large   bare p50 large   bare/Cellarpact");
+console.log("  route        p50 small   p50 large   large/small   statements small/large   bare p50 large   bare/Cellarpact   same JSON");
 for (const r of ROUTES) {
   const s = small.out[r.name]!;
   const l = large.out[r.name]!;
   console.log(
     `  ${r.name.padEnd(11)} ${s.p50.toFixed(1).padStart(8)} ms ${l.p50.toFixed(1).padStart(8)} ms ${(l.p50 / s.p50).toFixed(2).padStart(10)}×` +
       `   ${String(s.statements).padStart(8)} / ${String(l.statements).padEnd(12)}` +
-      (l.bare ? `   ${l.bare.toFixed(1).padStart(8)} ms   ${(l.bare / l.p50).toFixed(2).padStart(8)} (goal ≥ 0.5)` : "   (no bare twin)"),
+      (l.bare
+        ? `   ${l.bare.toFixed(1).padStart(8)} ms   ${(l.bare / l.p50).toFixed(2).padStart(8)} (goal ≥ 0.5)   ${s.same && l.same ? "yes" : "NO"}`
+        : "   (no bare twin)"),
   );
 }
 console.log(

@@ -10,9 +10,9 @@ import { DeviationMessageEdit } from "../../models/deviation-message-edit.ts";
 import { Lot } from "../../models/lot.ts";
 import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
 import { User } from "../../models/user.ts";
-import { Contract } from "../../models/contract.ts";
 import { notFound } from "../../errors.ts";
-import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
+import type { ContractWithParties } from "../specs/spec-access.ts";
+import { partyContracts } from "../specs/party-contracts.ts";
 import { AuditOrder } from "../../models/audit-order.ts";
 import { readStoredFile } from "../../integrations/storage/stored-files.ts";
 import type { DeviationDetail, DeviationSummaryView, MessageView } from "../../../shared/deviations/views.ts";
@@ -61,13 +61,10 @@ export async function listDeviations(orgId: number, f: DeviationListQuery, kind:
   // Only a laboratory reads deviations through its audits; the others skip that lookup.
   const labOrders =
     kind === "laboratory" ? await AuditOrder.findAll({ where: { laboratoryOrgId: orgId }, attributes: ["id", "contractId"] }) : [];
-  const contracts = (await Contract.findAll({
-    where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }, { id: labOrders.map((o) => o.contractId) }] },
-    include: contractInclude,
-    // Plain rows: the list only reads the contracts' names.
-    raw: true,
-    nest: true,
-  })) as unknown as ContractWithParties[];
+  const contracts = await partyContracts(
+    orgId,
+    labOrders.map((o) => o.contractId),
+  );
   const byId = new Map(contracts.map((c) => [c.id, c]));
   const own = contracts.filter((c) => c.retailerOrgId === orgId || c.producerOrgId === orgId).map((c) => c.id);
   const ids = f.contract ? [f.contract].filter((id) => own.includes(id)) : own;
@@ -85,7 +82,21 @@ export async function listDeviations(orgId: number, f: DeviationListQuery, kind:
   const [rows, total] = await Promise.all([
     Deviation.findAll({
       where: { [Op.and]: [filter, afterCursor(NEWEST_FIRST, f.cursor)] },
-      include: [{ model: Lot, as: "lot" }],
+      // Only what a summary shows: a thread's text and a decision's reasons stay in the table.
+      attributes: [
+        "id",
+        "kind",
+        "status",
+        "parameters",
+        "summary",
+        "lotId",
+        "contractId",
+        "respondBy",
+        "decision",
+        "createdAt",
+        "updatedAt",
+      ],
+      include: [{ model: Lot, as: "lot", attributes: ["id", "lotCode", "vintage"] }],
       order: orderBy(NEWEST_FIRST),
       limit: f.limit + 1,
       // Plain rows: a page of model instances costs more than the query.

@@ -22,7 +22,6 @@ import {
 import { isBulk, type AnalysisStage } from "../../../shared/lots/vocabulary.ts";
 import type { AnalysisView, LotAuditView, LotDetail, LotSummary, ReadinessRow, TrendData } from "../../../shared/lots/views.ts";
 import type { Stage } from "../../../shared/specs/vocabulary.ts";
-import { Contract } from "../../models/contract.ts";
 import { Analysis } from "../../models/analysis.ts";
 import { AnalysisResult } from "../../models/analysis-result.ts";
 import { Lot } from "../../models/lot.ts";
@@ -30,7 +29,8 @@ import { AnalysisEvaluation } from "../../models/analysis-evaluation.ts";
 import { Certificate } from "../../models/certificate.ts";
 import { Deviation } from "../../models/deviation.ts";
 import { SpecVersion } from "../../models/spec-version.ts";
-import { contractFor, contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
+import { contractFor, type ContractWithParties } from "../specs/spec-access.ts";
+import { partyContracts } from "../specs/party-contracts.ts";
 import { contractView, versionSummary } from "../specs/spec-view.ts";
 import { lotFor } from "./lot-access.ts";
 import { AuditOrder } from "../../models/audit-order.ts";
@@ -47,16 +47,6 @@ import type { Role } from "../../../shared/auth/roles.ts";
 const parameterName = (p: string) => findParameter(p)?.name ?? p;
 
 type LoadedAnalysis = Analysis & { results: AnalysisResult[]; evaluation: AnalysisEvaluation | null; certificates: Certificate[] };
-
-/** The organisation's contracts with wine and parties, as plain rows: lists only read their names. */
-async function partyContracts(orgId: number) {
-  return (await Contract.findAll({
-    where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] },
-    include: contractInclude,
-    raw: true,
-    nest: true,
-  })) as unknown as ContractWithParties[];
-}
 
 /** What a lot's status rests on, for many lots at once: their analyses (oldest first) and deviations. */
 async function statusInputs(ids: number[]) {

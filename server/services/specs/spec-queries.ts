@@ -9,14 +9,15 @@ import type { BacktestQuery } from "../../../shared/specs/schemas.ts";
 import { database } from "../../db/database.ts";
 import { jsonColumn } from "../../db/json-column.ts";
 import type { SpecStatus } from "../../../shared/specs/vocabulary.ts";
-import { Contract } from "../../models/contract.ts";
+import { type Contract } from "../../models/contract.ts";
 import { SpecVersion } from "../../models/spec-version.ts";
 import { SpecRequirement } from "../../models/spec-requirement.ts";
 import { SpecComment } from "../../models/spec-comment.ts";
 import { User } from "../../models/user.ts";
 import { Organisation } from "../../models/organisation.ts";
 import { Lot } from "../../models/lot.ts";
-import { contractFor, contractInclude, versionFor, sideOf, type ContractWithParties } from "./spec-access.ts";
+import { contractFor, versionFor, sideOf } from "./spec-access.ts";
+import { partyContracts } from "./party-contracts.ts";
 import { actionsFor, contractView, requirementView, versionSummary } from "./spec-view.ts";
 import { badRequest } from "../../errors.ts";
 import { can } from "../../../shared/auth/permissions.ts";
@@ -42,13 +43,7 @@ const NEWEST_FIRST: SortKey[] = [
  * on the versions, and a producer never sees a draft.
  */
 export async function listSpecs(orgId: number, f: SpecListFilters & { limit: number; cursor?: string }): Promise<Page<SpecListItem>> {
-  const contractWhere: WhereOptions = { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] };
-  const contracts = (await Contract.findAll({
-    where: contractWhere,
-    include: contractInclude,
-    raw: true,
-    nest: true,
-  })) as unknown as ContractWithParties[];
+  const contracts = await partyContracts(orgId);
   const visible = contracts.filter(
     (c) =>
       (!f.wine || c.wineId === f.wine) &&
@@ -71,6 +66,8 @@ export async function listSpecs(orgId: number, f: SpecListFilters & { limit: num
       where: { [Op.and]: [where, afterCursor(NEWEST_FIRST, f.cursor)] },
       order: orderBy(NEWEST_FIRST),
       limit: f.limit + 1,
+      // Plain rows: the list only reads them into summaries.
+      raw: true,
     }),
     SpecVersion.count({ where }),
   ]);
@@ -93,11 +90,7 @@ export async function listSpecs(orgId: number, f: SpecListFilters & { limit: num
 
 /** Contracts of the organisation, with the versions it may see. */
 export async function listContracts(orgId: number) {
-  const contracts = (await Contract.findAll({
-    where: { [Op.or]: [{ retailerOrgId: orgId }, { producerOrgId: orgId }] },
-    include: contractInclude,
-    order: [["reference", "ASC"]],
-  })) as ContractWithParties[];
+  const contracts = await partyContracts(orgId);
   const versions = await SpecVersion.findAll({ where: { contractId: contracts.map((c) => c.id) }, order: [["number", "DESC"]] });
   return contracts.map((c) => ({
     ...contractView(c),
