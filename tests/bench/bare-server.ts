@@ -1,5 +1,5 @@
 /**
- * The bench's floor: a bare Express 5 + mariadb server answering the lots, deviations and specs pages with
+ * The bench's floor: a bare Express 5 + mariadb server answering the lots, readiness, deviations and specs pages with
  * the same JSON as Cellarpact, from hand-written SQL and the same pure status code in shared/. No
  * session, no ORM, no validation layer: what the answer costs at the least.
  */
@@ -9,6 +9,9 @@ import type { AddressInfo } from "node:net";
 import type { Config } from "../../server/config.ts";
 import { findParameter } from "../../shared/engine/index.ts";
 import { lotStatus, type StatusAnalysis, type StatusDeviation } from "../../shared/lots/lot-status.ts";
+import { isFailing } from "../../shared/lots/judge.ts";
+import { READINESS_HORIZON_DEFAULT } from "../../shared/lots/schemas.ts";
+import type { Outcome } from "../../shared/engine/index.ts";
 
 interface LotRow {
   id: number;
@@ -64,20 +67,9 @@ export async function startBareServer(config: Config) {
     return new Map(rows.map((c) => [c.id, c]));
   };
 
-  app.get("/api/orgs/:orgId/lots", async (req, res) => {
-    const limit = Number(req.query.limit ?? 50);
-    const contracts = await contractsOf(Number(req.params.orgId));
-    const ids = [...contracts.keys()];
-    const [lots, [{ n }]] = await Promise.all([
-      pool.query(
-        `SELECT id, contract_id, vintage, lot_code, volume_litres, container, planned_date, market, labelled_alcohol_percent_vol
-           FROM lots WHERE contract_id IN (?) ORDER BY vintage DESC, lot_code, id LIMIT ?`,
-        [ids, limit + 1],
-      ),
-      pool.query("SELECT COUNT(*) AS n FROM lots WHERE contract_id IN (?)", [ids]),
-    ]);
-    const page = (lots as LotRow[]).slice(0, limit);
-    const lotIds = page.map((l) => l.id);
+  /** The lots list's rows for a page of lots, and each lot's analyses (the readiness board reads them too). */
+  const lotItems = async (page: LotRow[], contracts: Awaited<ReturnType<typeof contractsOf>>) => {
+    const lotIds = page.length ? page.map((l) => l.id) : [0];
     const [analyses, deviations] = await Promise.all([
       pool.query(
         `SELECT a.id, a.lot_id, a.stage, a.audit_order_id, e.spec_version_id, e.verdicts
@@ -104,7 +96,7 @@ export async function startBareServer(config: Config) {
       list.push({ id: d.id, kind: d.kind, status: d.status, parameters: json(d.parameters), decision: json(d.decision) });
       deviationsOf.set(d.lot_id, list);
     }
-    const items = (page as LotRow[]).map((l) => {
+    const items = page.map((l) => {
       const c = contracts.get(l.contract_id)!;
       const mine = analysesOf.get(l.id) ?? [];
       const ofLot = deviationsOf.get(l.id) ?? [];
@@ -126,10 +118,100 @@ export async function startBareServer(config: Config) {
         decidedDeviations: ofLot.filter((d) => d.decision).map((d) => ({ id: d.id, outcome: d.decision!.outcome })),
       };
     });
+    return { items, analysesOf };
+  };
+
+  const LOT_COLUMNS = "id, contract_id, vintage, lot_code, volume_litres, container, planned_date, market, labelled_alcohol_percent_vol";
+
+  app.get("/api/orgs/:orgId/lots", async (req, res) => {
+    const limit = Number(req.query.limit ?? 50);
+    const contracts = await contractsOf(Number(req.params.orgId));
+    const ids = [...contracts.keys()];
+    const [lots, [{ n }]] = await Promise.all([
+      pool.query(`SELECT ${LOT_COLUMNS} FROM lots WHERE contract_id IN (?) ORDER BY vintage DESC, lot_code, id LIMIT ?`, [ids, limit + 1]),
+      pool.query("SELECT COUNT(*) AS n FROM lots WHERE contract_id IN (?)", [ids]),
+    ]);
+    const page = (lots as LotRow[]).slice(0, limit);
+    const { items } = await lotItems(page, contracts);
     const last = page.at(-1);
     res.json({
       items,
       nextCursor: lots.length > limit ? Buffer.from(JSON.stringify([last!.vintage, last!.lot_code, last!.id])).toString("base64url") : null,
+      total: n,
+    });
+  });
+
+  app.get("/api/orgs/:orgId/readiness", async (req, res) => {
+    const limit = Number(req.query.limit ?? 50);
+    const horizonDays = Number(req.query.horizon ?? READINESS_HORIZON_DEFAULT);
+    const contracts = await contractsOf(Number(req.params.orgId));
+    const ids = [...contracts.keys()];
+    const today = new Date().toISOString().slice(0, 10);
+    const horizon = new Date(Date.now() + horizonDays * 86_400_000).toISOString().slice(0, 10);
+    const within = "contract_id IN (?) AND (due_on BETWEEN ? AND ? OR due_on = '9999-12-31')";
+    const [lots, [{ n }]] = await Promise.all([
+      pool.query(`SELECT ${LOT_COLUMNS} FROM lots WHERE ${within} ORDER BY due_on, lot_code, id LIMIT ?`, [ids, today, horizon, limit + 1]),
+      pool.query(`SELECT COUNT(*) AS n FROM lots WHERE ${within}`, [ids, today, horizon]),
+    ]);
+    const page = (lots as LotRow[]).slice(0, limit);
+    const lotIds = page.length ? page.map((l) => l.id) : [0];
+    const [{ items, analysesOf }, measuredRows, versions] = await Promise.all([
+      lotItems(page, contracts),
+      pool.query(
+        "SELECT r.analysis_id, r.parameter FROM analysis_results r JOIN analyses a ON a.id = r.analysis_id WHERE a.lot_id IN (?)",
+        [lotIds],
+      ),
+      pool.query(
+        "SELECT id, contract_id, vintage_from, vintage_to, stages FROM spec_versions WHERE contract_id IN (?) AND status = 'agreed' ORDER BY number DESC",
+        [ids],
+      ),
+    ]);
+    const measuredBy = new Map<number, string[]>();
+    for (const m of measuredRows) measuredBy.set(m.analysis_id, [...(measuredBy.get(m.analysis_id) ?? []), m.parameter]);
+    const governingOf = (l: LotRow) =>
+      (versions as { id: number; contract_id: number; vintage_from: number; vintage_to: number | null; stages: string }[]).find(
+        (v) => v.contract_id === l.contract_id && v.vintage_from <= l.vintage && (v.vintage_to === null || v.vintage_to >= l.vintage),
+      );
+    const chosen = [
+      ...new Set(
+        page
+          .map(governingOf)
+          .filter((v) => v)
+          .map((v) => v!.id),
+      ),
+    ];
+    const requirements: { spec_version_id: number; parameter: string; stages: string }[] = chosen.length
+      ? await pool.query(
+          "SELECT spec_version_id, parameter, stages FROM spec_requirements WHERE spec_version_id IN (?) ORDER BY position",
+          [chosen],
+        )
+      : [];
+    const rows = page.map((l, i) => {
+      const g = governingOf(l);
+      const mine = analysesOf.get(l.id) ?? [];
+      const stages = (g ? json<string[]>(g.stages) : []).map((stage) => {
+        const atStage = mine.filter((a) => a.stage === stage || (stage === "pre_filling" && a.stage === "retest"));
+        const measured = new Set(atStage.flatMap((a) => measuredBy.get(a.id) ?? []));
+        const required = requirements
+          .filter((r) => r.spec_version_id === g!.id && json<string[]>(r.stages).includes(stage))
+          .map((r) => r.parameter);
+        const latest = (atStage.at(-1)?.evaluation?.verdicts ?? []) as { parameter: string; outcome: Outcome }[];
+        return {
+          stage,
+          analysed: atStage.length > 0,
+          missing: required.filter((p) => !measured.has(p)),
+          failing: latest.filter((v) => isFailing(v.outcome)).map((v) => v.parameter),
+        };
+      });
+      return { ...items[i]!, stages, hasAgreedSpec: g !== undefined };
+    });
+    const last = page.at(-1);
+    res.json({
+      items: rows,
+      nextCursor:
+        lots.length > limit
+          ? Buffer.from(JSON.stringify([last!.planned_date ?? "9999-12-31", last!.lot_code, last!.id])).toString("base64url")
+          : null,
       total: n,
     });
   });

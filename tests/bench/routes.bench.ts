@@ -47,7 +47,7 @@ const ROUTES: Route[] = [
   { name: "session", path: () => "/api/auth/session" },
   { name: "lots", path: (c) => `/api/orgs/${c.orgId}/lots?limit=50`, bare: true },
   { name: "lot", path: (c) => `/api/orgs/${c.orgId}/lots/${c.lotId}` },
-  { name: "readiness", path: (c) => `/api/orgs/${c.orgId}/readiness?limit=50` },
+  { name: "readiness", path: (c) => `/api/orgs/${c.orgId}/readiness?limit=50`, bare: true },
   { name: "deviations", path: (c) => `/api/orgs/${c.orgId}/deviations?limit=50`, bare: true },
   { name: "specs", path: (c) => `/api/orgs/${c.orgId}/specs?limit=50`, bare: true },
 ];

@@ -81,6 +81,12 @@ const EVALUATION_COLUMNS = [
   "created_at",
 ];
 
+/** A statement left running while other work goes on: its failure is kept for the await, never reported as unhandled. */
+function whileWorking<T>(statement: Promise<T>): Promise<T> {
+  statement.catch(() => undefined);
+  return statement;
+}
+
 export async function storeAnalyses(
   t: Transaction,
   contract: ContractWithParties,
@@ -94,44 +100,50 @@ export async function storeAnalyses(
     return governingCache.get(vintage)!;
   };
   for (const s of samples) await governing(s.lot.vintage);
+  // The connection runs its statements in order, so each insert is sent and the next piece of work
+  // done while the server stores it; a failed insert still fails the transaction where it is awaited.
+  const now = sqlTime(new Date());
+  const insertingAnalyses = whileWorking(
+    insertReturningIds(
+      t,
+      "analyses",
+      ANALYSIS_COLUMNS,
+      samples.map((s) => [
+        s.lot.id,
+        header.stage,
+        header.laboratoryName,
+        header.accreditation ?? null,
+        s.sampleDate,
+        governingCache.get(s.lot.vintage)?.version.id ?? null,
+        userId,
+        header.auditOrderId ?? null,
+        header.rejudgedFromId ?? null,
+        header.numberFormat ?? null,
+        now,
+        now,
+      ]),
+    ),
+  );
   // Each result is read once: the stored reading and the verdict come from the same parse.
   const read: ReadResult[][] = samples.map((s) => s.results.map((r) => readResult(r, header.numberFormat)));
-
-  const now = sqlTime(new Date());
-  const analysisIds = await insertReturningIds(
-    t,
-    "analyses",
-    ANALYSIS_COLUMNS,
-    samples.map((s) => [
-      s.lot.id,
-      header.stage,
-      header.laboratoryName,
-      header.accreditation ?? null,
-      s.sampleDate,
-      governingCache.get(s.lot.vintage)?.version.id ?? null,
-      userId,
-      header.auditOrderId ?? null,
-      header.rejudgedFromId ?? null,
-      header.numberFormat ?? null,
-      now,
-      now,
-    ]),
-  );
-  await insertRows(
-    t,
-    "analysis_results",
-    RESULT_COLUMNS,
-    samples.flatMap((s, i) =>
-      s.results.map((r, j) => [
-        analysisIds[i],
-        r.parameter,
-        r.raw,
-        // The schema refuses unreadable text before this point; "not detected" is the safe reading if one slips through.
-        JSON.stringify(read[i]![j]!.reading ?? { kind: "below", limit: null }),
-        r.unit,
-        r.uncertainty ? JSON.stringify(r.uncertainty) : null,
-        r.method ?? null,
-      ]),
+  const analysisIds = await insertingAnalyses;
+  const insertingResults = whileWorking(
+    insertRows(
+      t,
+      "analysis_results",
+      RESULT_COLUMNS,
+      samples.flatMap((s, i) =>
+        s.results.map((r, j) => [
+          analysisIds[i],
+          r.parameter,
+          r.raw,
+          // The schema refuses unreadable text before this point; "not detected" is the safe reading if one slips through.
+          JSON.stringify(read[i]![j]!.reading ?? { kind: "below", limit: null }),
+          r.unit,
+          r.uncertainty ? JSON.stringify(r.uncertainty) : null,
+          r.method ?? null,
+        ]),
+      ),
     ),
   );
 
@@ -158,6 +170,7 @@ export async function storeAnalyses(
       profile: judgeOf(s.lot).profile,
     };
   });
+  await insertingResults;
   await insertRows(
     t,
     "analysis_evaluations",
