@@ -4,6 +4,8 @@ import { createHmac, createSecretKey, randomUUID, type KeyObject } from "node:cr
 import type { SessionUser } from "../../shared/auth/session.ts";
 
 export type { SessionMembership, SessionUser } from "../../shared/auth/session.ts";
+import { QueryTypes } from "sequelize";
+import { database } from "../db/database.ts";
 import { User } from "../models/user.ts";
 import { Membership } from "../models/membership.ts";
 import { Organisation } from "../models/organisation.ts";
@@ -52,11 +54,52 @@ export function readSessionToken(s: SessionSettings, token: string): TokenClaims
   }
 }
 
-/** Loads the user behind valid claims, with their memberships, in one query; null when the user is gone or the session was revoked. */
+interface SessionRow {
+  id: number;
+  email: string;
+  name: string;
+  is_platform_admin: number | boolean;
+  session_version: number;
+  has_password: number;
+  membership_id: number | null;
+  organisation_id: number;
+  organisation_name: string;
+  organisation_kind: SessionUser["memberships"][number]["organisationKind"];
+  role: SessionUser["memberships"][number]["role"];
+}
+
+/**
+ * Loads the user behind valid claims, with their memberships, in one hand-written query (every
+ * signed-in request runs it); null when the user is gone or the session was revoked.
+ */
 export async function loadSessionUser(claims: TokenClaims): Promise<SessionUser | null> {
-  const user = await User.findByPk(Number(claims.sub), { include: membershipsInclude });
-  if (!user || user.sessionVersion !== claims.sv || !user.passwordHash) return null;
-  return sessionUserOf(user as UserWithMemberships);
+  const rows = await database().query<SessionRow>(
+    `SELECT u.id, u.email, u.name, u.is_platform_admin, u.session_version, u.password_hash IS NOT NULL AS has_password,
+            m.id AS membership_id, m.organisation_id, m.role, o.name AS organisation_name, o.kind AS organisation_kind
+       FROM users u
+       LEFT JOIN memberships m ON m.user_id = u.id
+       LEFT JOIN organisations o ON o.id = m.organisation_id
+      WHERE u.id = :id
+      ORDER BY m.id`,
+    { replacements: { id: Number(claims.sub) }, type: QueryTypes.SELECT },
+  );
+  const user = rows[0];
+  if (!user || user.session_version !== claims.sv || !user.has_password) return null;
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    isPlatformAdmin: Boolean(user.is_platform_admin),
+    memberships: rows
+      .filter((m) => m.membership_id !== null)
+      .map((m) => ({
+        membershipId: m.membership_id!,
+        organisationId: m.organisation_id,
+        organisationName: m.organisation_name,
+        organisationKind: m.organisation_kind,
+        role: m.role,
+      })),
+  };
 }
 
 const membershipsInclude = [{ model: Membership, as: "memberships", include: [{ model: Organisation, as: "organisation" }] }];

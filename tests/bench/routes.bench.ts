@@ -46,7 +46,7 @@ const ROUTES: Route[] = [
   // What any signed-in request costs before its own work: middleware, the session token and the user.
   { name: "session", path: () => "/api/auth/session" },
   { name: "lots", path: (c) => `/api/orgs/${c.orgId}/lots?limit=50`, bare: true },
-  { name: "lot", path: (c) => `/api/orgs/${c.orgId}/lots/${c.lotId}` },
+  { name: "lot", path: (c) => `/api/orgs/${c.orgId}/lots/${c.lotId}`, bare: true },
   { name: "readiness", path: (c) => `/api/orgs/${c.orgId}/readiness?limit=50`, bare: true },
   { name: "deviations", path: (c) => `/api/orgs/${c.orgId}/deviations?limit=50`, bare: true },
   { name: "specs", path: (c) => `/api/orgs/${c.orgId}/specs?limit=50`, bare: true },
@@ -101,9 +101,22 @@ async function measure() {
         fetch(`${bare.url}${r.path(ctx)}`).then((x) => x.json()),
       ]);
       out[r.name]!.same = JSON.stringify(mine) === JSON.stringify(twin);
+      if (!out[r.name]!.same) console.log(`  ${r.name}: the twin differs first at ${firstDifference(mine, twin)}`);
     }
   }
   return { out, ctx, headers };
+}
+
+/** The path of the first value two answers disagree on, to mend a twin by. */
+function firstDifference(a: unknown, b: unknown, path = "$"): string | null {
+  if (JSON.stringify(a) === JSON.stringify(b)) return null;
+  if (a && b && typeof a === "object" && typeof b === "object") {
+    for (const k of new Set([...Object.keys(a), ...Object.keys(b)])) {
+      const d = firstDifference((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k], `${path}.${k}`);
+      if (d) return d;
+    }
+  }
+  return `${path}: ${JSON.stringify(a)?.slice(0, 80)} ≠ ${JSON.stringify(b)?.slice(0, 80)}`;
 }
 
 async function rebuild(lots: number) {

@@ -185,30 +185,37 @@ function analysisView(a: LoadedAnalysis, versionNumbers: Map<number, number>, pr
 
 export async function getLot(orgId: number, lotId: number, role: Role): Promise<LotDetail> {
   const { lot, contract, side } = await lotFor(orgId, lotId);
-  const [summary] = await summaries([lot], new Map([[contract.id, contract]]));
-  const analyses = (await Analysis.findAll({
-    where: { lotId },
-    // Results and certificates in their own queries: joined, every result row would carry a copy of the evaluation's verdicts.
-    include: [
-      { model: AnalysisResult, as: "results", separate: true, order: [["id", "ASC"]] },
-      { model: AnalysisEvaluation, as: "evaluation" },
-      { model: Certificate, as: "certificates", separate: true, order: [["id", "ASC"]] },
-    ],
-    order: [
-      ["sampleDate", "ASC"],
-      ["id", "ASC"],
-    ],
-  })) as LoadedAnalysis[];
-  const governing = await governingVersion(contract.id, lot.vintage);
+  const [analyses, deviations] = await Promise.all([
+    Analysis.findAll({
+      where: { lotId },
+      // Results and certificates in their own queries: joined, every result row would carry a copy of the evaluation's verdicts.
+      include: [
+        { model: AnalysisResult, as: "results", separate: true, order: [["id", "ASC"]] },
+        { model: AnalysisEvaluation, as: "evaluation" },
+        { model: Certificate, as: "certificates", separate: true, order: [["id", "ASC"]] },
+      ],
+      order: [
+        ["sampleDate", "ASC"],
+        ["id", "ASC"],
+      ],
+    }) as Promise<LoadedAnalysis[]>,
+    Deviation.findAll({ where: { lotId }, order: [["createdAt", "DESC"]] }),
+  ]);
+  // The status reads what the page has loaded anyway.
+  const [summary] = await summaries([lot], new Map([[contract.id, contract]]), () => ({
+    analyses: analyses as (LoadedAnalysis & StatusAnalysis)[],
+    deviations,
+  }));
   const judgedIds = [...new Set(analyses.map((a) => a.evaluation?.specVersionId).filter((id): id is number => !!id))];
   const profileNow = wineProfile(contract.wine, lot.vintage);
-  const versionNumbers = new Map(
-    (await SpecVersion.findAll({ where: { id: judgedIds }, attributes: ["id", "number"] })).map((v) => [v.id, v.number]),
-  );
+  const [governing, judgedBy, audits] = await Promise.all([
+    governingVersion(contract.id, lot.vintage),
+    SpecVersion.findAll({ where: { id: judgedIds }, attributes: ["id", "number"], raw: true }),
+    lotAudits(lotId, side),
+  ]);
+  const versionNumbers = new Map(judgedBy.map((v) => [v.id, v.number]));
   const pre = [...analyses].reverse().find((a) => a.stage === "pre_shipment");
   const arrival = [...analyses].reverse().find((a) => a.stage === "on_arrival");
-  const deviations = await Deviation.findAll({ where: { lotId }, order: [["createdAt", "DESC"]] });
-  const audits = await lotAudits(lotId, side);
   return {
     ...summary!,
     side,
