@@ -84,7 +84,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
 
   const router = express.Router();
   const registry = new RouteRegistry(router);
-  registerSystemRoutes(registry, { version: APP_VERSION, devInboxUrl: config.DEV_INBOX_URL });
+  registerSystemRoutes(registry, { version: APP_VERSION });
   registerAuthRoutes(registry, cookies);
   registerOrganisationRoutes(registry);
   registerSpecRoutes(registry);

@@ -30,7 +30,6 @@ const schema = z
     SMTP_HOST: z.string().default("127.0.0.1"),
     SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
     MAIL_FROM: z.string().default("Cellarpact <no-reply@cellarpact.test>"),
-    DEV_INBOX_URL: z.url().optional(),
     OUTBOX_POLL_MS: z.coerce.number().int().min(10).default(1000),
     OUTBOX_RETRY_BASE_MS: z.coerce.number().int().min(10).default(2000),
     OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(12),

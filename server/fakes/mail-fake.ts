@@ -1,5 +1,6 @@
 /**
- * A local SMTP server that keeps what it receives and shows it over HTTP (GET/DELETE /messages).
+ * A local SMTP server that keeps what it receives and shows it over HTTP on loopback: the inbox
+ * page at /, and GET/DELETE /messages for tests.
  * Stands in for a real mail relay in the demo and the tests; the app talks real SMTP to it.
  */
 import { SMTPServer } from "smtp-server";
@@ -7,6 +8,7 @@ import { simpleParser, type AddressObject } from "mailparser";
 import http from "node:http";
 import { randomUUID } from "node:crypto";
 import type { AddressInfo } from "node:net";
+import { inboxPage } from "./inbox-page.ts";
 
 export interface CaughtMail {
   id: string;
@@ -57,7 +59,15 @@ export async function startMailFake(opts: { smtpPort?: number; httpPort?: number
   });
 
   const web = http.createServer((req, res) => {
-    if (req.url === "/messages" && req.method === "GET") {
+    if (req.url === "/" && req.method === "GET") {
+      res
+        .writeHead(200, {
+          "content-type": "text/html; charset=utf-8",
+          "content-security-policy": "default-src 'none'; style-src 'unsafe-inline'",
+          "cache-control": "no-store",
+        })
+        .end(inboxPage(messages));
+    } else if (req.url === "/messages" && req.method === "GET") {
       res.writeHead(200, { "content-type": "application/json" }).end(JSON.stringify([...messages].reverse()));
     } else if (req.url === "/messages" && req.method === "DELETE") {
       messages.length = 0;

@@ -9,6 +9,19 @@ export MAIL_FAKE_HTTP_PORT="${MAIL_FAKE_HTTP_PORT:-2580}"
 export DB_NAME="${DB_NAME:-cellarpact}"
 export STRIPE_API_PORT="${STRIPE_API_PORT:-12111}"
 
+# Set before anything starts, so Ctrl-C at any moment stops whatever was started so far.
+cleanup() {
+  trap - EXIT INT TERM
+  for pid in "${FAKE:-}" "${PAYMENTS:-}" "${APP:-}"; do
+    [ -n "$pid" ] && kill "$pid" 2>/dev/null || true
+  done
+  wait 2>/dev/null || true
+  bash server/scripts/db.sh stop || true
+}
+trap cleanup EXIT
+trap 'cleanup; exit 130' INT
+trap 'cleanup; exit 143' TERM
+
 bash server/scripts/db.sh start
 
 mkdir -p .data
@@ -27,16 +40,8 @@ node --import tsx server/fakes/run-mail-fake.ts &
 FAKE=$!
 STRIPE_FAKE_PORT="$STRIPE_API_PORT" STRIPE_WEBHOOK_URL="http://127.0.0.1:$PORT/api/webhooks/stripe" node --import tsx server/fakes/stripe/run.ts &
 PAYMENTS=$!
-cleanup() {
-  kill "$FAKE" "$PAYMENTS" 2>/dev/null || true
-  [ -n "${APP:-}" ] && kill "$APP" 2>/dev/null || true
-  wait 2>/dev/null || true
-  bash server/scripts/db.sh stop
-}
-trap cleanup EXIT INT TERM
 
-NODE_ENV=production CLIENT_DIR=dist DEV_INBOX_URL="http://127.0.0.1:$MAIL_FAKE_HTTP_PORT" \
-  APP_URL="${APP_URL:-http://127.0.0.1:$PORT}" node --import tsx server/main.ts &
+NODE_ENV=production CLIENT_DIR=dist APP_URL="${APP_URL:-http://127.0.0.1:$PORT}" node --import tsx server/main.ts &
 APP=$!
-echo "Demo accounts are listed in README.md (password Cellarpact-demo-2026). Mail inbox: http://127.0.0.1:$PORT/dev/inbox"
+echo "Demo accounts are listed in README.md (password Cellarpact-demo-2026). Mail inbox (this machine only): http://127.0.0.1:$MAIL_FAKE_HTTP_PORT/"
 wait "$APP"

@@ -22,7 +22,6 @@ const router = createBrowserRouter([
     path: "/accept-invitation/:token",
     lazy: () => import("../features/auth/accept-invitation-page.tsx").then((m) => ({ Component: m.AcceptInvitationPage })),
   },
-  { path: "/dev/inbox", lazy: () => import("../features/dev-inbox/dev-inbox-page.tsx").then((m) => ({ Component: m.DevInboxPage })) },
   {
     path: "/",
     element: <AppShell />,

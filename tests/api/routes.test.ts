@@ -5,7 +5,7 @@ import { buildTestApp, type TestApp } from "../support/api.ts";
 
 let t: TestApp;
 beforeAll(() => {
-  t = buildTestApp({ DEV_INBOX_URL: "http://127.0.0.1:9" });
+  t = buildTestApp();
 });
 afterAll(() => t.close());
 

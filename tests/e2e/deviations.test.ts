@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { expectAccessible, screenshot, signInThroughForm, signOut, startStack, type Stack } from "../support/stack.ts";
+import { expectAccessible, openMail, screenshot, signInThroughForm, signOut, startStack, type Stack } from "../support/stack.ts";
 import { DEMO } from "../support/api.ts";
 
 let s: Stack;
@@ -106,11 +106,7 @@ describe("a deviation negotiated to a recorded decision", () => {
     await screenshot(page, "deviation-trail");
     await signOut(page);
 
-    await page.goto(`${baseUrl}/dev/inbox`);
-    await page
-      .getByRole("heading", { name: `Deviation #${id} decided: Concession for this lot` })
-      .first()
-      .waitFor({ timeout: 15_000 });
+    await openMail(page, s.inboxUrl, `Deviation #${id} decided: Concession for this lot`);
     await page
       .getByRole("heading", { name: `Élise Carbonnel mentioned you on deviation #${id}` })
       .first()

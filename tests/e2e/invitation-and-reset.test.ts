@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { expectAccessible, screenshot, signInThroughForm, signOut, startStack, type Stack } from "../support/stack.ts";
+import { expectAccessible, openMail, screenshot, signInThroughForm, signOut, startStack, type Stack } from "../support/stack.ts";
 import { DEMO, uniqueEmail } from "../support/api.ts";
 
 let s: Stack;
@@ -8,15 +8,10 @@ beforeAll(async () => {
 });
 afterAll(() => s?.stop());
 
-/** Opens the development inbox page and follows the link in the newest mail with this subject. */
+/** Opens the mail fake's inbox page and follows the link in the newest mail with this subject. */
 async function followMailLink(subject: string, linkPath: string) {
-  const { page, baseUrl } = s;
-  await page.goto(`${baseUrl}/dev/inbox`);
-  const mail = page
-    .getByRole("article")
-    .filter({ has: page.getByRole("heading", { name: subject }) })
-    .first();
-  await mail.waitFor({ timeout: 15_000 });
+  const { page } = s;
+  const mail = await openMail(page, s.inboxUrl, subject);
   await expectAccessible(page, "dev inbox");
   await screenshot(page, `inbox-${linkPath.replace(/\W/g, "")}`);
   await mail.getByRole("link", { name: new RegExp(linkPath) }).click();

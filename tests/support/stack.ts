@@ -8,7 +8,7 @@ import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
-import { AxeBuilder } from "@axe-core/playwright";
+import axe from "axe-core";
 import { expect } from "vitest";
 import { startMailFake, type MailFake } from "../../server/fakes/mail-fake.ts";
 import { startStripeFake, type StripeFake } from "../../server/fakes/stripe/server.ts";
@@ -37,6 +37,8 @@ export function chromiumPath(): string {
 
 export interface Stack {
   baseUrl: string;
+  /** The mail fake's own inbox page, on its loopback port: the app never serves mail. */
+  inboxUrl: string;
   mail: MailFake;
   stripe: StripeFake;
   context: BrowserContext;
@@ -63,7 +65,6 @@ export async function startStack(): Promise<Stack> {
       APP_URL: baseUrl,
       CLIENT_DIR: "dist",
       SMTP_PORT: String(mail.smtpPort),
-      DEV_INBOX_URL: `http://127.0.0.1:${mail.httpPort}`,
       STRIPE_API_PORT: String(stripe.port),
       STRIPE_WEBHOOK_SECRET: webhookSecret,
       LOGIN_LIMIT_PER_ACCOUNT: "50",
@@ -106,6 +107,7 @@ export async function startStack(): Promise<Stack> {
   mkdirSync(SCREENS, { recursive: true });
   return {
     baseUrl,
+    inboxUrl: `http://127.0.0.1:${mail.httpPort}/`,
     mail,
     stripe,
     context,
@@ -137,10 +139,27 @@ export async function signOut(page: Page) {
   await page.getByRole("heading", { name: "Sign in" }).waitFor();
 }
 
+/** Opens the mail fake's inbox, reloading until a mail with this subject has arrived; answers that mail's article. */
+export async function openMail(page: Page, inboxUrl: string, subject: string | RegExp) {
+  const deadline = Date.now() + 15_000;
+  for (;;) {
+    await page.goto(inboxUrl);
+    const mail = page
+      .getByRole("article")
+      .filter({ has: page.getByRole("heading", { name: subject }) })
+      .first();
+    if ((await mail.count()) > 0) return mail;
+    if (Date.now() > deadline) throw new Error(`no mail "${subject}" arrived in the inbox within 15 s`);
+    await page.waitForTimeout(250);
+  }
+}
+
 /** axe-core on the current page: no serious or critical violation (WCAG 2.x rules as axe encodes them). */
 export async function expectAccessible(page: Page, label: string) {
   expect(pageErrors, `uncaught errors on the pages before ${label}`).toEqual([]);
-  const result = await new AxeBuilder({ page }).analyze();
+  // Evaluated rather than added as a script tag, so the app's Content-Security-Policy does not stop it.
+  await page.evaluate(axe.source);
+  const result = await page.evaluate(() => (window as unknown as { axe: typeof axe }).axe.run(document, { resultTypes: ["violations"] }));
   const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
   expect(bad.map((v) => `${label}: ${v.id} (${v.impact}) ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
 }
