@@ -1,6 +1,6 @@
 /** Sign-in, sign-out, password reset and password change. */
 import bcrypt from "bcryptjs";
-import { Op } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import { User } from "../models/user.ts";
 import { PasswordReset } from "../models/password-reset.ts";
 import { inTransaction } from "../db/database.ts";
@@ -11,17 +11,31 @@ import { randomToken, sha256 } from "../lib/crypto.ts";
 import { serviceSettings } from "../settings.ts";
 import { gone, unauthorized, validationFailed } from "../errors.ts";
 import { toSessionUser, type SessionUser } from "./session-service.ts";
+import { assertStrongPassword } from "./password-policy.ts";
 
 export const SIGN_IN_FAILED = "The e-mail address or the password is not right.";
 const RESET_MINUTES = 60;
-// Compared against when the account does not exist, so both failures take the same time.
-const DUMMY_HASH = bcrypt.hashSync("cellarpact-dummy-password", 4);
+/**
+ * Compared against when the account does not exist or has no password yet, so that failure costs
+ * what a wrong password costs: the same bcrypt work factor as real hashes (OWASP ASVS 5.0 V6.3).
+ */
+const dummyHashes = new Map<number, string>();
+export function dummyHash(): string {
+  const cost = serviceSettings().bcryptCost;
+  let hash = dummyHashes.get(cost);
+  if (!hash) dummyHashes.set(cost, (hash = bcrypt.hashSync(randomToken(), cost)));
+  return hash;
+}
 
-export const hashPassword = (password: string) => bcrypt.hash(password, serviceSettings().bcryptCost);
+/** Hashes a password someone is setting, once it passes the policy for that person. */
+export function hashNewPassword(password: string, owner: { email: string; name?: string | null }, field: string): Promise<string> {
+  assertStrongPassword(password, owner, field);
+  return bcrypt.hash(password, serviceSettings().bcryptCost);
+}
 
 export async function signIn(email: string, password: string): Promise<{ user: SessionUser; sessionVersion: number }> {
   const user = await User.findOne({ where: { email } });
-  const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
+  const ok = await bcrypt.compare(password, user?.passwordHash ?? dummyHash());
   if (!user || !user.passwordHash || !ok) {
     await inTransaction((t) =>
       recordTrail(t, {
@@ -85,8 +99,17 @@ export async function requestPasswordReset(email: string): Promise<void> {
   });
 }
 
+/** Once the password is set anew, every reset link still out for the account stops working (OWASP ASVS 5.0 V6.4). */
+async function voidResetLinks(t: Transaction, userId: number) {
+  await PasswordReset.update({ usedAt: new Date() }, { where: { userId, usedAt: null }, transaction: t });
+}
+
 export async function resetPassword(token: string, password: string): Promise<void> {
-  const passwordHash = await hashPassword(password);
+  // Read first, so the policy can weigh the account's own address; the transaction checks the link again.
+  const pending = await PasswordReset.findOne({ where: { tokenHash: sha256(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } } });
+  const owner = pending ? await User.findByPk(pending.userId) : null;
+  if (!pending || !owner) throw gone("This reset link has expired or was already used. Ask for a new one.");
+  const passwordHash = await hashNewPassword(password, owner, "password");
   await inTransaction(async (t) => {
     const reset = await PasswordReset.findOne({
       where: { tokenHash: sha256(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
@@ -94,7 +117,7 @@ export async function resetPassword(token: string, password: string): Promise<vo
       transaction: t,
     });
     if (!reset) throw gone("This reset link has expired or was already used. Ask for a new one.");
-    await reset.update({ usedAt: new Date() }, { transaction: t });
+    await voidResetLinks(t, reset.userId);
     const user = await User.findByPk(reset.userId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw gone("The account no longer exists.");
     await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction: t });
@@ -113,10 +136,11 @@ export async function changePassword(userId: number, current: string, next: stri
   if (!user?.passwordHash || !(await bcrypt.compare(current, user.passwordHash))) {
     throw validationFailed([{ path: "currentPassword", message: "The current password is not right." }]);
   }
-  const passwordHash = await hashPassword(next);
+  const passwordHash = await hashNewPassword(next, user, "newPassword");
   return inTransaction(async (t) => {
     const sessionVersion = user.sessionVersion + 1;
     await user.update({ passwordHash, sessionVersion }, { transaction: t });
+    await voidResetLinks(t, userId);
     await recordTrail(t, {
       actorUserId: userId,
       organisationId: null,

@@ -10,7 +10,7 @@ import { enqueueMail } from "../integrations/mail/outbox.ts";
 import { invitationMail } from "../integrations/mail/templates.ts";
 import { randomToken, sha256 } from "../lib/crypto.ts";
 import { serviceSettings } from "../settings.ts";
-import { hashPassword } from "./auth-service.ts";
+import { hashNewPassword } from "./auth-service.ts";
 import { conflict, gone, notFound, validationFailed } from "../errors.ts";
 import { ROLE_LABELS, roleFitsKind, type Role, ORGANISATION_KIND_LABELS } from "../../shared/auth/roles.ts";
 import { toSessionUser, type SessionUser } from "./session-service.ts";
@@ -153,7 +153,9 @@ export async function acceptInvitation(
   name: string,
   password: string,
 ): Promise<{ user: SessionUser; sessionVersion: number }> {
-  const passwordHash = await hashPassword(password);
+  // Read first, so the policy can weigh the invited address; the transaction checks the link again.
+  const invited = await findUsable(token);
+  const passwordHash = await hashNewPassword(password, { email: invited.email, name }, "password");
   const user = await inTransaction(async (t) => {
     const inv = await findUsable(token, t);
     let user = await User.findOne({ where: { email: inv.email }, transaction: t, lock: t.LOCK.UPDATE });

@@ -18,7 +18,9 @@ export const newPasswordSchema = z
   .min(PASSWORD_MIN, { error: `Use at least ${PASSWORD_MIN} characters.` })
   .refine((p) => new TextEncoder().encode(p).length <= PASSWORD_MAX_BYTES, {
     error: `Use at most ${PASSWORD_MAX_BYTES} bytes (about ${PASSWORD_MAX_BYTES} plain letters).`,
-  });
+  })
+  // Control characters cannot be typed the same way twice on every device (OWASP ASVS 5.0 V6.2).
+  .refine((p) => !/\p{Cc}/u.test(p), { error: "A password cannot contain control characters (tabs, line breaks and the like)." });
 
 export const personNameSchema = z
   .string({ error: "Enter a name." })

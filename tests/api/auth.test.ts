@@ -4,7 +4,10 @@ import jwt from "jsonwebtoken";
 import { DEMO, DEMO_PASSWORD, ORG, signInAs } from "../support/api.ts";
 import { linkIn } from "../support/mail.ts";
 import { mail, openAppAndMail, t } from "../support/app-and-mail.ts";
-import { SIGN_IN_FAILED } from "../../server/services/auth-service.ts";
+import bcrypt from "bcryptjs";
+import { randomUUID } from "node:crypto";
+import { changePassword, dummyHash, SIGN_IN_FAILED } from "../../server/services/auth-service.ts";
+import { member, party } from "../support/factories.ts";
 
 openAppAndMail();
 
@@ -105,6 +108,71 @@ describe("password reset by mailed one-time link", () => {
       "/reset-password",
     );
     expect((await request(t.app).post("/api/auth/password-reset").send({ token: again, password: DEMO_PASSWORD })).status).toBe(200);
+  });
+
+  it("when one of several reset links is used, or the password is changed, then every other link stops working (OWASP ASVS 5.0 V6.4)", async () => {
+    const buyer = await party(DEMO.buyerTechnologist, "buyer_technologist");
+    const password = `Old-cellar-${randomUUID()}`;
+    const someone = await member(buyer.orgId, "buyer_finance", { password });
+    const email = someone.user.email;
+    const linkFor = async () => {
+      expect((await request(t.app).post("/api/auth/password-reset/request").send({ email })).status).toBe(202);
+      await mail.deliver();
+      return linkIn(mail.to(email).at(-1)!.text, "/reset-password");
+    };
+    const [first, second] = [await linkFor(), await linkFor()];
+    expect(first).not.toBe(second);
+    expect(
+      (
+        await request(t.app)
+          .post("/api/auth/password-reset")
+          .send({ token: second, password: `New-cellar-${randomUUID()}` })
+      ).status,
+    ).toBe(200);
+    expect(
+      (
+        await request(t.app)
+          .post("/api/auth/password-reset")
+          .send({ token: first, password: `Other-cellar-${randomUUID()}` })
+      ).status,
+    ).toBe(410);
+
+    const third = await linkFor();
+    const reset = `Reset-cellar-${randomUUID()}`;
+    const fourth = await linkFor();
+    expect((await request(t.app).post("/api/auth/password-reset").send({ token: fourth, password: reset })).status).toBe(200);
+    await changePassword(someone.user.id, reset, `Changed-cellar-${randomUUID()}`);
+    expect(
+      (
+        await request(t.app)
+          .post("/api/auth/password-reset")
+          .send({ token: third, password: `Late-cellar-${randomUUID()}` })
+      ).status,
+    ).toBe(410);
+  });
+
+  it("when a new password is common, guessable, built from the address or holds a control character, then it is refused and the link still works (OWASP ASVS 5.0 V6.2)", async () => {
+    const buyer = await party(DEMO.buyerTechnologist, "buyer_technologist");
+    const someone = await member(buyer.orgId, "buyer_finance", { email: `marguerite.${randomUUID().slice(0, 6)}@example.test` });
+    const email = someone.user.email;
+    await request(t.app).post("/api/auth/password-reset/request").send({ email });
+    await mail.deliver();
+    const token = linkIn(mail.to(email).at(-1)!.text, "/reset-password");
+    const refused = async (password: string) => {
+      const res = await request(t.app).post("/api/auth/password-reset").send({ token, password });
+      expect(res.status, password).toBe(400);
+      return res.body.errors[0].message as string;
+    };
+    expect(await refused("aaaaaaaaaa")).toMatch(/too easy to guess/);
+    expect(await refused("password12")).toMatch(/too easy to guess.*commonly used/);
+    expect(await refused(`${email.split("@")[0]}-2027`)).toMatch(/e-mail address/);
+    expect(await refused("Harvest\tmoon-2027")).toMatch(/control characters/);
+    // Nothing was used up: the same link still sets a good password.
+    expect((await request(t.app).post("/api/auth/password-reset").send({ token, password: "Harvest-moon-2027" })).status).toBe(200);
+  });
+
+  it("when the account is unknown, then the password is still compared against a hash of the configured work factor (OWASP ASVS 5.0 V6.3)", () => {
+    expect(bcrypt.getRounds(dummyHash())).toBe(t.config.BCRYPT_COST);
   });
 
   it("when the address has no account, then the answer is the same and no mail is queued", async () => {
