@@ -4,6 +4,7 @@ import helmet from "helmet";
 import compression from "compression";
 import cookieParser from "cookie-parser";
 import { pinoHttp } from "pino-http";
+import { requestLogSerializers } from "./http/request-log.ts";
 import { requestBudget } from "./http/request-budget.ts";
 import { memoryBudget } from "./http/memory-budget.ts";
 import type { Logger } from "pino";
@@ -53,6 +54,7 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
         return id;
       },
       autoLogging: { ignore: (req) => req.url === "/api/health" },
+      serializers: requestLogSerializers,
     }),
   );
   app.use(

@@ -20,10 +20,10 @@ try {
   throw err;
 }
 
-// Session cookies and CSRF tokens never reach the log.
+// Requests log one compact line without headers (server/http/request-log.ts); the redaction is a second guard.
 const logger = pino({
   level: config.LOG_LEVEL,
-  redact: ["req.headers.cookie", 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
+  redact: ["req.headers.cookie", "req.headers.authorization", 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
 });
 const sequelize = createSequelize(config, logger);
 useDatabase(sequelize);

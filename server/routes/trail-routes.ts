@@ -1,5 +1,5 @@
 import { z } from "zod";
-import Papa from "papaparse";
+import { toCsv } from "../../shared/csv-export.ts";
 import { actionLabel, detailsText } from "../../shared/trail/vocabulary.ts";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { allowed } from "../http/access.ts";
@@ -34,7 +34,7 @@ export function registerTrailRoutes(r: RouteRegistry): void {
       if (!query.format) return pageOrganisationTrail(params.orgId, { ...filters, limit: query.limit, cursor: query.cursor });
       const rows = await listOrganisationTrail(params.orgId, filters, TRAIL_EXPORT_MAX);
       if (query.format === "csv") {
-        const csv = Papa.unparse(
+        const csv = toCsv(
           rows.map((e) => ({
             seq: e.seq,
             occurred_at: e.occurredAt,
@@ -47,7 +47,7 @@ export function registerTrailRoutes(r: RouteRegistry): void {
             hash: e.hash,
           })),
         );
-        res.status(200).type("text/csv").attachment(`trail-${params.orgId}.csv`).send(`\uFEFF${csv}`);
+        res.status(200).type("text/csv").attachment(`trail-${params.orgId}.csv`).send(csv);
         return;
       }
       res
