@@ -1,8 +1,8 @@
 /**
- * CSV for download, the same way everywhere: a byte-order mark so spreadsheet programs read UTF-8,
- * and every text cell that starts with =, +, -, @, a tab or a carriage return prefixed with a single
- * quote, so that no cell is run as a formula (OWASP, "CSV Injection"). Numbers stay numbers.
+ * How every CSV download is written, so the server's and the browser's exports agree: papaparse's
+ * unparse with these options, after a byte-order mark so spreadsheet programs read UTF-8. Every text
+ * cell that starts with =, +, -, @, a tab or a carriage return gets a single quote before it, so that
+ * no cell is run as a formula (OWASP, "CSV Injection"); numbers stay numbers.
  */
-import Papa from "papaparse";
-
-export const toCsv = (rows: readonly object[]): string => `\uFEFF${Papa.unparse(rows as object[], { escapeFormulae: true })}`;
+export const CSV_EXPORT_OPTIONS = { escapeFormulae: true } as const;
+export const CSV_BOM = "\uFEFF";

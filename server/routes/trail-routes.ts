@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { toCsv } from "../../shared/csv-export.ts";
+import Papa from "papaparse";
+import { CSV_BOM, CSV_EXPORT_OPTIONS } from "../../shared/csv-export.ts";
 import { actionLabel, detailsText } from "../../shared/trail/vocabulary.ts";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { allowed } from "../http/access.ts";
@@ -34,7 +35,7 @@ export function registerTrailRoutes(r: RouteRegistry): void {
       if (!query.format) return pageOrganisationTrail(params.orgId, { ...filters, limit: query.limit, cursor: query.cursor });
       const rows = await listOrganisationTrail(params.orgId, filters, TRAIL_EXPORT_MAX);
       if (query.format === "csv") {
-        const csv = toCsv(
+        const csv = Papa.unparse(
           rows.map((e) => ({
             seq: e.seq,
             occurred_at: e.occurredAt,
@@ -46,8 +47,9 @@ export function registerTrailRoutes(r: RouteRegistry): void {
             details: detailsText(e.details),
             hash: e.hash,
           })),
+          CSV_EXPORT_OPTIONS,
         );
-        res.status(200).type("text/csv").attachment(`trail-${params.orgId}.csv`).send(csv);
+        res.status(200).type("text/csv").attachment(`trail-${params.orgId}.csv`).send(`${CSV_BOM}${csv}`);
         return;
       }
       res

@@ -93,7 +93,7 @@ describe("a deviation negotiated to a recorded decision", () => {
   });
 
   it("when the parties look, then the mails are in the inbox and the trail shows every step and verifies", async () => {
-    const { page, baseUrl } = s;
+    const { page } = s;
     const id = deviationUrl.split("/").pop();
     const trail = page.getByRole("list", { name: "Recorded events" });
     // The trail speaks in words, not action codes.

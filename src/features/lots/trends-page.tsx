@@ -8,7 +8,8 @@ import { useFilterParams } from "../../lib/use-filter-params.ts";
 import { useRef } from "react";
 import { CartesianGrid, ComposedChart, Line, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis, Legend } from "recharts";
 import { useVirtualizer } from "@tanstack/react-virtual";
-import { toCsv } from "../../../shared/csv-export.ts";
+import Papa from "papaparse";
+import { CSV_BOM, CSV_EXPORT_OPTIONS } from "../../../shared/csv-export.ts";
 import { useOrganisation } from "../../lib/signed-in.tsx";
 import { contractQuery, specQuery } from "../../lib/contracts.ts";
 import { trendQuery } from "./api/lots.ts";
@@ -254,10 +255,11 @@ function ResultsTable({ data, unit }: { data: TrendData; unit: string }) {
   // eslint-disable-next-line react-hooks/incompatible-library -- the virtualiser is read fresh on every render by design
   const virtual = useVirtualizer({ count: rows.length, getScrollElement: () => parent.current, estimateSize: () => 33, overscan: 10 });
   const exportCsv = () => {
-    const csv = toCsv(
+    const csv = Papa.unparse(
       rows.map((p) => ({ lot: p.lotCode, vintage: p.vintage, stage: p.stage, sample_date: p.sampleDate, result: p.text, unit })),
+      CSV_EXPORT_OPTIONS,
     );
-    const url = URL.createObjectURL(new Blob([csv], { type: "text/csv;charset=utf-8" }));
+    const url = URL.createObjectURL(new Blob([`${CSV_BOM}${csv}`], { type: "text/csv;charset=utf-8" }));
     const a = Object.assign(document.createElement("a"), { href: url, download: `${data.parameter}-results.csv` });
     a.click();
     URL.revokeObjectURL(url);
