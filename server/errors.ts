@@ -14,7 +14,8 @@ export type ErrorKind =
   | "unsupported_media"
   | "rate_limited"
   | "payment_declined"
-  | "upstream_failed";
+  | "upstream_failed"
+  | "unavailable";
 
 export interface FieldError {
   path: string;
@@ -46,3 +47,4 @@ export const unsupportedMedia = (detail: string) => new AppError("unsupported_me
 export const tooManyRequests = (detail: string) => new AppError("rate_limited", "Too many requests", detail);
 export const paymentDeclined = (detail: string) => new AppError("payment_declined", "Payment declined", detail);
 export const upstreamFailed = (title: string, detail: string) => new AppError("upstream_failed", title, detail);
+export const unavailable = (detail: string) => new AppError("unavailable", "Service unavailable", detail);

@@ -8,6 +8,7 @@ import { createApp } from "./app.ts";
 import { startOutboxWorker } from "./integrations/mail/outbox.ts";
 import { sendDigests } from "./services/notification-service.ts";
 import { warnApproachingDeadlines } from "./services/deviations/deadline-job.ts";
+import { answerClientErrors } from "./http/client-errors.ts";
 
 let config: Config;
 try {
@@ -64,6 +65,7 @@ const server = app.listen(config.PORT, config.HOST, () => {
   logger.info({ port }, "listening");
   console.log(`Cellarpact is running at http://${config.HOST}:${port}`);
 });
+answerClientErrors(server);
 
 let stopping = false;
 async function shutdown(signal: string) {

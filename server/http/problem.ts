@@ -15,6 +15,7 @@ export const STATUS_OF: Record<ErrorKind, number> = {
   unsupported_media: 415,
   rate_limited: 429,
   upstream_failed: 502,
+  unavailable: 503,
 };
 
 export const statusOf = (err: AppError) => STATUS_OF[err.kind];

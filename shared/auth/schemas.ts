@@ -27,7 +27,12 @@ export const personNameSchema = z
   .trim()
   .min(1, { error: "Enter a name." })
   .max(120, { error: "A name has at most 120 characters." })
-  .refine((s) => !/[<>]/.test(s), { error: "A name cannot contain < or >." });
+  .refine((s) => !/[<>]/.test(s), { error: "A name cannot contain < or >." })
+  // Names go into mails; a web address or a control character there would read as Cellarpact's own words.
+  .refine((s) => !/\p{Cc}/u.test(s), { error: "A name cannot contain control characters (tabs, line breaks and the like)." })
+  .refine((s) => !/(?:[a-z][a-z0-9+.-]*:\/\/|www\.|\b[a-z0-9-]+\.(?:com|net|org|io|info|biz|xyz|top|ru|cn)\b)/i.test(s), {
+    error: "A name cannot contain a web address.",
+  });
 
 export const signInSchema = z.object({
   email: emailSchema,
@@ -75,7 +80,12 @@ export const organisationNameSchema = z
   .trim()
   .min(2, { error: "Use at least 2 characters." })
   .max(160, { error: "A name has at most 160 characters." })
-  .refine((s) => !/[<>]/.test(s), { error: "A name cannot contain < or >." });
+  .refine((s) => !/[<>]/.test(s), { error: "A name cannot contain < or >." })
+  // Names go into mails; a web address or a control character there would read as Cellarpact's own words.
+  .refine((s) => !/\p{Cc}/u.test(s), { error: "A name cannot contain control characters (tabs, line breaks and the like)." })
+  .refine((s) => !/(?:[a-z][a-z0-9+.-]*:\/\/|www\.|\b[a-z0-9-]+\.(?:com|net|org|io|info|biz|xyz|top|ru|cn)\b)/i.test(s), {
+    error: "A name cannot contain a web address.",
+  });
 
 export const createOrganisationSchema = z.object({
   name: organisationNameSchema,

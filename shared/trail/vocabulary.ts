@@ -55,6 +55,7 @@ export const ACTION_LABELS = {
   "payment.succeeded": "Payment received",
   "payment.failed": "Payment declined",
   "payment.refunded": "Payment refunded",
+  "payment.event_refused": "Payment event refused",
   "price_list.updated": "Price list updated",
 } as const;
 

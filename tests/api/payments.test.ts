@@ -82,6 +82,17 @@ async function placeOrder(parameters = ["volatile_acidity", "free_so2"]) {
 }
 
 const order = async (id: number) => (await finance.agent.get(B(`/audit-orders/${id}`))).body;
+/** An order whose payment has been started, as pressing Pay does: only such an order can be paid. */
+async function placeAndStartPayment() {
+  const placed = await placeOrder();
+  expect((await finance.agent.post(B(`/audit-orders/${placed.id}/checkout`)).set("x-csrf-token", finance.csrf)).status).toBe(200);
+  // The PaymentIntent Stripe opened for the session, as Cellarpact keeps it; events for this payment carry it.
+  const [row] = await t.sequelize.query<{ pi: string | null }>("SELECT payment_intent_id AS pi FROM audit_orders WHERE id = ?", {
+    replacements: [placed.id],
+    type: QueryTypes.SELECT,
+  });
+  return { ...placed, pi: row?.pi ?? undefined };
+}
 const post = (payload: string, header?: string) =>
   fetch(`${base}/api/webhooks/stripe`, {
     method: "POST",
@@ -236,8 +247,8 @@ describe("ordering and paying an audit", () => {
 
 describe("webhooks", () => {
   it("the same signed event delivered 50 times at once records one payment, one trail entry and one receipt", async () => {
-    const placed = await placeOrder();
-    const { payload, header } = signed(succeededEvent(placed.id, placed.amountCents));
+    const placed = await placeAndStartPayment();
+    const { payload, header } = signed(succeededEvent(placed.id, placed.amountCents, placed.pi));
     const answers = await Promise.all(Array.from({ length: 50 }, () => post(payload, header)));
     expect(answers.map((a) => a.status)).toEqual(Array(50).fill(200));
     const bodies = await Promise.all(answers.map((a) => a.json()));
@@ -252,8 +263,8 @@ describe("webhooks", () => {
   });
 
   it("refuses a wrong, stale or missing signature with 400 and records nothing", async () => {
-    const placed = await placeOrder();
-    const event = succeededEvent(placed.id, placed.amountCents);
+    const placed = await placeAndStartPayment();
+    const event = succeededEvent(placed.id, placed.amountCents, placed.pi);
     const before = await countOf("SELECT COUNT(*) AS n FROM stripe_events");
     const good = signed(event);
     const wrongSecret = Stripe.webhooks.generateTestHeaderString({ payload: good.payload, secret: "whsec_someone_else_entirely" });
@@ -276,9 +287,55 @@ describe("webhooks", () => {
     expect((await post(fresh.payload, fresh.header)).status).toBe(200);
   });
 
+  it("refuses a signed event that does not fit its order: another order's payment, a foreign currency, a wrong or negative amount", async () => {
+    const placed = await placeAndStartPayment();
+    const other = await placeOrder();
+    const base = succeededEvent(placed.id, placed.amountCents, placed.pi);
+    const variants = [
+      // The metadata names this order, but the PaymentIntent is the one Cellarpact created for another order.
+      {
+        ...base,
+        id: `evt_${randomUUID().slice(0, 12)}`,
+        data: { object: { ...base.data.object, metadata: { auditOrderId: String(other.id) } } },
+      },
+      { ...base, id: `evt_${randomUUID().slice(0, 12)}`, data: { object: { ...base.data.object, currency: "usd" } } },
+      { ...base, id: `evt_${randomUUID().slice(0, 12)}`, data: { object: { ...base.data.object, amount_received: 1 } } },
+      { ...base, id: `evt_${randomUUID().slice(0, 12)}`, data: { object: { ...base.data.object, amount_received: -placed.amountCents } } },
+    ];
+    for (const event of variants) {
+      const { payload, header } = signed(event);
+      const res = await post(payload, header);
+      expect(res.status).toBe(200);
+      expect((await res.json()).outcome).toMatch(/^refused/);
+    }
+    expect((await order(placed.id)).status).toBe("awaiting_payment");
+    expect((await order(other.id)).status).toBe("awaiting_payment");
+    expect(await countOf("SELECT COUNT(*) AS n FROM audit_payments WHERE audit_order_id IN (?, ?)", [placed.id, other.id])).toBe(0);
+    expect(
+      await countOf("SELECT COUNT(*) AS n FROM trail_entries WHERE action = 'payment.event_refused' AND entity_id IN (?, ?)", [
+        String(placed.id),
+        String(other.id),
+      ]),
+    ).toBe(4);
+  });
+
+  it("answers 400 to a signed event without data, or signed in the future beyond the tolerance", async () => {
+    const before = await countOf("SELECT COUNT(*) AS n FROM stripe_events");
+    const empty = signed({ id: `evt_${randomUUID().slice(0, 12)}`, object: "event", type: "payment_intent.succeeded" });
+    const emptyRes = await post(empty.payload, empty.header);
+    expect(emptyRes.status).toBe(400);
+    expect((await emptyRes.json()).detail).toMatch(/data object/);
+    const placed = await placeAndStartPayment();
+    const future = signed(succeededEvent(placed.id, placed.amountCents, placed.pi), Math.floor(Date.now() / 1000) + 301);
+    const futureRes = await post(future.payload, future.header);
+    expect(futureRes.status).toBe(400);
+    expect((await futureRes.json()).detail).toMatch(/future/);
+    expect(await countOf("SELECT COUNT(*) AS n FROM stripe_events")).toBe(before);
+  });
+
   it("a refund that arrives before its payment still ends refunded; a late decline never undoes a payment", async () => {
-    const placed = await placeOrder();
-    const pi = `pi_${randomUUID().replaceAll("-", "")}`;
+    const placed = await placeAndStartPayment();
+    const pi = placed.pi ?? `pi_${randomUUID().replaceAll("-", "")}`;
     const refunded = {
       ...succeededEvent(placed.id, placed.amountCents, pi),
       type: "charge.refunded",
@@ -290,7 +347,10 @@ describe("webhooks", () => {
           amount: placed.amountCents,
           amount_refunded: placed.amountCents,
           metadata: { auditOrderId: String(placed.id) },
-          refunds: { object: "list", data: [{ id: `re_${randomUUID().slice(0, 8)}`, object: "refund", amount: placed.amountCents }] },
+          refunds: {
+            object: "list",
+            data: [{ id: `re_${randomUUID().slice(0, 8)}`, object: "refund", amount: placed.amountCents, currency: "eur" }],
+          },
         },
       },
     };
@@ -318,7 +378,7 @@ describe("webhooks", () => {
   });
 
   it("the fake retries a delivery the app did not acknowledge", async () => {
-    const placed = await placeOrder();
+    const placed = await placeAndStartPayment();
     const { url } = (await finance.agent.post(B(`/audit-orders/${placed.id}/checkout`)).set("x-csrf-token", finance.csrf)).body;
     // Point the fake at a closed port first: every attempt fails until it is pointed back.
     fake.webhooks.point("http://127.0.0.1:9/api/webhooks/stripe");

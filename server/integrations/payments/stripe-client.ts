@@ -25,15 +25,29 @@ export function stripe(): Stripe {
   return client.stripe;
 }
 
-/** Verifies Stripe-Signature over the raw bytes; stale (over 300 s) or wrong signatures are refused with 400. */
+const SIGNATURE_TOLERANCE_SECONDS = 300;
+
+/**
+ * Verifies Stripe-Signature over the raw bytes and the event's shape. Wrong signatures, and
+ * signatures dated more than 300 s from now either way (the SDK checks only the past), are refused
+ * with 400, and so is a signed event without an id, a type or a data object.
+ */
 export function verifiedEvent(rawBody: unknown, signature: string | undefined): Stripe.Event {
   if (!Buffer.isBuffer(rawBody) || rawBody.length === 0) throw badRequest("Send the event as application/json.");
   if (!signature) throw badRequest("The Stripe-Signature header is missing.");
+  const signedAt = Number(/(?:^|,)t=(\d+)/.exec(signature)?.[1]);
+  if (Number.isFinite(signedAt) && signedAt - Date.now() / 1000 > SIGNATURE_TOLERANCE_SECONDS)
+    throw badRequest("The webhook signature is dated in the future; check the sender's clock.");
+  let event: Stripe.Event;
   try {
-    return stripe().webhooks.constructEvent(rawBody, signature, serviceSettings().stripe.webhookSecret, 300);
+    event = stripe().webhooks.constructEvent(rawBody, signature, serviceSettings().stripe.webhookSecret, SIGNATURE_TOLERANCE_SECONDS);
   } catch (err) {
     throw badRequest(`The webhook signature does not verify: ${err instanceof Error ? err.message.split("\n")[0] : "unknown error"}`);
   }
+  const e = event as unknown as { id?: unknown; type?: unknown; data?: { object?: unknown } };
+  if (typeof e.id !== "string" || typeof e.type !== "string" || typeof e.data?.object !== "object" || e.data.object === null)
+    throw badRequest("The event has no id, type or data object.");
+  return event;
 }
 
 /** A Stripe failure as an HTTP answer: card errors are the payer's to fix (402), the rest is the service's (502). */

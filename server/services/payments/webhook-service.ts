@@ -22,6 +22,7 @@ import { serviceSettings } from "../../settings.ts";
 import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { receiptMail, refundMail } from "../../integrations/mail/payment-templates.ts";
 import { formatMoney, orderReference, orderStatus } from "../../../shared/audits/vocabulary.ts";
+import { mismatchWith } from "./event-checks.ts";
 
 export interface AppliedEvent {
   duplicate: boolean;
@@ -67,17 +68,41 @@ async function apply(t: Transaction, event: Stripe.Event): Promise<string> {
       const order = await orderOf(t, s);
       if (!order) return "no matching order";
       if (s.payment_status !== "paid" || typeof s.payment_intent !== "string") return "session not paid";
-      return recordPayment(t, order, s.payment_intent, s.amount_total ?? 0);
+      const why = mismatchWith(order, {
+        kind: "payment",
+        metadataOrderId: s.metadata?.auditOrderId,
+        sessionId: s.id,
+        paymentIntentId: s.payment_intent,
+        currency: s.currency,
+        amountCents: s.amount_total,
+      });
+      return why ? await refused(t, event, order, why) : recordPayment(t, order, s.payment_intent, s.amount_total!);
     }
     case "payment_intent.succeeded": {
       const pi = event.data.object;
       const order = await orderOf(t, pi);
-      return order ? recordPayment(t, order, pi.id, pi.amount_received) : "no matching order";
+      if (!order) return "no matching order";
+      const why = mismatchWith(order, {
+        kind: "payment",
+        metadataOrderId: pi.metadata?.auditOrderId,
+        paymentIntentId: pi.id,
+        currency: pi.currency,
+        amountCents: pi.amount_received,
+      });
+      return why ? await refused(t, event, order, why) : recordPayment(t, order, pi.id, pi.amount_received);
     }
     case "payment_intent.payment_failed": {
       const pi = event.data.object;
       const order = await orderOf(t, pi);
       if (!order) return "no matching order";
+      const why = mismatchWith(order, {
+        kind: "failure",
+        metadataOrderId: pi.metadata?.auditOrderId,
+        paymentIntentId: pi.id,
+        currency: pi.currency,
+        amountCents: pi.amount,
+      });
+      if (why) return await refused(t, event, order, why);
       const err = pi.last_payment_error;
       const ref = typeof err?.charge === "string" ? err.charge : event.id;
       return recordFailure(t, order, ref, pi.amount, [err?.message, err?.decline_code].filter(Boolean).join(" — ") || "payment failed");
@@ -88,12 +113,31 @@ async function apply(t: Transaction, event: Stripe.Event): Promise<string> {
       if (!order) return "no matching order";
       const refunds = charge.refunds?.data ?? [];
       const outcomes = [];
-      for (const r of refunds) outcomes.push(await recordRefund(t, order, r.id, r.amount));
+      for (const r of refunds) {
+        const why = mismatchWith(order, {
+          kind: "refund",
+          metadataOrderId: charge.metadata?.auditOrderId,
+          paymentIntentId: typeof charge.payment_intent === "string" ? charge.payment_intent : null,
+          currency: r.currency,
+          amountCents: r.amount,
+        });
+        // A refund already recorded is a duplicate, not a mismatch: its amount is in refundedCents already.
+        const known = await AuditPayment.findOne({ where: { kind: "refund", stripeRef: r.id }, transaction: t });
+        outcomes.push(
+          known ? "refund already recorded" : why ? await refused(t, event, order, why) : await recordRefund(t, order, r.id, r.amount),
+        );
+      }
       return outcomes.join(", ") || "no refund listed";
     }
     default:
       return "ignored";
   }
+}
+
+/** An event that does not fit its order changes nothing on it; the order's trail records what came and why it was refused. */
+async function refused(t: Transaction, event: Stripe.Event, order: AuditOrder, why: string): Promise<string> {
+  await audit(t, order, "payment.event_refused", { event: event.id, type: event.type, why });
+  return "refused: does not fit the order";
 }
 
 async function claimPayment(
