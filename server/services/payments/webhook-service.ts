@@ -22,7 +22,7 @@ import { serviceSettings } from "../../settings.ts";
 import { contractInclude, type ContractWithParties } from "../specs/spec-access.ts";
 import { receiptMail, refundMail } from "../../integrations/mail/payment-templates.ts";
 import { formatMoney, orderReference, orderStatus } from "../../../shared/audits/vocabulary.ts";
-import { mismatchWith } from "./event-checks.ts";
+import { mismatchWith, type EventClaims } from "./event-checks.ts";
 
 export interface AppliedEvent {
   duplicate: boolean;
@@ -61,6 +61,15 @@ async function orderOf(t: Transaction, object: PaymentObject): Promise<AuditOrde
   return pi ? AuditOrder.findOne({ where: { paymentIntentId: pi }, transaction: t, lock: t.LOCK.UPDATE }) : null;
 }
 
+/** What a PaymentIntent event says of its order, for the cross-check. */
+const intentClaims = (pi: Stripe.PaymentIntent, kind: EventClaims["kind"], amountCents: number): EventClaims => ({
+  kind,
+  metadataOrderId: pi.metadata?.auditOrderId,
+  paymentIntentId: pi.id,
+  currency: pi.currency,
+  amountCents,
+});
+
 async function apply(t: Transaction, event: Stripe.Event): Promise<string> {
   switch (event.type) {
     case "checkout.session.completed": {
@@ -82,26 +91,14 @@ async function apply(t: Transaction, event: Stripe.Event): Promise<string> {
       const pi = event.data.object;
       const order = await orderOf(t, pi);
       if (!order) return "no matching order";
-      const why = mismatchWith(order, {
-        kind: "payment",
-        metadataOrderId: pi.metadata?.auditOrderId,
-        paymentIntentId: pi.id,
-        currency: pi.currency,
-        amountCents: pi.amount_received,
-      });
+      const why = mismatchWith(order, intentClaims(pi, "payment", pi.amount_received));
       return why ? await refused(t, event, order, why) : recordPayment(t, order, pi.id, pi.amount_received);
     }
     case "payment_intent.payment_failed": {
       const pi = event.data.object;
       const order = await orderOf(t, pi);
       if (!order) return "no matching order";
-      const why = mismatchWith(order, {
-        kind: "failure",
-        metadataOrderId: pi.metadata?.auditOrderId,
-        paymentIntentId: pi.id,
-        currency: pi.currency,
-        amountCents: pi.amount,
-      });
+      const why = mismatchWith(order, intentClaims(pi, "failure", pi.amount));
       if (why) return await refused(t, event, order, why);
       const err = pi.last_payment_error;
       const ref = typeof err?.charge === "string" ? err.charge : event.id;
