@@ -101,7 +101,8 @@ export function registerDeviationRoutes(r: RouteRegistry, opts: { attachmentMaxB
     },
     async ({ params, res }) => {
       const a = await queries.readAttachment(params.orgId, params.attachmentId);
-      res.status(200).type(a.mime).attachment(a.filename).send(a.body);
+      // attachment() would set the type from the file name; the type detected at upload goes last and wins.
+      res.status(200).attachment(a.filename).type(a.mime).send(a.body);
     },
   );
   deviationsRoutes.post(

@@ -136,7 +136,8 @@ export function registerLotRoutes(r: RouteRegistry, opts: { certificateMaxBytes:
     },
     async ({ params, res }) => {
       const c = await readCertificate(params.orgId, params.certificateId);
-      res.status(200).type(c.mime).attachment(c.filename).setHeader("X-Content-Type-Options", "nosniff");
+      // attachment() would set the type from the file name; the type detected at upload goes last and wins.
+      res.status(200).attachment(c.filename).type(c.mime).setHeader("X-Content-Type-Options", "nosniff");
       res.send(c.body);
     },
   );

@@ -9,6 +9,7 @@ import request from "supertest";
 import { randomUUID } from "node:crypto";
 import { buildTestApp, DEMO, getPdf, ORG, signInAs, type SignedInAgent, type TestApp, CONTRACT } from "../support/api.ts";
 import { signed, succeededEvent, TEST_WEBHOOK_SECRET } from "../support/stripe-events.ts";
+import { paymentStarted } from "../support/factories.ts";
 import { matchPath } from "react-router-dom";
 import { ROUTES } from "../../shared/paths.ts";
 
@@ -87,6 +88,7 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 async function pay() {
+  await paymentStarted(orderId);
   const { payload, header } = signed(succeededEvent(orderId, amount));
   const res = await request(t.app)
     .post("/api/webhooks/stripe")
@@ -246,6 +248,16 @@ describe("the laboratory's side", () => {
     expect(cert.originalName).toBe("NG-26-1187.pdf");
     expect((await tech.agent.get(B(`/certificates/${cert.id}`))).status).toBe(200);
     expect((await lab.agent.get(L(`/certificates/${cert.id}`))).status).toBe(200);
+    // Served with the type found in its bytes at upload, whatever its name says (OWASP File Upload Cheat Sheet).
+    const own = withReport.body.analyses.find((a: { auditOrderId: number | null }) => a.auditOrderId === null);
+    const misnamed = await producer.agent
+      .post(P(`/analyses/${own.id}/certificates`))
+      .set("x-csrf-token", producer.csrf)
+      .attach("file", Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n"), "NG-26-1188.html");
+    expect(misnamed.status).toBe(201);
+    const servedAs = await producer.agent.get(P(`/certificates/${misnamed.body.id}`));
+    expect(servedAs.headers["content-type"]).toMatch(/^application\/pdf/);
+    expect(servedAs.headers["content-disposition"]).toContain("NG-26-1188.html");
     // Regression: the laboratory reads back the values it sent, and the buyer's order links its signed report.
     const labView = (await lab.agent.get(L(`/audit-orders/${orderId}`))).body;
     const sentValues = Object.fromEntries(

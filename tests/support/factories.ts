@@ -7,6 +7,7 @@
  * seeder's `useDemoServices`).
  */
 import { randomUUID } from "node:crypto";
+import { AuditOrder } from "../../server/models/audit-order.ts";
 import { User } from "../../server/models/user.ts";
 import { toSessionUser, type SessionUser } from "../../server/services/session-service.ts";
 import { createContract } from "../../server/services/specs/contract-service.ts";
@@ -224,6 +225,16 @@ export async function decided(buyer: Party, deviationId: number, decision: Decis
 /** A laboratory's price list, in cents per parameter. */
 export async function priced(lab: Party, prices: [parameter: ParameterId, cents: number][]) {
   return setPriceList(lab.orgId, lab.user, { items: prices.map(([parameter, priceCents]) => ({ parameter, priceCents })) });
+}
+
+/**
+ * The order's payment started, as the checkout service records the Checkout Session Stripe opened;
+ * for tests that deliver signed events without running the Stripe fake. Only such an order can be paid.
+ */
+export async function paymentStarted(orderId: number): Promise<string> {
+  const sessionId = `cs_test_${randomUUID().replaceAll("-", "")}`;
+  await AuditOrder.update({ checkoutSessionId: sessionId }, { where: { id: orderId } });
+  return sessionId;
 }
 
 /** An audit order the buyer placed and has not paid yet. */
