@@ -37,7 +37,6 @@ export function createApp(config: Config, logger: Logger): { app: Express; regis
   const cookies: CookieSettings = { secret: config.JWT_SECRET, hours: config.SESSION_HOURS, secure: config.COOKIE_SECURE };
   const limits = {
     perIp: config.LOGIN_LIMIT_PER_IP,
-    perAccount: config.LOGIN_LIMIT_PER_ACCOUNT,
     windowMinutes: config.LOGIN_WINDOW_MINUTES,
   };
 

@@ -28,6 +28,8 @@ export class AppError extends Error {
     readonly title: string,
     readonly detail?: string,
     readonly errors?: FieldError[],
+    /** For a refusal that passes: how long the client should wait before trying again. */
+    readonly retryAfterSeconds?: number,
   ) {
     super(detail ?? title);
   }
@@ -44,7 +46,8 @@ export const conflict = (detail: string) => new AppError("conflict", "Conflict",
 export const gone = (detail: string) => new AppError("gone", "Gone", detail);
 export const tooLarge = (detail: string) => new AppError("too_large", "Payload too large", detail);
 export const unsupportedMedia = (detail: string) => new AppError("unsupported_media", "Unsupported media type", detail);
-export const tooManyRequests = (detail: string) => new AppError("rate_limited", "Too many requests", detail);
+export const tooManyRequests = (detail: string, retryAfterSeconds?: number) =>
+  new AppError("rate_limited", "Too many requests", detail, undefined, retryAfterSeconds);
 export const paymentDeclined = (detail: string) => new AppError("payment_declined", "Payment declined", detail);
 export const upstreamFailed = (title: string, detail: string) => new AppError("upstream_failed", title, detail);
 export const unavailable = (detail: string) => new AppError("unavailable", "Service unavailable", detail);

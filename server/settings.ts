@@ -6,6 +6,8 @@ export interface ServiceSettings {
   appUrl: string;
   bcryptCost: number;
   certificateDir: string;
+  /** Failed sign-ins a subject may make before each further one doubles its wait (server/services/sign-in-throttle.ts). */
+  signInFreeFailures: number;
   /** Where the stripe SDK sends its requests (a local fake outside production) and the webhook signing secret. */
   stripe: { secretKey: string; webhookSecret: string; host: string; port: number; protocol: "http" | "https" };
 }
@@ -17,6 +19,7 @@ export function settingsFrom(config: Config): ServiceSettings {
     appUrl: config.APP_URL,
     bcryptCost: config.BCRYPT_COST,
     certificateDir: path.resolve(config.CERTIFICATE_DIR),
+    signInFreeFailures: config.LOGIN_LIMIT_PER_ACCOUNT,
     stripe: {
       secretKey: config.STRIPE_SECRET_KEY,
       webhookSecret: config.STRIPE_WEBHOOK_SECRET,

@@ -73,6 +73,7 @@ export function errorHandler(production: boolean): ErrorRequestHandler {
       detail: known?.detail ?? "Something went wrong on our side. The request id identifies it in the server log.",
       extra,
       ...(known?.kind === "unavailable" ? { retryAfterSeconds: 30 } : {}),
+      ...(known?.retryAfterSeconds ? { retryAfterSeconds: known.retryAfterSeconds } : {}),
     });
   };
 }

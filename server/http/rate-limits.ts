@@ -1,17 +1,19 @@
-/** Login throttling per client address and per account; only failed attempts count. */
+/**
+ * Login throttling per client address; only failed attempts count. Per account, the growing delays
+ * of server/services/sign-in-throttle.ts apply instead, which cannot lock the owner out.
+ */
 import { rateLimit, ipKeyGenerator } from "express-rate-limit";
 import type { RequestHandler } from "express";
 import { tooManyRequests } from "../errors.ts";
 
 export interface LimitSettings {
   perIp: number;
-  perAccount: number;
   windowMinutes: number;
 }
 
 export function signInLimiters(s: LimitSettings): RequestHandler[] {
   const windowMs = s.windowMinutes * 60_000;
-  const message = `Too many failed sign-in attempts. Wait ${s.windowMinutes} minutes, or reset your password.`;
+  const message = `Too many failed sign-in attempts from this address. Wait ${s.windowMinutes} minutes.`;
   const common = {
     windowMs,
     skipSuccessfulRequests: true,
@@ -19,17 +21,7 @@ export function signInLimiters(s: LimitSettings): RequestHandler[] {
     legacyHeaders: false,
     handler: (_req: unknown, _res: unknown, next: (e: unknown) => void) => next(tooManyRequests(message)),
   };
-  return [
-    rateLimit({ ...common, limit: s.perIp, keyGenerator: (req) => `ip:${ipKeyGenerator(req.ip ?? "")}` }),
-    rateLimit({
-      ...common,
-      limit: s.perAccount,
-      keyGenerator: (req) =>
-        `account:${String(req.body?.email ?? "")
-          .trim()
-          .toLowerCase()}`,
-    }),
-  ];
+  return [rateLimit({ ...common, limit: s.perIp, keyGenerator: (req) => `ip:${ipKeyGenerator(req.ip ?? "")}` })];
 }
 
 /** Mail-sending public routes (password reset) get a plain per-address limit. */

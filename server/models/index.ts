@@ -30,6 +30,7 @@ import { DeviationMessage } from "./deviation-message.ts";
 import { DeviationMessageEdit } from "./deviation-message-edit.ts";
 import { Notification } from "./notification.ts";
 import { NotificationPreference } from "./notification-preference.ts";
+import { SignInThrottle } from "./sign-in-throttle.ts";
 
 export function initModels(sequelize: Sequelize): void {
   for (const m of [
@@ -58,6 +59,7 @@ export function initModels(sequelize: Sequelize): void {
     DeviationAttachment,
     Notification,
     NotificationPreference,
+    SignInThrottle,
     LabPrice,
     AuditOrder,
     AuditOrderLot,

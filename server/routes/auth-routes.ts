@@ -2,6 +2,7 @@ import { z } from "zod";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { PUBLIC, SIGNED_IN } from "../http/access.ts";
 import { endSession, startSession, type CookieSettings } from "../http/session.ts";
+import { knownDevice, rememberDevice } from "../http/known-device.ts";
 import {
   acceptInvitationSchema,
   changePasswordSchema,
@@ -26,8 +27,10 @@ export function registerAuthRoutes(r: RouteRegistry, cookies: CookieSettings): v
       body: signInSchema,
       errors: { 401: "wrong e-mail or password (same message for both)", 429: "too many failed attempts" },
     },
-    async ({ body, res }) => {
-      const { user, sessionVersion } = await auth.signIn(body.email, body.password);
+    async ({ body, req, res }) => {
+      const device = knownDevice(req, cookies.secret, body.email);
+      const { user, sessionVersion } = await auth.signIn(body.email, body.password, device);
+      rememberDevice(res, cookies, body.email, device);
       const csrfToken = startSession(res, cookies, user.id, sessionVersion);
       return { user, csrfToken };
     },

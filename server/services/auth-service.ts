@@ -12,6 +12,7 @@ import { serviceSettings } from "../settings.ts";
 import { gone, unauthorized, validationFailed } from "../errors.ts";
 import { toSessionUser, type SessionUser } from "./session-service.ts";
 import { assertStrongPassword } from "./password-policy.ts";
+import { assertMayTry, clearSubject, liftAccount, recordFailure, throttleSubject } from "./sign-in-throttle.ts";
 
 export const SIGN_IN_FAILED = "The e-mail address or the password is not right.";
 const RESET_MINUTES = 60;
@@ -33,10 +34,21 @@ export function hashNewPassword(password: string, owner: { email: string; name?:
   return bcrypt.hash(password, serviceSettings().bcryptCost);
 }
 
-export async function signIn(email: string, password: string): Promise<{ user: SessionUser; sessionVersion: number }> {
+/**
+ * `knownDevice` is the id of a browser that signed in to this account before (its cookie checked by
+ * the caller); its failures are counted apart from everyone else's.
+ */
+export async function signIn(
+  email: string,
+  password: string,
+  knownDevice: string | null = null,
+): Promise<{ user: SessionUser; sessionVersion: number }> {
+  const subject = throttleSubject(email, knownDevice);
+  await assertMayTry(subject);
   const user = await User.findOne({ where: { email } });
   const ok = await bcrypt.compare(password, user?.passwordHash ?? dummyHash());
   if (!user || !user.passwordHash || !ok) {
+    await recordFailure(subject, serviceSettings().signInFreeFailures);
     await inTransaction((t) =>
       recordTrail(t, {
         actorUserId: null,
@@ -49,6 +61,7 @@ export async function signIn(email: string, password: string): Promise<{ user: S
     );
     throw unauthorized(SIGN_IN_FAILED);
   }
+  await clearSubject(subject);
   const sessionUser = await toSessionUser(user);
   await inTransaction((t) =>
     recordTrail(t, {
@@ -129,6 +142,7 @@ export async function resetPassword(token: string, password: string): Promise<vo
       entityId: user.id,
     });
   });
+  await liftAccount(owner.email);
 }
 
 export async function changePassword(userId: number, current: string, next: string): Promise<number> {

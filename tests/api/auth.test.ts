@@ -5,9 +5,11 @@ import { DEMO, DEMO_PASSWORD, ORG, signInAs } from "../support/api.ts";
 import { linkIn } from "../support/mail.ts";
 import { mail, openAppAndMail, t } from "../support/app-and-mail.ts";
 import bcrypt from "bcryptjs";
+import { QueryTypes } from "sequelize";
 import { randomUUID } from "node:crypto";
 import { changePassword, dummyHash, SIGN_IN_FAILED } from "../../server/services/auth-service.ts";
 import { member, party } from "../support/factories.ts";
+import { recordFailure } from "../../server/services/sign-in-throttle.ts";
 
 openAppAndMail();
 
@@ -32,20 +34,81 @@ describe("sign-in", () => {
     expect(wrong.body.detail).toBe(unknown.body.detail);
   });
 
-  it("when one account fails too often, then further attempts are refused with 429 even with the right password", async () => {
-    const email = DEMO.bulkProducerQuality;
-    for (let i = 0; i < 5; i++) {
-      expect(
-        (
-          await request(t.app)
-            .post("/api/auth/sign-in")
-            .send({ email, password: `wrong-${i}` })
-        ).status,
-      ).toBe(401);
+  // The test config gives 5 free failures (vite.config.ts); each test uses people of its own, as the waits are kept in the database.
+  /** Wrong passwords from one client (with this cookie, if any): 401 while free, 429 once the account waits. */
+  const fail = async (email: string, times: number, cookie?: string) => {
+    for (let i = 0; i < times; i++) {
+      const res = await request(t.app)
+        .post("/api/auth/sign-in")
+        .set("Cookie", cookie ?? "")
+        .send({ email, password: `Wrong-guess-${i}-x` });
+      expect([401, 429]).toContain(res.status);
     }
-    const blocked = await request(t.app).post("/api/auth/sign-in").send({ email, password: DEMO_PASSWORD });
+  };
+  /** Signs in with the right password and answers the device cookie the browser would keep. */
+  const deviceCookieOf = async (email: string, password: string) => {
+    const res = await request(t.app).post("/api/auth/sign-in").send({ email, password });
+    expect(res.status).toBe(200);
+    const cookie = (res.headers["set-cookie"] as unknown as string[]).find((c) => c.startsWith("cp_device="));
+    expect(cookie).toMatch(/HttpOnly/);
+    return cookie!.split(";")[0]!;
+  };
+  const someone = async () => {
+    const buyer = await party(DEMO.buyerTechnologist, "buyer_technologist");
+    const password = `Cellar-door-${randomUUID()}`;
+    return { ...(await member(buyer.orgId, "buyer_finance", { password })), password };
+  };
+
+  it("when an unknown client fails past the free attempts, then it waits with a growing delay, even with the right password (OWASP ASVS 5.0 V6.3)", async () => {
+    const p = await someone();
+    await fail(p.user.email, 6);
+    const blocked = await request(t.app).post("/api/auth/sign-in").send({ email: p.user.email, password: p.password });
     expect(blocked.status).toBe(429);
-    expect(blocked.body.detail).toMatch(/Too many failed sign-in attempts/);
+    expect(Number(blocked.headers["retry-after"])).toBeGreaterThan(20);
+    expect(Number(blocked.headers["retry-after"])).toBeLessThanOrEqual(30);
+    expect(blocked.body.detail).toMatch(/Too many failed sign-in attempts\. Try again in \d+ seconds, or reset your password\./);
+    // Each further failure doubles the wait: 30 s after the sixth, 60 s after the seventh.
+    const waitOf = async () => {
+      const [row] = await t.sequelize.query<{ until: Date }>("SELECT blocked_until AS until FROM sign_in_throttles WHERE subject = ?", {
+        replacements: [`account:${p.user.email}`],
+        type: QueryTypes.SELECT,
+      });
+      return (new Date(row!.until).getTime() - Date.now()) / 1000;
+    };
+    expect(await waitOf()).toBeLessThanOrEqual(30);
+    await recordFailure(`account:${p.user.email}`, 5);
+    expect(await waitOf()).toBeGreaterThan(30);
+    expect(await waitOf()).toBeLessThanOrEqual(60);
+  });
+
+  it("when an attacker fails on the account from elsewhere, then the owner's browser that signed in before is not slowed", async () => {
+    const p = await someone();
+    const ownersBrowser = await deviceCookieOf(p.user.email, p.password);
+    await fail(p.user.email, 9);
+    expect((await request(t.app).post("/api/auth/sign-in").send({ email: p.user.email, password: p.password })).status).toBe(429);
+    const owner = await request(t.app)
+      .post("/api/auth/sign-in")
+      .set("Cookie", ownersBrowser)
+      .send({ email: p.user.email, password: p.password });
+    expect(owner.status).toBe(200);
+  });
+
+  it("when a browser's device cookie was earned on another account, then it vouches for nothing here", async () => {
+    const [mine, victim] = [await someone(), await someone()];
+    const attackersBrowser = await deviceCookieOf(mine.user.email, mine.password);
+    await fail(victim.user.email, 6, attackersBrowser);
+    expect((await request(t.app).post("/api/auth/sign-in").send({ email: victim.user.email, password: victim.password })).status).toBe(429);
+  });
+
+  it("when the owner completes a password reset, then every wait on the account is lifted", async () => {
+    const p = await someone();
+    await fail(p.user.email, 7);
+    await request(t.app).post("/api/auth/password-reset/request").send({ email: p.user.email });
+    await mail.deliver();
+    const token = linkIn(mail.to(p.user.email).at(-1)!.text, "/reset-password");
+    const fresh = `Cellar-key-${randomUUID()}`;
+    expect((await request(t.app).post("/api/auth/password-reset").send({ token, password: fresh })).status).toBe(200);
+    expect((await request(t.app).post("/api/auth/sign-in").send({ email: p.user.email, password: fresh })).status).toBe(200);
   });
 });
 

@@ -28,6 +28,7 @@ useServiceSettings({
   appUrl: "http://127.0.0.1",
   bcryptCost: 4,
   certificateDir: path.join(root, ".data/bench-certificates"),
+  signInFreeFailures: 8,
   stripe: { secretKey: "sk_test_bench", webhookSecret: "whsec_bench_not_used", host: "127.0.0.1", port: 12111, protocol: "http" },
 });
 await dropAllTables(sequelize);
