@@ -31,7 +31,10 @@ useDatabase(sequelize);
 await sequelize.authenticate();
 
 const { app } = createApp(config, logger);
+// Pooled: a few connections kept open and reused, instead of a handshake per message.
 const transport = nodemailer.createTransport({
+  pool: true,
+  maxConnections: 5,
   host: config.SMTP_HOST,
   port: config.SMTP_PORT,
   secure: false,

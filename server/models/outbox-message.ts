@@ -12,6 +12,11 @@ const columns = {
   nextAttemptAt: required<Date>(DataTypes.DATE(3)),
   lastError: optional<string>(DataTypes.STRING(500)),
   sentAt: optional<Date>(DataTypes.DATE(3)),
+  /** 0 for mail someone waits for (reset, invitation, receipt), 1 for notifications; lower goes first. */
+  priority: defaulted<number>(DataTypes.TINYINT, 0),
+  /** Notifications on one thread for one person share a key; a waiting mail takes in the next update. */
+  coalesceKey: optional<string>(DataTypes.STRING(200)),
+  updates: defaulted<number>(DataTypes.INTEGER, 1),
   ...timestamps,
 };
 

@@ -60,6 +60,10 @@ export async function notify(
       to: u.email,
       subject: n.title,
       text: `${n.body}\n\n${serviceSettings().appUrl}${n.link}\n\nYou can change which notifications reach you by e-mail on your Cellarpact profile page.`,
+      kind: "notification",
+      // A busy thread's comments and proposals arrive together, one waiting mail per person and thread;
+      // a mention, a decision or a deadline always has a mail of its own.
+      ...(n.kind === "comment" ? { coalesceKey: `${u.id}:${n.link}` } : {}),
     });
   }
 }
@@ -127,6 +131,7 @@ export async function sendDigests(now = new Date()): Promise<number> {
         to: user.email,
         subject: `Cellarpact: ${pending.length} update${pending.length === 1 ? "" : "s"} since yesterday`,
         text: pending.map((n) => `• ${n.title}\n  ${serviceSettings().appUrl}${n.link}`).join("\n"),
+        kind: "notification",
       });
       await Notification.update({ digestedAt: now }, { where: { id: pending.map((n) => n.id) }, transaction: t });
       sent += 1;
