@@ -6,7 +6,7 @@ import type { RouteRegistry } from "../http/route-registry.ts";
 import { allowed } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
 import { TRAIL_EXPORT_MAX, trailQuerySchema } from "../../shared/trail/schemas.ts";
-import { listOrganisationTrail, pageOrganisationTrail, verifyTrailChain } from "../services/trail/trail-service.ts";
+import { listOrganisationTrail, pageOrganisationTrail, verifyOrganisationEntries } from "../services/trail/trail-service.ts";
 import { historyFor } from "../services/trail/trail-access.ts";
 import { HISTORY_ENTITY_TYPES } from "../../shared/trail/history.ts";
 
@@ -72,7 +72,12 @@ export function registerTrailRoutes(r: RouteRegistry): void {
 
   routes.get(
     "/api/orgs/:orgId/trail/verify",
-    { summary: "Verify the whole hash chain and report the first broken entry", access: PARTIES, params: orgParams },
-    () => verifyTrailChain(),
+    {
+      summary:
+        "Verify the entries about your organisation (their hashes and their links into the chain); the whole chain is the platform admin's",
+      access: PARTIES,
+      params: orgParams,
+    },
+    ({ params }) => verifyOrganisationEntries(params.orgId),
   );
 }

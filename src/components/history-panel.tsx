@@ -34,7 +34,7 @@ export function HistoryPanel({ orgId, entityType, entityId }: { orgId: number; e
       {verify.data?.ok && (
         <div className="mt-2">
           <Notice tone="success">
-            The chain is intact: {verify.data.checked} entries recomputed, the last one matches the checkpoint.
+            The chain is intact: all {verify.data.checked} entries about your organisation recomputed and linked into the chain.
           </Notice>
         </div>
       )}

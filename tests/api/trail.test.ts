@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import { buildTestApp, DEMO, type TestApp } from "../support/api.ts";
+import { buildTestApp, DEMO, signInAs, type TestApp } from "../support/api.ts";
 import { party } from "../support/factories.ts";
 import { inTransaction } from "../../server/db/database.ts";
-import { recordTrail, verifyTrailChain, GENESIS_HASH } from "../../server/services/trail/trail-service.ts";
+import { recordTrail, verifyOrganisationEntries, verifyTrailChain, GENESIS_HASH } from "../../server/services/trail/trail-service.ts";
 import { sha256 } from "../../server/lib/crypto.ts";
 
 let t: TestApp;
@@ -43,8 +43,10 @@ async function restore(s: Snapshot) {
 }
 
 let base: Snapshot;
+let buyerOrg: number;
 beforeAll(async () => {
   const someone = await party(DEMO.buyerTechnologist, "buyer_technologist");
+  buyerOrg = someone.orgId;
   for (let i = 0; i < 5; i++) {
     await inTransaction((tx) =>
       recordTrail(tx, {
@@ -116,5 +118,48 @@ describe("the hash-chained trail (RFC 9162 §2.1-style chaining; OWASP ASVS V16 
     const v = await verifyTrailChain();
     expect(v.ok).toBe(false);
     expect(v.firstBroken?.seq).toBe(seq);
+  });
+});
+
+describe("an organisation's own entries", () => {
+  const ofBuyer = () => base.events.filter((e) => Number(e.organisation_id) === buyerOrg);
+  const lastOfBuyer = () => Number(ofBuyer().at(-1)!.seq);
+
+  it("when nothing was touched, then every entry about the organisation checks, and only those", async () => {
+    const v = await verifyOrganisationEntries(buyerOrg);
+    expect(v).toMatchObject({ ok: true, checked: ofBuyer().length });
+    expect(v.checked).toBeLessThan(base.events.length);
+  });
+
+  it("when one of its entries is changed, then that entry is reported", async () => {
+    const seq = Number(ofBuyer().at(-2)!.seq);
+    await sql("UPDATE trail_entries SET details = '{\"i\":42}' WHERE seq = ?", [seq]);
+    expect((await verifyOrganisationEntries(buyerOrg)).firstBroken?.seq).toBe(seq);
+  });
+
+  it("when one of its entries is rewritten with a recomputed hash, then the link of the entry after it exposes it", async () => {
+    const seq = Number(ofBuyer().at(-2)!.seq);
+    const row = base.events.find((e) => Number(e.seq) === seq)!;
+    await sql("UPDATE trail_entries SET hash = ? WHERE seq = ?", [sha256(`forged${row.hash}`), seq]);
+    const v = await verifyOrganisationEntries(buyerOrg);
+    expect(v.ok).toBe(false);
+    expect([seq, seq + 1]).toContain(v.firstBroken?.seq);
+  });
+
+  it("when its latest entry is cut off the tail, then the checkpoint catches it", async () => {
+    await sql("DELETE FROM trail_entries WHERE seq >= ?", [lastOfBuyer()]);
+    expect((await verifyOrganisationEntries(buyerOrg)).ok).toBe(false);
+  });
+
+  it("when a member asks the API, then it checks their organisation's entries, not the platform's chain", async () => {
+    const tech = await signInAs(t.app, DEMO.buyerTechnologist);
+    // Signing in is itself recorded, so the count is read after it.
+    const [{ n }] = (await t.sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM trail_entries WHERE organisation_id = ?", {
+      replacements: [buyerOrg],
+      type: QueryTypes.SELECT,
+    })) as [{ n: number }];
+    const v = (await tech.agent.get(`/api/orgs/${buyerOrg}/trail/verify`)).body;
+    expect(v).toMatchObject({ ok: true, checked: Number(n) });
+    expect(Number(n)).toBeLessThan(Number(v.lastSeq));
   });
 });

@@ -141,6 +141,53 @@ export async function verifyTrailChain(batchSize = 2000): Promise<ChainVerificat
   return { ok: true, checked, lastSeq };
 }
 
+/**
+ * What a member may check without reading anyone else's records: every entry about their own
+ * organisation recomputes to its hash, and is linked both ways into the chain — its link matches
+ * the hash of the entry before it, and the entry after it links to it — and the checkpoint is not
+ * behind it. Only the neighbours' hashes are read. Cost grows with the organisation's own entries,
+ * not the platform's; the whole chain is the platform admin's to walk.
+ */
+export async function verifyOrganisationEntries(organisationId: number, batchSize = 2000): Promise<ChainVerification> {
+  const head = await TrailHead.findByPk(1);
+  let checked = 0;
+  let after = 0;
+  const broken = (seq: number, reason: string): ChainVerification => ({
+    ok: false,
+    checked,
+    lastSeq: head?.lastSeq ?? 0,
+    firstBroken: { seq, reason },
+  });
+  for (;;) {
+    const rows = await TrailEntry.findAll({
+      where: { organisationId, seq: { [Op.gt]: after } },
+      order: [["seq", "ASC"]],
+      limit: batchSize,
+    });
+    if (rows.length === 0) break;
+    const neighbours = await TrailEntry.findAll({
+      where: { seq: [...new Set(rows.flatMap((r) => [r.seq - 1, r.seq + 1]))] },
+      attributes: ["seq", "hash", "prevHash"],
+      raw: true,
+    });
+    const bySeq = new Map(neighbours.map((n) => [n.seq, n]));
+    for (const row of rows) {
+      if (entryHash(row) !== row.hash) return broken(row.seq, "its content does not match its hash");
+      const before = row.seq === 1 ? GENESIS_HASH : bySeq.get(row.seq - 1)?.hash;
+      if (before === undefined) return broken(row.seq - 1, `entry ${row.seq - 1} before it is missing`);
+      if (row.prevHash !== before) return broken(row.seq, "its link to the previous entry does not match");
+      const next = bySeq.get(row.seq + 1);
+      if (next && next.prevHash !== row.hash) return broken(row.seq + 1, `the entry after ${row.seq} does not link to it`);
+      if (!next && (!head || head.lastSeq !== row.seq || head.lastHash !== row.hash))
+        return broken(row.seq + 1, `entry ${row.seq} has no successor, yet the checkpoint records entry ${head?.lastSeq ?? 0}`);
+      checked += 1;
+      after = row.seq;
+    }
+  }
+  if (!head) return broken(after, "the checkpoint row is missing");
+  return { ok: true, checked, lastSeq: head.lastSeq };
+}
+
 export interface AuditFilters {
   action?: string;
   entityType?: string;
