@@ -102,18 +102,20 @@ export async function recordTrails(t: Transaction, inputs: TrailInput[]): Promis
   return entries.map((e) => e.seq);
 }
 
+const brokenAt = (head: TrailHead | null, checked: number, seq: number, reason: string): ChainVerification => ({
+  ok: false,
+  checked,
+  lastSeq: head?.lastSeq ?? 0,
+  firstBroken: { seq, reason },
+});
+
 /** Walks the whole chain in order; reports the first entry that does not match, or a tail that was cut. */
 export async function verifyTrailChain(batchSize = 2000): Promise<ChainVerification> {
   const head = await TrailHead.findByPk(1);
   let prevHash = GENESIS_HASH;
   let expectedSeq = 1;
   let checked = 0;
-  const broken = (seq: number, reason: string): ChainVerification => ({
-    ok: false,
-    checked,
-    lastSeq: head?.lastSeq ?? 0,
-    firstBroken: { seq, reason },
-  });
+  const broken = (seq: number, reason: string) => brokenAt(head, checked, seq, reason);
   for (;;) {
     const rows = await TrailEntry.findAll({
       where: { seq: { [Op.gte]: expectedSeq } },
@@ -152,12 +154,7 @@ export async function verifyOrganisationEntries(organisationId: number, batchSiz
   const head = await TrailHead.findByPk(1);
   let checked = 0;
   let after = 0;
-  const broken = (seq: number, reason: string): ChainVerification => ({
-    ok: false,
-    checked,
-    lastSeq: head?.lastSeq ?? 0,
-    firstBroken: { seq, reason },
-  });
+  const broken = (seq: number, reason: string) => brokenAt(head, checked, seq, reason);
   for (;;) {
     const rows = await TrailEntry.findAll({
       where: { organisationId, seq: { [Op.gt]: after } },
