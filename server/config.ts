@@ -47,6 +47,8 @@ const schema = z
       .int()
       .min(1024)
       .default(32 * 1024 * 1024),
+    // The key that signs the trail's tree heads lives in a file, not in the database it vouches for.
+    TRAIL_SIGNING_KEY_FILE: z.string().default(".data/trail-signing-key.pem"),
     // Outside the web root: certificates are only ever served by the download route.
     CERTIFICATE_DIR: z.string().default(".data/certificates"),
     CERTIFICATE_MAX_BYTES: z.coerce

@@ -9,6 +9,7 @@ import { startOutboxWorker } from "./integrations/mail/outbox.ts";
 import { sendDigests } from "./services/notification-service.ts";
 import { warnApproachingDeadlines } from "./services/deviations/deadline-job.ts";
 import { answerClientErrors } from "./http/client-errors.ts";
+import { mailDailyTreeHead } from "./services/trail/tree-head-mail.ts";
 
 let config: Config;
 try {
@@ -53,11 +54,12 @@ const worker = startOutboxWorker(
   (err) => logger.warn({ err }, "outbox pass failed"),
 );
 
-// Hourly housekeeping: daily digests (each user at most once a day) and deadline warnings.
+// Hourly housekeeping: daily digests (each user at most once a day), deadline warnings, the daily signed trail head.
 const housekeeping = setInterval(
   () => {
     void sendDigests().catch((err) => logger.warn({ err }, "digest pass failed"));
     void warnApproachingDeadlines().catch((err) => logger.warn({ err }, "deadline pass failed"));
+    void mailDailyTreeHead().catch((err) => logger.warn({ err }, "tree head pass failed"));
   },
   60 * 60 * 1000,
 );

@@ -6,6 +6,8 @@ export interface ServiceSettings {
   appUrl: string;
   bcryptCost: number;
   certificateDir: string;
+  /** The Ed25519 key that signs the trail's tree heads: a PEM file outside the database, made on first use. */
+  trailSigningKeyFile: string;
   /** Failed sign-ins a subject may make before each further one doubles its wait (server/services/sign-in-throttle.ts). */
   signInFreeFailures: number;
   /** Where the stripe SDK sends its requests (a local fake outside production) and the webhook signing secret. */
@@ -20,6 +22,7 @@ export function settingsFrom(config: Config): ServiceSettings {
     bcryptCost: config.BCRYPT_COST,
     certificateDir: path.resolve(config.CERTIFICATE_DIR),
     signInFreeFailures: config.LOGIN_LIMIT_PER_ACCOUNT,
+    trailSigningKeyFile: path.resolve(config.TRAIL_SIGNING_KEY_FILE),
     stripe: {
       secretKey: config.STRIPE_SECRET_KEY,
       webhookSecret: config.STRIPE_WEBHOOK_SECRET,

@@ -31,6 +31,7 @@ import { DeviationMessageEdit } from "./deviation-message-edit.ts";
 import { Notification } from "./notification.ts";
 import { NotificationPreference } from "./notification-preference.ts";
 import { SignInThrottle } from "./sign-in-throttle.ts";
+import { TrailTreeHead } from "./trail-tree-head.ts";
 
 export function initModels(sequelize: Sequelize): void {
   for (const m of [
@@ -60,6 +61,7 @@ export function initModels(sequelize: Sequelize): void {
     Notification,
     NotificationPreference,
     SignInThrottle,
+    TrailTreeHead,
     LabPrice,
     AuditOrder,
     AuditOrderLot,

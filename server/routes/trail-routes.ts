@@ -3,9 +3,10 @@ import Papa from "papaparse";
 import { CSV_BOM, CSV_EXPORT_OPTIONS } from "../../shared/csv-export.ts";
 import { actionLabel, detailsText } from "../../shared/trail/vocabulary.ts";
 import type { RouteRegistry } from "../http/route-registry.ts";
-import { allowed } from "../http/access.ts";
+import { allowed, PUBLIC } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
-import { TRAIL_EXPORT_MAX, trailQuerySchema } from "../../shared/trail/schemas.ts";
+import { consistencyQuerySchema, inclusionQuerySchema, TRAIL_EXPORT_MAX, trailQuerySchema } from "../../shared/trail/schemas.ts";
+import { consistencyProof, currentTreeHead, inclusionProof, signingKey } from "../services/trail/tree-heads.ts";
 import { listOrganisationTrail, pageOrganisationTrail, verifyOrganisationEntries } from "../services/trail/trail-service.ts";
 import { historyFor } from "../services/trail/trail-access.ts";
 import { HISTORY_ENTITY_TYPES } from "../../shared/trail/history.ts";
@@ -79,5 +80,38 @@ export function registerTrailRoutes(r: RouteRegistry): void {
       params: orgParams,
     },
     ({ params }) => verifyOrganisationEntries(params.orgId),
+  );
+
+  routes.get("/api/trail/public-key", { summary: "The Ed25519 public key that signs the trail's tree heads", access: PUBLIC }, () => {
+    const key = signingKey();
+    return { algorithm: "Ed25519", keyId: key.keyId, publicKeyPem: key.publicKeyPem };
+  });
+
+  routes.get(
+    "/api/orgs/:orgId/trail/tree-head",
+    { summary: "A signed head of the trail now (size, Merkle root, time), to keep", access: PARTIES, params: orgParams },
+    () => currentTreeHead(),
+  );
+
+  routes.get(
+    "/api/orgs/:orgId/trail/inclusion",
+    {
+      summary: "Proof that an entry about your organisation is in the tree of a given size (RFC 9162 §2.1.3)",
+      access: PARTIES,
+      params: orgParams,
+      query: inclusionQuerySchema,
+    },
+    ({ params, query }) => inclusionProof(params.orgId, query.seq, query.treeSize),
+  );
+
+  routes.get(
+    "/api/orgs/:orgId/trail/consistency",
+    {
+      summary: "Proof that the tree of `to` entries extends the one of `from` entries unchanged (RFC 9162 §2.1.4)",
+      access: PARTIES,
+      params: orgParams,
+      query: consistencyQuerySchema,
+    },
+    ({ query }) => consistencyProof(query.from, query.to),
   );
 }

@@ -18,3 +18,14 @@ export const trailQuerySchema = z.object({
 
 export const TRAIL_EXPORT_MAX = 10_000;
 export type TrailQuery = z.infer<typeof trailQuerySchema>;
+
+const position = (what: string) =>
+  z.coerce
+    .number({ error: `Give ${what} as a whole number.` })
+    .int({ error: `Give ${what} as a whole number.` })
+    .min(1, { error: `${what} starts at 1.` });
+
+/** Which entry, in a tree of which size, an inclusion proof is asked for. */
+export const inclusionQuerySchema = z.object({ seq: position("the entry's sequence number"), treeSize: position("the tree size") });
+/** The two tree sizes a consistency proof joins. */
+export const consistencyQuerySchema = z.object({ from: position("the earlier tree size"), to: position("the later tree size") });

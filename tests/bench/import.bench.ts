@@ -29,6 +29,7 @@ useServiceSettings({
   bcryptCost: 4,
   certificateDir: path.join(root, ".data/bench-certificates"),
   signInFreeFailures: 8,
+  trailSigningKeyFile: path.join(root, ".data/bench-trail-key.pem"),
   stripe: { secretKey: "sk_test_bench", webhookSecret: "whsec_bench_not_used", host: "127.0.0.1", port: 12111, protocol: "http" },
 });
 await dropAllTables(sequelize);

@@ -48,6 +48,20 @@ describe("each demo role signs in and sees its own navigation", () => {
     });
   }
 
+  it("when an organisation admin takes a signed head of the trail, then its size, root and key show and it can be kept", async () => {
+    await signInThroughForm(s.page, s.baseUrl, DEMO.retailerAdmin);
+    await s.page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Trail" }).click();
+    await s.page.getByRole("button", { name: "Take a signed head" }).click();
+    await s.page.getByText("Merkle root", { exact: true }).waitFor();
+    await s.page.getByText(/^Ed25519 [0-9a-f]{16}…$/).waitFor();
+    const download = s.page.waitForEvent("download");
+    await s.page.getByRole("button", { name: "Download it" }).click();
+    expect((await download).suggestedFilename()).toMatch(/^trail-head-\d+\.json$/);
+    await expectAccessible(s.page, "trail with a signed head");
+    await screenshot(s.page, "trail-signed-head");
+    await signOut(s.page);
+  });
+
   it("when a signed-out visitor opens a deep link, then sign-in comes first and leads back there", async () => {
     await s.page.goto(`${s.baseUrl}/profile`);
     await s.page.getByRole("heading", { name: "Sign in" }).waitFor();

@@ -14,6 +14,7 @@ import { EmptyState, QueryStatus } from "../../components/ui/states.tsx";
 import { actionLabel, detailsText } from "../../../shared/trail/vocabulary.ts";
 import { can } from "../../../shared/auth/permissions.ts";
 import { DataTable, Row, Cell } from "../../components/ui/table.tsx";
+import { TreeHeadPanel } from "./tree-head-panel.tsx";
 
 export function ActivityPage() {
   const { orgId, membership } = useOrganisation();
@@ -106,6 +107,7 @@ export function ActivityPage() {
             <MoreRows query={entries} noun="entries" />
           </>
         )}
+        <TreeHeadPanel orgId={orgId} />
       </Card>
     </>
   );
