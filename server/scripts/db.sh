@@ -27,7 +27,12 @@ ensure_installed() {
   DEBIAN_FRONTEND=noninteractive apt-get install -y -q mariadb-server >/dev/null
 }
 
-running() { [ -f "$PIDFILE" ] && kill -0 "$(cat "$PIDFILE")" 2>/dev/null; }
+# A server killed outright can linger a moment as a zombie; that one is not running.
+running() {
+  [ -f "$PIDFILE" ] || return 1
+  local pid; pid="$(cat "$PIDFILE")"
+  kill -0 "$pid" 2>/dev/null && [ "$(awk '{print $3}' "/proc/$pid/stat" 2>/dev/null)" != "Z" ]
+}
 
 start() {
   ensure_installed
