@@ -264,7 +264,8 @@ export async function up({ context: qi }: MigrationParams<QueryInterface>) {
   );
   await qi.bulkInsert(
     "contracts",
-    CONTRACTS.map((c) => ({ ...c, ...stamps })),
+    // The demo's producers accepted their contracts when they were opened.
+    CONTRACTS.map((c) => ({ ...c, ...stamps, producer_accepted_at: stamps.created_at })),
   );
   await qi.bulkInsert(
     "spec_versions",

@@ -8,9 +8,11 @@ export const ROUTES = {
   deviation: "/deviations/:deviationId",
   lot: "/lots/:lotId",
   spec: "/specs/:specId",
+  contract: "/contracts/:contractId",
 } as const;
 
 export const orderPath = (id: number) => `/audits/${id}`;
 export const deviationPath = (id: number) => `/deviations/${id}`;
 export const lotPath = (id: number) => `/lots/${id}`;
 export const specPath = (id: number) => `/specs/${id}`;
+export const contractPath = (id: number) => `/contracts/${id}`;

@@ -9,6 +9,9 @@ const columns = {
   wineId: required<number>(DataTypes.INTEGER),
   startsOn: required<string>(DataTypes.DATEONLY),
   endsOn: optional<string>(DataTypes.DATEONLY),
+  /** When the producer's admin accepted the contract; no spec version reaches the producer before. */
+  producerAcceptedAt: optional<Date>(DataTypes.DATE(3)),
+  producerAcceptedBy: optional<number>(DataTypes.INTEGER),
   ...timestamps,
 };
 

@@ -15,7 +15,7 @@ import {
 import * as queries from "../services/specs/spec-queries.ts";
 import * as lifecycle from "../services/specs/spec-lifecycle.ts";
 import { specSheetPdf } from "../services/specs/spec-pdf.ts";
-import { createContract, listProducers, updateLawFacts } from "../services/specs/contract-service.ts";
+import { acceptContract, createContract, listProducers, updateLawFacts } from "../services/specs/contract-service.ts";
 import { lawFactsUpdateSchema } from "../../shared/specs/law-facts.ts";
 
 const orgParams = z.object({ orgId: idParam });
@@ -59,6 +59,18 @@ export function registerSpecRoutes(r: RouteRegistry): void {
     "/api/orgs/:orgId/contracts/:contractId",
     { summary: "One contract with its spec versions", access: PARTIES, params: contractParams },
     ({ params, membership }) => queries.getContract(params.orgId, params.contractId, membership!.role),
+  );
+
+  routes.post(
+    "/api/orgs/:orgId/contracts/:contractId/accept",
+    {
+      summary: "The producer's admin accepts the contract, so that its spec versions can reach the producer",
+      access: allowed("contracts.accept"),
+      params: contractParams,
+      status: 204,
+      errors: { 403: "not the producer", 409: "accepted already" },
+    },
+    ({ params, user }) => acceptContract(params.orgId, params.contractId, user),
   );
 
   routes.put(

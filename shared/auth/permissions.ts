@@ -16,6 +16,8 @@ export const PERMISSIONS = {
   /** The organisation itself and its members' names. */
   "organisation.read": ROLES,
   "members.manage": [ADMIN],
+  /** Accept a contract a retailer opened with the organisation (a producer's admin). */
+  "contracts.accept": [ADMIN],
   "specs.read": [BUYER_TECH, BUYER_FINANCE, PRODUCER, ADMIN],
   /** Open contracts, draft, send and withdraw spec versions, state a wine's facts for the law. */
   "specs.draft": [BUYER_TECH],

@@ -21,6 +21,8 @@ export interface ContractView {
   reference: string;
   startsOn: string;
   endsOn: string | null;
+  /** When the producer's admin accepted the contract; null while it waits for them. */
+  producerAcceptedAt: string | null;
   retailer: { id: number; name: string };
   producer: { id: number; name: string };
   wine: {
@@ -73,6 +75,8 @@ export interface ContractWithVersions extends ContractView {
 export interface ContractDetail extends ContractWithVersions {
   side: "buyer" | "producer";
   canCreateVersion: boolean;
+  /** The producer's admin may accept the contract (it waits for them). */
+  canAccept: boolean;
 }
 
 export interface SpecCommentView {

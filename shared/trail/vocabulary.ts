@@ -25,6 +25,7 @@ export const ACTION_LABELS = {
   "membership.role_changed": "Role changed",
   "membership.removed": "Member removed",
   "contract.created": "Contract opened",
+  "contract.accepted": "Contract accepted by the producer",
   "wine.law_facts_changed": "Wine's facts for the law changed",
   "spec.version_created": "Spec version started",
   "spec.draft_saved": "Spec draft saved",

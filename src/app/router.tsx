@@ -37,7 +37,7 @@ const router = createBrowserRouter([
         lazy: () => import("../features/specs/compare-page.tsx").then((m) => ({ Component: m.ComparePage })),
       },
       {
-        path: "contracts/:contractId",
+        path: ROUTES.contract.slice(1),
         lazy: () => import("../features/specs/contract-page.tsx").then((m) => ({ Component: m.ContractPage })),
       },
       { path: "lots", lazy: () => import("../features/lots/lots-page.tsx").then((m) => ({ Component: m.LotsPage })) },

@@ -75,7 +75,7 @@ export async function startBareServer(config: Config) {
   /** Contracts with wine and parties, as the spec and lot pages show them. */
   const contractRows = (where: string, values: unknown[]): Promise<Record<string, unknown>[]> =>
     pool.query(
-      `SELECT c.id, c.reference, c.starts_on, c.ends_on, c.retailer_org_id, r.name AS retailer_name, c.producer_org_id, p.name AS producer_name,
+      `SELECT c.id, c.reference, c.starts_on, c.ends_on, c.producer_accepted_at, c.retailer_org_id, r.name AS retailer_name, c.producer_org_id, p.name AS producer_name,
               w.id AS wine_id, w.name AS wine_name, w.colour, w.category, w.region, w.markets, w.nominal_sugar_g_per_l,
               w.nominal_alcohol_percent_vol, w.law_facts
          FROM contracts c JOIN wines w ON w.id = c.wine_id JOIN organisations r ON r.id = c.retailer_org_id
@@ -88,6 +88,7 @@ export async function startBareServer(config: Config) {
     reference: c.reference,
     startsOn: c.starts_on,
     endsOn: c.ends_on,
+    producerAcceptedAt: iso(c.producer_accepted_at),
     retailer: { id: c.retailer_org_id, name: c.retailer_name },
     producer: { id: c.producer_org_id, name: c.producer_name },
     wine: {

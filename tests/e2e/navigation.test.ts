@@ -62,6 +62,47 @@ describe("each demo role signs in and sees its own navigation", () => {
     await signOut(s.page);
   });
 
+  it("when a retailer opens a contract, then the producer's admin sees it waiting and accepts it", async () => {
+    // The retailer's technologist opens the contract over the API, as the new-contract form does.
+    const signIn = await fetch(`${s.baseUrl}/api/auth/sign-in`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ email: DEMO.buyerTechnologist, password: "Cellarpact-demo-2026" }),
+    });
+    const session = (await signIn.json()) as { csrfToken: string; user: { memberships: { organisationId: number }[] } };
+    const cookie = signIn.headers
+      .getSetCookie()
+      .map((c) => c.split(";")[0])
+      .join("; ");
+    const retailerId = session.user.memberships[0]!.organisationId;
+    const producers = (await (await fetch(`${s.baseUrl}/api/orgs/${retailerId}/producers`, { headers: { cookie } })).json()) as {
+      id: number;
+      name: string;
+    }[];
+    const reference = `E2E-${Date.now().toString(36)}`;
+    const opened = await fetch(`${s.baseUrl}/api/orgs/${retailerId}/contracts`, {
+      method: "POST",
+      headers: { cookie, "x-csrf-token": session.csrfToken, "content-type": "application/json" },
+      body: JSON.stringify({
+        reference,
+        producerOrgId: producers.find((p) => p.name.startsWith("Domaine des Trois Sentes"))!.id,
+        startsOn: "2027-01-01",
+        wine: { name: "Sentier Gris", colour: "rose", category: "still", region: "Loire Valley", markets: ["EU"] },
+      }),
+    });
+    expect(opened.status).toBe(201);
+    const { id } = (await opened.json()) as { id: number };
+
+    await signInThroughForm(s.page, s.baseUrl, DEMO.producerAdmin);
+    await s.page.goto(`${s.baseUrl}/contracts/${id}`);
+    await s.page.getByText(/No specification reaches you until your organisation's admin accepts the contract/).waitFor();
+    await expectAccessible(s.page, "contract waiting for acceptance");
+    await screenshot(s.page, "contract-to-accept");
+    await s.page.getByRole("button", { name: "Accept the contract" }).click();
+    await s.page.getByRole("button", { name: "Accept the contract" }).waitFor({ state: "detached" });
+    await signOut(s.page);
+  });
+
   it("when a signed-out visitor opens a deep link, then sign-in comes first and leads back there", async () => {
     await s.page.goto(`${s.baseUrl}/profile`);
     await s.page.getByRole("heading", { name: "Sign in" }).waitFor();

@@ -9,8 +9,9 @@
 import { randomUUID } from "node:crypto";
 import { AuditOrder } from "../../server/models/audit-order.ts";
 import { User } from "../../server/models/user.ts";
+import { Membership } from "../../server/models/membership.ts";
 import { toSessionUser, type SessionUser } from "../../server/services/session-service.ts";
-import { createContract } from "../../server/services/specs/contract-service.ts";
+import { acceptContract, createContract } from "../../server/services/specs/contract-service.ts";
 import { agree, createVersion, saveDraft, sendToProducer } from "../../server/services/specs/spec-lifecycle.ts";
 import { getVersion } from "../../server/services/specs/spec-queries.ts";
 import { registerLot, submitAnalysis } from "../../server/services/lots/submission-service.ts";
@@ -111,8 +112,15 @@ export async function agreedContract(
   return { contractId, versionId, reference };
 }
 
-/** A contract the buyer opened with the producer, with no spec version yet. */
-export async function contract(buyer: Party, producer: Party, opts: { wine?: Partial<NewContractInput["wine"]>; reference?: string } = {}) {
+/**
+ * A contract the buyer opened with the producer and the producer's admin accepted (unless
+ * `accepted: false`), with no spec version yet.
+ */
+export async function contract(
+  buyer: Party,
+  producer: Party,
+  opts: { wine?: Partial<NewContractInput["wine"]>; reference?: string; accepted?: boolean } = {},
+) {
   const reference = opts.reference ?? `F-${randomUUID().slice(0, 8)}`;
   const { id: contractId } = await createContract(buyer.orgId, buyer.user, {
     reference,
@@ -121,7 +129,15 @@ export async function contract(buyer: Party, producer: Party, opts: { wine?: Par
     endsOn: null,
     wine: { ...WINE, ...opts.wine },
   });
+  if (opts.accepted !== false) await acceptContract(producer.orgId, contractId, (await adminOf(producer.orgId)).user);
   return { contractId, reference };
+}
+
+/** The organisation's admin: its first one, or one invited for the purpose. */
+export async function adminOf(orgId: number): Promise<Party> {
+  const first = await Membership.findOne({ where: { organisationId: orgId, role: "org_admin" }, order: [["id", "ASC"]] });
+  if (!first) return member(orgId, "org_admin");
+  return { user: await toSessionUser((await User.findByPk(first.userId))!), orgId, role: "org_admin" };
 }
 
 interface VersionOptions {

@@ -9,6 +9,35 @@ import { contractFor } from "./spec-access.ts";
 import { lawFactsText, type WineLawFacts } from "../../../shared/specs/law-facts.ts";
 import type { NewContractInput } from "../../../shared/specs/schemas.ts";
 import type { SessionUser } from "../session-service.ts";
+import { notify, usersWithRoles } from "../notification-service.ts";
+import { contractPath } from "../../../shared/paths.ts";
+
+/**
+ * The producer's admin accepts a contract a retailer opened with them: from then on the retailer's
+ * spec versions reach the producer. A retailer cannot bind a producer alone.
+ */
+export async function acceptContract(orgId: number, contractId: number, user: SessionUser): Promise<void> {
+  await inTransaction(async (t) => {
+    const { contract, side } = await contractFor(orgId, contractId, t);
+    if (side !== "producer") throw forbidden("Only the producer accepts a contract.");
+    if (contract.producerAcceptedAt) throw conflict(`Contract ${contract.reference} was accepted already.`);
+    await Contract.update({ producerAcceptedAt: new Date(), producerAcceptedBy: user.id }, { where: { id: contract.id }, transaction: t });
+    await recordTrail(t, {
+      actorUserId: user.id,
+      organisationId: orgId,
+      action: "contract.accepted",
+      entityType: "contract",
+      entityId: contract.id,
+      details: { reference: contract.reference, retailer: contract.retailer.name },
+    });
+    await notify(t, await usersWithRoles([contract.retailerOrgId], ["buyer_technologist"], t), {
+      kind: "spec",
+      title: `${contract.producer.name} accepted contract ${contract.reference}`,
+      body: `You can now send ${contract.producer.name} the specification for ${contract.wine.name}.`,
+      link: contractPath(contract.id),
+    });
+  });
+}
 
 /** Producers a buyer can contract with. */
 export async function listProducers() {
@@ -59,6 +88,13 @@ export async function createContract(retailerOrgId: number, user: SessionUser, i
       entityId: contract.id,
       after: input,
       details: { reference: input.reference, wine: w.name, producer: producer.name },
+    });
+    const retailer = (await Organisation.findByPk(retailerOrgId, { transaction: t }))!;
+    await notify(t, await usersWithRoles([producer.id], ["org_admin"], t), {
+      kind: "spec",
+      title: `${retailer.name} opened contract ${input.reference} for ${w.name}: accept it to receive its specifications`,
+      body: `${retailer.name} names your organisation as the producer of ${w.name} under contract ${input.reference}. No specification reaches you until you accept.`,
+      link: contractPath(contract.id),
     });
     return { id: contract.id };
   });

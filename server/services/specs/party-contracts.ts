@@ -14,6 +14,7 @@ const party = (prefix: string) =>
 
 const SELECT = `
   SELECT c.id, c.reference, c.retailer_org_id, c.producer_org_id, c.wine_id, c.starts_on, c.ends_on, c.created_at, c.updated_at,
+         c.producer_accepted_at, c.producer_accepted_by,
          w.name AS w_name, w.colour AS w_colour, w.category AS w_category, w.region AS w_region, w.markets AS w_markets,
          w.nominal_sugar_g_per_l AS w_sugar, w.nominal_alcohol_percent_vol AS w_alcohol, w.law_facts AS w_law_facts,
          w.created_at AS w_created_at, w.updated_at AS w_updated_at,
@@ -43,6 +44,8 @@ function contractOf(row: Row): ContractWithParties {
     wineId: row.wine_id,
     startsOn: row.starts_on,
     endsOn: row.ends_on,
+    producerAcceptedAt: row.producer_accepted_at,
+    producerAcceptedBy: row.producer_accepted_by,
     createdAt: row.created_at,
     updatedAt: row.updated_at,
     wine: {

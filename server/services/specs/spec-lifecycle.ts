@@ -159,6 +159,10 @@ export async function sendToProducer(orgId: number, specId: number, user: Sessio
     const { version, contract, side } = await versionFor(orgId, specId, t, true);
     if (side !== "buyer") throw notFound("The spec version");
     if (version.status !== "draft") throw conflict("Only a draft can be sent.");
+    if (!contract.producerAcceptedAt)
+      throw conflict(
+        `${contract.producer.name} has not accepted contract ${contract.reference} yet; a spec reaches them once their admin accepts it.`,
+      );
     assertSendable(contract, version, await requirementsOf(specId, t));
     await version.update({ status: "with_producer", sentAt: new Date(), lockVersion: version.lockVersion + 1 }, { transaction: t });
     await audit(t, user, orgId, "spec.sent", version);

@@ -107,6 +107,7 @@ export async function getContract(orgId: number, contractId: number, role: Role)
     ...contractView(contract),
     side,
     canCreateVersion: side === "buyer" && can(role, "specs.draft"),
+    canAccept: side === "producer" && !contract.producerAcceptedAt && can(role, "contracts.accept"),
     versions: versions.filter((v) => !(side === "producer" && v.status === "draft")).map(versionSummary),
   };
 }

@@ -24,6 +24,7 @@ export const contractView = (c: ContractWithParties): ContractView => ({
   reference: c.reference,
   startsOn: c.startsOn,
   endsOn: c.endsOn,
+  producerAcceptedAt: c.producerAcceptedAt ? new Date(c.producerAcceptedAt).toISOString() : null,
   retailer: { id: c.retailer.id, name: c.retailer.name },
   producer: { id: c.producer.id, name: c.producer.name },
   wine: {

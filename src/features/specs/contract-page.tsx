@@ -10,6 +10,7 @@ import { Button } from "../../components/ui/button.tsx";
 import { SelectField } from "../../components/ui/field.tsx";
 import { StatusBadge } from "./status-badge.tsx";
 import { LawFactsCard } from "./law-facts-card.tsx";
+import { ContractAcceptance } from "./contract-acceptance.tsx";
 import { SPEC_TEMPLATES } from "../../../shared/specs/templates.ts";
 import { COLOUR_LABELS, STAGE_LABELS, WINE_CATEGORY_LABELS } from "../../../shared/specs/vocabulary.ts";
 import { MARKET_PACKS } from "../../../shared/engine/index.ts";
@@ -53,6 +54,9 @@ export function ContractPage() {
           </div>
         }
       />
+      <div className="mb-6 empty:hidden">
+        <ContractAcceptance orgId={orgId} contract={c} />
+      </div>
       <div className="grid gap-6 lg:grid-cols-3">
         <div className="flex flex-col gap-6 lg:col-span-1">
           <Card title="The wine">
