@@ -5,8 +5,14 @@ import { actionLabel, detailsText } from "../../shared/trail/vocabulary.ts";
 import type { RouteRegistry } from "../http/route-registry.ts";
 import { allowed, PUBLIC } from "../http/access.ts";
 import { idParam } from "../../shared/ids.ts";
-import { consistencyQuerySchema, inclusionQuerySchema, TRAIL_EXPORT_MAX, trailQuerySchema } from "../../shared/trail/schemas.ts";
-import { consistencyProof, currentTreeHead, inclusionProof, signingKey } from "../services/trail/tree-heads.ts";
+import {
+  consistencyQuerySchema,
+  inclusionQuerySchema,
+  keptTreeHeadSchema,
+  TRAIL_EXPORT_MAX,
+  trailQuerySchema,
+} from "../../shared/trail/schemas.ts";
+import { checkKeptHead, consistencyProof, currentTreeHead, inclusionProof, signingKey } from "../services/trail/tree-heads.ts";
 import { listOrganisationTrail, pageOrganisationTrail, verifyOrganisationEntries } from "../services/trail/trail-service.ts";
 import { historyFor } from "../services/trail/trail-access.ts";
 import { HISTORY_ENTITY_TYPES } from "../../shared/trail/history.ts";
@@ -113,5 +119,16 @@ export function registerTrailRoutes(r: RouteRegistry): void {
       query: consistencyQuerySchema,
     },
     ({ query }) => consistencyProof(query.from, query.to),
+  );
+
+  routes.post(
+    "/api/orgs/:orgId/trail/check-head",
+    {
+      summary: "Check a signed tree head you kept against the trail now (signature and consistency)",
+      access: PARTIES,
+      params: orgParams,
+      body: keptTreeHeadSchema,
+    },
+    ({ body }) => checkKeptHead(body),
   );
 }

@@ -29,3 +29,13 @@ const position = (what: string) =>
 export const inclusionQuerySchema = z.object({ seq: position("the entry's sequence number"), treeSize: position("the tree size") });
 /** The two tree sizes a consistency proof joins. */
 export const consistencyQuerySchema = z.object({ from: position("the earlier tree size"), to: position("the later tree size") });
+
+/** A signed tree head a party kept, sent back to be checked against the trail now. */
+export const keptTreeHeadSchema = z.object({
+  treeSize: z.number().int().min(0),
+  timestamp: z.string().min(1).max(40),
+  rootHash: z.string().regex(/^[0-9a-f]{64}$/, { error: "The root hash is 64 hexadecimal characters." }),
+  algorithm: z.literal("Ed25519"),
+  keyId: z.string().regex(/^[0-9a-f]{64}$/, { error: "The key id is 64 hexadecimal characters." }),
+  signature: z.string().min(1).max(200),
+});

@@ -49,3 +49,15 @@ export interface ConsistencyProof {
   toRoot: string;
   path: string[];
 }
+
+/** What checking a kept head against the trail now found. */
+export interface KeptHeadCheck {
+  /** Cellarpact's key signed exactly this head. */
+  signatureValid: boolean;
+  /** The trail now extends the kept head's tree unchanged (RFC 9162 §2.1.4 consistency). */
+  consistent: boolean;
+  keptSize: number;
+  currentSize: number;
+  /** Why not, when either is false. */
+  reason: string | null;
+}

@@ -15,7 +15,7 @@ import { recordTrail } from "../../server/services/trail/trail-service.ts";
 import { verifyTreeHead } from "../../server/services/trail/tree-heads.ts";
 import { mailDailyTreeHead } from "../../server/services/trail/tree-head-mail.ts";
 import { verifyConsistency, verifyInclusion } from "../../server/lib/merkle.ts";
-import type { ConsistencyProof, InclusionProof, SignedTreeHead } from "../../shared/trail/views.ts";
+import type { ConsistencyProof, InclusionProof, KeptHeadCheck, SignedTreeHead } from "../../shared/trail/views.ts";
 
 openAppAndMail();
 
@@ -95,6 +95,29 @@ describe("signed tree heads", () => {
     } finally {
       await t.sequelize.query("UPDATE trail_entries SET hash = ? WHERE seq = ?", { replacements: [early!.hash, early!.seq] });
     }
+  });
+
+  it("when a member sends back a head they kept, then it checks out; altered, cut or rewritten, it does not", async () => {
+    const kept = (await tech.agent.get(`/api/orgs/${orgId}/trail/tree-head`)).body as SignedTreeHead;
+    await record(2);
+    const check = async (head: SignedTreeHead) =>
+      (await tech.agent.post(`/api/orgs/${orgId}/trail/check-head`).set("x-csrf-token", tech.csrf).send(head)).body as KeptHeadCheck;
+    expect(await check(kept)).toMatchObject({ signatureValid: true, consistent: true, keptSize: kept.treeSize, reason: null });
+    expect(await check({ ...kept, treeSize: kept.treeSize - 1 })).toMatchObject({ signatureValid: false, consistent: false });
+
+    const [early] = await t.sequelize.query<{ seq: number; hash: string }>(
+      "SELECT seq, hash FROM trail_entries ORDER BY seq LIMIT 1 OFFSET 2",
+      {
+        type: QueryTypes.SELECT,
+      },
+    );
+    await t.sequelize.query("UPDATE trail_entries SET hash = ? WHERE seq = ?", { replacements: ["e".repeat(64), early!.seq] });
+    try {
+      expect((await check(kept)).reason).toMatch(/rewritten/);
+    } finally {
+      await t.sequelize.query("UPDATE trail_entries SET hash = ? WHERE seq = ?", { replacements: [early!.hash, early!.seq] });
+    }
+    expect(await check({ ...kept, rootHash: "x" } as SignedTreeHead)).toMatchObject({ status: 400 });
   });
 
   it("when the daily pass runs, then each organisation's admins get today's signed head by mail, once a day", async () => {

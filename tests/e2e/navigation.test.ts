@@ -56,7 +56,11 @@ describe("each demo role signs in and sees its own navigation", () => {
     await s.page.getByText(/^Ed25519 [0-9a-f]{16}…$/).waitFor();
     const download = s.page.waitForEvent("download");
     await s.page.getByRole("button", { name: "Download it" }).click();
-    expect((await download).suggestedFilename()).toMatch(/^trail-head-\d+\.json$/);
+    const kept = await download;
+    expect(kept.suggestedFilename()).toMatch(/^trail-head-\d+\.json$/);
+    // Sent back, the head checks out against the trail now.
+    await s.page.getByLabel("Check a head you kept").setInputFiles((await kept.path())!);
+    await s.page.getByText(/The head you kept is Cellarpact's, and the trail today/).waitFor();
     await expectAccessible(s.page, "trail with a signed head");
     await screenshot(s.page, "trail-signed-head");
     await signOut(s.page);

@@ -10,12 +10,12 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { QueryTypes } from "sequelize";
 import { database } from "../../db/database.ts";
-import { consistencyPath, inclusionPath, leafHash, rootOf } from "../../lib/merkle.ts";
+import { consistencyPath, inclusionPath, leafHash, rootOf, verifyConsistency } from "../../lib/merkle.ts";
 import { TrailEntry } from "../../models/trail-entry.ts";
 import { TrailTreeHead } from "../../models/trail-tree-head.ts";
 import { serviceSettings } from "../../settings.ts";
 import { badRequest, notFound } from "../../errors.ts";
-import type { InclusionProof, ConsistencyProof, SignedTreeHead } from "../../../shared/trail/views.ts";
+import type { InclusionProof, ConsistencyProof, KeptHeadCheck, SignedTreeHead } from "../../../shared/trail/views.ts";
 
 const VERSION = "cellarpact-tree-head-v1";
 
@@ -120,4 +120,40 @@ export async function publishDailyTreeHead(now = new Date()): Promise<SignedTree
     signature: head.signature,
   });
   return head;
+}
+
+/**
+ * Checks a head a party kept against the trail now: that Cellarpact's key signed it, and that the
+ * trail today extends that tree unchanged — a rewritten or cut history fails here, however well its
+ * hashes and checkpoint were recomputed.
+ */
+export async function checkKeptHead(kept: SignedTreeHead): Promise<KeptHeadCheck> {
+  const key = signingKey();
+  const tree = await leaves();
+  const result = (signatureValid: boolean, consistent: boolean, reason: string | null): KeptHeadCheck => ({
+    signatureValid,
+    consistent,
+    keptSize: kept.treeSize,
+    currentSize: tree.length,
+    reason,
+  });
+  if (kept.keyId !== key.keyId || !verifyTreeHead(kept, key.publicKeyPem))
+    return result(false, false, "Cellarpact's key did not sign this head as it stands; it was altered or is not Cellarpact's.");
+  if (kept.treeSize > tree.length)
+    return result(
+      true,
+      false,
+      `The trail holds ${tree.length} entries, fewer than the ${kept.treeSize} of the head you kept: entries were removed.`,
+    );
+  const proof = consistencyPath(tree, kept.treeSize);
+  const ok =
+    kept.treeSize === 0 ||
+    (kept.treeSize === tree.length
+      ? rootOf(tree).toString("hex") === kept.rootHash
+      : verifyConsistency(kept.treeSize, tree.length, Buffer.from(kept.rootHash, "hex"), rootOf(tree), proof));
+  return result(
+    true,
+    ok,
+    ok ? null : `The first ${kept.treeSize} entries are no longer the ones the head you kept was signed over: the history was rewritten.`,
+  );
 }

@@ -1,11 +1,23 @@
 import { useMutation } from "@tanstack/react-query";
-import { api } from "../../lib/api-client.ts";
+import { api, errorMessage } from "../../lib/api-client.ts";
 import { Button } from "../../components/ui/button.tsx";
-import type { SignedTreeHead } from "../../../shared/trail/views.ts";
+import { Notice } from "../../components/ui/states.tsx";
+import type { KeptHeadCheck, SignedTreeHead } from "../../../shared/trail/views.ts";
 
 /** Takes a signed head of the trail for the organisation to keep, and offers it as a file. */
 export function TreeHeadPanel({ orgId }: { orgId: number }) {
   const head = useMutation({ mutationFn: () => api<SignedTreeHead>(`/api/orgs/${orgId}/trail/tree-head`) });
+  const check = useMutation({
+    mutationFn: async (file: File) => {
+      let kept: unknown;
+      try {
+        kept = JSON.parse(await file.text());
+      } catch {
+        throw new Error(`${file.name} is not a signed head: it is not JSON.`);
+      }
+      return api<KeptHeadCheck>(`/api/orgs/${orgId}/trail/check-head`, { method: "POST", body: kept });
+    },
+  });
   const download = (h: SignedTreeHead) => {
     const url = URL.createObjectURL(new Blob([JSON.stringify(h, null, 2)], { type: "application/json" }));
     const a = Object.assign(document.createElement("a"), { href: url, download: `trail-head-${h.treeSize}.json` });
@@ -30,6 +42,31 @@ export function TreeHeadPanel({ orgId }: { orgId: number }) {
             Download it
           </Button>
         )}
+      </div>
+      <div className="mt-4">
+        <label className="text-sm font-semibold" htmlFor="kept-head">
+          Check a head you kept
+        </label>
+        <input
+          id="kept-head"
+          type="file"
+          accept="application/json,.json"
+          className="mt-1 block text-sm"
+          onChange={(e) => {
+            const file = e.target.files?.[0];
+            if (file) check.mutate(file);
+          }}
+        />
+        <div className="mt-2">
+          {check.data?.consistent && (
+            <Notice tone="success">
+              The head you kept is Cellarpact&apos;s, and the trail today ({check.data.currentSize} entries) extends its{" "}
+              {check.data.keptSize} entries unchanged.
+            </Notice>
+          )}
+          {check.data && !check.data.consistent && <Notice tone="error">{check.data.reason}</Notice>}
+          {check.isError && <Notice tone="error">{errorMessage(check.error)}</Notice>}
+        </div>
       </div>
       {head.data && (
         <div role="status">
