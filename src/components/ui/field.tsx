@@ -89,3 +89,24 @@ export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(funct
     </FieldShell>
   );
 });
+
+/** A file picker with its label; hands the chosen file on. */
+export function FileField({ label, accept, hint, onFile }: { label: string; accept: string; hint?: string; onFile: (file: File) => void }) {
+  return (
+    <FieldShell label={label} hint={hint}>
+      {({ inputId, describedBy }) => (
+        <input
+          id={inputId}
+          type="file"
+          accept={accept}
+          aria-describedby={describedBy}
+          className="text-sm"
+          onChange={(e) => {
+            const file = e.target.files?.[0];
+            if (file) onFile(file);
+          }}
+        />
+      )}
+    </FieldShell>
+  );
+}

@@ -7,7 +7,7 @@ import { useConfirm } from "../../components/ui/confirm-dialog.tsx";
 import Papa from "papaparse";
 import { useSubmitLabResults } from "./api/audits.ts";
 import { Button } from "../../components/ui/button.tsx";
-import { TextField } from "../../components/ui/field.tsx";
+import { FileField, TextField } from "../../components/ui/field.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import { ApiError, errorMessage } from "../../lib/api-client.ts";
 import { labResultsSchema } from "../../../shared/audits/schemas.ts";
@@ -113,18 +113,7 @@ export function LabResultsForm({ orgId, order, onSent }: { orgId: number; order:
           hint="e.g. your ISO/IEC 17025 number"
         />
         <TextField label="Report reference" value={reportReference} onChange={(e) => setReportReference(e.target.value)} />
-        <div className="flex flex-col gap-1">
-          <label htmlFor="lab-csv" className="text-sm font-semibold">
-            Fill from a CSV export
-          </label>
-          <input
-            id="lab-csv"
-            type="file"
-            accept=".csv,text/csv"
-            onChange={(e) => e.target.files?.[0] && readCsv(e.target.files[0])}
-            className="text-sm"
-          />
-        </div>
+        <FileField label="Fill from a CSV export" accept=".csv,text/csv" onFile={readCsv} />
       </div>
       {fileNote && <Notice>{fileNote}</Notice>}
       <DataTable headings={["Lot", "Parameter", "Result", "Unit", "U (k = 2)"]}>

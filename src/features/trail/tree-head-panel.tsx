@@ -1,6 +1,7 @@
 import { useMutation } from "@tanstack/react-query";
 import { api, errorMessage } from "../../lib/api-client.ts";
 import { Button } from "../../components/ui/button.tsx";
+import { FileField } from "../../components/ui/field.tsx";
 import { Notice } from "../../components/ui/states.tsx";
 import type { KeptHeadCheck, SignedTreeHead } from "../../../shared/trail/views.ts";
 
@@ -44,19 +45,7 @@ export function TreeHeadPanel({ orgId }: { orgId: number }) {
         )}
       </div>
       <div className="mt-4">
-        <label className="text-sm font-semibold" htmlFor="kept-head">
-          Check a head you kept
-        </label>
-        <input
-          id="kept-head"
-          type="file"
-          accept="application/json,.json"
-          className="mt-1 block text-sm"
-          onChange={(e) => {
-            const file = e.target.files?.[0];
-            if (file) check.mutate(file);
-          }}
-        />
+        <FileField label="Check a head you kept" accept="application/json,.json" onFile={(file) => check.mutate(file)} />
         <div className="mt-2">
           {check.data?.consistent && (
             <Notice tone="success">
